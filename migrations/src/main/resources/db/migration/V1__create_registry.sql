@@ -1,11 +1,11 @@
--- Registry of plants, units and sample points (issue: foundation; extended by later migrations).
+-- Registry of plants, units and sample points. Later migrations extend it; never edit an applied migration.
 CREATE TABLE plant (
     id          text PRIMARY KEY,
     name        text NOT NULL,
     created_at  timestamptz NOT NULL DEFAULT now()
 );
 
-CREATE TABLE unit (
+CREATE TABLE plant_unit (
     plant_id    text NOT NULL REFERENCES plant (id),
     id          text NOT NULL,
     name        text NOT NULL,
@@ -13,13 +13,16 @@ CREATE TABLE unit (
 );
 
 CREATE TABLE sample_point (
-    id                text PRIMARY KEY,
-    plant_id          text NOT NULL,
-    unit_id           text,
-    name              text NOT NULL,
-    cycle_location    text NOT NULL,
-    treatment_regime  text NOT NULL,
-    created_at        timestamptz NOT NULL DEFAULT now(),
-    FOREIGN KEY (plant_id) REFERENCES plant (id),
-    FOREIGN KEY (plant_id, unit_id) REFERENCES unit (plant_id, id)
+    id                         text PRIMARY KEY,
+    plant_id                   text NOT NULL REFERENCES plant (id),
+    unit_id                    text NOT NULL,
+    name                       text NOT NULL,
+    cycle_location             text NOT NULL,
+    treatment_regime           text NOT NULL,
+    operating_temperature_cel  double precision,
+    operating_pressure_mpa     double precision,
+    created_at                 timestamptz NOT NULL DEFAULT now(),
+    FOREIGN KEY (plant_id, unit_id) REFERENCES plant_unit (plant_id, id)
 );
+
+CREATE INDEX sample_point_plant_idx ON sample_point (plant_id, unit_id);

@@ -1,0 +1,50 @@
+package org.kwanta.service.system;
+
+import java.net.URI;
+import java.util.Map;
+import org.springframework.http.HttpStatus;
+
+/**
+ * A request the service refuses, with the problem type, title and any extra properties for the
+ * body.
+ */
+public class BadRequestException extends RuntimeException {
+
+  private static final long serialVersionUID = 1L;
+
+  private final HttpStatus status;
+  private final URI type;
+  private final String title;
+  private final transient Map<String, Object> properties;
+
+  public BadRequestException(
+      HttpStatus status, URI type, String title, String detail, Map<String, Object> properties) {
+    super(detail);
+    this.status = status;
+    this.type = type;
+    this.title = title;
+    this.properties = Map.copyOf(properties);
+  }
+
+  /** 400 with the generic bad-request type. */
+  public static BadRequestException of(String detail) {
+    return new BadRequestException(
+        HttpStatus.BAD_REQUEST, ProblemTypes.BAD_REQUEST, "Bad request", detail, Map.of());
+  }
+
+  public HttpStatus status() {
+    return status;
+  }
+
+  public URI type() {
+    return type;
+  }
+
+  public String title() {
+    return title;
+  }
+
+  public Map<String, Object> properties() {
+    return properties;
+  }
+}

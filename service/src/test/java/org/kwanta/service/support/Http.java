@@ -1,0 +1,57 @@
+package org.kwanta.service.support;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.time.Duration;
+
+/** A plain JDK HTTP client for tests against the running service. */
+public final class Http {
+
+  private static final HttpClient CLIENT =
+      HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+
+  private final String base;
+
+  public Http(int port) {
+    this.base = "http://localhost:" + port;
+  }
+
+  public HttpResponse<String> get(String path, String... headers) {
+    return send(HttpRequest.newBuilder(URI.create(base + path)).GET(), headers);
+  }
+
+  public HttpResponse<String> post(
+      String path, String contentType, String body, String... headers) {
+    return send(
+        HttpRequest.newBuilder(URI.create(base + path))
+            .header("Content-Type", contentType)
+            .POST(HttpRequest.BodyPublishers.ofString(body)),
+        headers);
+  }
+
+  public HttpResponse<String> method(String method, String path, String... headers) {
+    return send(
+        HttpRequest.newBuilder(URI.create(base + path))
+            .method(method, HttpRequest.BodyPublishers.noBody()),
+        headers);
+  }
+
+  private static HttpResponse<String> send(HttpRequest.Builder builder, String... headers) {
+    if (headers.length > 0) {
+      builder.headers(headers);
+    }
+    try {
+      return CLIENT.send(
+          builder.timeout(Duration.ofSeconds(60)).build(), HttpResponse.BodyHandlers.ofString());
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException(e);
+    }
+  }
+}

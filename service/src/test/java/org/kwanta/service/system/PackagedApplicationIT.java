@@ -1,0 +1,139 @@
+package org.kwanta.service.system;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.net.ServerSocket;
+import java.net.http.HttpResponse;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.ResultSet;
+import java.sql.Statement;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.kwanta.service.support.Http;
+import org.kwanta.service.support.TestDatabase;
+
+/**
+ * Runs the packaged jar (the README's run command) as a separate process. Flyway must migrate in
+ * the packaged application, not only in tests; the embedded database must keep its data across a
+ * restart.
+ */
+class PackagedApplicationIT {
+
+  private static Path jar() {
+    Path jar = Path.of(System.getProperty("kwanta.packaged-jar", "target/kwanta-service.jar"));
+    assertThat(jar).as("packaged application (run `mvn package` first)").exists();
+    return jar;
+  }
+
+  @Test
+  void migratesAnExternalDatabaseAtStart() throws Exception {
+    TestDatabase db = TestDatabase.get();
+    String url = db.createScratchDatabase("kwanta_packaged");
+    try {
+      int port = freePort();
+      Process app =
+          start(
+              port,
+              Map.of(
+                  "SPRING_DATASOURCE_URL", url,
+                  "SPRING_DATASOURCE_USERNAME", db.user(),
+                  "SPRING_DATASOURCE_PASSWORD", db.password()),
+              List.of());
+      try {
+        awaitHealthy(app, port);
+        try (Connection c = DriverManager.getConnection(url, db.user(), db.password());
+            Statement s = c.createStatement();
+            ResultSet rs =
+                s.executeQuery("SELECT count(*) FROM flyway_schema_history WHERE success")) {
+          rs.next();
+          assertThat(rs.getInt(1)).isPositive();
+        }
+      } finally {
+        stop(app);
+      }
+    } finally {
+      db.dropDatabase(url);
+    }
+  }
+
+  @Test
+  void embeddedDatabaseKeepsDataAcrossRestart(@TempDir Path dataDir) throws Exception {
+    String plant =
+        "{\"id\":\"restart-check\",\"name\":\"Restart check\",\"units\":[{\"id\":\"U9\",\"name\":\"u\"}],"
+            + "\"samplePoints\":[]}";
+    int port = freePort();
+    List<String> args =
+        List.of("--kwanta.embedded-database.data-directory=" + dataDir.resolve("pg"));
+    Process first = start(port, Map.of(), args);
+    try {
+      awaitHealthy(first, port);
+      assertThat(new Http(port).post("/api/v1/plants", "application/json", plant).statusCode())
+          .isEqualTo(201);
+    } finally {
+      stop(first);
+    }
+    Process second = start(port, Map.of(), args);
+    try {
+      awaitHealthy(second, port);
+      HttpResponse<String> r = new Http(port).get("/api/v1/plants/restart-check");
+      assertThat(r.statusCode()).isEqualTo(200);
+      assertThat(r.body()).contains("Restart check");
+    } finally {
+      stop(second);
+    }
+  }
+
+  private static Process start(int port, Map<String, String> env, List<String> extraArgs)
+      throws IOException {
+    String java = ProcessHandle.current().info().command().orElse("java");
+    List<String> command = new ArrayList<>(List.of(java, "-Xmx512m", "-jar", jar().toString()));
+    command.add("--server.port=" + port);
+    command.addAll(extraArgs);
+    ProcessBuilder pb = new ProcessBuilder(command);
+    pb.environment().remove("SPRING_DATASOURCE_URL");
+    pb.environment().putAll(env);
+    Path log = Files.createTempFile("kwanta-packaged", ".log");
+    pb.redirectErrorStream(true).redirectOutput(log.toFile());
+    return pb.start();
+  }
+
+  private static void awaitHealthy(Process app, int port) throws Exception {
+    Instant deadline = Instant.now().plus(Duration.ofSeconds(120));
+    Http http = new Http(port);
+    while (Instant.now().isBefore(deadline)) {
+      assertThat(app.isAlive()).as("packaged application exited early").isTrue();
+      try {
+        HttpResponse<String> r = http.get("/actuator/health/readiness");
+        if (r.statusCode() == 200) {
+          return;
+        }
+      } catch (RuntimeException notYet) {
+        // not listening yet
+      }
+      Thread.sleep(500);
+    }
+    throw new AssertionError("packaged application did not become ready within 120 s");
+  }
+
+  private static void stop(Process app) throws InterruptedException {
+    app.destroy(); // SIGTERM: graceful shutdown, the embedded database stops cleanly
+    if (!app.waitFor(60, java.util.concurrent.TimeUnit.SECONDS)) {
+      app.destroyForcibly().waitFor();
+    }
+  }
+
+  private static int freePort() throws IOException {
+    try (ServerSocket s = new ServerSocket(0)) {
+      return s.getLocalPort();
+    }
+  }
+}
