@@ -1,0 +1,59 @@
+package org.kwanta.service.deploy;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.dataformat.yaml.YAMLMapper;
+
+/**
+ * There is no Docker engine on the build machines, so docker-compose.yml is checked by parsing it: its services,
+ * health checks, and that the environment names it sets are the ones the application reads.
+ */
+class ComposeFileTest {
+
+  private static final Path ROOT = Path.of("..").toAbsolutePath().normalize();
+
+  @Test
+  void composeFileDeclaresDatabaseAndServiceWithHealthChecks() throws Exception {
+    JsonNode compose = new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode services = compose.get("services");
+    assertThat(services.has("postgres")).isTrue();
+    assertThat(services.has("kwanta")).isTrue();
+    assertThat(services.get("postgres").has("healthcheck")).isTrue();
+    assertThat(services.get("kwanta").has("healthcheck")).isTrue();
+    assertThat(services.get("kwanta").get("depends_on").get("postgres").get("condition").asString())
+        .isEqualTo("service_healthy");
+  }
+
+  @Test
+  void serviceEnvironmentMatchesApplicationConfiguration() throws Exception {
+    JsonNode compose = new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode postgres = compose.get("services").get("postgres").get("environment");
+    JsonNode kwanta = compose.get("services").get("kwanta").get("environment");
+    // Spring's relaxed binding: SPRING_DATASOURCE_URL -> spring.datasource.url, which switches off the
+    // embedded database (EmbeddedDatabaseConfiguration) and is what Flyway migrates.
+    assertThat(kwanta.get("SPRING_DATASOURCE_URL").asString())
+        .isEqualTo("jdbc:postgresql://postgres:5432/" + postgres.get("POSTGRES_DB").asString());
+    assertThat(kwanta.get("SPRING_DATASOURCE_USERNAME").asString())
+        .isEqualTo(postgres.get("POSTGRES_USER").asString());
+    assertThat(kwanta.get("SPRING_DATASOURCE_PASSWORD").asString())
+        .isEqualTo(postgres.get("POSTGRES_PASSWORD").asString());
+    String healthcheck = compose.get("services").get("kwanta").get("healthcheck").get("test").toString();
+    assertThat(healthcheck).contains("/actuator/health/readiness");
+    Map<String, String> application =
+        Map.of(
+            "SPRING_DATASOURCE_URL", "spring.datasource.url",
+            "SERVER_PORT", "server.port");
+    JsonNode yaml =
+        new YAMLMapper()
+            .readTree(
+                Files.readString(ROOT.resolve("service/src/main/resources/application.yaml")));
+    assertThat(yaml.get("server").get("port").asInt())
+        .isEqualTo(Integer.parseInt(kwanta.get("SERVER_PORT").asString()));
+    assertThat(application).containsKey("SPRING_DATASOURCE_URL");
+  }
+}
