@@ -10,8 +10,9 @@ import tools.jackson.databind.JsonNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
 
 /**
- * There is no Docker engine on the build machines, so docker-compose.yml is checked by parsing it: its services,
- * health checks, and that the environment names it sets are the ones the application reads.
+ * There is no Docker engine on the build machines, so docker-compose.yml is checked by parsing it:
+ * its services, health checks, and that the environment names it sets are the ones the application
+ * reads.
  */
 class ComposeFileTest {
 
@@ -19,7 +20,8 @@ class ComposeFileTest {
 
   @Test
   void composeFileDeclaresDatabaseAndServiceWithHealthChecks() throws Exception {
-    JsonNode compose = new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode compose =
+        new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
     JsonNode services = compose.get("services");
     assertThat(services.has("postgres")).isTrue();
     assertThat(services.has("kwanta")).isTrue();
@@ -31,10 +33,12 @@ class ComposeFileTest {
 
   @Test
   void serviceEnvironmentMatchesApplicationConfiguration() throws Exception {
-    JsonNode compose = new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode compose =
+        new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
     JsonNode postgres = compose.get("services").get("postgres").get("environment");
     JsonNode kwanta = compose.get("services").get("kwanta").get("environment");
-    // Spring's relaxed binding: SPRING_DATASOURCE_URL -> spring.datasource.url, which switches off the
+    // Spring's relaxed binding: SPRING_DATASOURCE_URL -> spring.datasource.url, which switches off
+    // the
     // embedded database (EmbeddedDatabaseConfiguration) and is what Flyway migrates.
     assertThat(kwanta.get("SPRING_DATASOURCE_URL").asString())
         .isEqualTo("jdbc:postgresql://postgres:5432/" + postgres.get("POSTGRES_DB").asString());
@@ -42,7 +46,8 @@ class ComposeFileTest {
         .isEqualTo(postgres.get("POSTGRES_USER").asString());
     assertThat(kwanta.get("SPRING_DATASOURCE_PASSWORD").asString())
         .isEqualTo(postgres.get("POSTGRES_PASSWORD").asString());
-    String healthcheck = compose.get("services").get("kwanta").get("healthcheck").get("test").toString();
+    String healthcheck =
+        compose.get("services").get("kwanta").get("healthcheck").get("test").toString();
     assertThat(healthcheck).contains("/actuator/health/readiness");
     Map<String, String> application =
         Map.of(
