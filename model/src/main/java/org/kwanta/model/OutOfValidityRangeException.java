@@ -32,7 +32,9 @@ public final class OutOfValidityRangeException extends IllegalArgumentException 
   private static String format(double v) {
     return Double.isNaN(v)
         ? "NaN"
-        : String.format(Locale.ROOT, "%.6g", v).replaceAll("\\.?0+(e|$)", "$1");
+        : String.format(Locale.ROOT, "%.6g", v)
+            .replaceAll("(\\.\\d*?)0+(e|$)", "$1$2")
+            .replaceAll("\\.(e|$)", "$1");
   }
 
   public ValidityRange range() {
