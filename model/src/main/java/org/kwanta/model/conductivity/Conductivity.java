@@ -2,6 +2,7 @@ package org.kwanta.model.conductivity;
 
 import org.kwanta.model.Reference;
 import org.kwanta.model.ValidityRange;
+import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
 
 /**
@@ -32,10 +33,11 @@ public final class Conductivity {
       new ValidityRange("temperature", 273.15, 373.15, "K", MODEL);
 
   /**
-   * Density of water at 298.15 K and 0.101325 MPa, kg/m³ (IAPWS-IF97 region 1, as computed by
-   * python3-iapws 1.5.2), the state at which η(25 °C) of the Walden ratio is taken.
+   * Density of water at 298.15 K and 0.101325 MPa, kg/m³ (IAPWS-IF97 region 1), the state at which
+   * η(25 °C) of the Walden ratio is taken.
    */
-  static final double DENSITY_25C_KG_PER_M3 = 997.0480319717386;
+  static final double DENSITY_25C_KG_PER_M3 =
+      Water.densityKgPerM3(LimitingConductivity.T25_K, Water.ATMOSPHERIC_PRESSURE_PA);
 
   /** η(25 °C, 0.101325 MPa), Pa·s (IAPWS R12-08). */
   static final double VISCOSITY_25C_PA_S =

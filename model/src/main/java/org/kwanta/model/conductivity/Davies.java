@@ -1,10 +1,8 @@
 package org.kwanta.model.conductivity;
 
-/**
- * Davies activity coefficients: log10 γ = −A z² (√I/(1 + √I) − 0.3 I), I molal. Source: C. W.
- * Davies, Ion Association, Butterworths 1962 (form as in the project's reference notes); adequate
- * for I ≤ 0.01 mol/kg, far above cycle-water strengths.
- */
+import org.kwanta.model.aqueous.ActivityModel;
+
+/** Davies activity coefficients, as the speciation engine computes them ({@link ActivityModel}). */
 final class Davies {
 
   private Davies() {}
@@ -16,7 +14,6 @@ final class Davies {
    * @return activity coefficient γ
    */
   static double gamma(double a, int z, double ionicStrength) {
-    double s = Math.sqrt(ionicStrength);
-    return Math.pow(10, -a * z * z * (s / (1 + s) - 0.3 * ionicStrength));
+    return Math.pow(10, ActivityModel.DAVIES.log10Gamma(z, ionicStrength, a, 0, 298.15));
   }
 }

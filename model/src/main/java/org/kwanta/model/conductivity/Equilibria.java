@@ -2,6 +2,9 @@ package org.kwanta.model.conductivity;
 
 import java.util.EnumMap;
 import java.util.Map;
+import org.kwanta.model.aqueous.ConstantSet;
+import org.kwanta.model.aqueous.ConstantSets;
+import org.kwanta.model.aqueous.Equilibrium;
 import org.kwanta.model.water.WaterState;
 
 /**
@@ -29,16 +32,41 @@ public record Equilibria(
     basePKa = Map.copyOf(basePKa);
   }
 
+  private static final Map<Alkalizer, Equilibrium> BASE_EQUILIBRIA =
+      Map.of(
+          Alkalizer.AMMONIA, Equilibrium.AMMONIUM,
+          Alkalizer.MORPHOLINE, Equilibrium.MORPHOLINIUM,
+          Alkalizer.ETHANOLAMINE, Equilibrium.ETHANOLAMMONIUM,
+          Alkalizer.DIMETHYLAMINE, Equilibrium.DIMETHYLAMMONIUM,
+          Alkalizer.CYCLOHEXYLAMINE, Equilibrium.CYCLOHEXYLAMMONIUM,
+          Alkalizer.METHOXYPROPYLAMINE, Equilibrium.METHOXYPROPYLAMMONIUM,
+          Alkalizer.DIETHYLAMINOETHANOL, Equilibrium.DIETHYLAMINOETHANOLIUM);
+
   /**
-   * Ka of an alkalizer's BH⁺, as an array indexed by {@link Alkalizer#ordinal()} (NaN if absent).
+   * The constants of the speciation engine's default constant set at a water state (an adapter onto
+   * {@link ConstantSets#DEFAULT}, so the conductivity fits and the speciation use the same
+   * numbers).
    */
-  double[] baseKaArray() {
-    double[] ka = new double[Alkalizer.values().length];
-    for (Alkalizer a : Alkalizer.values()) {
-      Double pk = basePKa.get(a);
-      ka[a.ordinal()] = pk == null ? Double.NaN : Math.pow(10, -pk);
+  public static Equilibria of(WaterState water) {
+    return of(water, ConstantSets.DEFAULT);
+  }
+
+  /** The constants of a given constant set of the speciation engine at a water state. */
+  public static Equilibria of(WaterState water, ConstantSet set) {
+    double t = water.temperatureK();
+    double pKw = water.pKw();
+    Map<Alkalizer, Double> pka = new EnumMap<>(Alkalizer.class);
+    for (Map.Entry<Alkalizer, Equilibrium> e : BASE_EQUILIBRIA.entrySet()) {
+      pka.put(e.getKey(), -set.fitAt(e.getValue(), t).log10K(t, pKw));
     }
-    return ka;
+    return new Equilibria(
+        water,
+        pka,
+        -set.fitAt(Equilibrium.CARBONIC_FIRST, t).log10K(t, pKw),
+        -set.fitAt(Equilibrium.CARBONIC_SECOND, t).log10K(t, pKw),
+        -set.fitAt(Equilibrium.PHOSPHORIC_FIRST, t).log10K(t, pKw),
+        -set.fitAt(Equilibrium.PHOSPHORIC_SECOND, t).log10K(t, pKw),
+        -set.fitAt(Equilibrium.PHOSPHORIC_THIRD, t).log10K(t, pKw));
   }
 
   /** Convenience builder for one alkalizer. */

@@ -9,8 +9,8 @@ import java.time.Duration;
  * @param phBand accepted |measured − calculated| pH at 25 °C
  * @param phPersistence how long the pH deviation must last before it is reported
  * @param sampleTemperatureBandK accepted |T_sample − 25 °C|, K
- * @param belowPureWaterRelative how far below the pure-water conductivity a reading may read
- *     before it is reported (0.01 = 1 %; trace NaOH can depress it by 0.5 %)
+ * @param belowPureWaterRelative how far below the pure-water conductivity a reading may read before
+ *     it is reported (0.01 = 1 %; trace NaOH can depress it by 0.5 %)
  * @param degassedAboveCationAbsolute allowance of DCACE over CACE, µS/cm
  * @param degassedAboveCationRelative allowance of DCACE over CACE, relative; the larger applies
  * @param carbonDioxideDifference CACE − DCACE above which carbon dioxide is reported, µS/cm
@@ -18,8 +18,8 @@ import java.time.Duration;
  * @param flatlineDuration identical readings over at least this long are a flat line
  * @param trendCationRise rise of CACE over the history that counts as rising, µS/cm
  * @param trendSodiumRise rise of sodium over the history that counts as rising, µg/kg
- * @param trackingCorrelation Pearson correlation of CACE with SC over the history above which
- *     CACE "tracks" SC
+ * @param trackingCorrelation Pearson correlation of CACE with SC over the history above which CACE
+ *     "tracks" SC
  * @param conductivityRangeMaximum analyser range top for conductivities, µS/cm (readings at or
  *     above it are pinned)
  * @param sodiumRangeMaximum analyser range top for sodium, µg/kg

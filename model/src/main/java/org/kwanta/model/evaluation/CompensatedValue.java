@@ -8,8 +8,8 @@ package org.kwanta.model.evaluation;
  * @param sampleTemperatureK its sample temperature, K
  * @param at25 conductivity at 25 °C, µS/cm (model-based compensation, or the analyser's own)
  * @param compensatedByAnalyser true when the analyser already compensated it (taken as is)
- * @param belowPureWater true when the reading was below theoretical pure water (then at25 is
- *     pure water at 25 °C)
+ * @param belowPureWater true when the reading was below theoretical pure water (then at25 is pure
+ *     water at 25 °C)
  */
 public record CompensatedValue(
     Parameter parameter,

@@ -11,8 +11,8 @@ import org.kwanta.model.conductivity.Solutes;
  * @param alkalizerMgPerKg alkalizer, mg/kg (NaN without specific conductivity)
  * @param chlorideEquivalentUgPerKg strong-acid anions as chloride, µg/kg
  * @param carbonDioxideUgPerKg carbon dioxide, µg/kg (0 without degassed cation conductivity)
- * @param sodiumUgPerKg sodium, µg/kg (from the sodium analyser, or fitted for phosphate and
- *     caustic treatment)
+ * @param sodiumUgPerKg sodium, µg/kg (from the sodium analyser, or fitted for phosphate and caustic
+ *     treatment)
  * @param phosphateMgPerKg phosphate as PO₄, mg/kg
  * @param sodiumToPhosphateMolarRatio Na:PO₄ molar ratio (NaN unless phosphate treatment)
  */

@@ -4,8 +4,8 @@ package org.kwanta.model.evaluation;
  * Instrument tolerances propagated into the composition and every number computed from it.
  *
  * @param specificConductivityRelative relative tolerance of specific conductivity (0.02 = ±2 %)
- * @param cationConductivityAbsolute absolute tolerance of cation and degassed cation
- *     conductivity, µS/cm
+ * @param cationConductivityAbsolute absolute tolerance of cation and degassed cation conductivity,
+ *     µS/cm
  * @param ph absolute tolerance of measured pH
  * @param sodiumRelative relative tolerance of sodium
  */
