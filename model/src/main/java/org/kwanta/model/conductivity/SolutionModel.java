@@ -2,6 +2,7 @@ package org.kwanta.model.conductivity;
 
 import java.util.Arrays;
 import java.util.Map;
+import java.util.function.DoubleUnaryOperator;
 import org.kwanta.model.NoConvergenceException;
 import org.kwanta.model.numeric.Brent;
 import org.kwanta.model.water.WaterState;
@@ -30,6 +31,12 @@ public final class SolutionModel {
   private static final double PH_TOLERANCE = 1e-13;
   private static final int BRENT_ITERATIONS = 200;
   private static final int MAX_ACTIVITY_ITERATIONS = 60;
+
+  /** Relative change of ionic strength at which the activity iteration stops. */
+  private static final double IONIC_STRENGTH_TOLERANCE = 1e-10;
+
+  /** Half-width of the warm-start pH bracket. */
+  private static final double WARM_HALF_WIDTH = 0.01;
 
   private static final int H = Ion.H.ordinal();
   private static final int OH = Ion.OH.ordinal();
@@ -122,13 +129,14 @@ public final class SolutionModel {
   public Solution solve(Solutes s) {
     State st = new State();
     double ionic = 0;
+    double pH = Double.NaN;
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      double pH = Brent.solve(p -> st.charge(p, s), PH_MIN, water.pKw() - 1, PH_TOLERANCE, 200);
+      pH = warmBrent(p -> st.charge(p, s), pH, PH_MIN, water.pKw() - 1);
       st.charge(pH, s);
       st.fill(s);
       double next = st.ionicStrength();
-      if (Math.abs(next - ionic) <= 1e-12 * next) {
+      if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
         return new Solution(s, pH, next, ions.kappa(st.m), water.temperatureK());
       }
       ionic = next;
@@ -153,34 +161,51 @@ public final class SolutionModel {
     }
     State st = new State();
     double ionic = 0;
+    double pHbg = Double.NaN;
+    double pH = Double.NaN;
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      double pHbg =
-          Brent.solve(p -> st.charge(p, base), PH_MIN, water.pKw() - 1, PH_TOLERANCE, 200);
+      pHbg = warmBrent(p -> st.charge(p, base), pHbg, PH_MIN, water.pKw() - 1);
       double kappaBg = st.kappaWith(pHbg, base, unknown, 0);
       if (kappaTarget <= kappaBg) {
         return solve(base);
       }
       boolean raisesPh = st.chargePerUnit(pHbg, unknown) > 0;
       double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
-      double pH =
-          Brent.solve(
+      pH =
+          warmBrent(
               p -> st.kappaWith(p, base, unknown, st.amountAt(p, base, unknown)) - kappaTarget,
-              pHbg,
-              end,
-              PH_TOLERANCE,
-              BRENT_ITERATIONS);
+              pH,
+              Math.min(pHbg, end),
+              Math.max(pHbg, end));
       double x = Math.max(0, st.amountAt(pH, base, unknown));
       Solutes s = base.with(unknown, x);
       st.charge(pH, s);
       st.fill(s);
       double next = st.ionicStrength();
-      if (Math.abs(next - ionic) <= 1e-12 * next) {
+      if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
         return new Solution(s, pH, next, ions.kappa(st.m), water.temperatureK());
       }
       ionic = next;
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
+  }
+
+  /**
+   * Brent on [lo, hi], first trying a narrow bracket around the previous iterate's root (the
+   * activity coefficients move the root only slightly between iterations).
+   */
+  private static double warmBrent(DoubleUnaryOperator f, double guess, double lo, double hi) {
+    if (!Double.isNaN(guess)) {
+      double a = Math.max(lo, guess - WARM_HALF_WIDTH);
+      double b = Math.min(hi, guess + WARM_HALF_WIDTH);
+      double fa = f.applyAsDouble(a);
+      double fb = f.applyAsDouble(b);
+      if (fa * fb <= 0) {
+        return Brent.solve(f, a, b, PH_TOLERANCE, BRENT_ITERATIONS);
+      }
+    }
+    return Brent.solve(f, lo, hi, PH_TOLERANCE, BRENT_ITERATIONS);
   }
 
   private Solution fitNeutralSalt(Solutes base, double kappaTarget) {
