@@ -96,7 +96,8 @@ public final class Speciation {
         used.add(new ConstantUsed(e, logK, fit.id(), fit.reference(), fit.validity(), outside));
       }
     }
-    used.sort((a, b) -> a.equilibrium().compareTo(b.equilibrium()));
+    // Components iterate in enum order and their equilibria in chain order, which is the order
+    // of Equilibrium: the list is already sorted.
 
     ChargeBalanceSolver solver =
         new ChargeBalanceSolver(composition.totals(), log10Ka, water, options.activityModel());
