@@ -113,6 +113,7 @@ public final class EvaluationRunner {
             .computeIfAbsent(p, k -> new ArrayList<>())
             .add(new Reading(r.time(), r.value(), temperatureK, compensated));
       }
+      history.replaceAll((p, list) -> thin(list));
       try {
         Evaluation e = Evaluator.evaluate(config.config(), new Snapshot(t, history));
         out.add(
@@ -148,6 +149,27 @@ public final class EvaluationRunner {
                     false,
                     List.of("not evaluated: internal error (logged)"))));
       }
+    }
+    return out;
+  }
+
+  /** Most readings an evaluation sees per parameter; longer histories are thinned evenly. */
+  static final int MAX_HISTORY = 30;
+
+  /**
+   * Keeps at most {@link #MAX_HISTORY} readings, evenly spread and always including the first and
+   * the latest, so the trend, flat-line and persistence checks cost the same at 1-second or
+   * 1-minute resolution. It depends only on the readings, so evaluations stay independent of
+   * arrival order.
+   */
+  static List<Reading> thin(List<Reading> readings) {
+    int n = readings.size();
+    if (n <= MAX_HISTORY) {
+      return readings;
+    }
+    List<Reading> out = new ArrayList<>(MAX_HISTORY);
+    for (int k = 0; k < MAX_HISTORY; k++) {
+      out.add(readings.get((int) Math.round((double) k * (n - 1) / (MAX_HISTORY - 1))));
     }
     return out;
   }

@@ -1,0 +1,208 @@
+#!/usr/bin/env python3
+"""Bounded ingest load test, loopback only.
+
+Pushes JSON batches of readings (default 1000 per batch) for an invented test plant (20 sample points, 6
+parameters each, 10 s resolution, in time order) to a running Kwanta service through HTTP, with evaluation and
+persistence as in production, for a fixed number of seconds. Then it times a raw COPY of the same number of
+readings into the same table with psql, and reports both rates and their ratio, and the service's peak heap.
+
+Example (service started with the README's run command, or with SPRING_DATASOURCE_URL pointing at the same
+database that --db names):
+  python3 scripts/load/ingest_load.py --seconds 60 --concurrency 4 --db "host=127.0.0.1 port=5432 dbname=kwanta_bench user=postgres"
+
+Only 127.0.0.1 / localhost targets are accepted.
+"""
+import argparse
+import http.client
+import json
+import os
+import subprocess
+import sys
+import tempfile
+import threading
+import time
+import urllib.parse
+import uuid
+from datetime import datetime, timedelta, timezone
+
+PARAMS = [
+    ("specific_conductivity", "uS/cm", 5.4),
+    ("cation_conductivity", "uS/cm", 0.08),
+    ("degassed_cation_conductivity", "uS/cm", 0.06),
+    ("ph", "[pH]", 9.66),
+    ("sodium", "ug/kg", 0.4),
+    ("sample_temperature", "Cel", 25.0),
+]
+
+
+def check_loopback(url):
+    host = urllib.parse.urlparse(url).hostname
+    if host not in ("127.0.0.1", "localhost", "::1"):
+        sys.exit("refusing non-loopback target " + host)
+
+
+class Client:
+    def __init__(self, base, key):
+        u = urllib.parse.urlparse(base)
+        self.host, self.port = u.hostname, u.port or 80
+        self.headers = {"Content-Type": "application/json"}
+        if key:
+            self.headers["Authorization"] = "Bearer " + key
+        self.conn = http.client.HTTPConnection(self.host, self.port, timeout=120)
+
+    def request(self, method, path, body=None, headers=None):
+        h = dict(self.headers)
+        h.update(headers or {})
+        for attempt in range(3):
+            try:
+                self.conn.request(method, path, body=body, headers=h)
+                r = self.conn.getresponse()
+                return r.status, r.read()
+            except (http.client.HTTPException, OSError):
+                self.conn.close()
+                self.conn = http.client.HTTPConnection(self.host, self.port, timeout=120)
+        raise RuntimeError("connection failed")
+
+
+def wait_ready(client, seconds=180):
+    deadline = time.monotonic() + seconds
+    while time.monotonic() < deadline:
+        try:
+            status, _ = client.request("GET", "/actuator/health/readiness")
+            if status == 200:
+                return
+        except RuntimeError:
+            pass
+        time.sleep(1)
+    sys.exit("service not ready")
+
+
+def readings_for(points, start, step_index):
+    """All readings of one 10-second step (len(points) * 6 readings)."""
+    t = (start + timedelta(seconds=10 * step_index)).strftime("%Y-%m-%dT%H:%M:%SZ")
+    out = []
+    for i, p in enumerate(points):
+        wobble = 1 + 0.01 * ((step_index * 7 + i * 13) % 11 - 5) / 5
+        for name, unit, base in PARAMS:
+            r = {"samplePoint": p, "parameter": name, "time": t, "value": round(base * wobble, 5), "unit": unit}
+            if name == "specific_conductivity":
+                r["sampleTemperatureCel"] = 25.0
+            out.append(r)
+    return out
+
+
+def main():
+    ap = argparse.ArgumentParser()
+    ap.add_argument("--base-url", default="http://127.0.0.1:8080")
+    ap.add_argument("--api-key", default=os.environ.get("KWANTA_API_KEY"))
+    ap.add_argument("--points", type=int, default=20)
+    ap.add_argument("--batch", type=int, default=1000)
+    ap.add_argument("--concurrency", type=int, default=4)
+    ap.add_argument("--seconds", type=float, default=60)
+    ap.add_argument("--db", help="libpq connection string of the service's database, for the COPY baseline")
+    args = ap.parse_args()
+    check_loopback(args.base_url)
+
+    admin = Client(args.base_url, args.api_key)
+    wait_ready(admin)
+    tag = uuid.uuid4().hex[:8]
+    points = [f"L{tag}-{i:02d}" for i in range(args.points)]
+    plant = {
+        "id": f"load-{tag}", "name": "Load-test plant (invented)", "units": [{"id": "U1", "name": "Unit 1"}],
+        "samplePoints": [
+            {"id": p, "unit": "U1", "name": p, "cycleLocation": "FEEDWATER", "treatmentRegime": "AVT_O",
+             "operatingTemperatureCel": 155, "operatingPressureMPa": 15} for p in points],
+    }
+    status, body = admin.request("POST", "/api/v1/plants", json.dumps(plant))
+    if status != 201:
+        sys.exit(f"plant creation failed: {status} {body[:300]}")
+
+    start = (datetime.now(timezone.utc) - timedelta(days=3)).replace(hour=0, minute=0, second=0, microsecond=0)
+    per_step = len(points) * len(PARAMS)
+    steps_per_batch = max(1, args.batch // per_step)
+    lock = threading.Lock()
+    next_step = [0]
+    done = {"readings": 0, "batches": 0, "errors": 0, "latencies": []}
+    deadline = time.monotonic() + args.seconds
+
+    def worker():
+        c = Client(args.base_url, args.api_key)
+        while time.monotonic() < deadline:
+            with lock:
+                s = next_step[0]
+                next_step[0] += steps_per_batch
+            readings = []
+            for k in range(s, s + steps_per_batch):
+                readings.extend(readings_for(points, start, k))
+            payload = json.dumps({"readings": readings})
+            t0 = time.monotonic()
+            status, body = c.request("POST", "/api/v1/readings", payload)
+            dt = time.monotonic() - t0
+            with lock:
+                if status == 200:
+                    done["readings"] += len(readings)
+                    done["batches"] += 1
+                    done["latencies"].append(dt)
+                else:
+                    done["errors"] += 1
+                    if done["errors"] <= 3:
+                        print("error", status, body[:300], file=sys.stderr)
+
+    heap = {"max": 0.0}
+
+    def heap_sampler():
+        c = Client(args.base_url, args.api_key)
+        while time.monotonic() < deadline + 1:
+            try:
+                status, body = c.request("GET", "/actuator/prometheus")
+                if status == 200:
+                    used = 0.0
+                    for line in body.decode().splitlines():
+                        if line.startswith("jvm_memory_used_bytes{") and 'area="heap"' in line:
+                            used += float(line.rsplit(" ", 1)[1])
+                    heap["max"] = max(heap["max"], used)
+            except Exception:
+                pass
+            time.sleep(1)
+
+    threads = [threading.Thread(target=worker) for _ in range(args.concurrency)]
+    sampler = threading.Thread(target=heap_sampler)
+    t_start = time.monotonic()
+    sampler.start()
+    for t in threads:
+        t.start()
+    for t in threads:
+        t.join()
+    elapsed = time.monotonic() - t_start
+    sampler.join()
+    lat = sorted(done["latencies"])
+    rate = done["readings"] / elapsed
+    print(f"HTTP ingest: {done['readings']} readings in {done['batches']} batches of ~{steps_per_batch * per_step}"
+          f" over {elapsed:.1f} s = {rate:,.0f} readings/s; errors {done['errors']}")
+    if lat:
+        print(f"batch latency p50 {lat[len(lat) // 2] * 1000:.0f} ms, p95 {lat[int(len(lat) * 0.95)] * 1000:.0f} ms")
+    print(f"service heap used, peak sample: {heap['max'] / 2**20:.0f} MiB")
+
+    if args.db:
+        n = done["readings"]
+        with tempfile.NamedTemporaryFile("w", suffix=".csv", delete=False) as f:
+            steps = n // per_step + 1
+            for k in range(steps):
+                for r in readings_for([p + "-copy" for p in points], start, k):
+                    f.write(f"{r['samplePoint']},{r['parameter']},{r['time']},{r['value']},0,,true\n")
+            path = f.name
+        t0 = time.monotonic()
+        subprocess.run(["psql", args.db, "-q", "-v", "ON_ERROR_STOP=1", "-c",
+                        f"\\copy reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
+                        f" compensated) FROM '{path}' CSV"], check=True)
+        copy_s = time.monotonic() - t0
+        copy_rate = steps * per_step / copy_s
+        os.unlink(path)
+        subprocess.run(["psql", args.db, "-q", "-c",
+                        f"DELETE FROM reading WHERE sample_point_id LIKE 'L{tag}-%-copy'"], check=True)
+        print(f"raw COPY (psql \\copy, same table, no evaluation): {steps * per_step} readings in {copy_s:.1f} s"
+              f" = {copy_rate:,.0f} readings/s; ratio HTTP/COPY = {rate / copy_rate:.2f}")
+
+
+if __name__ == "__main__":
+    main()
