@@ -75,44 +75,178 @@ public class Plants {
         > 0;
   }
 
-  /** Stores a declared plant whole, in one transaction. */
+  /** What applying a declaration changed. */
+  public record Applied(boolean plantCreated, List<String> created, List<String> changed) {
+    public boolean anything() {
+      return plantCreated || !created.isEmpty() || !changed.isEmpty();
+    }
+  }
+
+  /** Stores a new plant whole, in one transaction. */
   @Transactional
   public void insert(PlantDeclaration plant, String changedBy) {
-    jdbc.sql("INSERT INTO plant (id, name) VALUES (?, ?)")
-        .params(plant.id(), plant.name())
-        .update();
+    apply(plant, changedBy);
+  }
+
+  /**
+   * Applies a declaration (configuration as code): creates what is missing; a sample point whose
+   * configuration differs gets a new version, and the old versions are kept. Sample points absent
+   * from the declaration are left alone. All in one transaction.
+   */
+  @Transactional
+  public Applied apply(PlantDeclaration plant, String changedBy) {
+    boolean created = false;
+    if (!exists(plant.id())) {
+      jdbc.sql("INSERT INTO plant (id, name) VALUES (?, ?)")
+          .params(plant.id(), plant.name())
+          .update();
+      created = true;
+    } else {
+      jdbc.sql("UPDATE plant SET name = ? WHERE id = ? AND name <> ?")
+          .params(plant.name(), plant.id(), plant.name())
+          .update();
+    }
     for (PlantDeclaration.UnitDeclaration unit : plant.units()) {
-      jdbc.sql("INSERT INTO plant_unit (plant_id, id, name) VALUES (?, ?, ?)")
+      jdbc.sql(
+              """
+              INSERT INTO plant_unit (plant_id, id, name) VALUES (?, ?, ?)
+              ON CONFLICT (plant_id, id) DO UPDATE SET name = EXCLUDED.name""")
           .params(plant.id(), unit.id(), unit.name())
           .update();
     }
-    for (PlantDeclaration.SamplePointDeclaration p : plant.samplePoints()) {
-      jdbc.sql(
-              """
-              INSERT INTO sample_point (id, plant_id, unit_id, name, cycle_location, treatment_regime,
-                                        operating_temperature_cel, operating_pressure_mpa, alkalizer,
-                                        parameters, version, updated_by)
-              VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?::text[], 1, ?)""")
-          .params(
-              p.id(),
-              plant.id(),
-              p.unit(),
-              p.name(),
-              p.cycleLocation(),
-              p.treatmentRegime(),
-              p.operatingTemperatureCel(),
-              p.operatingPressureMPa(),
-              alkalizer(p),
-              (p.parameters() == null ? List.<String>of() : p.parameters()).toArray(String[]::new),
-              changedBy)
-          .update();
-      jdbc.sql(
-              """
-              INSERT INTO sample_point_version (sample_point_id, version, changed_by, config)
-              VALUES (?, 1, ?, ?::jsonb)""")
-          .params(p.id(), changedBy, json.writeValueAsString(p))
-          .update();
+    List<String> inserted = new java.util.ArrayList<>();
+    List<String> changed = new java.util.ArrayList<>();
+    for (PlantDeclaration.SamplePointDeclaration declared : plant.samplePoints()) {
+      PlantDeclaration.SamplePointDeclaration p = normalized(declared);
+      Optional<String> owner =
+          jdbc.sql("SELECT plant_id FROM sample_point WHERE id = ?")
+              .param(p.id())
+              .query(String.class)
+              .optional();
+      if (owner.isEmpty()) {
+        insertSamplePoint(plant.id(), p, changedBy);
+        inserted.add(p.id());
+      } else if (!owner.get().equals(plant.id())) {
+        throw new org.kwanta.service.system.BadRequestException(
+            org.springframework.http.HttpStatus.CONFLICT,
+            org.kwanta.service.system.ProblemTypes.CONFLICT,
+            "Conflict",
+            "sample point " + p.id() + " belongs to plant " + owner.get(),
+            java.util.Map.of());
+      } else if (!findSamplePoint(p.id()).map(Plants::normalized).orElseThrow().equals(p)) {
+        updateSamplePoint(p, changedBy);
+        changed.add(p.id());
+      }
     }
+    return new Applied(created, inserted, changed);
+  }
+
+  /** Replaces a sample point's configuration with a new version. Returns the new version number. */
+  @Transactional
+  public int updateSamplePoint(PlantDeclaration.SamplePointDeclaration declared, String changedBy) {
+    PlantDeclaration.SamplePointDeclaration p = normalized(declared);
+    Integer version =
+        jdbc.sql(
+                """
+                UPDATE sample_point SET unit_id = ?, name = ?, cycle_location = ?, treatment_regime = ?,
+                    operating_temperature_cel = ?, operating_pressure_mpa = ?, alkalizer = ?,
+                    parameters = ?::text[], version = version + 1, updated_at = now(), updated_by = ?
+                WHERE id = ? RETURNING version""")
+            .params(
+                p.unit(),
+                p.name(),
+                p.cycleLocation(),
+                p.treatmentRegime(),
+                p.operatingTemperatureCel(),
+                p.operatingPressureMPa(),
+                p.alkalizer(),
+                p.parameters().toArray(String[]::new),
+                changedBy,
+                p.id())
+            .query(Integer.class)
+            .single();
+    jdbc.sql(
+            """
+            INSERT INTO sample_point_version (sample_point_id, version, changed_by, config)
+            VALUES (?, ?, ?, ?::jsonb)""")
+        .params(p.id(), version, changedBy, json.writeValueAsString(p))
+        .update();
+    return version;
+  }
+
+  private void insertSamplePoint(
+      String plantId, PlantDeclaration.SamplePointDeclaration p, String changedBy) {
+    jdbc.sql(
+            """
+            INSERT INTO sample_point (id, plant_id, unit_id, name, cycle_location, treatment_regime,
+                                      operating_temperature_cel, operating_pressure_mpa, alkalizer,
+                                      parameters, version, updated_by)
+            VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?::text[], 1, ?)""")
+        .params(
+            p.id(),
+            plantId,
+            p.unit(),
+            p.name(),
+            p.cycleLocation(),
+            p.treatmentRegime(),
+            p.operatingTemperatureCel(),
+            p.operatingPressureMPa(),
+            p.alkalizer(),
+            p.parameters().toArray(String[]::new),
+            changedBy)
+        .update();
+    jdbc.sql(
+            """
+            INSERT INTO sample_point_version (sample_point_id, version, changed_by, config)
+            VALUES (?, 1, ?, ?::jsonb)""")
+        .params(p.id(), changedBy, json.writeValueAsString(p))
+        .update();
+  }
+
+  /** One version of a sample point's configuration. */
+  public record Version(
+      int version,
+      java.time.Instant validFrom,
+      String changedBy,
+      PlantDeclaration.SamplePointDeclaration config) {}
+
+  /** Every version of a sample point's configuration, oldest first. */
+  public List<Version> versions(String samplePointId) {
+    return jdbc.sql(
+            """
+            SELECT version, valid_from, changed_by, config::text FROM sample_point_version
+            WHERE sample_point_id = ? ORDER BY version""")
+        .param(samplePointId)
+        .query(
+            (rs, i) ->
+                new Version(
+                    rs.getInt(1),
+                    rs.getTimestamp(2).toInstant(),
+                    rs.getString(3),
+                    json.readValue(rs.getString(4), PlantDeclaration.SamplePointDeclaration.class)))
+        .list();
+  }
+
+  static PlantDeclaration.SamplePointDeclaration normalized(
+      PlantDeclaration.SamplePointDeclaration p) {
+    return new PlantDeclaration.SamplePointDeclaration(
+        p.id(),
+        p.unit(),
+        p.name(),
+        p.cycleLocation(),
+        p.treatmentRegime(),
+        p.operatingTemperatureCel(),
+        p.operatingPressureMPa(),
+        alkalizer(p),
+        p.parameters() == null ? List.of() : List.copyOf(p.parameters()));
+  }
+
+  /** The plant a sample point belongs to. */
+  public String plantOf(String samplePointId) {
+    return jdbc.sql("SELECT plant_id FROM sample_point WHERE id = ?")
+        .param(samplePointId)
+        .query(String.class)
+        .single();
   }
 
   /** One sample point's declaration. */

@@ -11,7 +11,7 @@ class DemoPlantFileTest {
 
   @Test
   void demoFileIsConsistent() throws Exception {
-    PlantDeclaration plant = DemoPlantLoader.read();
+    PlantDeclaration plant = RegistryFiles.readDemo();
     assertThat(plant.id()).isEqualTo("brackenmoor");
     Set<String> units =
         plant.units().stream()

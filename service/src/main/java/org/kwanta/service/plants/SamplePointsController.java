@@ -1,0 +1,121 @@
+package org.kwanta.service.plants;
+
+import io.swagger.v3.oas.annotations.Operation;
+import io.swagger.v3.oas.annotations.Parameter;
+import io.swagger.v3.oas.annotations.tags.Tag;
+import jakarta.validation.Valid;
+import java.security.Principal;
+import java.util.List;
+import java.util.Map;
+import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemTypes;
+import org.springframework.http.HttpStatus;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.PutMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RequestMapping;
+import org.springframework.web.bind.annotation.RestController;
+
+@RestController
+@RequestMapping("/api/v1")
+@Tag(name = "Plants")
+class SamplePointsController {
+
+  private final Plants plants;
+
+  SamplePointsController(Plants plants) {
+    this.plants = plants;
+  }
+
+  @GetMapping("/sample-points/{samplePointId}")
+  @Operation(summary = "A sample point's current configuration")
+  PlantDeclaration.SamplePointDeclaration get(
+      @Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {
+    return plants.findSamplePoint(samplePointId).orElseThrow(() -> notFound(samplePointId));
+  }
+
+  @GetMapping("/sample-points/{samplePointId}/versions")
+  @Operation(
+      summary = "Every configuration version of a sample point, oldest first",
+      description =
+          "Evaluations record the configuration version in force when they were computed"
+              + " (configVersion), so a past evaluation can be explained by its version here.")
+  List<Plants.Version> versions(@PathVariable String samplePointId) {
+    List<Plants.Version> versions = plants.versions(samplePointId);
+    if (versions.isEmpty()) {
+      throw notFound(samplePointId);
+    }
+    return versions;
+  }
+
+  @PutMapping("/sample-points/{samplePointId}")
+  @Operation(
+      summary = "Change a sample point's configuration (a new version; old versions are kept)",
+      description =
+          "Evaluations computed after the change use the new version; stored evaluations keep theirs.")
+  Map<String, Object> update(
+      @PathVariable String samplePointId,
+      @Valid @RequestBody PlantDeclaration.SamplePointDeclaration body,
+      Principal principal) {
+    if (!samplePointId.equals(body.id())) {
+      throw BadRequestException.of("the body's id must be the path's sample point id");
+    }
+    PlantDeclaration.SamplePointDeclaration current =
+        plants.findSamplePoint(samplePointId).orElseThrow(() -> notFound(samplePointId));
+    PlantDeclaration.SamplePointDeclaration next = Plants.normalized(body);
+    if (next.equals(Plants.normalized(current))) {
+      return Map.of("samplePoint", samplePointId, "changed", false);
+    }
+    String plantId = plants.plantOf(samplePointId);
+    PlantDeclaration check =
+        new PlantDeclaration(
+            plantId, plantId, plants.find(plantId).orElseThrow().units(), List.of(next));
+    List<String> problems = Plants.problems(check);
+    if (!problems.isEmpty()) {
+      throw new BadRequestException(
+          HttpStatus.BAD_REQUEST,
+          ProblemTypes.BAD_REQUEST,
+          "Invalid sample point",
+          String.join("; ", problems),
+          Map.of("problems", problems));
+    }
+    int version =
+        plants.updateSamplePoint(next, principal == null ? "api" : "key:" + principal.getName());
+    return Map.of("samplePoint", samplePointId, "changed", true, "version", version);
+  }
+
+  @PutMapping("/plants/{plantId}")
+  @Operation(
+      summary = "Apply a plant declaration (configuration as code)",
+      description =
+          "Creates what is missing; changed sample points get a new configuration version; nothing is"
+              + " deleted.")
+  Plants.Applied apply(
+      @PathVariable String plantId,
+      @Valid @RequestBody PlantDeclaration plant,
+      Principal principal) {
+    if (!plantId.equals(plant.id())) {
+      throw BadRequestException.of("the body's id must be the path's plant id");
+    }
+    List<String> problems = Plants.problems(plant);
+    if (!problems.isEmpty()) {
+      throw new BadRequestException(
+          HttpStatus.BAD_REQUEST,
+          ProblemTypes.BAD_REQUEST,
+          "Invalid plant declaration",
+          String.join("; ", problems),
+          Map.of("problems", problems));
+    }
+    return plants.apply(plant, principal == null ? "api" : "key:" + principal.getName());
+  }
+
+  private static BadRequestException notFound(String id) {
+    return new BadRequestException(
+        HttpStatus.NOT_FOUND,
+        ProblemTypes.NOT_FOUND,
+        "Not found",
+        "No sample point with id '" + id + "'",
+        Map.of());
+  }
+}
