@@ -87,6 +87,8 @@ final class IonizationConstant {
 
   private static final double TWO_THIRDS = 2.0 / 3.0;
 
+  private static final double LOG10_E = 1 / Math.log(10);
+
   private static final double LOG10_MW_TERM = 2 * Math.log10(MW / 1000);
 
   private final double alpha0;
@@ -135,15 +137,42 @@ final class IonizationConstant {
     return pKwUnchecked(temperatureK, densityKgPerM3);
   }
 
-  /** pKw without range checks; the caller has checked T and ρ. */
+  /**
+   * pKw without range checks; the caller has checked T and ρ. Same equation as {@link
+   * #pKwFromRelease}, rearranged for speed: with Z = ρ e^E and w = 1/Z, when w &lt; 1e-3 (every
+   * liquid state) log10(1 + Z) = log10 ρ + E log10 e + log10(1 + w) and Z/(Z + 1) = 1/(1 + w),
+   * where ln(1 + w) is summed to w⁴ (truncation below w⁵/5 &lt; 2e-16). This takes a logarithm off
+   * the chain of dependent transcendental functions. Otherwise the release's form is used as
+   * written.
+   */
   double pKwUnchecked(double t, double densityKgPerM3) {
     double rho = densityKgPerM3 / 1000;
     double invT = 1 / t;
-    double z =
-        rho * Math.exp(alpha0 + alpha1 * invT + alpha2 * Math.pow(rho, TWO_THIRDS) * invT * invT);
+    double exponent = alpha0 + alpha1 * invT + alpha2 * Math.pow(rho, TWO_THIRDS) * invT * invT;
     double pKwG = GAMMA[0] + invT * (GAMMA[1] + invT * (GAMMA[2] + invT * GAMMA[3]));
-    return -2 * N * (Math.log10(1 + z) - z / (z + 1) * rho * (beta0 + beta1 * invT + beta2 * rho))
+    double betaTerm = rho * (beta0 + beta1 * invT + beta2 * rho);
+    double w = Math.exp(-exponent) / rho;
+    double log10OnePlusZ;
+    double zOverZPlusOne;
+    if (w < 1e-3) {
+      double lnOnePlusW = w * (1 - w * (0.5 - w * (1.0 / 3 - w * 0.25)));
+      log10OnePlusZ = Math.log10(rho) + (exponent + lnOnePlusW) * LOG10_E;
+      zOverZPlusOne = 1 / (1 + w);
+    } else {
+      double z = rho * Math.exp(exponent);
+      log10OnePlusZ = Math.log10(1 + z);
+      zOverZPlusOne = z / (z + 1);
+    }
+    return -2 * N * (log10OnePlusZ - zOverZPlusOne * betaTerm) + pKwG + LOG10_MW_TERM;
+  }
+
+  /** pKw from the release's equation exactly as written, without range checks: the test oracle. */
+  double pKwFromRelease(double t, double densityKgPerM3) {
+    double rho = densityKgPerM3 / 1000;
+    double z = rho * Math.exp(alpha0 + alpha1 / t + alpha2 * Math.pow(rho, 2.0 / 3) / (t * t));
+    double pKwG = GAMMA[0] + GAMMA[1] / t + GAMMA[2] / (t * t) + GAMMA[3] / (t * t * t);
+    return -2 * N * (Math.log10(1 + z) - z / (z + 1) * rho * (beta0 + beta1 / t + beta2 * rho))
         + pKwG
-        + LOG10_MW_TERM;
+        + 2 * Math.log10(MW / 1000);
   }
 }

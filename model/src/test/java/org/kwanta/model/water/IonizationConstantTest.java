@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
+import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvFileSource;
@@ -28,6 +29,21 @@ class IonizationConstantTest {
   void matchesR1124CheckValuesOfOpenImplementation(double t, double rho, String pKw) {
     assertThat(IonizationConstant.R11_24.pKw(t, rho))
         .isCloseTo(Double.parseDouble(pKw), within(Printed.halfUnitInLastDigit(pKw)));
+  }
+
+  /** The rearranged fast form equals the release's form as written (consistency check). */
+  @Test
+  void fastEvaluationMatchesReleaseForm() {
+    SplittableRandom random = new SplittableRandom(11);
+    for (IonizationConstant k :
+        new IonizationConstant[] {IonizationConstant.R11_07, IonizationConstant.R11_24}) {
+      for (int i = 0; i < 5000; i++) {
+        double t = random.nextDouble(273.15, 1073.15);
+        double rho = i % 10 == 0 ? random.nextDouble(0, 5) : random.nextDouble(0, 1250);
+        assertThat(k.pKwUnchecked(t, rho)).isCloseTo(k.pKwFromRelease(t, rho), within(1e-12));
+      }
+      assertThat(k.pKwUnchecked(1000, 0)).isEqualTo(k.pKwFromRelease(1000, 0));
+    }
   }
 
   @Test
