@@ -30,7 +30,7 @@ public enum Parameter {
   /** Total copper. */
   COPPER("copper", "ug/kg"),
   /** Phosphate as PO4. */
-  PHOSPHATE("phosphate", "mg/kg");
+  PHOSPHATE("phosphate", "ug/kg");
 
   private final String code;
   private final String unit;

@@ -33,6 +33,15 @@ public final class Http {
         headers);
   }
 
+  public HttpResponse<String> send(
+      String method, String path, String contentType, String body, String... headers) {
+    return send(
+        HttpRequest.newBuilder(URI.create(base + path))
+            .header("Content-Type", contentType)
+            .method(method, HttpRequest.BodyPublishers.ofString(body)),
+        headers);
+  }
+
   public HttpResponse<String> method(String method, String path, String... headers) {
     return send(
         HttpRequest.newBuilder(URI.create(base + path))
