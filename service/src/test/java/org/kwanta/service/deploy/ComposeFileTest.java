@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import tools.jackson.databind.JsonNode;
@@ -29,6 +30,50 @@ class ComposeFileTest {
     assertThat(services.get("kwanta").has("healthcheck")).isTrue();
     assertThat(services.get("kwanta").get("depends_on").get("postgres").get("condition").asString())
         .isEqualTo("service_healthy");
+  }
+
+  @Test
+  void composeFileRunsPrometheusWithTheRulesAndGrafanaWithTheDashboards() throws Exception {
+    JsonNode services =
+        new YAMLMapper()
+            .readTree(Files.readString(ROOT.resolve("docker-compose.yml")))
+            .get("services");
+    String prometheusVolumes = services.get("prometheus").get("volumes").toString();
+    assertThat(prometheusVolumes)
+        .contains("./deploy/prometheus/prometheus.yml:/etc/prometheus/prometheus.yml")
+        .contains("./deploy/prometheus/rules:/etc/prometheus/rules");
+    assertThat(services.get("grafana").get("volumes").toString())
+        .contains("./deploy/grafana/provisioning:/etc/grafana/provisioning");
+    for (JsonNode service : List.of(services.get("prometheus"), services.get("grafana"))) {
+      for (JsonNode volume : service.get("volumes")) {
+        Path source = ROOT.resolve(volume.asString().split(":")[0]);
+        assertThat(source).as(volume.asString()).exists();
+      }
+    }
+    // The scrape target is the compose service name and the port the service listens on.
+    JsonNode prometheus =
+        new YAMLMapper()
+            .readTree(Files.readString(ROOT.resolve("deploy/prometheus/prometheus.yml")));
+    String target =
+        prometheus
+            .get("scrape_configs")
+            .get(0)
+            .get("static_configs")
+            .get(0)
+            .get("targets")
+            .get(0)
+            .asString();
+    assertThat(target)
+        .isEqualTo(
+            "kwanta:" + services.get("kwanta").get("environment").get("SERVER_PORT").asString());
+    // Grafana's provisioned datasource points at the compose service.
+    JsonNode datasource =
+        new YAMLMapper()
+            .readTree(
+                Files.readString(
+                    ROOT.resolve("deploy/grafana/provisioning/datasources/prometheus.yml")));
+    assertThat(datasource.get("datasources").get(0).get("url").asString())
+        .isEqualTo("http://prometheus:9090");
   }
 
   @Test

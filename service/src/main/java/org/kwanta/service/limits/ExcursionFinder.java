@@ -1,0 +1,175 @@
+package org.kwanta.service.limits;
+
+import java.sql.Timestamp;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.stream.Collectors;
+import org.kwanta.model.limits.Classification;
+import org.kwanta.model.limits.Classifier;
+import org.kwanta.model.limits.Excursion;
+import org.kwanta.model.limits.Excursions;
+import org.kwanta.model.limits.Level;
+import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.limits.Sample;
+import org.springframework.jdbc.core.simple.JdbcClient;
+import org.springframework.stereotype.Service;
+
+/**
+ * Classifies stored readings against the limits in force and builds excursions. Derived on request
+ * from the readings (values in canonical units) and the stored evaluations' instrument findings, so
+ * the answer is the same whatever order the readings arrived in.
+ *
+ * <p>A value is suspect when its reading has quality "bad", or when the evaluation at that time
+ * suspects the parameter's own instrument or the sample conditioning.
+ */
+@Service
+public class ExcursionFinder {
+
+  /** How far before the window start readings are read, so that a running excursion is whole. */
+  static final Duration LOOKBACK = Duration.ofDays(8);
+
+  private final JdbcClient jdbc;
+  private final Limits limits;
+  private final Clock clock;
+
+  ExcursionFinder(JdbcClient jdbc, Limits limits, Clock clock) {
+    this.jdbc = jdbc;
+    this.limits = limits;
+    this.clock = clock;
+  }
+
+  /** Which excursions to list. Null fields do not filter. */
+  public record Filter(
+      String plant,
+      String samplePoint,
+      Parameter parameter,
+      Instant from,
+      Instant to,
+      Level minLevel,
+      Boolean open) {}
+
+  /** An excursion at one sample point and parameter, with its acknowledgement if any. */
+  public record Found(
+      Limits.Effective limits, Excursion excursion, Optional<Acknowledgement> acknowledgement) {}
+
+  /** A chemist's acknowledgement. */
+  public record Acknowledgement(Instant at, String by, String note) {}
+
+  /** The classified series of one point and parameter over [from, to]. */
+  public List<Classification> classify(Limits.Effective effective, Instant from, Instant to) {
+    Parameter parameter = effective.profile().key().parameter();
+    List<Sample> samples =
+        jdbc.sql(
+                """
+                SELECT r.time, r.value,
+                       r.quality = 2 OR coalesce(EXISTS (
+                           SELECT 1 FROM jsonb_array_elements(e.details -> 'findings') f
+                           WHERE f ->> 'suspect' IN (?, 'SAMPLE_CONDITIONING')), false)
+                FROM reading r
+                LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+                WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
+                ORDER BY r.time""")
+            .params(
+                parameter.name(),
+                effective.point().id(),
+                parameter.code(),
+                Timestamp.from(from),
+                Timestamp.from(to))
+            .query(
+                (rs, i) ->
+                    new Sample(rs.getTimestamp(1).toInstant(), rs.getDouble(2), rs.getBoolean(3)))
+            .list();
+    return new Classifier(effective.profile()).classify(samples);
+  }
+
+  /** Excursions overlapping [from, to], oldest first. */
+  public List<Found> find(Filter filter) {
+    Instant now = clock.instant();
+    Instant to = filter.to() == null || filter.to().isAfter(now) ? now : filter.to();
+    Instant from = filter.from() == null ? to.minus(Duration.ofDays(31)) : filter.from();
+    List<Found> out = new ArrayList<>();
+    for (Limits.Point point : limits.points(filter.plant(), filter.samplePoint())) {
+      Map<String, Acknowledgement> acks = acknowledgements(point.id());
+      for (Limits.Effective effective : limits.inForce(point)) {
+        Parameter parameter = effective.profile().key().parameter();
+        if (filter.parameter() != null && filter.parameter() != parameter) {
+          continue;
+        }
+        List<Classification> classified = classify(effective, from.minus(LOOKBACK), to);
+        for (Excursion e : Excursions.of(effective.profile(), classified, to)) {
+          Instant end = e.end().orElse(to);
+          boolean overlaps = !end.isBefore(from) && !e.start().isAfter(to);
+          boolean level =
+              filter.minLevel() == null
+                  || e.highestLevel().severity() >= filter.minLevel().severity();
+          boolean open = filter.open() == null || filter.open() == e.open();
+          if (overlaps && level && open) {
+            out.add(
+                new Found(
+                    effective,
+                    e,
+                    Optional.ofNullable(acks.get(parameter.code() + "|" + e.start()))));
+          }
+        }
+      }
+    }
+    out.sort(Comparator.comparing((Found f) -> f.excursion().start()));
+    return out;
+  }
+
+  private Map<String, Acknowledgement> acknowledgements(String samplePoint) {
+    return jdbc
+        .sql(
+            """
+            SELECT parameter, excursion_start, acknowledged_at, acknowledged_by, note
+            FROM excursion_acknowledgement WHERE sample_point_id = ?""")
+        .param(samplePoint)
+        .query(
+            (rs, i) ->
+                Map.entry(
+                    rs.getString(1) + "|" + rs.getTimestamp(2).toInstant(),
+                    new Acknowledgement(
+                        rs.getTimestamp(3).toInstant(), rs.getString(4), rs.getString(5))))
+        .list()
+        .stream()
+        .collect(Collectors.toMap(Map.Entry::getKey, Map.Entry::getValue));
+  }
+
+  /**
+   * Records an acknowledgement of the excursion that starts at {@code start}.
+   *
+   * @return false when no such excursion exists
+   */
+  public boolean acknowledge(
+      Limits.Point point, Parameter parameter, Instant start, String by, String note) {
+    Optional<Limits.Effective> effective = limits.find(point, parameter);
+    if (effective.isEmpty()) {
+      return false;
+    }
+    Instant now = clock.instant();
+    List<Classification> classified = classify(effective.get(), start.minus(LOOKBACK), now);
+    boolean exists =
+        Excursions.of(effective.get().profile(), classified, now).stream()
+            .anyMatch(e -> e.start().equals(start));
+    if (!exists) {
+      return false;
+    }
+    jdbc.sql(
+            """
+            INSERT INTO excursion_acknowledgement
+                (sample_point_id, parameter, excursion_start, acknowledged_by, note)
+            VALUES (?, ?, ?, ?, ?)
+            ON CONFLICT (sample_point_id, parameter, excursion_start) DO UPDATE
+            SET acknowledged_by = EXCLUDED.acknowledged_by, note = EXCLUDED.note,
+                acknowledged_at = now()""")
+        .params(point.id(), parameter.code(), Timestamp.from(start), by, note)
+        .update();
+    return true;
+  }
+}

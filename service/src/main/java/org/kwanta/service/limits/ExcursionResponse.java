@@ -1,0 +1,108 @@
+package org.kwanta.service.limits;
+
+import java.time.Instant;
+import java.util.Locale;
+
+/**
+ * One excursion in the API. Values are in {@code valueUnit} (UCUM), durations in seconds.
+ * Allowances are the customary AL1 one week, AL2 24 h, AL3 4 h (from memory — verify).
+ */
+public record ExcursionResponse(
+    String plant,
+    String unit,
+    String samplePoint,
+    String parameter,
+    String valueUnit,
+    String limitsOrigin,
+    Instant start,
+    Instant end,
+    boolean open,
+    String side,
+    double peakValue,
+    Instant peakTime,
+    String highestLevel,
+    String currentLevel,
+    long durationSeconds,
+    long allowanceSeconds,
+    Instant deadline,
+    Long timeRemainingSeconds,
+    boolean allowanceExceeded,
+    Instant acknowledgedAt,
+    String acknowledgedBy,
+    String acknowledgementNote) {
+
+  static ExcursionResponse from(ExcursionFinder.Found f) {
+    var e = f.excursion();
+    var p = f.limits().point();
+    var parameter = f.limits().profile().key().parameter();
+    var ack = f.acknowledgement();
+    return new ExcursionResponse(
+        p.plant(),
+        p.unit(),
+        p.id(),
+        parameter.code(),
+        parameter.unit(),
+        f.limits().origin().name(),
+        e.start(),
+        e.end().orElse(null),
+        e.open(),
+        e.side().name(),
+        e.peakValue(),
+        e.peakTime(),
+        e.highestLevel().name(),
+        e.currentLevel().name(),
+        e.duration().toSeconds(),
+        e.allowance().toSeconds(),
+        e.deadline().orElse(null),
+        e.timeRemaining().map(d -> d.toSeconds()).orElse(null),
+        e.allowanceExceeded(),
+        ack.map(ExcursionFinder.Acknowledgement::at).orElse(null),
+        ack.map(ExcursionFinder.Acknowledgement::by).orElse(null),
+        ack.map(ExcursionFinder.Acknowledgement::note).orElse(null));
+  }
+
+  static final String CSV_HEADER =
+      "plant,unit,sample_point,parameter,value_unit,limits_origin,start,end,open,side,peak_value,"
+          + "peak_time,highest_level,current_level,duration_s,allowance_s,deadline,"
+          + "time_remaining_s,allowance_exceeded,acknowledged_at,acknowledged_by,"
+          + "acknowledgement_note\r\n";
+
+  String csvRow() {
+    return String.join(
+            ",",
+            csv(plant),
+            csv(unit),
+            csv(samplePoint),
+            csv(parameter),
+            csv(valueUnit),
+            limitsOrigin,
+            String.valueOf(start),
+            end == null ? "" : end.toString(),
+            String.valueOf(open),
+            side,
+            String.format(Locale.ROOT, "%s", peakValue),
+            String.valueOf(peakTime),
+            highestLevel,
+            currentLevel,
+            String.valueOf(durationSeconds),
+            String.valueOf(allowanceSeconds),
+            deadline == null ? "" : deadline.toString(),
+            timeRemainingSeconds == null ? "" : timeRemainingSeconds.toString(),
+            String.valueOf(allowanceExceeded),
+            acknowledgedAt == null ? "" : acknowledgedAt.toString(),
+            csv(acknowledgedBy),
+            csv(acknowledgementNote))
+        + "\r\n";
+  }
+
+  /** RFC 4180 quoting; a leading formula character is neutralised for spreadsheets. */
+  private static String csv(String s) {
+    if (s == null) {
+      return "";
+    }
+    String v = !s.isEmpty() && "=+-@".indexOf(s.charAt(0)) >= 0 ? "'" + s : s;
+    return v.contains(",") || v.contains("\"") || v.contains("\n") || v.contains("\r")
+        ? "\"" + v.replace("\"", "\"\"") + "\""
+        : v;
+  }
+}

@@ -1,0 +1,181 @@
+package org.kwanta.service.limits;
+
+import io.swagger.v3.oas.annotations.Operation;
+import io.swagger.v3.oas.annotations.tags.Tag;
+import jakarta.validation.Valid;
+import jakarta.validation.constraints.NotBlank;
+import jakarta.validation.constraints.NotNull;
+import jakarta.validation.constraints.Size;
+import java.time.Instant;
+import java.time.format.DateTimeParseException;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.kwanta.model.limits.Classification;
+import org.kwanta.model.limits.Excursions;
+import org.kwanta.model.limits.Level;
+import org.kwanta.model.limits.MonthlyHours;
+import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.system.BadRequestException;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.MediaType;
+import org.springframework.http.ResponseEntity;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PostMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RequestHeader;
+import org.springframework.web.bind.annotation.RequestMapping;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.RestController;
+
+@RestController
+@RequestMapping("/api/v1/excursions")
+@Tag(
+    name = "Excursions",
+    description =
+        "Stretches at Action Level 1 or above, classified against the limits in force. The shipped"
+            + " default limits are examples recalled from IAPWS guidance (from memory — verify),"
+            + " not the plant's limits; set the plant's own per sample point.")
+class ExcursionsController {
+
+  private static final int MAX_ROWS = 10_000;
+  private final ExcursionFinder finder;
+  private final Limits limits;
+
+  ExcursionsController(ExcursionFinder finder, Limits limits) {
+    this.finder = finder;
+    this.limits = limits;
+  }
+
+  @GetMapping(produces = {MediaType.APPLICATION_JSON_VALUE, "text/csv"})
+  @Operation(
+      summary = "List excursions (JSON or CSV)",
+      description =
+          "Filter by plant, samplePoint, parameter, time window [from, to] (ISO 8601; default the"
+              + " last 31 days), minLevel (AL1, AL2, AL3, SHUTDOWN) and open. CSV with"
+              + " format=csv or Accept: text/csv. Example: ?plant=brackenmoor&samplePoint=U2-CPD")
+  ResponseEntity<?> list(
+      @RequestParam(required = false) String plant,
+      @RequestParam(required = false) String samplePoint,
+      @RequestParam(required = false) String parameter,
+      @RequestParam(required = false) String from,
+      @RequestParam(required = false) String to,
+      @RequestParam(required = false) String minLevel,
+      @RequestParam(required = false) Boolean open,
+      @RequestParam(required = false) String format,
+      @RequestHeader(value = "Accept", required = false) String accept) {
+    ExcursionFinder.Filter filter =
+        new ExcursionFinder.Filter(
+            plant,
+            samplePoint,
+            parameter == null ? null : WebLookups.parameter(parameter),
+            time("from", from),
+            time("to", to),
+            minLevel == null ? null : level(minLevel),
+            open);
+    List<ExcursionResponse> rows =
+        finder.find(filter).stream().limit(MAX_ROWS).map(ExcursionResponse::from).toList();
+    if (csv(format, accept)) {
+      StringBuilder sb = new StringBuilder(ExcursionResponse.CSV_HEADER);
+      rows.forEach(r -> sb.append(r.csvRow()));
+      return ResponseEntity.ok()
+          .contentType(MediaType.parseMediaType("text/csv;charset=UTF-8"))
+          .header("Content-Disposition", "attachment; filename=\"excursions.csv\"")
+          .body(sb.toString());
+    }
+    return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(rows);
+  }
+
+  /** Hours per level per calendar month (UTC) at one sample point and parameter. */
+  record MonthlyHoursResponse(String month, String level, double hours) {}
+
+  @GetMapping(value = "/monthly-hours", produces = MediaType.APPLICATION_JSON_VALUE)
+  @Operation(
+      summary = "Cumulative hours per level per calendar month (UTC)",
+      description = "Example: ?samplePoint=U2-CPD&parameter=cation_conductivity")
+  List<MonthlyHoursResponse> monthlyHours(
+      @RequestParam String samplePoint,
+      @RequestParam String parameter,
+      @RequestParam(required = false) String from,
+      @RequestParam(required = false) String to) {
+    Limits.Effective effective = effective(samplePoint, WebLookups.parameter(parameter));
+    Instant end = time("to", to) == null ? Instant.now() : time("to", to);
+    Instant start =
+        time("from", from) == null ? end.minus(java.time.Duration.ofDays(366)) : time("from", from);
+    List<Classification> classified = finder.classify(effective, start, end);
+    List<MonthlyHours> hours = Excursions.monthlyHours(classified, end);
+    return hours.stream()
+        .map(h -> new MonthlyHoursResponse(h.month().toString(), h.level().name(), h.hours()))
+        .toList();
+  }
+
+  /** An acknowledgement by a chemist. */
+  record AcknowledgementRequest(
+      @NotBlank @Size(max = 64) String samplePoint,
+      @NotBlank @Size(max = 64) String parameter,
+      @NotNull Instant start,
+      @NotBlank @Size(max = 200) String by,
+      @NotBlank @Size(max = 4000) String note) {}
+
+  @PostMapping("/acknowledgements")
+  @Operation(
+      summary = "Acknowledge an excursion with a note",
+      description = "The excursion is named by sample point, parameter and its start time.")
+  ResponseEntity<Map<String, Object>> acknowledge(@Valid @RequestBody AcknowledgementRequest r) {
+    Parameter parameter = WebLookups.parameter(r.parameter());
+    Limits.Point point = WebLookups.point(limits, r.samplePoint());
+    if (!finder.acknowledge(point, parameter, r.start(), r.by(), r.note())) {
+      throw WebLookups.notFound(
+          "No excursion of " + parameter.code() + " at " + point.id() + " starts at " + r.start());
+    }
+    return ResponseEntity.status(HttpStatus.CREATED)
+        .body(
+            Map.of(
+                "samplePoint", point.id(),
+                "parameter", parameter.code(),
+                "start", r.start().toString(),
+                "acknowledgedBy", r.by()));
+  }
+
+  private Limits.Effective effective(String samplePoint, Parameter parameter) {
+    return limits
+        .find(WebLookups.point(limits, samplePoint), parameter)
+        .orElseThrow(
+            () -> WebLookups.notFound("No limits for " + parameter.code() + " at " + samplePoint));
+  }
+
+  private static Level level(String name) {
+    try {
+      Level level = Level.valueOf(name.toUpperCase(Locale.ROOT));
+      if (!level.isAction()) {
+        throw new IllegalArgumentException();
+      }
+      return level;
+    } catch (IllegalArgumentException e) {
+      throw BadRequestException.of("minLevel must be AL1, AL2, AL3 or SHUTDOWN");
+    }
+  }
+
+  private static Instant time(String name, String value) {
+    if (value == null) {
+      return null;
+    }
+    try {
+      return java.time.OffsetDateTime.parse(value).toInstant();
+    } catch (DateTimeParseException e) {
+      throw BadRequestException.of(
+          name + " must be an ISO 8601 time with offset, e.g. 2025-06-12T06:00:00Z");
+    }
+  }
+
+  private static boolean csv(String format, String accept) {
+    if (format != null) {
+      return switch (format.toLowerCase(Locale.ROOT)) {
+        case "csv" -> true;
+        case "json" -> false;
+        default -> throw BadRequestException.of("format must be json or csv");
+      };
+    }
+    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
+  }
+}

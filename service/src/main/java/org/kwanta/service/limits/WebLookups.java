@@ -1,0 +1,32 @@
+package org.kwanta.service.limits;
+
+import java.util.Map;
+import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemTypes;
+import org.springframework.http.HttpStatus;
+
+/** Request-parameter lookups shared by the limits and excursions controllers. */
+final class WebLookups {
+
+  private WebLookups() {}
+
+  static BadRequestException notFound(String detail) {
+    return new BadRequestException(
+        HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not Found", detail, Map.of());
+  }
+
+  static Limits.Point point(Limits limits, String id) {
+    return limits.points(null, id).stream()
+        .findFirst()
+        .orElseThrow(() -> notFound("No sample point '" + id + "'"));
+  }
+
+  static Parameter parameter(String code) {
+    try {
+      return Parameter.ofCode(code);
+    } catch (IllegalArgumentException e) {
+      throw BadRequestException.of(e.getMessage());
+    }
+  }
+}

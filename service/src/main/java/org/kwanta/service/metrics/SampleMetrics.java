@@ -1,0 +1,156 @@
+package org.kwanta.service.metrics;
+
+import io.micrometer.core.instrument.MeterRegistry;
+import io.micrometer.core.instrument.MultiGauge;
+import io.micrometer.core.instrument.Tags;
+import java.sql.Timestamp;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.kwanta.model.limits.Classification;
+import org.kwanta.model.limits.Level;
+import org.kwanta.service.limits.ExcursionFinder;
+import org.kwanta.service.limits.Limits;
+import org.springframework.beans.factory.annotation.Value;
+import org.springframework.jdbc.core.simple.JdbcClient;
+import org.springframework.scheduling.annotation.Scheduled;
+import org.springframework.stereotype.Component;
+
+/**
+ * Per sample point and parameter gauges (latest value, level, time in level, instrument check,
+ * reading age) and the pH at temperature per sample point, refreshed on a schedule from the stored
+ * readings and evaluations ({@code kwanta.metrics.refresh}, default 30 s). The level looks back
+ * {@code kwanta.metrics.level-window} (default 8 days, longer than the AL1 allowance), so time in
+ * level is capped at that window.
+ */
+@Component
+class SampleMetrics {
+
+  private final JdbcClient jdbc;
+  private final Limits limits;
+  private final ExcursionFinder finder;
+  private final Clock clock;
+  private final Duration window;
+  private final MultiGauge value;
+  private final MultiGauge phAtTemperature;
+  private final MultiGauge level;
+  private final MultiGauge held;
+  private final MultiGauge checkFailed;
+  private final MultiGauge age;
+
+  SampleMetrics(
+      MeterRegistry registry,
+      JdbcClient jdbc,
+      Limits limits,
+      ExcursionFinder finder,
+      Clock clock,
+      @Value("${kwanta.metrics.level-window:P8D}") Duration window) {
+    this.jdbc = jdbc;
+    this.limits = limits;
+    this.finder = finder;
+    this.clock = clock;
+    this.window = window;
+    this.value = gauge(registry, MetricNames.SAMPLE_VALUE, null);
+    this.phAtTemperature = gauge(registry, MetricNames.SAMPLE_PH_AT_TEMPERATURE, null);
+    this.level = gauge(registry, MetricNames.SAMPLE_LEVEL, null);
+    this.held = gauge(registry, MetricNames.SAMPLE_LEVEL_HELD, "seconds");
+    this.checkFailed = gauge(registry, MetricNames.SAMPLE_INSTRUMENT_CHECK_FAILED, null);
+    this.age = gauge(registry, MetricNames.SAMPLE_READING_AGE, "seconds");
+  }
+
+  private static MultiGauge gauge(MeterRegistry registry, String name, String baseUnit) {
+    String help =
+        MetricNames.METRICS.stream()
+            .filter(m -> m.micrometerName().equals(name))
+            .findFirst()
+            .orElseThrow()
+            .help();
+    return MultiGauge.builder(name).description(help).baseUnit(baseUnit).register(registry);
+  }
+
+  private record Latest(Instant time, double value) {}
+
+  @Scheduled(
+      fixedDelayString = "${kwanta.metrics.refresh:PT30S}",
+      initialDelayString = "${kwanta.metrics.initial-delay:PT5S}")
+  void refresh() {
+    Instant now = clock.instant();
+    Instant since = now.minus(window);
+    Map<String, Latest> latest = new HashMap<>();
+    jdbc.sql(
+            """
+            SELECT DISTINCT ON (sample_point_id, parameter) sample_point_id, parameter, time, value
+            FROM reading WHERE time >= ? ORDER BY sample_point_id, parameter, time DESC""")
+        .param(Timestamp.from(since))
+        .query(
+            (org.springframework.jdbc.core.RowCallbackHandler)
+                rs -> {
+                  latest.put(
+                      rs.getString(1) + "|" + rs.getString(2),
+                      new Latest(rs.getTimestamp(3).toInstant(), rs.getDouble(4)));
+                });
+    Map<String, Double> ph = new HashMap<>();
+    jdbc.sql(
+            """
+            SELECT DISTINCT ON (sample_point_id) sample_point_id, ph_at_temperature FROM evaluation
+            WHERE time >= ? AND ph_at_temperature IS NOT NULL ORDER BY sample_point_id, time DESC""")
+        .param(Timestamp.from(since))
+        .query(
+            (org.springframework.jdbc.core.RowCallbackHandler)
+                rs -> ph.put(rs.getString(1), rs.getDouble(2)));
+
+    List<MultiGauge.Row<?>> values = new ArrayList<>();
+    List<MultiGauge.Row<?>> ages = new ArrayList<>();
+    List<MultiGauge.Row<?>> levels = new ArrayList<>();
+    List<MultiGauge.Row<?>> helds = new ArrayList<>();
+    List<MultiGauge.Row<?>> checks = new ArrayList<>();
+    List<MultiGauge.Row<?>> phs = new ArrayList<>();
+    for (Limits.Point point : limits.points(null, null)) {
+      Tags pointTags =
+          Tags.of(
+              MetricNames.PLANT, point.plant(),
+              MetricNames.UNIT, point.unit(),
+              MetricNames.SAMPLE_POINT, point.id());
+      if (ph.containsKey(point.id())) {
+        phs.add(MultiGauge.Row.of(pointTags, ph.get(point.id())));
+      }
+      latest.forEach(
+          (key, l) -> {
+            if (key.startsWith(point.id() + "|")) {
+              Tags tags =
+                  pointTags.and(MetricNames.PARAMETER, key.substring(point.id().length() + 1));
+              values.add(MultiGauge.Row.of(tags, l.value()));
+              ages.add(
+                  MultiGauge.Row.of(tags, Duration.between(l.time(), now).toMillis() / 1000.0));
+            }
+          });
+      for (Limits.Effective effective : limits.inForce(point)) {
+        String parameter = effective.profile().key().parameter().code();
+        if (!latest.containsKey(point.id() + "|" + parameter)) {
+          continue;
+        }
+        List<Classification> classified = finder.classify(effective, since, now);
+        if (classified.isEmpty()) {
+          continue;
+        }
+        Classification last = classified.get(classified.size() - 1);
+        Tags tags = pointTags.and(MetricNames.PARAMETER, parameter);
+        levels.add(MultiGauge.Row.of(tags, last.level().severity()));
+        helds.add(
+            MultiGauge.Row.of(
+                tags, Duration.between(last.actionLevelSince(), now).toMillis() / 1000.0));
+        checks.add(MultiGauge.Row.of(tags, last.level() == Level.SUSPECT ? 1 : 0));
+      }
+    }
+    value.register(values, true);
+    age.register(ages, true);
+    level.register(levels, true);
+    held.register(helds, true);
+    checkFailed.register(checks, true);
+    phAtTemperature.register(phs, true);
+  }
+}
