@@ -12,6 +12,7 @@ import java.util.TreeMap;
 import java.util.TreeSet;
 import org.kwanta.service.evaluations.EvaluationRunner;
 import org.kwanta.service.evaluations.EvaluationStore;
+import org.kwanta.service.metrics.IngestMetrics;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Service;
@@ -34,6 +35,7 @@ public class IngestService {
   private final IngestLimits limits;
   private final ReadingValidator validator;
   private final TransactionTemplate transaction;
+  private final IngestMetrics metrics;
 
   IngestService(
       SamplePointConfigs configs,
@@ -43,7 +45,9 @@ public class IngestService {
       JdbcTemplate jdbc,
       IngestLimits limits,
       Clock clock,
-      PlatformTransactionManager transactions) {
+      PlatformTransactionManager transactions,
+      IngestMetrics metrics) {
+    this.metrics = metrics;
     this.transaction = new TransactionTemplate(transactions);
     this.configs = configs;
     this.readings = readings;
@@ -91,6 +95,9 @@ public class IngestService {
       List<RejectedReading> all = new ArrayList<>(alreadyRejected);
       all.addAll(checked.rejected());
       all.sort(java.util.Comparator.comparingInt(RejectedReading::index));
+      for (RejectedReading r : all) {
+        metrics.rejected(r.field() == null ? "reading" : r.field(), 1);
+      }
       throw new InvalidBatchException(all);
     }
     // Last occurrence wins within a batch: a historian resending a row in the same batch corrects
@@ -107,10 +114,17 @@ public class IngestService {
     }
     partitions.ensure(days);
     int duplicates = inputs.size() - batch.size();
-    return transaction.execute(status -> store(batch, inputs.size(), duplicates));
+    Stored stored =
+        metrics.timeBatch(
+            () -> transaction.execute(status -> store(batch, inputs.size(), duplicates)));
+    stored.changedPerPlant().forEach(metrics::ingested);
+    return stored.outcome();
   }
 
-  private Outcome store(List<ValidReading> batch, int received, int duplicates) {
+  /** A committed batch and how many readings it added or changed per plant. */
+  private record Stored(Outcome outcome, Map<String, Integer> changedPerPlant) {}
+
+  private Stored store(List<ValidReading> batch, int received, int duplicates) {
     // Per-point locks, in a fixed order: concurrent batches for the same point evaluate one after
     // the other,
     // each seeing the other's committed readings, so the stored evaluations do not depend on
@@ -128,25 +142,35 @@ public class IngestService {
     }
     ReadingStore.Counts counts = readings.upsert(batch);
     int written = 0;
+    Map<String, SamplePointConfigs.Versioned> current = configs.current(ranges.keySet());
+    Map<String, Integer> perPlant = new TreeMap<>();
     if (counts.inserted() + counts.corrected() > 0) {
-      Map<String, SamplePointConfigs.Versioned> current = configs.current(ranges.keySet());
+      for (ValidReading r : batch) {
+        perPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+      }
       Duration window = limits.historyWindow();
       for (Map.Entry<String, Instant[]> e : ranges.entrySet()) {
         Instant from = e.getValue()[0];
         Instant to = e.getValue()[1].plus(window);
+        List<EvaluationRunner.StoredReading> stored =
+            evaluations.readings(e.getKey(), from.minus(window), to);
         List<EvaluationRunner.Result> results =
-            EvaluationRunner.run(
-                current.get(e.getKey()),
-                evaluations.readings(e.getKey(), from.minus(window), to),
-                from,
-                to,
-                window,
-                limits.maxAge());
+            metrics.timeEvaluation(
+                () ->
+                    EvaluationRunner.run(
+                        current.get(e.getKey()), stored, from, to, window, limits.maxAge()));
         evaluations.upsert(results);
         written += results.size();
       }
     }
-    return new Outcome(
-        received, counts.inserted(), counts.corrected(), counts.unchanged(), duplicates, written);
+    return new Stored(
+        new Outcome(
+            received,
+            counts.inserted(),
+            counts.corrected(),
+            counts.unchanged(),
+            duplicates,
+            written),
+        perPlant);
   }
 }

@@ -29,7 +29,8 @@ public class SamplePointConfigs {
   }
 
   /** A configuration and its version number. */
-  public record Versioned(SamplePointConfig config, int version, String cycleLocation) {}
+  public record Versioned(
+      SamplePointConfig config, int version, String cycleLocation, String plantId) {}
 
   /** Which of the ids are registered sample points. */
   public Set<String> existing(Collection<String> ids) {
@@ -51,7 +52,7 @@ public class SamplePointConfigs {
     jdbc.sql(
             """
             SELECT id, treatment_regime, alkalizer, operating_temperature_cel, operating_pressure_mpa,
-                   version, cycle_location
+                   version, cycle_location, plant_id
             FROM sample_point WHERE id = ANY (?::text[])""")
         .param(ids.toArray(String[]::new))
         .query(
@@ -68,7 +69,7 @@ public class SamplePointConfigs {
                       p == null ? Double.NaN : p * 1e6,
                       Tolerances.defaults(),
                       CheckSettings.defaults());
-              out.put(id, new Versioned(config, rs.getInt(6), rs.getString(7)));
+              out.put(id, new Versioned(config, rs.getInt(6), rs.getString(7), rs.getString(8)));
               return id;
             })
         .list();
