@@ -1,0 +1,140 @@
+// Kwanta chemist page: plain JavaScript over the public API (read key kept in this browser only).
+'use strict';
+const $ = (id) => document.getElementById(id);
+const key = () => localStorage.getItem('kwanta.key') || '';
+
+async function api(path) {
+  const headers = { Accept: 'application/json' };
+  if (key()) headers.Authorization = 'Bearer ' + key();
+  const r = await fetch(path, { headers });
+  if (!r.ok) {
+    let detail = r.statusText;
+    try { detail = (await r.json()).detail || detail; } catch (e) { /* not JSON */ }
+    throw new Error(r.status + ': ' + detail);
+  }
+  return r.json();
+}
+
+const fmt = (v, digits) => (v === null || v === undefined || Number.isNaN(v)) ? '–' : Number(v).toFixed(digits);
+const age = (s) => s === undefined ? '–' : s < 120 ? Math.round(s) + ' s' : s < 7200 ? Math.round(s / 60) + ' min' : Math.round(s / 3600) + ' h';
+
+function latest(state, parameter) {
+  return (state.readings || []).find((r) => r.parameter === parameter);
+}
+
+function row(state) {
+  const ev = state.evaluation && state.evaluation.evaluation;
+  const at25 = (p) => {
+    const c = ev && (ev.compensated || []).find((x) => x.parameter === p);
+    return c ? c.at25USPerCm : undefined;
+  };
+  const ph = latest(state, 'ph');
+  const na = latest(state, 'sodium');
+  const t = ev && ev.phAtTemperature;
+  const findings = ev ? ev.findings : [];
+  const tr = document.createElement('tr');
+  const cells = [
+    state.samplePoint + ' <small>' + state.name + '</small>',
+    state.treatmentRegime,
+    fmt(at25('specific_conductivity'), 3),
+    fmt(at25('cation_conductivity'), 3),
+    fmt(at25('degassed_cation_conductivity'), 3),
+    ph ? fmt(ph.value, 2) : '–',
+    ev && ev.calculatedPh ? fmt(ev.calculatedPh.rigorous, 2) : '–',
+    t ? fmt(t.ph, 2) + ' <small>[' + fmt(t.low, 2) + '–' + fmt(t.high, 2) + '] at ' + fmt(t.temperatureCel, 0) + ' °C</small>' : '–',
+    t ? fmt(t.neutralPh, 2) : '–',
+    na ? fmt(na.value, 2) : '–',
+    findings.length === 0 ? (ev ? '<span class="ok">consistent</span>' : '–')
+      : findings.map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + f.explanation + '">'
+        + f.code + (f.suspect === 'PROCESS' ? '' : ' (' + f.suspect.toLowerCase() + ')') + '</span>').join('<br>'),
+    state.evaluation ? age(state.evaluation.ageSeconds) : '–',
+  ];
+  tr.innerHTML = cells.map((c, i) => '<td' + (i === 10 ? ' class="checks"' : '') + '>' + c + '</td>').join('');
+  if (state.evaluation && state.evaluation.ageSeconds > 900) tr.classList.add('stale');
+  tr.addEventListener('click', () => detail(state));
+  return tr;
+}
+
+async function loadPlants() {
+  const plants = await api('api/v1/plants');
+  const select = $('plant');
+  select.innerHTML = plants.map((p) => '<option value="' + p.id + '">' + p.name + '</option>').join('');
+}
+
+async function refresh() {
+  const plant = $('plant').value;
+  if (!plant) return;
+  try {
+    const overview = await api('api/v1/plants/' + encodeURIComponent(plant) + '/overview');
+    const body = $('overview').querySelector('tbody');
+    body.replaceChildren(...overview.samplePoints.map(row));
+    $('as-of').textContent = 'as of ' + new Date(overview.asOf).toLocaleString();
+    $('status').textContent = '';
+  } catch (e) {
+    $('status').textContent = 'Could not load the overview (' + e.message + '). A read key may be needed.';
+  }
+}
+
+function chart(svg, series, lines) {
+  const W = 600, H = 220, L = 40, B = 20;
+  const all = series.flatMap((s) => s.points.map((p) => p.y)).filter((y) => y !== null && Number.isFinite(y));
+  svg.innerHTML = '';
+  if (all.length === 0) { svg.innerHTML = '<text x="20" y="40">no data</text>'; return; }
+  let lo = Math.min(...all), hi = Math.max(...all);
+  if (hi - lo < 1e-9) { lo -= 0.5; hi += 0.5; }
+  const t0 = Math.min(...series.flatMap((s) => s.points.map((p) => p.x)));
+  const t1 = Math.max(...series.flatMap((s) => s.points.map((p) => p.x)));
+  const x = (t) => L + (W - L - 5) * (t - t0) / Math.max(1, t1 - t0);
+  const y = (v) => H - B - (H - B - 10) * (v - lo) / (hi - lo);
+  let out = '<text x="2" y="14" font-size="10">' + hi.toPrecision(4) + '</text><text x="2" y="' + (H - B) + '" font-size="10">' + lo.toPrecision(4) + '</text>';
+  series.forEach((s, i) => {
+    const d = s.points.filter((p) => p.y !== null).map((p, j) => (j ? 'L' : 'M') + x(p.x).toFixed(1) + ',' + y(p.y).toFixed(1)).join('');
+    out += '<path d="' + d + '" fill="none" stroke="' + lines[i] + '" stroke-width="' + (i === 0 ? 2 : 1) + '"/>';
+  });
+  svg.innerHTML = out;
+}
+
+async function series(point, parameter) {
+  const to = new Date(), from = new Date(to.getTime() - 86400000);
+  const q = new URLSearchParams({ parameter, from: from.toISOString(), to: to.toISOString(), maxPoints: 300 });
+  const r = await api('api/v1/sample-points/' + encodeURIComponent(point) + '/series?' + q);
+  return { points: r.buckets.map((b) => ({ x: Date.parse(b.start), y: b.mean })) };
+}
+
+async function detail(state) {
+  $('detail').hidden = false;
+  $('detail-title').textContent = state.samplePoint + ' – ' + state.name;
+  const ev = state.evaluation && state.evaluation.evaluation;
+  $('findings').innerHTML = ev && ev.findings.length
+    ? ev.findings.map((f) => '<li><strong>' + f.code + '</strong> (suspect: ' + f.suspect.toLowerCase() + '): ' + f.explanation + '</li>').join('')
+    : '<li>No instrument check failed in the latest evaluation.</li>';
+  $('provenance').textContent = ev && ev.phAtTemperature
+    ? 'pH at ' + fmt(ev.phAtTemperature.temperatureCel, 0) + ' °C and ' + fmt(ev.phAtTemperature.pressureMPa, 2) + ' MPa: ' + ev.phAtTemperature.formulation + '. Configuration version ' + ev.configVersion + '.'
+    : '';
+  try {
+    const [ph, lo, hi, neutral, cc] = await Promise.all(['ph_at_temperature', 'ph_at_temperature_low', 'ph_at_temperature_high', 'neutral_ph_at_temperature', 'cation_conductivity_25'].map((p) => series(state.samplePoint, p)));
+    chart($('chart-ph'), [ph, lo, hi, neutral], ['#16324f', '#9bb3cc', '#9bb3cc', '#c77d00']);
+    chart($('chart-cc'), [cc], ['#7a2e8e']);
+  } catch (e) {
+    $('status').textContent = 'Could not load the series (' + e.message + ').';
+  }
+}
+
+$('key-form').addEventListener('submit', (e) => {
+  e.preventDefault();
+  localStorage.setItem('kwanta.key', $('key').value.trim());
+  $('key').value = '';
+  start();
+});
+$('plant').addEventListener('change', refresh);
+
+async function start() {
+  try {
+    await loadPlants();
+    await refresh();
+  } catch (e) {
+    $('status').textContent = 'Could not load plants (' + e.message + '). Enter a read key above.';
+  }
+}
+start();
+setInterval(refresh, 15000);
