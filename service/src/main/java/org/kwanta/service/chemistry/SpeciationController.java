@@ -5,6 +5,7 @@ import io.swagger.v3.oas.annotations.Parameter;
 import io.swagger.v3.oas.annotations.media.Content;
 import io.swagger.v3.oas.annotations.media.ExampleObject;
 import io.swagger.v3.oas.annotations.media.Schema;
+import io.swagger.v3.oas.annotations.responses.ApiResponse;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import java.util.Locale;
 import org.kwanta.service.system.BadRequestException;
@@ -136,6 +137,17 @@ class SpeciationController {
                                     {"component": "ammonia", "amount": 1.0, "unit": "mg/kg"}
                                   ],
                                    "fromCel": 25, "toCel": 330, "stepCel": 5, "pressureMPa": 15}"""))))
+  @ApiResponse(
+      responseCode = "200",
+      description = "the curve",
+      content = {
+        @Content(
+            mediaType = MediaType.APPLICATION_JSON_VALUE,
+            schema = @Schema(implementation = SpeciationCurveResponse.class)),
+        @Content(
+            mediaType = "text/csv",
+            schema = @Schema(type = "string", description = "RFC 4180, header row with units"))
+      })
   ResponseEntity<?> curve(
       @RequestBody String body,
       @Parameter(description = "json or csv; overrides the Accept header")

@@ -8,7 +8,7 @@ final class SpeciationCsv {
   static final String HEADER =
       "temperature_Cel,pressure_MPa,pressure_source,pH_at_temperature,neutral_pH,"
           + "pH_minus_neutral,pKw,ionic_strength_mol_per_kg,band_low_pH,band_high_pH,"
-          + "band_low_constant_set,band_high_constant_set,extrapolated,pH_at_25_Cel";
+          + "band_low_constant_set,band_high_constant_set,extrapolated_constant,pH_at_25_Cel";
 
   private SpeciationCsv() {}
 
@@ -31,7 +31,7 @@ final class SpeciationCsv {
                   r.bandMaxPh(),
                   field(r.bandMinConstantSet()),
                   field(r.bandMaxConstantSet()),
-                  r.extrapolated(),
+                  r.extrapolatedConstant(),
                   curve.phAt25Cel()))
           .append("\r\n");
     }

@@ -20,6 +20,7 @@ record SpeciationCurveResponse(
     List<Row> rows) {
 
   /** One temperature. */
+  @Schema(name = "SpeciationCurveRow")
   record Row(
       @Schema(example = "300") double temperatureCel,
       @Schema(example = "15") double pressureMPa,
@@ -33,8 +34,11 @@ record SpeciationCurveResponse(
       @Schema(example = "6.08") double bandMaxPh,
       String bandMinConstantSet,
       String bandMaxConstantSet,
-      @Schema(description = "true when any constant of the main result was extrapolated")
-          boolean extrapolated) {
+      @Schema(
+              description =
+                  "true when a constant of the main result (the chosen set) was evaluated outside"
+                      + " its fit's stated range; band members may be extrapolated independently")
+          boolean extrapolatedConstant) {
 
     static Row from(SpeciationResult r, PhBand band) {
       WaterState w = r.water();

@@ -47,7 +47,7 @@ record SpeciationResponse(
   }
 
   /** The speciation at one temperature, the 25 °C pH of the same water and the band. */
-  @Schema(description = "The speciation at one temperature")
+  @Schema(name = "SpeciationAtTemperature", description = "The speciation at one temperature")
   record AtTemperature(
       @Schema(example = "330") double temperatureCel,
       @Schema(example = "603.15") double temperatureK,
@@ -101,7 +101,9 @@ record SpeciationResponse(
   }
 
   /** pH at temperature over the alternative constant sets. */
-  @Schema(description = "pH at temperature over every distinct alternative constant set")
+  @Schema(
+      name = "PhBand",
+      description = "pH at temperature over every distinct alternative constant set")
   record Band(
       @Schema(example = "5.93") double minPh,
       @Schema(example = "NH4+ Thermoddem") String minConstantSet,
@@ -111,6 +113,7 @@ record SpeciationResponse(
       List<Member> members) {
 
     /** One evaluated set. */
+    @Schema(name = "PhBandMember")
     record Member(String constantSet, double ph, boolean extrapolated) {}
 
     static Band from(PhBand b) {
@@ -127,6 +130,7 @@ record SpeciationResponse(
   }
 
   /** One species. */
+  @Schema(name = "SpeciesAmount")
   record SpeciesRow(
       @Schema(example = "ammonium") String species,
       @Schema(example = "NH4+") String formula,
@@ -149,6 +153,7 @@ record SpeciationResponse(
   }
 
   /** One equilibrium constant as used. */
+  @Schema(name = "ConstantUsed")
   record ConstantRow(
       @Schema(example = "ammonium") String equilibrium,
       @Schema(example = "NH4+ = NH3 + H+") String reaction,
@@ -182,6 +187,7 @@ record SpeciationResponse(
   }
 
   /** Something to read beside the numbers. */
+  @Schema(name = "SpeciationNotice")
   record NoticeRow(@Schema(example = "EXTRAPOLATED_CONSTANT") String code, String text) {
 
     static NoticeRow from(Notice n) {

@@ -411,7 +411,7 @@ class SpeciationApiIT {
                 + "], \"fromCel\": 150, \"toCel\": 330, \"stepCel\": 30, \"pressureMPa\": 15}");
     assertThat(c.get("rows").size()).isEqualTo(7);
     assertThat(c.get("rows").get(6).get("temperatureCel").asDouble()).isCloseTo(330, within(1e-9));
-    assertThat(c.get("rows").get(6).get("extrapolated").asBoolean()).isTrue();
+    assertThat(c.get("rows").get(6).get("extrapolatedConstant").asBoolean()).isTrue();
     assertThat(c.get("phAt25Cel").asDouble()).isCloseTo(9.4, within(0.05)); // common practice
 
     String bad = "urn:kwanta:problem:bad-request";
@@ -463,5 +463,19 @@ class SpeciationApiIT {
             "text/csv"),
         422,
         "urn:kwanta:problem:out-of-validity-range");
+  }
+
+  @Test
+  void openApiDocumentsBothOperationsWithTheAdvisoryCaution() {
+    HttpResponse<String> r = http.get("/v3/api-docs");
+    assertThat(r.statusCode()).isEqualTo(200);
+    JsonNode paths = JSON.readTree(r.body()).get("paths");
+    JsonNode op = paths.get(SPECIATION).get("post");
+    assertThat(op.get("description").asString()).contains("Advisory");
+    assertThat(op.get("requestBody").get("content").get(JSON_TYPE).get("examples").toString())
+        .contains("Brackenmoor");
+    assertThat(
+            paths.get(CURVE).get("post").get("responses").get("200").get("content").has("text/csv"))
+        .isTrue();
   }
 }
