@@ -7,8 +7,7 @@ import io.swagger.v3.oas.annotations.media.ExampleObject;
 import io.swagger.v3.oas.annotations.media.Schema;
 import io.swagger.v3.oas.annotations.responses.ApiResponse;
 import io.swagger.v3.oas.annotations.tags.Tag;
-import java.util.Locale;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ResponseFormats;
 import org.kwanta.service.water.WaterProperties;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -27,8 +26,6 @@ import org.springframework.web.bind.annotation.RestController;
         "Stateless calculations on a water's composition: speciation and pH at temperature over the"
             + " engine in org.kwanta.model.aqueous. Advisory results.")
 class SpeciationController {
-
-  static final MediaType TEXT_CSV = MediaType.parseMediaType("text/csv");
 
   static final String CAUTION =
       " **Advisory.** A calculated pH at temperature is a model result: it rests on published"
@@ -154,25 +151,16 @@ class SpeciationController {
           @RequestParam(required = false)
           String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
-    boolean csv = csv(format, accept);
+    boolean csv = ResponseFormats.csvRequested(format, accept);
     SpeciationCurveRequest request = json.read(body, SpeciationCurveRequest.class);
     SpeciationInputs.Parsed in = SpeciationInputs.parse(request.choices(), water.ionization());
     SpeciationCurveResponse curve =
         Calculations.curve(in, request.fromCel(), request.toCel(), request.stepCel());
     if (csv) {
-      return ResponseEntity.ok().contentType(TEXT_CSV).body(SpeciationCsv.write(curve));
+      return ResponseEntity.ok()
+          .contentType(ResponseFormats.TEXT_CSV)
+          .body(SpeciationCsv.write(curve));
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(curve);
-  }
-
-  private static boolean csv(String format, String accept) {
-    if (format != null) {
-      return switch (format.trim().toLowerCase(Locale.ROOT)) {
-        case "csv" -> true;
-        case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
-      };
-    }
-    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
   }
 }

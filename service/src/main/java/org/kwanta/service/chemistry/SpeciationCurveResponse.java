@@ -6,6 +6,7 @@ import org.kwanta.model.aqueous.PhBand;
 import org.kwanta.model.aqueous.SpeciationResult;
 import org.kwanta.model.water.PressureSource;
 import org.kwanta.model.water.WaterState;
+import org.kwanta.service.water.IonizationNames;
 
 /** pH at temperature over a temperature range, with the band of each row. */
 @Schema(description = "pH at temperature over a temperature range (advisory)")
@@ -66,7 +67,7 @@ record SpeciationCurveResponse(
         SpeciationInputs.apiName(in.options().activityModel()),
         in.options().constants().name(),
         SpeciationInputs.apiName(in.options().sampleOrigin()),
-        SpeciationResponse.label(in.ionization()),
+        IonizationNames.label(in.ionization()),
         at25.ph(),
         rows);
   }

@@ -26,6 +26,7 @@ import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ProblemTypes;
+import org.kwanta.service.water.IonizationNames;
 import org.springframework.http.HttpStatus;
 
 /**
@@ -137,7 +138,7 @@ final class SpeciationInputs {
         builder.build(),
         List.copyOf(totals),
         options,
-        ionization(c.ionization(), defaultIonization),
+        IonizationNames.parse(c.ionization(), defaultIonization),
         c.pressureMPa());
   }
 
@@ -248,17 +249,5 @@ final class SpeciationInputs {
         "Unknown constant set",
         "no constant set named '" + name + "'; known sets: " + String.join(", ", known),
         Map.of("field", "constantSet", "knownConstantSets", known));
-  }
-
-  private static IonizationFormulation ionization(String name, IonizationFormulation fallback) {
-    if (name == null || name.isBlank()) {
-      return fallback;
-    }
-    return switch (name.trim().toUpperCase(Locale.ROOT).replace('-', '_')) {
-      case "R11_07" -> IonizationFormulation.R11_07;
-      case "R11_24" -> IonizationFormulation.R11_24;
-      default ->
-          throw BadRequestException.of("ionization must be R11-07 or R11-24, not '" + name + "'");
-    };
   }
 }

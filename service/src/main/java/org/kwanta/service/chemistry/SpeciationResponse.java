@@ -8,9 +8,9 @@ import org.kwanta.model.aqueous.PhBand;
 import org.kwanta.model.aqueous.SpeciationReport;
 import org.kwanta.model.aqueous.SpeciationResult;
 import org.kwanta.model.aqueous.SpeciesAmount;
-import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.PressureSource;
 import org.kwanta.model.water.WaterState;
+import org.kwanta.service.water.IonizationNames;
 
 /**
  * Speciation of one water at one or more temperatures. pH values are on the molal activity scale,
@@ -35,15 +35,8 @@ record SpeciationResponse(
         in.options().activityModel().reference().id(),
         in.options().constants().name(),
         SpeciationInputs.apiName(in.options().sampleOrigin()),
-        label(in.ionization()),
+        IonizationNames.label(in.ionization()),
         reports.stream().map(AtTemperature::from).toList());
-  }
-
-  static String label(IonizationFormulation f) {
-    return switch (f) {
-      case R11_07 -> "IAPWS R11-07";
-      case R11_24 -> "IAPWS R11-24";
-    };
   }
 
   /** The speciation at one temperature, the 25 °C pH of the same water and the band. */
