@@ -95,6 +95,11 @@ public record Composition(Map<Component, Double> totals) {
       return molal(component, Amounts.molalFromMicrogramsPerKilogram(component, ugPerKg));
     }
 
+    /** Adds to a component's total, in any {@link AmountUnit}. */
+    public Builder amount(Component component, double value, AmountUnit unit) {
+      return molal(component, unit.toMolPerKg(component, value));
+    }
+
     /**
      * The composition.
      *

@@ -1,25 +1,18 @@
 package org.kwanta.service.queries;
 
 import java.util.Locale;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ResponseFormats;
 import org.springframework.http.MediaType;
 
 /** JSON or CSV, chosen by {@code format} or the Accept header. */
 final class Formats {
 
-  static final MediaType TEXT_CSV = MediaType.parseMediaType("text/csv");
+  static final MediaType TEXT_CSV = ResponseFormats.TEXT_CSV;
 
   private Formats() {}
 
   static boolean csv(String format, String accept) {
-    if (format != null) {
-      return switch (format.toLowerCase(Locale.ROOT)) {
-        case "csv" -> true;
-        case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
-      };
-    }
-    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
+    return ResponseFormats.csvRequested(format, accept);
   }
 
   static String seriesCsv(SeriesController.SeriesResponse r) {

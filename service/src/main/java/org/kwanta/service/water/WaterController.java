@@ -5,11 +5,11 @@ import io.swagger.v3.oas.annotations.Parameter;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
 import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ResponseFormats;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -27,7 +27,6 @@ import org.springframework.web.bind.annotation.RestController;
 class WaterController {
 
   static final int MAX_TABLE_ROWS = 2000;
-  static final MediaType TEXT_CSV = MediaType.parseMediaType("text/csv");
 
   private final WaterProperties properties;
 
@@ -89,15 +88,9 @@ class WaterController {
       double t = fromCel + i * stepCel;
       out.add(WaterStateResponse.from(state(t + 273.15, pressureMPa, f)));
     }
-    boolean csv =
-        format != null
-            ? "csv".equalsIgnoreCase(format)
-            : accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
-    if (format != null && !csv && !"json".equalsIgnoreCase(format)) {
-      throw BadRequestException.of("format must be json or csv");
-    }
+    boolean csv = ResponseFormats.csvRequested(format, accept);
     if (csv) {
-      return ResponseEntity.ok().contentType(TEXT_CSV).body(WaterCsv.write(out));
+      return ResponseEntity.ok().contentType(ResponseFormats.TEXT_CSV).body(WaterCsv.write(out));
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(out);
   }
@@ -124,14 +117,6 @@ class WaterController {
   }
 
   private IonizationFormulation formulation(String name) {
-    if (name == null || name.isBlank()) {
-      return properties.ionization();
-    }
-    return switch (name.trim().toUpperCase(Locale.ROOT).replace('-', '_')) {
-      case "R11_07" -> IonizationFormulation.R11_07;
-      case "R11_24" -> IonizationFormulation.R11_24;
-      default ->
-          throw BadRequestException.of("ionization must be R11-07 or R11-24, not '" + name + "'");
-    };
+    return IonizationNames.parse(name, properties.ionization());
   }
 }

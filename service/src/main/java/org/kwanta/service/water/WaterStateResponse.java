@@ -1,7 +1,6 @@
 package org.kwanta.service.water;
 
 import io.swagger.v3.oas.annotations.media.Schema;
-import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Phase;
 import org.kwanta.model.water.PressureSource;
 import org.kwanta.model.water.WaterState;
@@ -56,15 +55,8 @@ record WaterStateResponse(
         new Formulations(
             liquid ? "IAPWS-IF97 (R7-97(2012)) region 1" : "IAPWS-IF97 (R7-97(2012)) region 2",
             "IAPWS-IF97 (R7-97(2012)) region 4",
-            label(s.ionization()),
+            IonizationNames.label(s.ionization()),
             "IAPWS R8-97",
             "Debye–Hückel A and B from IAPWS R8-97 permittivity, IF97 density and CODATA 2018 constants"));
-  }
-
-  static String label(IonizationFormulation f) {
-    return switch (f) {
-      case R11_07 -> "IAPWS R11-07";
-      case R11_24 -> "IAPWS R11-24";
-    };
   }
 }
