@@ -48,7 +48,7 @@ class SampleMetrics {
       Limits limits,
       ExcursionFinder finder,
       Clock clock,
-      @Value("${kwanta.metrics.level-window:P8D}") Duration window) {
+      @Value("${kwanta.metrics.level-window:P1D}") Duration window) {
     this.jdbc = jdbc;
     this.limits = limits;
     this.finder = finder;
@@ -74,6 +74,11 @@ class SampleMetrics {
 
   private record Latest(Instant time, double value) {}
 
+  private static final String[] PARAMETER_CODES =
+      java.util.Arrays.stream(org.kwanta.service.readings.MeasuredParameter.values())
+          .map(org.kwanta.service.readings.MeasuredParameter::code)
+          .toArray(String[]::new);
+
   @Scheduled(
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",
       initialDelayString = "${kwanta.metrics.initial-delay:PT5S}")
@@ -83,8 +88,13 @@ class SampleMetrics {
     Map<String, Latest> latest = new HashMap<>();
     jdbc.sql(
             """
-            SELECT DISTINCT ON (sample_point_id, parameter) sample_point_id, parameter, time, value
-            FROM reading WHERE time >= ? ORDER BY sample_point_id, parameter, time DESC""")
+            SELECT s.id, p.code, r.time, r.value
+            FROM sample_point s CROSS JOIN unnest(?::text[]) AS p(code)
+            CROSS JOIN LATERAL (
+              SELECT time, value FROM reading
+              WHERE sample_point_id = s.id AND parameter = p.code AND time >= ?
+              ORDER BY time DESC LIMIT 1) r""")
+        .param(PARAMETER_CODES)
         .param(Timestamp.from(since))
         .query(
             (org.springframework.jdbc.core.RowCallbackHandler)
@@ -96,8 +106,11 @@ class SampleMetrics {
     Map<String, Double> ph = new HashMap<>();
     jdbc.sql(
             """
-            SELECT DISTINCT ON (sample_point_id) sample_point_id, ph_at_temperature FROM evaluation
-            WHERE time >= ? AND ph_at_temperature IS NOT NULL ORDER BY sample_point_id, time DESC""")
+            SELECT s.id, e.ph_at_temperature FROM sample_point s
+            CROSS JOIN LATERAL (
+              SELECT ph_at_temperature FROM evaluation
+              WHERE sample_point_id = s.id AND time >= ? AND ph_at_temperature IS NOT NULL
+              ORDER BY time DESC LIMIT 1) e""")
         .param(Timestamp.from(since))
         .query(
             (org.springframework.jdbc.core.RowCallbackHandler)
