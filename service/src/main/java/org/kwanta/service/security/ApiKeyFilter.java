@@ -7,7 +7,6 @@ import jakarta.servlet.http.HttpServletResponse;
 import java.io.IOException;
 import java.util.Optional;
 import org.kwanta.service.system.DatabaseOutage;
-import org.kwanta.service.system.ProblemResponses;
 import org.springframework.http.HttpHeaders;
 import org.springframework.security.authentication.UsernamePasswordAuthenticationToken;
 import org.springframework.security.core.context.SecurityContext;
@@ -15,31 +14,29 @@ import org.springframework.security.core.context.SecurityContextHolder;
 import org.springframework.web.filter.OncePerRequestFilter;
 
 /**
- * Reads the key from {@code Authorization: Bearer <key>} or {@code X-API-Key: <key>}. No key: the
- * request goes on anonymously (open paths answer, the others 401). A key that is malformed,
- * unknown, wrong or revoked: 401 at once. The database unreachable: 503 with Retry-After, never a
- * 401 that would tell a historian its key is bad. Not a bean, so it runs only inside the security
- * chain.
+ * Reads the key from {@code Authorization: Bearer <key>} or {@code X-API-Key: <key>}. No valid key:
+ * the request goes on anonymously, so open paths (health, API docs) answer whatever header a probe
+ * sends, and the others get 401 from {@link ProblemEntryPoint}, which says why the key was refused.
+ * When the database is unreachable the key cannot be checked: those requests get 503 with
+ * Retry-After, never a 401 that would tell a historian its key is bad. Not a bean, so it runs only
+ * inside the security chain.
  */
 final class ApiKeyFilter extends OncePerRequestFilter {
 
   static final String API_KEY_HEADER = "X-API-Key";
+
+  /** Request attribute: a key was presented and is malformed, unknown, wrong or revoked. */
+  static final String KEY_REJECTED = ApiKeyFilter.class.getName() + ".rejected";
+
+  /** Request attribute: the key could not be checked because the database is unreachable. */
+  static final String KEY_CHECK_FAILED = ApiKeyFilter.class.getName() + ".checkFailed";
+
   private static final String BEARER = "Bearer ";
 
   private final ApiKeys keys;
-  private final ProblemResponses problems;
-  private final ProblemEntryPoint entryPoint;
-  private final DatabaseOutage outage;
 
-  ApiKeyFilter(
-      ApiKeys keys,
-      ProblemResponses problems,
-      ProblemEntryPoint entryPoint,
-      DatabaseOutage outage) {
+  ApiKeyFilter(ApiKeys keys) {
     this.keys = keys;
-    this.problems = problems;
-    this.entryPoint = entryPoint;
-    this.outage = outage;
   }
 
   @Override
@@ -58,11 +55,12 @@ final class ApiKeyFilter extends OncePerRequestFilter {
       if (!DatabaseOutage.isCause(e)) {
         throw e;
       }
-      problems.write(response, outage.problem(request), outage.retryAfter());
-      return;
+      request.setAttribute(KEY_CHECK_FAILED, Boolean.TRUE);
+      key = Optional.empty();
     }
     if (key.isEmpty()) {
-      entryPoint.write(request, response, "The API key is malformed, unknown or revoked.");
+      request.setAttribute(KEY_REJECTED, Boolean.TRUE);
+      chain.doFilter(request, response); // as anonymous: open paths answer, others 401 or 503
       return;
     }
     ApiKeys.ApiKey k = key.get();

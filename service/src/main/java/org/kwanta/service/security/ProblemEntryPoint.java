@@ -3,6 +3,7 @@ package org.kwanta.service.security;
 import jakarta.servlet.http.HttpServletRequest;
 import jakarta.servlet.http.HttpServletResponse;
 import java.io.IOException;
+import org.kwanta.service.system.DatabaseOutage;
 import org.kwanta.service.system.ProblemResponses;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpHeaders;
@@ -14,23 +15,35 @@ import org.springframework.security.core.context.SecurityContextHolder;
 import org.springframework.security.web.AuthenticationEntryPoint;
 import org.springframework.security.web.access.AccessDeniedHandler;
 
-/** 401 (no valid key) and 403 (the key's role does not allow this) as problem details. */
+/**
+ * 401 (no valid key) and 403 (the key's role does not allow this) as problem details; 503 when the
+ * key could not be checked because the database is unreachable.
+ */
 final class ProblemEntryPoint implements AuthenticationEntryPoint, AccessDeniedHandler {
 
   private final ProblemResponses problems;
+  private final DatabaseOutage outage;
 
-  ProblemEntryPoint(ProblemResponses problems) {
+  ProblemEntryPoint(ProblemResponses problems, DatabaseOutage outage) {
     this.problems = problems;
+    this.outage = outage;
   }
 
   @Override
   public void commence(
       HttpServletRequest request, HttpServletResponse response, AuthenticationException e)
       throws IOException {
+    if (request.getAttribute(ApiKeyFilter.KEY_CHECK_FAILED) != null) {
+      problems.write(response, outage.problem(request), outage.retryAfter());
+      return;
+    }
     write(
         request,
         response,
-        "This endpoint needs an API key: send 'Authorization: Bearer <key>' or 'X-API-Key: <key>'.");
+        request.getAttribute(ApiKeyFilter.KEY_REJECTED) != null
+            ? "The API key is malformed, unknown or revoked."
+            : "This endpoint needs an API key: send 'Authorization: Bearer <key>' or"
+                + " 'X-API-Key: <key>'.");
   }
 
   void write(HttpServletRequest request, HttpServletResponse response, String detail)

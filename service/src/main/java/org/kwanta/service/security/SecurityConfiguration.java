@@ -23,6 +23,7 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>health, info, OpenAPI, Swagger UI, {@code /}, static assets</td><td>nothing</td></tr>
  *   <tr><td>{@code GET /actuator/prometheus}</td><td>read</td></tr>
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
+ *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
@@ -43,7 +44,7 @@ class SecurityConfiguration {
   SecurityFilterChain apiKeySecurity(
       HttpSecurity http, ApiKeys keys, ProblemResponses problems, DatabaseOutage outage)
       throws Exception {
-    ProblemEntryPoint entryPoint = new ProblemEntryPoint(problems);
+    ProblemEntryPoint entryPoint = new ProblemEntryPoint(problems, outage);
     http.csrf(AbstractHttpConfigurer::disable)
         .formLogin(AbstractHttpConfigurer::disable)
         .httpBasic(AbstractHttpConfigurer::disable)
@@ -52,9 +53,7 @@ class SecurityConfiguration {
         .sessionManagement(s -> s.sessionCreationPolicy(SessionCreationPolicy.STATELESS))
         .exceptionHandling(
             e -> e.authenticationEntryPoint(entryPoint).accessDeniedHandler(entryPoint))
-        .addFilterBefore(
-            new ApiKeyFilter(keys, problems, entryPoint, outage),
-            AnonymousAuthenticationFilter.class)
+        .addFilterBefore(new ApiKeyFilter(keys), AnonymousAuthenticationFilter.class)
         .authorizeHttpRequests(
             a ->
                 a.dispatcherTypeMatchers(DispatcherType.ERROR)
@@ -66,13 +65,19 @@ class SecurityConfiguration {
                     .requestMatchers("/actuator", "/actuator/**")
                     .hasRole(ADMIN)
                     .requestMatchers(
-                        "/v3/api-docs", "/v3/api-docs/**", "/swagger-ui.html", "/swagger-ui/**")
+                        "/v3/api-docs",
+                        "/v3/api-docs.yaml",
+                        "/v3/api-docs/**",
+                        "/swagger-ui.html",
+                        "/swagger-ui/**")
                     .permitAll()
                     .requestMatchers(
                         HttpMethod.GET, "/", "/index.html", "/favicon.ico", "/assets/**")
                     .permitAll()
                     .requestMatchers(PathRequest.toStaticResources().atCommonLocations())
                     .permitAll()
+                    .requestMatchers("/api/v1/keys", "/api/v1/keys/**")
+                    .hasRole(ADMIN)
                     .requestMatchers(HttpMethod.POST, "/api/v1/readings", "/api/v1/readings/**")
                     .hasRole(INGEST)
                     .requestMatchers(HttpMethod.GET, "/api/**")
