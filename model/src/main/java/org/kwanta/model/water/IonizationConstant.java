@@ -85,6 +85,8 @@ final class IonizationConstant {
           BETA_R11_24,
           new ValidityRange("temperature", 273.15, 1273.15, "K", REFERENCE_R11_24));
 
+  private static final double TWO_THIRDS = 2.0 / 3.0;
+
   private static final double LOG10_MW_TERM = 2 * Math.log10(MW / 1000);
 
   private final double alpha0;
@@ -137,8 +139,8 @@ final class IonizationConstant {
   double pKwUnchecked(double t, double densityKgPerM3) {
     double rho = densityKgPerM3 / 1000;
     double invT = 1 / t;
-    double cbrtRho = Math.cbrt(rho);
-    double z = rho * Math.exp(alpha0 + alpha1 * invT + alpha2 * cbrtRho * cbrtRho * invT * invT);
+    double z =
+        rho * Math.exp(alpha0 + alpha1 * invT + alpha2 * Math.pow(rho, TWO_THIRDS) * invT * invT);
     double pKwG = GAMMA[0] + invT * (GAMMA[1] + invT * (GAMMA[2] + invT * GAMMA[3]));
     return -2 * N * (Math.log10(1 + z) - z / (z + 1) * rho * (beta0 + beta1 * invT + beta2 * rho))
         + pKwG

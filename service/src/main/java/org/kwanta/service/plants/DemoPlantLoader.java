@@ -44,7 +44,7 @@ class DemoPlantLoader implements ApplicationRunner {
       log.info("Demo plant '{}' already present", demo.id());
       return;
     }
-    plants.insert(demo);
+    plants.insert(demo, "demo-file");
     log.info(
         "Loaded demo plant '{}' with {} sample points (fictional data)",
         demo.id(),

@@ -36,6 +36,8 @@ public record PlantDeclaration(
    *
    * @param operatingTemperatureCel temperature at which the at-temperature pH is computed, °C
    * @param operatingPressureMPa pressure for it, MPa; null means saturation
+   * @param alkalizer the alkalizer (AMMONIA when absent; MORPHOLINE, ETHANOLAMINE, ...)
+   * @param parameters the parameters measured there (codes as in the readings API); informative
    */
   public record SamplePointDeclaration(
       @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
@@ -44,5 +46,7 @@ public record PlantDeclaration(
       @NotBlank @Size(max = 64) String cycleLocation,
       @NotBlank @Size(max = 64) String treatmentRegime,
       Double operatingTemperatureCel,
-      Double operatingPressureMPa) {}
+      Double operatingPressureMPa,
+      @Size(max = 64) String alkalizer,
+      @Size(max = 30) List<@NotBlank @Size(max = 64) String> parameters) {}
 }

@@ -44,7 +44,16 @@ class PlantsController {
           "A plant with id '" + plant.id() + "' exists already",
           java.util.Map.of());
     }
-    plants.insert(plant);
+    List<String> problems = Plants.problems(plant);
+    if (!problems.isEmpty()) {
+      throw new BadRequestException(
+          HttpStatus.BAD_REQUEST,
+          ProblemTypes.BAD_REQUEST,
+          "Invalid plant declaration",
+          String.join("; ", problems),
+          java.util.Map.of("problems", problems));
+    }
+    plants.insert(plant, "api");
     return plant;
   }
 

@@ -19,6 +19,7 @@ public final class ProblemTypes {
   public static final URI OUT_OF_VALIDITY_RANGE = of("out-of-validity-range");
   public static final URI NO_CONVERGENCE = of("no-convergence");
   public static final URI VALIDATION = of("validation");
+  public static final URI INVALID_READINGS = of("invalid-readings");
   public static final URI CONFLICT = of("conflict");
   public static final URI TOO_MANY_REQUESTS = of("too-many-requests");
   public static final URI SERVICE_UNAVAILABLE = of("service-unavailable");

@@ -1,0 +1,354 @@
+package org.kwanta.model.aqueous;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.kwanta.model.NoConvergenceException;
+import org.kwanta.model.water.WaterState;
+
+/**
+ * The speciation algorithm (the project's reference notes §8.1).
+ *
+ * <p>Unknowns x = log10 a(H⁺) and I. For fixed activity coefficients every weak acid/base fraction
+ * is a closed-form function of a(H⁺): along a component's chain, m(i)/m(i−1) = Ka_i·γ(i−1)/(γ(i)·
+ * a(H⁺)); m(OH⁻) = Kw/(γ(OH⁻)·a(H⁺)) with a(H2O) = 1. The charge balance f(x) = Σ z m is strictly
+ * increasing in x: df/dx = ln 10·[m(H⁺) + m(OH⁻) + Σ_components total·Var(i)] &gt; 0, where Var(i)
+ * is the variance of the number of protons lost over the component's species distribution. So it
+ * has exactly one root. The root is found inside a bracket whose sign change is verified, by Newton
+ * steps safeguarded by bisection (W. H. Press et al., <i>Numerical Recipes</i>, 3rd ed. 2007, §9.4
+ * "rtsafe"): a Newton step that would leave the bracket or shrink it too slowly is replaced by a
+ * bisection, so convergence is guaranteed like bisection and quadratic near the root. I is then
+ * recomputed from the species and the solve repeated until |ΔI| &lt; 1e-12 mol/kg.
+ *
+ * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
+ * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
+ * enough, because d(log10 γ)/dI ≤ A·z²/(2√I) and I ≥ m(H⁺) + m(OH⁻) ≥ 2√Kw &gt; 1e-8 mol/kg in
+ * 0-350 °C liquid water, so the error it leaves in log10 γ is below 1e-8·z².
+ */
+final class ChargeBalanceSolver {
+
+  /** Stop the outer iteration when |ΔI| is below this, mol/kg. */
+  static final double IONIC_STRENGTH_TOLERANCE = 1e-12;
+
+  /** Tolerance on x = log10 a(H⁺) for the inner root find. */
+  static final double LOG_ACTIVITY_TOLERANCE = 1e-14;
+
+  /** Outer-iteration cap (convergence takes fewer than ten at cycle ionic strengths). */
+  static final int MAX_OUTER_ITERATIONS = 200;
+
+  /**
+   * Inner-iteration cap. Bisection alone halves the bracket each step: from the widest bracket here
+   * (under 40 log units) to 1e-14 takes 52 steps, so the cap is never reached.
+   */
+  static final int MAX_INNER_ITERATIONS = 300;
+
+  private static final double LN10 = Math.log(10);
+
+  /** Charges of each component's species chain, by component ordinal. */
+  private static final int[][] CHAIN_CHARGES = new int[Component.values().length][];
+
+  /** Equilibrium ordinals of each component's steps, by component ordinal. */
+  private static final int[][] CHAIN_STEPS = new int[Component.values().length][];
+
+  static {
+    for (Component c : Component.values()) {
+      List<Species> sp = c.species();
+      List<Equilibrium> eq = c.equilibria();
+      CHAIN_CHARGES[c.ordinal()] = sp.stream().mapToInt(Species::charge).toArray();
+      CHAIN_STEPS[c.ordinal()] = eq.stream().mapToInt(Equilibrium::ordinal).toArray();
+      for (int i = 0; i < eq.size(); i++) {
+        // evaluate() relies on each step releasing exactly one H⁺ between neighbours.
+        if (eq.get(i).acid() != sp.get(i)
+            || eq.get(i).base() != sp.get(i + 1)
+            || sp.get(i + 1).charge() != sp.get(i).charge() - 1) {
+          throw new IllegalStateException("species chain of " + c + " is inconsistent");
+        }
+      }
+    }
+  }
+
+  private final WaterState water;
+  private final ActivityModel activityModel;
+  private final double temperatureK;
+  private final double kw;
+
+  private final Component[] components;
+  private final double[] totals;
+  private final int[][] charges;
+  private final double[][] ka;
+  private final double cationCapacity;
+  private final double anionCapacity;
+
+  /** log10 γ and γ for |z| = 0..3 at the current ionic strength. */
+  private final double[] logGamma = new double[4];
+
+  private final double[] gamma = {1, 1, 1, 1};
+
+  /** Conditional step constants Ka·γ(i−1)/γ(i) at the current ionic strength. */
+  private final double[][] conditional;
+
+  /** df/dx at the last {@link #evaluate} call. */
+  private double derivative;
+
+  ChargeBalanceSolver(
+      Map<Component, Double> composition,
+      double[] log10KaByEquilibrium,
+      WaterState water,
+      ActivityModel activityModel) {
+    this.water = water;
+    this.activityModel = activityModel;
+    this.temperatureK = water.temperatureK();
+    this.kw = Math.exp(-LN10 * water.pKw());
+    int n = composition.size();
+    components = new Component[n];
+    totals = new double[n];
+    charges = new int[n][];
+    ka = new double[n][];
+    conditional = new double[n][];
+    double cations = 0;
+    double anions = 0;
+    int k = 0;
+    for (Map.Entry<Component, Double> e : composition.entrySet()) {
+      Component c = e.getKey();
+      components[k] = c;
+      totals[k] = e.getValue();
+      charges[k] = CHAIN_CHARGES[c.ordinal()];
+      int[] steps = CHAIN_STEPS[c.ordinal()];
+      ka[k] = new double[steps.length];
+      conditional[k] = new double[steps.length];
+      for (int i = 0; i < steps.length; i++) {
+        ka[k][i] = Math.exp(LN10 * log10KaByEquilibrium[steps[i]]);
+      }
+      // Chains run from the highest charge (first) to the lowest (last).
+      cations += totals[k] * Math.max(charges[k][0], 0);
+      anions += totals[k] * Math.max(-charges[k][charges[k].length - 1], 0);
+      k++;
+    }
+    cationCapacity = cations;
+    anionCapacity = anions;
+  }
+
+  /** The solved state: x, I, γ for |z| = 0..3, and the outer iteration count. */
+  record Solution(double log10ActivityH, double ionicStrength, double[] gamma, int iterations) {}
+
+  Solution solve() {
+    double ionicStrength = 0;
+    double x = Double.NaN;
+    for (int iteration = 1; iteration <= MAX_OUTER_ITERATIONS; iteration++) {
+      double shift = setActivityCoefficients(ionicStrength);
+      // The root moves by about the change in log10 γ between outer iterations; the warm
+      // bracket is a few times that, and is widened whenever it holds no sign change.
+      x = solveForLogActivity(x, 4 * shift + 1e-12);
+      double updated = ionicStrengthAt(x);
+      double change = Math.abs(updated - ionicStrength);
+      ionicStrength = updated;
+      if (change < IONIC_STRENGTH_TOLERANCE) {
+        return new Solution(x, ionicStrength, gamma.clone(), iteration);
+      }
+    }
+    throw new NoConvergenceException(
+        "ionic-strength iteration of the speciation",
+        MAX_OUTER_ITERATIONS,
+        Math.abs(ionicStrengthAt(x) - ionicStrength));
+  }
+
+  /** Sets γ at an ionic strength; returns the largest change in log10 γ. */
+  private double setActivityCoefficients(double ionicStrength) {
+    double a = water.debyeHuckelA();
+    double b = water.debyeHuckelB();
+    double shift = 0;
+    for (int z = 1; z <= 3; z++) {
+      double lg = activityModel.log10Gamma(z, ionicStrength, a, b, temperatureK);
+      shift = Math.max(shift, Math.abs(lg - logGamma[z]));
+      logGamma[z] = lg;
+      gamma[z] = Math.exp(LN10 * lg);
+    }
+    for (int k = 0; k < components.length; k++) {
+      int[] z = charges[k];
+      for (int i = 0; i < ka[k].length; i++) {
+        conditional[k][i] = ka[k][i] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
+      }
+    }
+    return shift;
+  }
+
+  /** Σ z m at x, mol/kg; also sets {@link #derivative} to d(Σ z m)/dx. */
+  double evaluate(double x) {
+    double aH = Math.exp(LN10 * x);
+    double inverse = 1 / aH;
+    double mH = aH / gamma[1];
+    double mOH = kw * inverse / gamma[1];
+    double sum = mH - mOH;
+    double slope = mH + mOH;
+    for (int k = 0; k < components.length; k++) {
+      double[] c = conditional[k];
+      int[] z = charges[k];
+      if (c.length == 0) {
+        sum += totals[k] * z[0];
+        continue;
+      }
+      double r = 1;
+      double s = 1;
+      double lost = 0;
+      double lostSquared = 0;
+      for (int i = 0; i < c.length; i++) {
+        r *= c[i] * inverse;
+        s += r;
+        lost += (i + 1) * r;
+        lostSquared += (i + 1) * (i + 1) * r;
+      }
+      double meanLost = lost / s;
+      // Species charge is z[0] − (protons lost), so Σ z α = z[0] − mean lost.
+      sum += totals[k] * (z[0] - meanLost);
+      slope += totals[k] * (lostSquared / s - meanLost * meanLost);
+    }
+    derivative = LN10 * slope;
+    return sum;
+  }
+
+  /** Σ z m at x, mol/kg. */
+  double chargeBalance(double x) {
+    return evaluate(x);
+  }
+
+  /** Σ |z| m at x, mol/kg (the scale for the relative residual). */
+  double chargeScale(double x) {
+    return sumOverSpecies(x, false);
+  }
+
+  private double ionicStrengthAt(double x) {
+    return sumOverSpecies(x, true) / 2;
+  }
+
+  /** Σ |z| m, or Σ z² m when {@code squared}, over all species at x, mol/kg. */
+  private double sumOverSpecies(double x, boolean squared) {
+    double aH = Math.exp(LN10 * x);
+    double inverse = 1 / aH;
+    double sum = aH / gamma[1] + kw * inverse / gamma[1];
+    for (int k = 0; k < components.length; k++) {
+      double[] c = conditional[k];
+      int[] z = charges[k];
+      double r = 1;
+      double s = 1;
+      double q = squared ? z[0] * z[0] : Math.abs(z[0]);
+      for (int i = 0; i < c.length; i++) {
+        r *= c[i] * inverse;
+        s += r;
+        int zi = z[i + 1];
+        q += (squared ? zi * zi : Math.abs(zi)) * r;
+      }
+      sum += totals[k] * q / s;
+    }
+    return sum;
+  }
+
+  private double solveForLogActivity(double previous, double halfWidth) {
+    double lo;
+    double hi;
+    if (Double.isNaN(previous)) {
+      // At the root m(H⁺) ≤ m(OH⁻) + anion capacity and m(OH⁻) ≤ m(H⁺) + cation capacity;
+      // 2·√Kw covers the water contribution and ±1 the activity coefficients.
+      double root = 2 * Math.sqrt(kw);
+      hi = Math.log10(anionCapacity + root) + 1;
+      lo = -water.pKw() - Math.log10(cationCapacity + root) - 1;
+      previous = Math.max(lo, Math.min(hi, -water.pKw() / 2));
+    } else {
+      lo = previous - halfWidth;
+      hi = previous + halfWidth;
+    }
+    double fLo = evaluate(lo);
+    int widen = 0;
+    while (!(fLo < 0)) {
+      if (fLo == 0) {
+        return lo;
+      }
+      lo -= Math.max(hi - lo, 0.01) * 4;
+      fLo = evaluate(lo);
+      if (++widen > 40) {
+        throw new NoConvergenceException("charge-balance bracket (low side)", widen, fLo);
+      }
+    }
+    double fHi = evaluate(hi);
+    widen = 0;
+    while (!(fHi > 0)) {
+      if (fHi == 0) {
+        return hi;
+      }
+      hi += Math.max(hi - lo, 0.01) * 4;
+      fHi = evaluate(hi);
+      if (++widen > 40) {
+        throw new NoConvergenceException("charge-balance bracket (high side)", widen, fHi);
+      }
+    }
+    return safeguardedNewton(lo, hi, previous);
+  }
+
+  /**
+   * Root of the increasing function {@link #evaluate} in [lo, hi] with f(lo) &lt; 0 &lt; f(hi),
+   * starting from {@code start}: Newton steps, replaced by bisection whenever the Newton step would
+   * leave the bracket or fail to halve the step before last (Press et al., rtsafe).
+   */
+  private double safeguardedNewton(double lo, double hi, double start) {
+    double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
+    double stepBeforeLast = hi - lo;
+    double step = stepBeforeLast;
+    double f = evaluate(x);
+    double df = derivative;
+    for (int i = 0; i < MAX_INNER_ITERATIONS; i++) {
+      if (f == 0) {
+        return x;
+      }
+      if (f < 0) {
+        lo = x;
+      } else {
+        hi = x;
+      }
+      boolean newtonLeaves = ((x - hi) * df - f) * ((x - lo) * df - f) > 0;
+      boolean newtonSlow = Math.abs(2 * f) > Math.abs(stepBeforeLast * df);
+      stepBeforeLast = step;
+      if (newtonLeaves || newtonSlow) {
+        step = 0.5 * (hi - lo);
+        x = lo + step;
+      } else {
+        step = f / df;
+        x -= step;
+      }
+      if (Math.abs(step) < LOG_ACTIVITY_TOLERANCE || hi - lo < LOG_ACTIVITY_TOLERANCE) {
+        return x;
+      }
+      f = evaluate(x);
+      df = derivative;
+    }
+    throw new NoConvergenceException(
+        "charge-balance root find", MAX_INNER_ITERATIONS, Math.abs(evaluate(x)));
+  }
+
+  /** Builds the species list at a solution (γ of the solution must be current). */
+  List<SpeciesAmount> species(Solution solution) {
+    double inverse = Math.exp(-LN10 * solution.log10ActivityH());
+    List<SpeciesAmount> out = new ArrayList<>(2 * components.length);
+    for (int k = 0; k < components.length; k++) {
+      double[] cc = conditional[k];
+      int[] z = charges[k];
+      double[] r = new double[z.length];
+      r[0] = 1;
+      double s = 1;
+      for (int i = 0; i < cc.length; i++) {
+        r[i + 1] = r[i] * cc[i] * inverse;
+        s += r[i + 1];
+      }
+      List<Species> sp = components[k].species();
+      for (int j = 0; j < z.length; j++) {
+        double fraction = r[j] / s;
+        out.add(
+            new SpeciesAmount(
+                sp.get(j), totals[k] * fraction, fraction, solution.gamma()[Math.abs(z[j])]));
+      }
+    }
+    return out;
+  }
+
+  double kw() {
+    return kw;
+  }
+}

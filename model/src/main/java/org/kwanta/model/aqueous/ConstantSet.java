@@ -1,0 +1,61 @@
+package org.kwanta.model.aqueous;
+
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * A named choice of fits, one preference list per equilibrium. At a temperature the first fit whose
+ * stated range contains it is used; when none does, the first fit is evaluated and marked
+ * extrapolated. Most lists hold one fit; the organic acids hold two (the 0-60 °C Harned form, then
+ * the 0-300 °C database fit).
+ *
+ * @param name short name shown in results and in the band
+ * @param description what differs from the default and why
+ * @param fits for every {@link Equilibrium}, a non-empty preference list
+ */
+public record ConstantSet(String name, String description, Map<Equilibrium, List<Fit>> fits) {
+
+  public ConstantSet {
+    EnumMap<Equilibrium, List<Fit>> copy = new EnumMap<>(Equilibrium.class);
+    for (Equilibrium e : Equilibrium.values()) {
+      List<Fit> list = fits.get(e);
+      if (list == null || list.isEmpty()) {
+        throw new IllegalArgumentException("constant set " + name + " has no fit for " + e);
+      }
+      for (Fit f : list) {
+        if (f.equilibrium() != e) {
+          throw new IllegalArgumentException(
+              "constant set " + name + ": fit " + f.id() + " is not for " + e);
+        }
+      }
+      copy.put(e, List.copyOf(list));
+    }
+    fits = Map.copyOf(copy);
+  }
+
+  /** The fit used for an equilibrium at a temperature (see class comment). */
+  public Fit fitAt(Equilibrium equilibrium, double temperatureK) {
+    List<Fit> list = fits.get(equilibrium);
+    for (Fit f : list) {
+      if (!f.isExtrapolatedAt(temperatureK)) {
+        return f;
+      }
+    }
+    return list.get(0);
+  }
+
+  /**
+   * A copy of this set with some preference lists replaced.
+   *
+   * @param newName name of the new set
+   * @param newDescription description of the new set
+   * @param replacements the lists to replace
+   */
+  public ConstantSet with(
+      String newName, String newDescription, Map<Equilibrium, List<Fit>> replacements) {
+    EnumMap<Equilibrium, List<Fit>> m = new EnumMap<>(fits);
+    m.putAll(replacements);
+    return new ConstantSet(newName, newDescription, m);
+  }
+}

@@ -1,0 +1,204 @@
+package org.kwanta.model.aqueous;
+
+import java.util.ArrayList;
+import java.util.EnumSet;
+import java.util.List;
+import java.util.Objects;
+import java.util.Set;
+import org.kwanta.model.Reference;
+import org.kwanta.model.Reference.Confidence;
+import org.kwanta.model.ValidityRange;
+import org.kwanta.model.water.IonizationFormulation;
+import org.kwanta.model.water.Phase;
+import org.kwanta.model.water.Water;
+import org.kwanta.model.water.WaterState;
+
+/**
+ * The speciation facade: total molalities and a liquid water state in, pH at temperature, species
+ * and every constant used out. Molal scale throughout; pH = −log10 a(H⁺).
+ *
+ * <p>Scope: liquid water 273.15-623.15 K (0-350 °C). The equilibrium fits are published to 250-300
+ * °C; a fit evaluated beyond its stated range is marked extrapolated in the result, which is the
+ * only extrapolation the engine performs.
+ */
+public final class Speciation {
+
+  /** Temperature of the "pH at 25 °C" of a report, K. */
+  public static final double REFERENCE_TEMPERATURE_K = 298.15;
+
+  /**
+   * Temperature range of the engine, K: liquid water in IAPWS-IF97 region 1 (its upper limit 623.15
+   * K), over which the fits are evaluated or, beyond their stated ranges, flagged.
+   */
+  public static final ValidityRange TEMPERATURE_RANGE =
+      new ValidityRange(
+          "temperature",
+          273.15,
+          623.15,
+          "K",
+          new Reference(
+              "IAPWS-IF97 region 1",
+              "IAPWS R7-97(2012), IAPWS-IF97 region 1 (liquid) temperature range 273.15-623.15 K;"
+                  + " the speciation engine's scope",
+              Confidence.VERIFIED_BY_CHECK_TABLE));
+
+  private Speciation() {}
+
+  /** {@link #solve(Composition, WaterState, SpeciationOptions)} with default options. */
+  public static SpeciationResult solve(Composition composition, WaterState water) {
+    return solve(composition, water, SpeciationOptions.defaults());
+  }
+
+  /**
+   * Solves the charge balance for a composition at a liquid water state.
+   *
+   * @param composition total molalities, mol/kg
+   * @param water liquid water at (T, p): pKw, density, Debye–Hückel A and B
+   * @param options constant set, activity model, sample origin
+   * @return the speciation
+   * @throws org.kwanta.model.OutOfValidityRangeException temperature outside 273.15-623.15 K (or
+   *     outside 298.15-573.15 K with the B-dot model)
+   * @throws IllegalArgumentException the water state is not liquid (IF97 region 1); speciate a
+   *     steam sample as its condensate with {@link SampleOrigin#CONDENSED_STEAM}
+   * @throws org.kwanta.model.NoConvergenceException never within the documented ranges (tests show
+   *     it); carries the residual
+   */
+  public static SpeciationResult solve(
+      Composition composition, WaterState water, SpeciationOptions options) {
+    Objects.requireNonNull(composition, "composition");
+    Objects.requireNonNull(water, "water");
+    Objects.requireNonNull(options, "options");
+    double t = TEMPERATURE_RANGE.check(water.temperatureK());
+    if (water.phase() != Phase.LIQUID_REGION_1) {
+      throw new IllegalArgumentException(
+          "speciation needs liquid water; the state at "
+              + t
+              + " K and "
+              + water.pressurePa()
+              + " Pa is "
+              + water.phase()
+              + ". Speciate a steam sample as its condensate (liquid state at the stated"
+              + " temperature) with SampleOrigin.CONDENSED_STEAM");
+    }
+    options.activityModel().checkTemperature(t);
+
+    double pKw = water.pKw();
+    double[] log10Ka = new double[Equilibrium.values().length];
+    List<ConstantUsed> used = new ArrayList<>();
+    boolean extrapolated = false;
+    for (Component c : composition.totals().keySet()) {
+      for (Equilibrium e : c.equilibria()) {
+        Fit fit = options.constants().fitAt(e, t);
+        double logK = fit.log10K(t, pKw);
+        boolean outside = fit.isExtrapolatedAt(t);
+        extrapolated |= outside;
+        log10Ka[e.ordinal()] = logK;
+        used.add(new ConstantUsed(e, logK, fit.id(), fit.reference(), fit.validity(), outside));
+      }
+    }
+    // Components iterate in enum order and their equilibria in chain order, which is the order
+    // of Equilibrium: the list is already sorted.
+
+    ChargeBalanceSolver solver =
+        new ChargeBalanceSolver(composition.totals(), log10Ka, water, options.activityModel());
+    ChargeBalanceSolver.Solution s = solver.solve();
+    double residual =
+        Math.abs(solver.chargeBalance(s.log10ActivityH())) / solver.chargeScale(s.log10ActivityH());
+
+    double ph = -s.log10ActivityH();
+    double neutral = pKw / 2;
+    double gammaH = s.gamma()[1];
+    double mH = Math.pow(10, s.log10ActivityH()) / gammaH;
+    double mOH = solver.kw() / (Math.pow(10, s.log10ActivityH()) * gammaH);
+
+    Set<Notice> notices = EnumSet.noneOf(Notice.class);
+    if (extrapolated) {
+      notices.add(Notice.EXTRAPOLATED_CONSTANT);
+    }
+    if (s.ionicStrength() > options.activityModel().ionicStrengthLimitMolPerKg()) {
+      notices.add(Notice.IONIC_STRENGTH_ABOVE_ACTIVITY_MODEL_RANGE);
+    }
+    if (options.sampleOrigin() == SampleOrigin.CONDENSED_STEAM) {
+      notices.add(Notice.CONDENSED_LIQUID_AT_STATED_TEMPERATURE);
+    }
+    return new SpeciationResult(
+        water,
+        ph,
+        pKw,
+        neutral,
+        ph - neutral,
+        s.ionicStrength(),
+        mH,
+        mOH,
+        solver.species(s),
+        used,
+        options.activityModel(),
+        options.constants().name(),
+        options.sampleOrigin(),
+        residual,
+        s.iterations(),
+        notices);
+  }
+
+  /**
+   * The same composition at 298.15 K and 0.101325 MPa with IAPWS R11-07 pKw: the species molalities
+   * and pH a 25 °C reading is compared with.
+   */
+  public static SpeciationResult solveAt25Celsius(
+      Composition composition, SpeciationOptions options) {
+    return solve(composition, water25(IonizationFormulation.R11_07), options);
+  }
+
+  /**
+   * pH at temperature over every distinct constant set of {@link ConstantSets#all()} (the default
+   * included). Sets that choose the same fits as an earlier set for the components present are
+   * evaluated once.
+   */
+  public static PhBand band(Composition composition, WaterState water, SpeciationOptions options) {
+    double t = TEMPERATURE_RANGE.check(water.temperatureK());
+    List<List<Fit>> seen = new ArrayList<>();
+    List<PhBand.Member> members = new ArrayList<>();
+    double min = Double.POSITIVE_INFINITY;
+    double max = Double.NEGATIVE_INFINITY;
+    String minSet = "";
+    String maxSet = "";
+    for (ConstantSet set : ConstantSets.all()) {
+      List<Fit> selection = new ArrayList<>();
+      for (Component c : composition.totals().keySet()) {
+        for (Equilibrium e : c.equilibria()) {
+          selection.add(set.fitAt(e, t));
+        }
+      }
+      if (seen.contains(selection)) {
+        continue;
+      }
+      seen.add(selection);
+      SpeciationResult r = solve(composition, water, options.withConstants(set));
+      members.add(new PhBand.Member(set.name(), r.ph(), r.anyExtrapolated()));
+      if (r.ph() < min) {
+        min = r.ph();
+        minSet = set.name();
+      }
+      if (r.ph() > max) {
+        max = r.ph();
+        maxSet = set.name();
+      }
+    }
+    return new PhBand(min, minSet, max, maxSet, members);
+  }
+
+  /**
+   * The speciation at temperature, the 25 °C speciation of the same water (298.15 K, 0.101325 MPa,
+   * the same pKw formulation) and the pH band over alternative constant sets.
+   */
+  public static SpeciationReport report(
+      Composition composition, WaterState water, SpeciationOptions options) {
+    SpeciationResult atT = solve(composition, water, options);
+    SpeciationResult at25 = solve(composition, water25(water.ionization()), options);
+    return new SpeciationReport(atT, at25, band(composition, water, options));
+  }
+
+  private static WaterState water25(IonizationFormulation ionization) {
+    return Water.at(REFERENCE_TEMPERATURE_K, Water.ATMOSPHERIC_PRESSURE_PA, ionization);
+  }
+}

@@ -1,0 +1,452 @@
+package org.kwanta.model.evaluation;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import org.kwanta.model.conductivity.Conductivity;
+import org.kwanta.model.conductivity.SolutionModel;
+
+/**
+ * The consistency checks, as pure functions of the configuration, the snapshot and the values
+ * derived from it. Each appends {@link Finding}s in a fixed order. The rules follow the project's
+ * reference notes (consistency rules; stale and flat-line signals are engineering practice); the
+ * thresholds come from {@link CheckSettings}.
+ */
+final class Checks {
+
+  /** Fewest readings a trend or correlation is computed from. */
+  static final int MIN_TREND_READINGS = 6;
+
+  private Checks() {}
+
+  // ---- signal checks -------------------------------------------------------------------------
+
+  /**
+   * Stale, out-of-range, outside-model and flat-lined signals; returns the usable latest readings.
+   */
+  static Map<Parameter, Reading> signals(
+      SamplePointConfig config, Snapshot snapshot, List<Finding> out) {
+    CheckSettings cs = config.checks();
+    Map<Parameter, Reading> usable = new EnumMap<>(Parameter.class);
+    for (Parameter p : Parameter.values()) {
+      Optional<Reading> latest = snapshot.latest(p);
+      if (latest.isEmpty()) {
+        continue;
+      }
+      Reading r = latest.get();
+      Duration age = Duration.between(r.time(), snapshot.time());
+      if (age.compareTo(cs.maximumAge()) > 0) {
+        out.add(
+            finding(
+                ReasonCode.STALE,
+                p.instrument(),
+                "%s: latest reading is %d min old (maximum %d min).",
+                name(p),
+                age.toMinutes(),
+                cs.maximumAge().toMinutes()));
+        continue;
+      }
+      if (!inRange(p, r.value(), cs)) {
+        out.add(
+            finding(
+                ReasonCode.OUT_OF_RANGE,
+                p.instrument(),
+                "%s: reading %s %s is missing, non-positive or at the range limit.",
+                name(p),
+                num(r.value()),
+                p.unit()));
+        continue;
+      }
+      if (p != Parameter.SODIUM
+          && !r.compensatedByAnalyser()
+          && !Conductivity.TEMPERATURE_VALIDITY.contains(r.sampleTemperatureK())) {
+        out.add(
+            finding(
+                ReasonCode.SAMPLE_TEMPERATURE_OUTSIDE_MODEL,
+                Instrument.SAMPLE_CONDITIONING,
+                "%s: sample temperature %s °C is outside 0–100 °C.",
+                name(p),
+                num(r.sampleTemperatureK() - 273.15)));
+        continue;
+      }
+      if (isFlat(snapshot.readings(p), cs.flatlineDuration())) {
+        out.add(
+            finding(
+                ReasonCode.FLATLINE,
+                p.instrument(),
+                "%s: unchanged at %s %s for at least %d min.",
+                name(p),
+                num(r.value()),
+                p.unit(),
+                cs.flatlineDuration().toMinutes()));
+      }
+      usable.put(p, r);
+    }
+    return usable;
+  }
+
+  static boolean inRange(Parameter p, double v, CheckSettings cs) {
+    if (Double.isNaN(v)) {
+      return false;
+    }
+    return switch (p) {
+      case SPECIFIC_CONDUCTIVITY, CATION_CONDUCTIVITY, DEGASSED_CATION_CONDUCTIVITY ->
+          v > 0 && v < cs.conductivityRangeMaximum();
+      case PH -> v > 0 && v < 14;
+      case SODIUM -> v >= 0 && v < cs.sodiumRangeMaximum();
+    };
+  }
+
+  /** All readings identical over at least the flat-line duration, ending at the latest. */
+  static boolean isFlat(List<Reading> h, Duration window) {
+    if (h.size() < 2) {
+      return false;
+    }
+    Reading last = h.get(h.size() - 1);
+    Instant start = last.time().minus(window);
+    for (int i = h.size() - 1; i >= 0; i--) {
+      Reading r = h.get(i);
+      if (Double.compare(r.value(), last.value()) != 0) {
+        return false;
+      }
+      if (!r.time().isAfter(start)) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  static void sampleTemperature(
+      SamplePointConfig config, Map<Parameter, Reading> usable, List<Finding> out) {
+    double band = config.checks().sampleTemperatureBandK();
+    for (Map.Entry<Parameter, Reading> e : usable.entrySet()) {
+      Reading r = e.getValue();
+      if (e.getKey() == Parameter.SODIUM || r.compensatedByAnalyser()) {
+        continue;
+      }
+      double dt = r.sampleTemperatureK() - Evaluator.T25_K;
+      if (Math.abs(dt) > band) {
+        out.add(
+            finding(
+                ReasonCode.SAMPLE_TEMPERATURE_OUT_OF_BAND,
+                Instrument.SAMPLE_CONDITIONING,
+                "%s: sample at %s °C, outside 25 ± %s °C.",
+                name(e.getKey()),
+                num(r.sampleTemperatureK() - 273.15),
+                num(band)));
+      }
+    }
+  }
+
+  static void belowPureWater(Map<Parameter, Boolean> below, List<Finding> out) {
+    for (Map.Entry<Parameter, Boolean> e : below.entrySet()) {
+      if (e.getValue()) {
+        out.add(
+            finding(
+                ReasonCode.BELOW_PURE_WATER,
+                e.getKey().instrument(),
+                "%s reads below theoretical pure water at its sample temperature: cell"
+                    + " constant, temperature sensor or upstream compensation.",
+                name(e.getKey())));
+      }
+    }
+  }
+
+  // ---- consistency between instruments ------------------------------------------------------
+
+  static void consistency(
+      SamplePointConfig config,
+      Snapshot snapshot,
+      Map<Parameter, Reading> usable,
+      Map<Parameter, Double> at25,
+      ChannelFits.Result fitted,
+      Optional<CalculatedPh> calculated,
+      Map<Double, SolutionModel> models,
+      List<Finding> out) {
+    CheckSettings cs = config.checks();
+    Tolerances tol = config.tolerances();
+    Double sc = at25.get(Parameter.SPECIFIC_CONDUCTIVITY);
+    Double c = at25.get(Parameter.CATION_CONDUCTIVITY);
+    Double d = at25.get(Parameter.DEGASSED_CATION_CONDUCTIVITY);
+
+    if (c != null && d != null) {
+      double allowance =
+          Math.max(cs.degassedAboveCationAbsolute(), cs.degassedAboveCationRelative() * c);
+      if (d > c + allowance) {
+        out.add(
+            finding(
+                ReasonCode.DEGASSED_ABOVE_CATION,
+                Instrument.DEGASSED_CATION_CONDUCTIVITY,
+                "DCACE %s µS/cm exceeds CACE %s µS/cm by more than %s µS/cm.",
+                num(d),
+                num(c),
+                num(allowance)));
+      }
+    }
+    if (sc != null && c != null) {
+      double bound = 0.25 * (c - tol.cationConductivityAbsolute() - Evaluator.PURE_WATER_25);
+      if (sc * (1 + tol.specificConductivityRelative()) < bound) {
+        out.add(
+            finding(
+                ReasonCode.SPECIFIC_BELOW_PHYSICAL_BOUND,
+                Instrument.SPECIFIC_CONDUCTIVITY,
+                "SC %s µS/cm is below the physical lower bound %s µS/cm implied by CACE %s µS/cm.",
+                num(sc),
+                num(bound),
+                num(c)));
+      }
+    }
+
+    Trends t = Trends.of(snapshot, usable, cs, tol);
+    if (config.regime().isVolatile()
+        && sc != null
+        && c != null
+        && c - tol.cationConductivityAbsolute() > sc * (1 + tol.specificConductivityRelative())
+        && !t.sodiumRising
+        && !t.degassedRising) {
+      out.add(
+          finding(
+              ReasonCode.CATION_ABOVE_SPECIFIC,
+              Instrument.CATION_CONDUCTIVITY,
+              "CACE %s µS/cm exceeds SC %s µS/cm in a volatile-treated sample with no sodium or"
+                  + " DCACE rise: swapped channels, compensation or cell constant.",
+              num(c),
+              num(sc)));
+    }
+    boolean exhausted = t.cationRising && t.sodiumFlat && t.tracking;
+    if (exhausted) {
+      out.add(
+          finding(
+              ReasonCode.CATION_COLUMN_EXHAUSTED,
+              Instrument.CATION_CONDUCTIVITY,
+              "CACE rose by %s µS/cm tracking SC (correlation %s) while sodium stayed flat:"
+                  + " replace the cation exchanger.",
+              num(t.cationRise),
+              num(t.correlation)));
+    } else if (t.cationRising && (t.sodiumRising || (t.degassedRising && !t.tracking))) {
+      out.add(
+          finding(
+              ReasonCode.INGRESS_SUSPECTED,
+              Instrument.PROCESS,
+              "CACE rose by %s µS/cm together with %s: contamination entering the cycle.",
+              num(t.cationRise),
+              t.sodiumRising
+                  ? "sodium (+" + num(t.sodiumRise) + " µg/kg)"
+                  : "DCACE (+" + num(t.degassedRise) + " µS/cm)"));
+    }
+    if (t.sodiumRising && !t.cationRising && t.hasCationTrend) {
+      out.add(
+          finding(
+              ReasonCode.SODIUM_WITHOUT_CATION_RISE,
+              Instrument.SODIUM,
+              "Sodium rose by %s µg/kg with no matching CACE rise.",
+              num(t.sodiumRise)));
+    }
+    if (c != null && d != null && !exhausted) {
+      double co2 = c - d;
+      if (co2 > cs.carbonDioxideDifference() && d < 0.5 * c) {
+        out.add(
+            finding(
+                ReasonCode.CARBON_DIOXIDE_INGRESS,
+                Instrument.PROCESS,
+                "CACE %s µS/cm against DCACE %s µS/cm: about %s µg/kg carbon dioxide, not salts.",
+                num(c),
+                num(d),
+                num(fitted.all().carbonate() * Evaluator.CO2_G_PER_MOL * 1e6)));
+      }
+    }
+    phCheck(config, snapshot, usable, fitted, calculated, models, out);
+  }
+
+  private static void phCheck(
+      SamplePointConfig config,
+      Snapshot snapshot,
+      Map<Parameter, Reading> usable,
+      ChannelFits.Result fitted,
+      Optional<CalculatedPh> calculated,
+      Map<Double, SolutionModel> models,
+      List<Finding> out) {
+    Reading ph = usable.get(Parameter.PH);
+    Reading scNow = usable.get(Parameter.SPECIFIC_CONDUCTIVITY);
+    if (ph == null || scNow == null || calculated.isEmpty()) {
+      return;
+    }
+    CheckSettings cs = config.checks();
+    double t = ph.compensatedByAnalyser() ? Evaluator.T25_K : ph.sampleTemperatureK();
+    SolutionModel m = models.computeIfAbsent(t, k -> Evaluator.modelAt(k, config.alkalizer()));
+    double calcNow = m.solve(fitted.all()).pH();
+    Reading cNow = usable.get(Parameter.CATION_CONDUCTIVITY);
+    double argNow = scNow.value() - (cNow == null ? 0 : cNow.value() / 3);
+    List<Reading> h = snapshot.readings(Parameter.PH);
+    Instant start = snapshot.time().minus(cs.phPersistence());
+    if (h.isEmpty() || h.get(0).time().isAfter(start)) {
+      return; // history does not cover the persistence time
+    }
+    int sign = 0;
+    double lastResidual = Double.NaN;
+    for (Reading r : h) {
+      if (r.time().isBefore(start)) {
+        continue;
+      }
+      // calculated pH at the time of r: anchored at the present rigorous value, shifted as
+      // log10(SC − CACE/3) moved (alkaline samples); exact when the conductivities were steady
+      double shift = 0;
+      Reading scThen = nearest(snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY), r.time());
+      Reading cThen = nearest(snapshot.readings(Parameter.CATION_CONDUCTIVITY), r.time());
+      if (scThen != null && argNow > 0) {
+        double arg = scThen.value() - (cThen == null ? 0 : cThen.value() / 3);
+        if (arg > 0) {
+          shift = Math.log10(arg / argNow);
+        }
+      }
+      double residual = r.value() - (calcNow + shift);
+      if (Math.abs(residual) <= cs.phBand()) {
+        return;
+      }
+      int s = residual > 0 ? 1 : -1;
+      if (sign != 0 && s != sign) {
+        return;
+      }
+      sign = s;
+      lastResidual = residual;
+    }
+    if (sign != 0) {
+      out.add(
+          finding(
+              ReasonCode.PH_MEASURED_VS_CALCULATED,
+              Instrument.PH,
+              "Measured pH %s differs from calculated %s by %s (band ±%s) for %d min.",
+              num(ph.value()),
+              num(calcNow),
+              num(lastResidual),
+              num(cs.phBand()),
+              cs.phPersistence().toMinutes()));
+    }
+  }
+
+  static Reading nearest(List<Reading> h, Instant time) {
+    Reading best = null;
+    long bestGap = Long.MAX_VALUE;
+    for (Reading r : h) {
+      long gap = Math.abs(Duration.between(r.time(), time).toMillis());
+      if (gap < bestGap) {
+        bestGap = gap;
+        best = r;
+      }
+    }
+    return best;
+  }
+
+  /** Trends over the snapshot's history: rise = median of the last three − of the first three. */
+  private static final class Trends {
+    boolean hasCationTrend;
+    boolean cationRising;
+    double cationRise;
+    boolean sodiumRising;
+    boolean sodiumFlat;
+    double sodiumRise;
+    boolean degassedRising;
+    double degassedRise;
+    boolean tracking;
+    double correlation = Double.NaN;
+
+    static Trends of(Snapshot s, Map<Parameter, Reading> usable, CheckSettings cs, Tolerances tol) {
+      Trends t = new Trends();
+      List<Reading> c =
+          usable.containsKey(Parameter.CATION_CONDUCTIVITY)
+              ? s.readings(Parameter.CATION_CONDUCTIVITY)
+              : List.of();
+      if (c.size() >= MIN_TREND_READINGS) {
+        t.hasCationTrend = true;
+        t.cationRise = rise(c);
+        t.cationRising = t.cationRise > cs.trendCationRise();
+      }
+      List<Reading> na =
+          usable.containsKey(Parameter.SODIUM) ? s.readings(Parameter.SODIUM) : List.of();
+      if (na.size() >= MIN_TREND_READINGS) {
+        t.sodiumRise = rise(na);
+        double threshold = Math.max(cs.trendSodiumRise(), tol.sodiumRelative() * median3(na, 0));
+        t.sodiumRising = t.sodiumRise > threshold;
+        t.sodiumFlat = !t.sodiumRising;
+      }
+      List<Reading> d =
+          usable.containsKey(Parameter.DEGASSED_CATION_CONDUCTIVITY)
+              ? s.readings(Parameter.DEGASSED_CATION_CONDUCTIVITY)
+              : List.of();
+      if (d.size() >= MIN_TREND_READINGS && t.cationRising) {
+        t.degassedRise = rise(d);
+        t.degassedRising = t.degassedRise > 0.5 * t.cationRise;
+      }
+      List<Reading> sc =
+          usable.containsKey(Parameter.SPECIFIC_CONDUCTIVITY)
+              ? s.readings(Parameter.SPECIFIC_CONDUCTIVITY)
+              : List.of();
+      if (t.hasCationTrend && sc.size() >= MIN_TREND_READINGS) {
+        t.correlation = correlation(c, sc);
+        t.tracking = t.correlation >= cs.trackingCorrelation();
+      }
+      return t;
+    }
+
+    static double rise(List<Reading> h) {
+      return median3(h, h.size() - 3) - median3(h, 0);
+    }
+
+    static double median3(List<Reading> h, int from) {
+      double a = h.get(from).value();
+      double b = h.get(from + 1).value();
+      double c = h.get(from + 2).value();
+      return Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
+    }
+
+    /** Pearson correlation of x with y, y taken at the reading nearest in time to each x. */
+    static double correlation(List<Reading> x, List<Reading> y) {
+      int n = x.size();
+      double sx = 0;
+      double sy = 0;
+      double[] ys = new double[n];
+      for (int i = 0; i < n; i++) {
+        ys[i] = nearest(y, x.get(i).time()).value();
+        sx += x.get(i).value();
+        sy += ys[i];
+      }
+      double mx = sx / n;
+      double my = sy / n;
+      double sxy = 0;
+      double sxx = 0;
+      double syy = 0;
+      for (int i = 0; i < n; i++) {
+        double dx = x.get(i).value() - mx;
+        double dy = ys[i] - my;
+        sxy += dx * dy;
+        sxx += dx * dx;
+        syy += dy * dy;
+      }
+      return sxx > 0 && syy > 0 ? sxy / Math.sqrt(sxx * syy) : 0;
+    }
+  }
+
+  // ---- formatting ---------------------------------------------------------------------------
+
+  private static Finding finding(ReasonCode code, Instrument suspect, String fmt, Object... args) {
+    return new Finding(code, suspect, String.format(Locale.ROOT, fmt, args));
+  }
+
+  private static String name(Parameter p) {
+    return switch (p) {
+      case SPECIFIC_CONDUCTIVITY -> "SC";
+      case CATION_CONDUCTIVITY -> "CACE";
+      case DEGASSED_CATION_CONDUCTIVITY -> "DCACE";
+      case PH -> "pH";
+      case SODIUM -> "Na";
+    };
+  }
+
+  private static String num(double v) {
+    return Double.isNaN(v) ? "NaN" : String.format(Locale.ROOT, "%.3g", v);
+  }
+}

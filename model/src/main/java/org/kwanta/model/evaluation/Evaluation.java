@@ -1,0 +1,30 @@
+package org.kwanta.model.evaluation;
+
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/**
+ * The evaluation of one sample-point snapshot.
+ *
+ * @param samplePointId the point
+ * @param compensated conductivities at 25 °C, per channel used
+ * @param composition the inferred composition (empty without conductivities to infer from)
+ * @param calculatedPh calculated pH at 25 °C (empty without specific conductivity)
+ * @param operatingPh pH at operating temperature and pressure (empty without a composition
+ *     including specific conductivity)
+ * @param findings the checks that fired, in a fixed order; empty when all agree
+ */
+public record Evaluation(
+    String samplePointId,
+    Map<Parameter, CompensatedValue> compensated,
+    Optional<InferredComposition> composition,
+    Optional<CalculatedPh> calculatedPh,
+    Optional<OperatingPh> operatingPh,
+    List<Finding> findings) {
+
+  public Evaluation {
+    compensated = Map.copyOf(compensated);
+    findings = List.copyOf(findings);
+  }
+}

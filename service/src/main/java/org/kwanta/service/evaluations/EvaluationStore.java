@@ -1,0 +1,143 @@
+package org.kwanta.service.evaluations;
+
+import java.sql.Connection;
+import java.sql.PreparedStatement;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.List;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.stereotype.Repository;
+import tools.jackson.databind.json.JsonMapper;
+
+/** Reads the readings an evaluation needs and writes evaluations (one statement per batch). */
+@Repository
+public class EvaluationStore {
+
+  static final String UPSERT =
+      """
+      INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
+          cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
+          ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes,
+          details, evaluated_at)
+      SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
+             t.pht_high, t.neutral, t.suspect, string_to_array(t.codes, ','), t.details::jsonb, now()
+      FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
+                  ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
+                  ?::text[])
+        AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
+             suspect, codes, details)
+      ON CONFLICT (sample_point_id, time) DO UPDATE SET
+          config_version = EXCLUDED.config_version,
+          specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
+          cation_conductivity_25 = EXCLUDED.cation_conductivity_25,
+          degassed_cation_conductivity_25 = EXCLUDED.degassed_cation_conductivity_25,
+          calculated_ph_25 = EXCLUDED.calculated_ph_25,
+          ph_at_temperature = EXCLUDED.ph_at_temperature,
+          ph_at_temperature_low = EXCLUDED.ph_at_temperature_low,
+          ph_at_temperature_high = EXCLUDED.ph_at_temperature_high,
+          neutral_ph_at_temperature = EXCLUDED.neutral_ph_at_temperature,
+          suspect = EXCLUDED.suspect,
+          finding_codes = EXCLUDED.finding_codes,
+          details = EXCLUDED.details,
+          evaluated_at = now()
+        WHERE e.details IS DISTINCT FROM EXCLUDED.details OR e.config_version <> EXCLUDED.config_version""";
+
+  private final JdbcTemplate jdbc;
+  private final JsonMapper json;
+
+  EvaluationStore(JdbcTemplate jdbc, JsonMapper json) {
+    this.jdbc = jdbc;
+    this.json = json;
+  }
+
+  /** The point's readings in [from, to], ordered by time. */
+  public List<EvaluationRunner.StoredReading> readings(
+      String samplePointId, Instant from, Instant to) {
+    return jdbc.query(
+        """
+        SELECT parameter, time, value, quality, sample_temperature_cel, compensated FROM reading
+        WHERE sample_point_id = ? AND time >= ? AND time <= ?
+        ORDER BY time, parameter""",
+        (rs, i) -> {
+          double t = rs.getDouble(5);
+          return new EvaluationRunner.StoredReading(
+              rs.getString(1),
+              rs.getTimestamp(2).toInstant(),
+              rs.getDouble(3),
+              rs.getShort(4),
+              rs.wasNull() ? Double.NaN : t,
+              rs.getBoolean(6));
+        },
+        samplePointId,
+        Timestamp.from(from),
+        Timestamp.from(to));
+  }
+
+  /** Upserts evaluations; unchanged ones are left alone. */
+  public void upsert(List<EvaluationRunner.Result> results) {
+    if (results.isEmpty()) {
+      return;
+    }
+    int n = results.size();
+    String[] points = new String[n];
+    String[] times = new String[n];
+    Integer[] versions = new Integer[n];
+    Double[] sc = new Double[n];
+    Double[] cc = new Double[n];
+    Double[] dcc = new Double[n];
+    Double[] ph25 = new Double[n];
+    Double[] pht = new Double[n];
+    Double[] low = new Double[n];
+    Double[] high = new Double[n];
+    Double[] neutral = new Double[n];
+    Boolean[] suspect = new Boolean[n];
+    String[] codes = new String[n];
+    String[] details = new String[n];
+    for (int i = 0; i < n; i++) {
+      EvaluationRunner.Result r = results.get(i);
+      EvaluationView v = r.view();
+      points[i] = r.samplePointId();
+      times[i] = r.time().toString();
+      versions[i] = v.configVersion();
+      sc[i] = v.at25("specific_conductivity");
+      cc[i] = v.at25("cation_conductivity");
+      dcc[i] = v.at25("degassed_cation_conductivity");
+      ph25[i] = v.calculatedPh() == null ? null : finite(v.calculatedPh().rigorous());
+      if (v.phAtTemperature() != null) {
+        pht[i] = finite(v.phAtTemperature().ph());
+        low[i] = finite(v.phAtTemperature().low());
+        high[i] = finite(v.phAtTemperature().high());
+        neutral[i] = finite(v.phAtTemperature().neutralPh());
+      }
+      suspect[i] = v.suspect();
+      codes[i] =
+          String.join(
+              ",", v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList());
+      details[i] = json.writeValueAsString(v);
+    }
+    jdbc.execute(
+        (Connection c) -> {
+          try (PreparedStatement ps = c.prepareStatement(UPSERT)) {
+            ps.setArray(1, c.createArrayOf("text", points));
+            ps.setArray(2, c.createArrayOf("text", times));
+            ps.setArray(3, c.createArrayOf("int4", versions));
+            ps.setArray(4, c.createArrayOf("float8", sc));
+            ps.setArray(5, c.createArrayOf("float8", cc));
+            ps.setArray(6, c.createArrayOf("float8", dcc));
+            ps.setArray(7, c.createArrayOf("float8", ph25));
+            ps.setArray(8, c.createArrayOf("float8", pht));
+            ps.setArray(9, c.createArrayOf("float8", low));
+            ps.setArray(10, c.createArrayOf("float8", high));
+            ps.setArray(11, c.createArrayOf("float8", neutral));
+            ps.setArray(12, c.createArrayOf("bool", suspect));
+            ps.setArray(13, c.createArrayOf("text", codes));
+            ps.setArray(14, c.createArrayOf("text", details));
+            return ps.executeUpdate();
+          }
+        });
+  }
+
+  private static Double finite(double v) {
+    return Double.isFinite(v) ? v : null;
+  }
+}

@@ -1,0 +1,64 @@
+package org.kwanta.service.queries;
+
+import java.util.Locale;
+import org.kwanta.service.system.BadRequestException;
+import org.springframework.http.MediaType;
+
+/** JSON or CSV, chosen by {@code format} or the Accept header. */
+final class Formats {
+
+  static final MediaType TEXT_CSV = MediaType.parseMediaType("text/csv");
+
+  private Formats() {}
+
+  static boolean csv(String format, String accept) {
+    if (format != null) {
+      return switch (format.toLowerCase(Locale.ROOT)) {
+        case "csv" -> true;
+        case "json" -> false;
+        default -> throw BadRequestException.of("format must be json or csv");
+      };
+    }
+    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
+  }
+
+  static String seriesCsv(SeriesController.SeriesResponse r) {
+    StringBuilder sb = new StringBuilder();
+    String unit = r.unit().replace("[", "").replace("]", "").replace("/", "_per_");
+    if (r.points() != null) {
+      sb.append("time,").append(r.parameter()).append('_').append(unit).append(",quality\r\n");
+      for (Series.Point p : r.points()) {
+        sb.append(p.time())
+            .append(',')
+            .append(p.value() == null ? "" : p.value().toString())
+            .append(',')
+            .append(p.quality() == null ? "" : p.quality())
+            .append("\r\n");
+      }
+    } else {
+      sb.append("bucket_start,min_")
+          .append(unit)
+          .append(",mean_")
+          .append(unit)
+          .append(",max_")
+          .append(unit)
+          .append(",last_")
+          .append(unit)
+          .append(",count\r\n");
+      for (Series.Bucket b : r.buckets()) {
+        sb.append(
+                String.format(
+                    Locale.ROOT,
+                    "%s,%s,%s,%s,%s,%d",
+                    b.start(),
+                    b.min(),
+                    b.mean(),
+                    b.max(),
+                    b.last(),
+                    b.count()))
+            .append("\r\n");
+      }
+    }
+    return sb.toString();
+  }
+}

@@ -1,0 +1,75 @@
+package org.kwanta.service.queries;
+
+import io.swagger.v3.oas.annotations.Operation;
+import io.swagger.v3.oas.annotations.Parameter;
+import io.swagger.v3.oas.annotations.tags.Tag;
+import java.time.Clock;
+import java.time.Instant;
+import java.util.List;
+import java.util.Map;
+import org.kwanta.service.plants.PlantDeclaration;
+import org.kwanta.service.plants.Plants;
+import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemTypes;
+import org.springframework.http.HttpStatus;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.RestController;
+
+@RestController
+@Tag(name = "Queries")
+class StateController {
+
+  private final Plants plants;
+  private final States states;
+  private final Clock clock;
+
+  StateController(Plants plants, States states, Clock clock) {
+    this.plants = plants;
+    this.states = states;
+    this.clock = clock;
+  }
+
+  /** A plant's latest state, sample point by sample point. */
+  record Overview(String plant, String name, Instant asOf, List<States.State> samplePoints) {}
+
+  @GetMapping("/api/v1/sample-points/{samplePointId}/state")
+  @Operation(
+      summary = "Latest state of a sample point",
+      description =
+          "Each parameter's latest reading with its age, and the latest evaluation: compensated"
+              + " conductivities, composition, calculated pH, pH at operating temperature with its band,"
+              + " and the instrument checks. Advisory.")
+  States.State state(@Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {
+    return plants
+        .findSamplePoint(samplePointId)
+        .map(
+            p ->
+                states.of(
+                    p.id(), p.name(), p.cycleLocation(), p.treatmentRegime(), clock.instant()))
+        .orElseThrow(() -> notFound("sample point", samplePointId));
+  }
+
+  @GetMapping("/api/v1/plants/{plantId}/overview")
+  @Operation(summary = "Latest state of every sample point of a plant")
+  Overview overview(@Parameter(example = "brackenmoor") @PathVariable String plantId) {
+    PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
+    Instant now = clock.instant();
+    return new Overview(
+        plant.id(),
+        plant.name(),
+        now,
+        plant.samplePoints().stream()
+            .map(p -> states.of(p.id(), p.name(), p.cycleLocation(), p.treatmentRegime(), now))
+            .toList());
+  }
+
+  static BadRequestException notFound(String what, String id) {
+    return new BadRequestException(
+        HttpStatus.NOT_FOUND,
+        ProblemTypes.NOT_FOUND,
+        "Not found",
+        "No " + what + " with id '" + id + "'",
+        Map.of());
+  }
+}

@@ -1,0 +1,25 @@
+package org.kwanta.service.readings;
+
+import java.util.List;
+import java.util.Map;
+import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemTypes;
+import org.springframework.http.HttpStatus;
+
+/**
+ * A batch with at least one invalid reading: nothing of it is stored; the body lists every
+ * rejection.
+ */
+public class InvalidBatchException extends BadRequestException {
+
+  private static final long serialVersionUID = 1L;
+
+  public InvalidBatchException(List<RejectedReading> rejected) {
+    super(
+        HttpStatus.BAD_REQUEST,
+        ProblemTypes.INVALID_READINGS,
+        "Invalid readings",
+        rejected.size() + " reading(s) rejected; nothing of the batch was stored",
+        Map.of("rejected", List.copyOf(rejected)));
+  }
+}

@@ -1,0 +1,101 @@
+package org.kwanta.service.samplepoints;
+
+import java.util.Collection;
+import java.util.HashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.stream.Collectors;
+import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.conductivity.AlkalizerMix;
+import org.kwanta.model.evaluation.CheckSettings;
+import org.kwanta.model.evaluation.Regime;
+import org.kwanta.model.evaluation.SamplePointConfig;
+import org.kwanta.model.evaluation.Tolerances;
+import org.springframework.jdbc.core.simple.JdbcClient;
+import org.springframework.stereotype.Repository;
+
+/**
+ * The engine's view of sample points: the configuration version in force, mapped to the model's
+ * types.
+ */
+@Repository
+public class SamplePointConfigs {
+
+  private final JdbcClient jdbc;
+
+  SamplePointConfigs(JdbcClient jdbc) {
+    this.jdbc = jdbc;
+  }
+
+  /** A configuration and its version number. */
+  public record Versioned(SamplePointConfig config, int version, String cycleLocation) {}
+
+  /** Which of the ids are registered sample points. */
+  public Set<String> existing(Collection<String> ids) {
+    if (ids.isEmpty()) {
+      return Set.of();
+    }
+    return jdbc.sql("SELECT id FROM sample_point WHERE id = ANY (?::text[])")
+        .param(ids.toArray(String[]::new))
+        .query(String.class)
+        .set();
+  }
+
+  /** The current configuration of each of the ids that exists. */
+  public Map<String, Versioned> current(Collection<String> ids) {
+    Map<String, Versioned> out = new HashMap<>();
+    if (ids.isEmpty()) {
+      return out;
+    }
+    jdbc.sql(
+            """
+            SELECT id, treatment_regime, alkalizer, operating_temperature_cel, operating_pressure_mpa,
+                   version, cycle_location
+            FROM sample_point WHERE id = ANY (?::text[])""")
+        .param(ids.toArray(String[]::new))
+        .query(
+            (rs, i) -> {
+              String id = rs.getString(1);
+              Double t = rs.getObject(4, Double.class);
+              Double p = rs.getObject(5, Double.class);
+              SamplePointConfig config =
+                  new SamplePointConfig(
+                      id,
+                      regime(rs.getString(2)),
+                      AlkalizerMix.of(Alkalizer.valueOf(rs.getString(3))),
+                      (t == null ? 25.0 : t) + 273.15,
+                      p == null ? Double.NaN : p * 1e6,
+                      Tolerances.defaults(),
+                      CheckSettings.defaults());
+              out.put(id, new Versioned(config, rs.getInt(6), rs.getString(7)));
+              return id;
+            })
+        .list();
+    return out;
+  }
+
+  /**
+   * Maps the registry's regime names (including the trade abbreviations PT and CT) to the engine's.
+   */
+  public static Regime regime(String name) {
+    String n = name.trim().toUpperCase(Locale.ROOT).replace('(', '_').replace(")", "");
+    return switch (n) {
+      case "AVT_R", "AVTR" -> Regime.AVT_R;
+      case "AVT_O", "AVTO" -> Regime.AVT_O;
+      case "OT" -> Regime.OT;
+      case "PT", "PHOSPHATE" -> Regime.PHOSPHATE;
+      case "CT", "CAUSTIC" -> Regime.CAUSTIC;
+      case "MAKE_UP", "MAKEUP" -> Regime.MAKE_UP;
+      default ->
+          throw new IllegalArgumentException(
+              "unknown treatment regime '"
+                  + name
+                  + "'; known: "
+                  + java.util.Arrays.stream(Regime.values())
+                      .map(Enum::name)
+                      .collect(Collectors.joining(", "))
+                  + ", PT, CT");
+    };
+  }
+}

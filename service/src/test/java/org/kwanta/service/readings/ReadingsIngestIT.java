@@ -1,0 +1,261 @@
+package org.kwanta.service.readings;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.net.http.HttpResponse;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Locale;
+import java.util.Random;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.kwanta.service.support.DatabaseTest;
+import org.kwanta.service.support.Http;
+import org.springframework.beans.factory.annotation.Autowired;
+import org.springframework.boot.test.web.server.LocalServerPort;
+import org.springframework.jdbc.core.JdbcTemplate;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * Ingest over HTTP against the real PostgreSQL: atomic, idempotent, order-independent, evaluated.
+ */
+@DatabaseTest
+class ReadingsIngestIT {
+
+  private static final JsonMapper JSON = JsonMapper.builder().build();
+
+  @LocalServerPort int port;
+  @Autowired JdbcTemplate jdbc;
+  Http http;
+
+  @BeforeEach
+  void client() {
+    http = new Http(port);
+  }
+
+  /** Invented AVT(O) feedwater readings (demo-style numbers, not measurements). */
+  static List<String> feedwaterReadings(String point, Instant start, int steps, long stepSeconds) {
+    Random random = new Random(42);
+    List<String> out = new ArrayList<>();
+    for (int i = 0; i < steps; i++) {
+      String t = start.plusSeconds(i * stepSeconds).toString();
+      double sc = 5.4 + 0.1 * random.nextGaussian();
+      double cc = 0.08 + 0.004 * random.nextGaussian();
+      double dcc = 0.06 + 0.003 * random.nextGaussian();
+      double ph = 9.66 + 0.02 * random.nextGaussian();
+      double temperature = 27.0 + random.nextGaussian();
+      out.add(
+          reading(
+              point,
+              "specific_conductivity",
+              t,
+              sc,
+              "uS/cm",
+              ",\"sampleTemperatureCel\":" + temperature));
+      out.add(reading(point, "cation_conductivity", t, cc, "uS/cm", ",\"compensated\":true"));
+      out.add(reading(point, "degassed_cation_conductivity", t, dcc, "uS/cm", ""));
+      out.add(reading(point, "ph", t, ph, "[pH]", ""));
+      out.add(reading(point, "sodium", t, 0.4 + 0.05 * random.nextGaussian(), "ug/kg", ""));
+    }
+    return out;
+  }
+
+  static String reading(
+      String point, String parameter, String time, double value, String unit, String extra) {
+    return String.format(
+        Locale.ROOT,
+        "{\"samplePoint\":\"%s\",\"parameter\":\"%s\",\"time\":\"%s\",\"value\":%s,\"unit\":\"%s\"%s}",
+        point,
+        parameter,
+        time,
+        value,
+        unit,
+        extra);
+  }
+
+  static String batch(List<String> readings) {
+    return "{\"readings\":[" + String.join(",", readings) + "]}";
+  }
+
+  private HttpResponse<String> post(List<String> readings) {
+    return http.post("/api/v1/readings", "application/json", batch(readings));
+  }
+
+  private static Instant yesterday() {
+    return Instant.now().truncatedTo(ChronoUnit.DAYS).minus(1, ChronoUnit.DAYS);
+  }
+
+  @Test
+  void storesAndEvaluatesABatch() {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    HttpResponse<String> r = post(feedwaterReadings(point, yesterday(), 10, 60));
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    JsonNode outcome = JSON.readTree(r.body());
+    assertThat(outcome.get("inserted").asInt()).isEqualTo(50);
+    assertThat(outcome.get("evaluationsWritten").asInt()).isEqualTo(10);
+
+    JsonNode state = JSON.readTree(http.get("/api/v1/sample-points/" + point + "/state").body());
+    assertThat(state.get("readings")).hasSize(5);
+    JsonNode evaluation = state.get("evaluation").get("evaluation");
+    double phT = evaluation.get("phAtTemperature").get("ph").asDouble();
+    double neutral = evaluation.get("phAtTemperature").get("neutralPh").asDouble();
+    // ammonia-treated feedwater at 155 °C is alkaline at temperature, but far less than at 25 °C
+    assertThat(phT).isGreaterThan(neutral).isLessThan(9.66);
+    assertThat(evaluation.get("compensated")).isNotEmpty();
+  }
+
+  @Test
+  void refusesAWholeBatchListingEveryBadReading() {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    String t = yesterday().toString();
+    List<String> readings =
+        List.of(
+            reading(point, "specific_conductivity", t, 5.4, "uS/cm", ""),
+            reading(point, "sodium", t, 1.0, "ug/L", ""),
+            reading("NO-SUCH-POINT", "ph", t, 9.6, "[pH]", ""),
+            reading(point, "ph", t, 19.0, "[pH]", ""),
+            reading(point, "colour", t, 1, "1", ""),
+            reading(point, "ph", "2026-11-30T10:00:00", 9.6, "[pH]", ""),
+            "{\"samplePoint\":\""
+                + point
+                + "\",\"parameter\":\"ph\",\"time\":\""
+                + t
+                + "\",\"value\":9.6}");
+    HttpResponse<String> r = post(readings);
+    assertThat(r.statusCode()).isEqualTo(400);
+    assertThat(r.headers().firstValue("Content-Type").orElseThrow())
+        .startsWith("application/problem+json");
+    JsonNode body = JSON.readTree(r.body());
+    assertThat(body.get("type").asString()).isEqualTo("urn:kwanta:problem:invalid-readings");
+    List<Integer> indexes = new ArrayList<>();
+    body.get("rejected").forEach(e -> indexes.add(e.get("index").asInt()));
+    assertThat(indexes).containsExactly(1, 2, 3, 4, 5, 6);
+    assertThat(count(point)).isZero();
+  }
+
+  @Test
+  void sameValueIsANoOpAndADifferentValueIsACorrection() {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    String t = yesterday().plusSeconds(3600).toString();
+    List<String> first = List.of(reading(point, "cation_conductivity", t, 0.080, "uS/cm", ""));
+    assertThat(JSON.readTree(post(first).body()).get("inserted").asInt()).isEqualTo(1);
+    assertThat(JSON.readTree(post(first).body()).get("unchanged").asInt()).isEqualTo(1);
+    List<String> corrected = List.of(reading(point, "cation_conductivity", t, 0.095, "uS/cm", ""));
+    assertThat(JSON.readTree(post(corrected).body()).get("corrected").asInt()).isEqualTo(1);
+    assertThat(count(point)).isEqualTo(1);
+    Double old =
+        jdbc.queryForObject(
+            "SELECT old_value FROM reading_revision WHERE sample_point_id = ?",
+            Double.class,
+            point);
+    assertThat(old).isEqualTo(0.080);
+    Double now =
+        jdbc.queryForObject(
+            "SELECT value FROM reading WHERE sample_point_id = ?", Double.class, point);
+    assertThat(now).isEqualTo(0.095);
+  }
+
+  @Test
+  void convertsUnitsToCanonical() {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    String t = yesterday().plusSeconds(7200).toString();
+    HttpResponse<String> r =
+        post(
+            List.of(
+                reading(point, "specific_conductivity", t, 0.0054, "mS/cm", ""),
+                reading(point, "sodium", t, 0.002, "mg/kg", ""),
+                reading(point, "sample_temperature", t, 300.15, "K", "")));
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    assertThat(value(point, "specific_conductivity"))
+        .isCloseTo(5.4, org.assertj.core.data.Offset.offset(1e-12));
+    assertThat(value(point, "sodium")).isCloseTo(2.0, org.assertj.core.data.Offset.offset(1e-12));
+    assertThat(value(point, "sample_temperature"))
+        .isCloseTo(27.0, org.assertj.core.data.Offset.offset(1e-9));
+  }
+
+  @Test
+  void acceptsCsvAndRejectsABadHeader() {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    String t = yesterday().plusSeconds(10800).toString();
+    String csv =
+        "sample_point,parameter,time,value,unit,sample_temperature_cel\r\n"
+            + point
+            + ",specific_conductivity,"
+            + t
+            + ",5.4,uS/cm,26.5\r\n"
+            + point
+            + ",ph,"
+            + t
+            + ",9.65,[pH],\r\n";
+    HttpResponse<String> r = http.post("/api/v1/readings", "text/csv", csv);
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    assertThat(count(point)).isEqualTo(2);
+    HttpResponse<String> bad = http.post("/api/v1/readings", "text/csv", "point,value\r\nx,1\r\n");
+    assertThat(bad.statusCode()).isEqualTo(400);
+    assertThat(bad.body()).contains("missing columns");
+    String badRow =
+        "sample_point,parameter,time,value,unit\r\n" + point + ",ph," + t + ",abc,[pH]\r\n";
+    HttpResponse<String> rejected = http.post("/api/v1/readings", "text/csv", badRow);
+    assertThat(rejected.statusCode()).isEqualTo(400);
+    assertThat(rejected.body()).contains("\"index\":0").contains("not a number");
+  }
+
+  @Test
+  void storedEvaluationsDoNotDependOnArrivalOrderOrDuplication() {
+    List<String> points = TestPlants.feedwaterPoints(http, 3);
+    Instant start = yesterday();
+    int steps = 144; // one day at 10-minute steps
+    // 1. in order, in batches of 100
+    List<String> inOrder = feedwaterReadings(points.get(0), start, steps, 600);
+    for (int i = 0; i < inOrder.size(); i += 100) {
+      assertThat(post(inOrder.subList(i, Math.min(i + 100, inOrder.size()))).statusCode())
+          .isEqualTo(200);
+    }
+    // 2. shuffled, in batches of 37
+    List<String> shuffled = new ArrayList<>(feedwaterReadings(points.get(1), start, steps, 600));
+    Collections.shuffle(shuffled, new Random(7));
+    for (int i = 0; i < shuffled.size(); i += 37) {
+      assertThat(post(shuffled.subList(i, Math.min(i + 37, shuffled.size()))).statusCode())
+          .isEqualTo(200);
+    }
+    // 3. reversed and every batch sent twice, plus duplicates inside batches
+    List<String> reversed = new ArrayList<>(feedwaterReadings(points.get(2), start, steps, 600));
+    Collections.reverse(reversed);
+    for (int i = 0; i < reversed.size(); i += 50) {
+      List<String> part = new ArrayList<>(reversed.subList(i, Math.min(i + 50, reversed.size())));
+      part.add(part.get(0));
+      assertThat(post(part).statusCode()).isEqualTo(200);
+      assertThat(post(part).statusCode()).isEqualTo(200);
+    }
+    List<String> a = evaluations(points.get(0));
+    List<String> b = evaluations(points.get(1));
+    List<String> c = evaluations(points.get(2));
+    assertThat(a).hasSize(steps);
+    assertThat(b).isEqualTo(a);
+    assertThat(c).isEqualTo(a);
+  }
+
+  private List<String> evaluations(String point) {
+    return jdbc.queryForList(
+        "SELECT time::text || ' ' || details::text FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+        String.class,
+        point);
+  }
+
+  private int count(String point) {
+    return jdbc.queryForObject(
+        "SELECT count(*) FROM reading WHERE sample_point_id = ?", Integer.class, point);
+  }
+
+  private double value(String point, String parameter) {
+    return jdbc.queryForObject(
+        "SELECT value FROM reading WHERE sample_point_id = ? AND parameter = ?",
+        Double.class,
+        point,
+        parameter);
+  }
+}
