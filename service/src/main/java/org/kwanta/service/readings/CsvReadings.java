@@ -87,8 +87,10 @@ final class CsvReadings {
                 compensated));
         index++;
       }
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
+    } catch (IOException | UncheckedIOException e) {
+      // the body is already in memory, so a read error is a format error (e.g. an unclosed quote)
+      Throwable cause = e instanceof UncheckedIOException u ? u.getCause() : e;
+      throw BadRequestException.of("malformed CSV: " + cause.getMessage());
     } catch (IllegalStateException | IllegalArgumentException e) {
       if (e instanceof BadRequestException) {
         throw e;

@@ -9,6 +9,8 @@ import java.net.URI;
 public final class ProblemTypes {
 
   public static final URI BAD_REQUEST = of("bad-request");
+  public static final URI UNAUTHORIZED = of("unauthorized");
+  public static final URI FORBIDDEN = of("forbidden");
   public static final URI NOT_FOUND = of("not-found");
   public static final URI METHOD_NOT_ALLOWED = of("method-not-allowed");
   public static final URI NOT_ACCEPTABLE = of("not-acceptable");
@@ -21,6 +23,7 @@ public final class ProblemTypes {
   public static final URI CONFLICT = of("conflict");
   public static final URI TOO_MANY_REQUESTS = of("too-many-requests");
   public static final URI SERVICE_UNAVAILABLE = of("service-unavailable");
+  public static final URI DATABASE_UNAVAILABLE = of("database-unavailable");
   public static final URI INTERNAL = of("internal-error");
 
   private ProblemTypes() {}
@@ -33,6 +36,8 @@ public final class ProblemTypes {
   public static URI forStatus(int status) {
     return switch (status) {
       case 400 -> BAD_REQUEST;
+      case 401 -> UNAUTHORIZED;
+      case 403 -> FORBIDDEN;
       case 404 -> NOT_FOUND;
       case 405 -> METHOD_NOT_ALLOWED;
       case 406 -> NOT_ACCEPTABLE;

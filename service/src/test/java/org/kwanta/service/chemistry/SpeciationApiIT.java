@@ -34,7 +34,7 @@ class SpeciationApiIT {
 
   @BeforeEach
   void client() {
-    http = new Http(port);
+    http = Http.admin(port);
   }
 
   private HttpResponse<String> post(String path, String body, String... headers) {

@@ -34,7 +34,7 @@ class ExcursionsIT {
 
   @BeforeEach
   void plant() {
-    http = new Http(port);
+    http = Http.admin(port);
     day = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(1, ChronoUnit.DAYS);
     String tag = UUID.randomUUID().toString().substring(0, 8).toLowerCase(Locale.ROOT);
     point = "L" + tag + "-U2-CPD";

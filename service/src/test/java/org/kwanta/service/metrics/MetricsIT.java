@@ -29,7 +29,7 @@ class MetricsIT {
 
   @Test
   void scrapeShowsTheDocumentedNamesAndLabels() {
-    Http http = new Http(port);
+    Http http = Http.admin(port);
     String tag = UUID.randomUUID().toString().substring(0, 8).toLowerCase(Locale.ROOT);
     String point = "M" + tag + "-U2-CPD";
     String plant =

@@ -16,14 +16,14 @@ class DemoPlantIT {
 
   @Test
   void brackenmoorIsLoadedWithItsSamplePoints() {
-    HttpResponse<String> r = new Http(port).get("/api/v1/plants/brackenmoor");
+    HttpResponse<String> r = Http.admin(port).get("/api/v1/plants/brackenmoor");
     assertThat(r.statusCode()).isEqualTo(200);
     assertThat(r.body()).contains("U1-ECO-IN").contains("U2-HP-DRUM").contains("MU-DEMIN");
   }
 
   @Test
   void unknownPlantIs404Problem() {
-    HttpResponse<String> r = new Http(port).get("/api/v1/plants/nowhere");
+    HttpResponse<String> r = Http.admin(port).get("/api/v1/plants/nowhere");
     assertThat(r.statusCode()).isEqualTo(404);
     assertThat(r.body()).contains("urn:kwanta:problem:not-found");
   }

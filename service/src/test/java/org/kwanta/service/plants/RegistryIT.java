@@ -26,7 +26,7 @@ class RegistryIT {
 
   @BeforeEach
   void client() {
-    http = new Http(port);
+    http = Http.admin(port);
   }
 
   @Test

@@ -31,7 +31,7 @@ class QueriesIT {
 
   @BeforeAll
   void data() {
-    http = new Http(port);
+    http = Http.admin(port);
     String tag = Long.toString(System.nanoTime(), 36).toUpperCase(Locale.ROOT);
     point = "Q" + tag;
     String plant =

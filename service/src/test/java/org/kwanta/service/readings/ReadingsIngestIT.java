@@ -34,7 +34,7 @@ class ReadingsIngestIT {
 
   @BeforeEach
   void client() {
-    http = new Http(port);
+    http = Http.admin(port);
   }
 
   /** Invented AVT(O) feedwater readings (demo-style numbers, not measurements). */

@@ -163,7 +163,10 @@ public final class TestDatabase {
     return jdbcUrl.substring(slash + 1, query < 0 ? jdbcUrl.length() : query);
   }
 
-  /** Points a Spring test context at the shared test database. */
+  /**
+   * Points a Spring test context at the shared test database, and installs the test admin key
+   * ({@link TestKeys#ADMIN}).
+   */
   public static final class Initializer
       implements ApplicationContextInitializer<ConfigurableApplicationContext> {
 
@@ -173,7 +176,8 @@ public final class TestDatabase {
       TestPropertyValues.of(
               "spring.datasource.url=" + db.url(),
               "spring.datasource.username=" + db.user(),
-              "spring.datasource.password=" + db.password())
+              "spring.datasource.password=" + db.password(),
+              TestKeys.ADMIN_KEY_PROPERTY + "=" + TestKeys.ADMIN)
           .applyTo(context.getEnvironment());
     }
   }

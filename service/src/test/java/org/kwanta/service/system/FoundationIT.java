@@ -20,7 +20,7 @@ class FoundationIT {
 
   @BeforeEach
   void client() {
-    http = new Http(port);
+    http = Http.admin(port);
   }
 
   @Test

@@ -65,32 +65,61 @@ class PackagedApplicationIT {
     }
   }
 
+  /**
+   * The README's run command with no setup: the first start generates an admin key and prints it
+   * once in the log; data and key survive a restart, which prints no new key.
+   */
   @Test
-  void embeddedDatabaseKeepsDataAcrossRestart(@TempDir Path dataDir) throws Exception {
+  void embeddedDatabaseKeepsDataAndGeneratedKeyAcrossRestart(@TempDir Path dataDir)
+      throws Exception {
     String plant =
         "{\"id\":\"restart-check\",\"name\":\"Restart check\",\"units\":[{\"id\":\"U9\",\"name\":\"u\"}],"
             + "\"samplePoints\":[]}";
     int port = freePort();
     List<String> args =
         List.of("--kwanta.embedded-database.data-directory=" + dataDir.resolve("pg"));
-    Process first = start(port, Map.of(), args);
+    Map<String, String> noKey = Map.of("KWANTA_ADMIN_KEY", "");
+    Process first = start(port, noKey, args);
+    String key;
     try {
       awaitHealthy(first, port);
+      key = generatedKey(lastLog);
       assertThat(new Http(port).post("/api/v1/plants", "application/json", plant).statusCode())
+          .as("no key")
+          .isEqualTo(401);
+      assertThat(
+              new Http(port)
+                  .withKey(key)
+                  .post("/api/v1/plants", "application/json", plant)
+                  .statusCode())
           .isEqualTo(201);
     } finally {
       stop(first);
     }
-    Process second = start(port, Map.of(), args);
+    Process second = start(port, noKey, args);
     try {
       awaitHealthy(second, port);
-      HttpResponse<String> r = new Http(port).get("/api/v1/plants/restart-check");
+      assertThat(Files.readString(lastLog)).doesNotContain(ADMIN_KEY_BANNER);
+      HttpResponse<String> r = new Http(port).withKey(key).get("/api/v1/plants/restart-check");
       assertThat(r.statusCode()).isEqualTo(200);
       assertThat(r.body()).contains("Restart check");
     } finally {
       stop(second);
     }
   }
+
+  private static final String ADMIN_KEY_BANNER = "No admin key existed, so one was generated";
+
+  private static String generatedKey(Path log) throws IOException {
+    String text = Files.readString(log);
+    assertThat(text).contains(ADMIN_KEY_BANNER);
+    java.util.regex.Matcher m =
+        java.util.regex.Pattern.compile("\\s(kw_[a-z0-9]+_[A-Za-z0-9_-]{32,})\\s").matcher(text);
+    assertThat(m.find()).as("generated key in the log").isTrue();
+    return m.group(1);
+  }
+
+  private static Path lastLog;
 
   private static Process start(int port, Map<String, String> env, List<String> extraArgs)
       throws IOException {
@@ -100,8 +129,10 @@ class PackagedApplicationIT {
     command.addAll(extraArgs);
     ProcessBuilder pb = new ProcessBuilder(command);
     pb.environment().remove("SPRING_DATASOURCE_URL");
+    pb.environment().remove("KWANTA_ADMIN_KEY");
     pb.environment().putAll(env);
     Path log = Files.createTempFile("kwanta-packaged", ".log");
+    lastLog = log;
     pb.redirectErrorStream(true).redirectOutput(log.toFile());
     return pb.start();
   }

@@ -25,7 +25,7 @@ class WaterApiIT {
 
   @BeforeEach
   void client() {
-    http = new Http(port);
+    http = Http.admin(port);
   }
 
   @Test

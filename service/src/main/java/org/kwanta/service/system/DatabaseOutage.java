@@ -1,0 +1,62 @@
+package org.kwanta.service.system;
+
+import jakarta.servlet.http.HttpServletRequest;
+import java.sql.SQLException;
+import java.sql.SQLNonTransientConnectionException;
+import java.sql.SQLTransientConnectionException;
+import java.time.Duration;
+import org.springframework.dao.DataAccessResourceFailureException;
+import org.springframework.dao.TransientDataAccessResourceException;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.ProblemDetail;
+import org.springframework.stereotype.Component;
+import org.springframework.transaction.CannotCreateTransactionException;
+
+/**
+ * Recognises "PostgreSQL is unreachable" in an exception chain, and the 503 answer for it: the
+ * client should retry later, nothing of the request was acknowledged. A failure during commit may
+ * leave the outcome unknown, which is why a retried ingest must be idempotent.
+ */
+@Component
+public class DatabaseOutage {
+
+  private final Duration retryAfter;
+
+  DatabaseOutage(LimitsProperties limits) {
+    this.retryAfter = limits.retryAfter();
+  }
+
+  /** Whether this exception, or one of its causes, says the database cannot be reached. */
+  public static boolean isCause(Throwable e) {
+    for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
+      if (t instanceof DataAccessResourceFailureException
+          || t instanceof TransientDataAccessResourceException
+          || t instanceof CannotCreateTransactionException
+          || t instanceof SQLTransientConnectionException
+          || t instanceof SQLNonTransientConnectionException) {
+        return true;
+      }
+      // SQLSTATE class 08: connection exception; 57P01-57P03: server shutting down or starting
+      if (t instanceof SQLException sql && sql.getSQLState() != null) {
+        String state = sql.getSQLState();
+        if (state.startsWith("08") || state.startsWith("57P")) {
+          return true;
+        }
+      }
+    }
+    return false;
+  }
+
+  public Duration retryAfter() {
+    return retryAfter;
+  }
+
+  public ProblemDetail problem(HttpServletRequest request) {
+    return ProblemResponses.problem(
+        HttpStatus.SERVICE_UNAVAILABLE,
+        ProblemTypes.DATABASE_UNAVAILABLE,
+        "Database unavailable",
+        "The database cannot be reached; the request was not completed. Retry later.",
+        request);
+  }
+}

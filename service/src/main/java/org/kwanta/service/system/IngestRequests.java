@@ -1,0 +1,19 @@
+package org.kwanta.service.system;
+
+import jakarta.servlet.http.HttpServletRequest;
+
+/** Which requests are ingest: {@code POST /api/v1/readings} and everything below it. */
+final class IngestRequests {
+
+  static final String PATH = "/api/v1/readings";
+
+  private IngestRequests() {}
+
+  static boolean matches(HttpServletRequest request) {
+    if (!"POST".equals(request.getMethod())) {
+      return false;
+    }
+    String path = request.getRequestURI().substring(request.getContextPath().length());
+    return path.equals(PATH) || path.startsWith(PATH + "/");
+  }
+}
