@@ -72,6 +72,14 @@ public final class MetricNames {
   /** Time to ingest one batch, from parse to commit (timer). */
   public static final String INGEST_BATCH_DURATION = "kwanta.ingest.batch.duration";
 
+  /**
+   * Ingest requests being processed now (bounded by {@code kwanta.limits.max-concurrent-ingests}).
+   */
+  public static final String INGEST_IN_FLIGHT = "kwanta.ingest.in_flight";
+
+  /** Ingest requests refused with 503 because the concurrency bound was reached. */
+  public static final String INGEST_REJECTED_BUSY = "kwanta.ingest.rejected.busy";
+
   /** Kind of meter, for the exposed suffixes. */
   public enum Type {
     GAUGE,
@@ -162,13 +170,25 @@ public final class MetricNames {
               "kwanta_evaluation_duration_seconds",
               Type.TIMER,
               List.of(),
-              "Time to evaluate one sample point at one time"),
+              "Time to recompute the evaluations of one sample point after a batch"),
           new Metric(
               INGEST_BATCH_DURATION,
               "kwanta_ingest_batch_duration_seconds",
               Type.TIMER,
               List.of(),
-              "Time to ingest one batch"));
+              "Time to ingest one batch"),
+          new Metric(
+              INGEST_IN_FLIGHT,
+              "kwanta_ingest_in_flight",
+              Type.GAUGE,
+              List.of(),
+              "Ingest requests being processed now"),
+          new Metric(
+              INGEST_REJECTED_BUSY,
+              "kwanta_ingest_rejected_busy_total",
+              Type.COUNTER,
+              List.of(),
+              "Ingest requests refused with 503 because too many were in flight"));
 
   /** Platform metrics the dashboards and rules may use (HikariCP pool, JVM, Prometheus's own). */
   public static final List<String> PLATFORM =

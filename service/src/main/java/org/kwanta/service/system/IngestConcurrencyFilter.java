@@ -10,6 +10,7 @@ import jakarta.servlet.http.HttpServletResponse;
 import java.io.IOException;
 import java.time.Duration;
 import java.util.concurrent.Semaphore;
+import org.kwanta.service.metrics.MetricNames;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.filter.OncePerRequestFilter;
 
@@ -32,11 +33,11 @@ final class IngestConcurrencyFilter extends OncePerRequestFilter {
     this.permits = new Semaphore(max);
     this.retryAfter = limits.retryAfter();
     this.problems = problems;
-    Gauge.builder("kwanta.ingest.in_flight", permits, p -> max - p.availablePermits())
+    Gauge.builder(MetricNames.INGEST_IN_FLIGHT, permits, p -> max - p.availablePermits())
         .description("Ingest requests being processed")
         .register(meters);
     this.rejected =
-        Counter.builder("kwanta.ingest.rejected.busy")
+        Counter.builder(MetricNames.INGEST_REJECTED_BUSY)
             .description("Ingest requests refused with 503 because the limit was reached")
             .register(meters);
   }
