@@ -29,12 +29,17 @@ public record EvaluationView(
 
   /** Composition inferred from the 25 °C readings. */
   public record Composition(
-      double alkalizerMgPerKg,
-      double chlorideEquivalentUgPerKg,
-      double carbonDioxideUgPerKg,
-      double sodiumUgPerKg,
-      double phosphateMgPerKg,
+      Double alkalizerMgPerKg,
+      Double chlorideEquivalentUgPerKg,
+      Double carbonDioxideUgPerKg,
+      Double sodiumUgPerKg,
+      Double phosphateMgPerKg,
       Double sodiumToPhosphateMolarRatio) {}
+
+  /** JSON has no NaN: a value the engine could not determine is null. */
+  static Double finite(double v) {
+    return Double.isFinite(v) ? v : null;
+  }
 
   /** pH at 25 °C calculated from the conductivities. */
   public record CalculatedPh(
@@ -86,14 +91,12 @@ public record EvaluationView(
             .map(
                 c ->
                     new Composition(
-                        c.alkalizerMgPerKg(),
-                        c.chlorideEquivalentUgPerKg(),
-                        c.carbonDioxideUgPerKg(),
-                        c.sodiumUgPerKg(),
-                        c.phosphateMgPerKg(),
-                        Double.isFinite(c.sodiumToPhosphateMolarRatio())
-                            ? c.sodiumToPhosphateMolarRatio()
-                            : null))
+                        finite(c.alkalizerMgPerKg()),
+                        finite(c.chlorideEquivalentUgPerKg()),
+                        finite(c.carbonDioxideUgPerKg()),
+                        finite(c.sodiumUgPerKg()),
+                        finite(c.phosphateMgPerKg()),
+                        finite(c.sodiumToPhosphateMolarRatio())))
             .orElse(null);
     CalculatedPh calculated =
         e.calculatedPh()

@@ -36,7 +36,7 @@ class States {
       double value,
       String quality,
       Double sampleTemperatureCel,
-      boolean compensated) {}
+      Boolean compensated) {}
 
   /** The latest evaluation. */
   record LatestEvaluation(Instant time, double ageSeconds, EvaluationView evaluation) {}
@@ -74,7 +74,7 @@ class States {
                   rs.getDouble(3),
                   ValidReading.Quality.ofCode(rs.getInt(4)).name().toLowerCase(Locale.ROOT),
                   sampleTemperature,
-                  rs.getBoolean(6));
+                  p.isConductivity() ? rs.getBoolean(6) : null);
             },
             (Object) codes(),
             samplePointId);
