@@ -675,6 +675,10 @@ public final class SolutionModel {
           pos = x;
         }
         double next = x - f / df;
+        if (Math.abs(f / df) <= NEWTON_LAST_STEP && (next - neg) * (next - pos) <= 0) {
+          // converged: the step is below the tolerance (possibly below one ulp of x)
+          return trusted(next, lo, hi);
+        }
         boolean useNewton =
             df != 0
                 && (next - neg) * (next - pos) < 0
@@ -682,9 +686,6 @@ public final class SolutionModel {
         stepBefore = step;
         if (useNewton) {
           step = f / df;
-          if (Math.abs(step) <= NEWTON_LAST_STEP) {
-            return trusted(next, lo, hi);
-          }
         } else {
           next = 0.5 * (neg + pos);
           step = x - next;
