@@ -8,7 +8,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import org.kwanta.model.conductivity.Conductivity;
-import org.kwanta.model.conductivity.SolutionModel;
 
 /**
  * The consistency checks, as pure functions of the configuration, the snapshot and the values
@@ -158,6 +157,16 @@ final class Checks {
 
   // ---- consistency between instruments ------------------------------------------------------
 
+  /** The pH of the inferred composition at a temperature (the pH check's calculated value). */
+  @FunctionalInterface
+  interface PhOfComposition {
+    /**
+     * @param temperatureK temperature of the measured pH, K
+     * @return the calculated pH there
+     */
+    double at(double temperatureK);
+  }
+
   static void consistency(
       SamplePointConfig config,
       Snapshot snapshot,
@@ -165,7 +174,7 @@ final class Checks {
       Map<Parameter, Double> at25,
       ChannelFits.Result fitted,
       Optional<CalculatedPh> calculated,
-      Map<Double, SolutionModel> models,
+      PhOfComposition calculatedAt,
       List<Finding> out) {
     CheckSettings cs = config.checks();
     Tolerances tol = config.tolerances();
@@ -259,16 +268,15 @@ final class Checks {
                 num(fitted.all().carbonate() * Evaluator.CO2_G_PER_MOL * 1e6)));
       }
     }
-    phCheck(config, snapshot, usable, fitted, calculated, models, out);
+    phCheck(config, snapshot, usable, calculated, calculatedAt, out);
   }
 
   private static void phCheck(
       SamplePointConfig config,
       Snapshot snapshot,
       Map<Parameter, Reading> usable,
-      ChannelFits.Result fitted,
       Optional<CalculatedPh> calculated,
-      Map<Double, SolutionModel> models,
+      PhOfComposition calculatedAt,
       List<Finding> out) {
     Reading ph = usable.get(Parameter.PH);
     Reading scNow = usable.get(Parameter.SPECIFIC_CONDUCTIVITY);
@@ -277,8 +285,7 @@ final class Checks {
     }
     CheckSettings cs = config.checks();
     double t = ph.compensatedByAnalyser() ? Evaluator.T25_K : ph.sampleTemperatureK();
-    SolutionModel m = models.computeIfAbsent(t, k -> Evaluator.modelAt(k, config.alkalizer()));
-    double calcNow = m.solve(fitted.all()).pH();
+    double calcNow = calculatedAt.at(t);
     Reading cNow = usable.get(Parameter.CATION_CONDUCTIVITY);
     double argNow = scNow.value() - (cNow == null ? 0 : cNow.value() / 3);
     List<Reading> h = snapshot.readings(Parameter.PH);
@@ -332,13 +339,26 @@ final class Checks {
     Reading best = null;
     long bestGap = Long.MAX_VALUE;
     for (Reading r : h) {
-      long gap = Math.abs(Duration.between(r.time(), time).toMillis());
+      long gap = gapMillis(r.time(), time);
       if (gap < bestGap) {
         bestGap = gap;
         best = r;
       }
     }
     return best;
+  }
+
+  /**
+   * |Duration.between(a, b).toMillis()| without creating the Duration: the absolute difference in
+   * whole milliseconds, truncated (as toMillis truncates toward zero).
+   */
+  static long gapMillis(Instant a, Instant b) {
+    long seconds = b.getEpochSecond() - a.getEpochSecond();
+    if (Math.abs(seconds) >= 9_000_000_000L) {
+      return Math.abs(Duration.between(a, b).toMillis()); // beyond the nanosecond range of a long
+    }
+    long nanos = seconds * 1_000_000_000L + (b.getNano() - a.getNano());
+    return Math.abs(nanos) / 1_000_000L;
   }
 
   /** Trends over the snapshot's history: rise = median of the last three − of the first three. */
