@@ -60,6 +60,13 @@ public final class SolutionModel {
 
   private static final double LN10 = Math.log(10);
 
+  /**
+   * Relative margin above the background conductivity within which a fit iterates the ionic
+   * strength plainly from zero (activity effects on the background κ stay well below it in the
+   * range of the conductivity model).
+   */
+  private static final double BACKGROUND_MARGIN = 0.10;
+
   // solute groups: the amounts of Solutes in the order of its components
   private static final int ALK = 0;
   private static final int SOD = 1;
@@ -241,6 +248,17 @@ public final class SolutionModel {
    * @param near a solution to start from, or null
    */
   public Solution fit(Solutes known, Solute unknown, double kappaTarget, Solution near) {
+    return fit(known, unknown, kappaTarget, near, false);
+  }
+
+  /**
+   * @param plain iterate the ionic strength plainly from zero, as the original nested Brent search
+   *     did: used when the target is within {@link #BACKGROUND_MARGIN} of the background
+   *     conductivity, where the test "target at or below the background" depends on the activity
+   *     iterates themselves, so that the decision stays the original's
+   */
+  private Solution fit(
+      Solutes known, Solute unknown, double kappaTarget, Solution near, boolean plain) {
     Solutes base = known.with(unknown, 0);
     if (unknown == Solute.SODIUM_CHLORIDE) {
       return fitNeutralSalt(base, kappaTarget);
@@ -259,6 +277,9 @@ public final class SolutionModel {
       if (kappaTarget <= kappaBg) {
         return solve(base);
       }
+      if (!plain && it == 0 && kappaTarget <= kappaBg * (1 + BACKGROUND_MARGIN)) {
+        return fit(known, unknown, kappaTarget, null, true);
+      }
       boolean raisesPh = st.z[u] > 0;
       double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
       pH = st.kappaRoot(n, u, kappaTarget, pH, pHbg, end, raisesPh);
@@ -268,7 +289,7 @@ public final class SolutionModel {
         Solutes s = base.with(unknown, x);
         return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
       }
-      ionic = secant.next(ionic, next);
+      ionic = plain ? next : secant.next(ionic, next);
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
   }
@@ -626,12 +647,13 @@ public final class SolutionModel {
 
     /**
      * The pH at which κ along the charge balance meets the target, between pHbg (κ below target)
-     * and end, started from a guess (NaN: an estimate from the ion pair the unknown forms).
+     * and end, started from a guess (NaN or outside that bracket: an estimate from the ion pair the
+     * unknown forms).
      */
     double kappaRoot(
         double[] n, int u, double target, double guess, double pHbg, double end, boolean raises) {
       double start = guess;
-      if (Double.isNaN(start)) {
+      if (!(start > Math.min(pHbg, end) && start < Math.max(pHbg, end))) {
         at(pHbg);
         double extra = (target - kappa(pHbg, n, u, 0)) / (rho * pairA[u]);
         start = raises ? -Math.log10(kw / (g1 * (mOH + extra))) : -Math.log10(g1 * (mH + extra));

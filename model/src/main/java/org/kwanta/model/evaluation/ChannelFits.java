@@ -102,9 +102,6 @@ final class ChannelFits {
     if (c != null) {
       SolutionModel m = models.apply(Parameter.CATION_CONDUCTIVITY);
       Solution hint = near.get(Parameter.CATION_CONDUCTIVITY);
-      if (hint == null) {
-        hint = solutions.get(Parameter.DEGASSED_CATION_CONDUCTIVITY);
-      }
       Solution s;
       if (reuseCation) {
         s = central.channelSolutions().get(Parameter.CATION_CONDUCTIVITY);

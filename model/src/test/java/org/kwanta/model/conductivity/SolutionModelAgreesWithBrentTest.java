@@ -91,6 +91,8 @@ class SolutionModelAgreesWithBrentTest {
     Solution fa = fast.fit(known, c.unknown(), target);
     Solution fb = oracle.fit(known, c.unknown(), target);
     same(fa, fb);
+    // started from a nearby solution, the same decisions and the same result
+    same(fast.fit(known, c.unknown(), target, fast.solve(c.solutes())), fb);
     // and from a slightly higher conductivity, started near the first fit
     Solution ga = fast.fit(known, c.unknown(), target * 1.02, fa);
     Solution gb = oracle.fit(known, c.unknown(), target * 1.02);
