@@ -60,13 +60,6 @@ public final class SolutionModel {
 
   private static final double LN10 = Math.log(10);
 
-  /**
-   * Relative margin above the background conductivity within which a fit iterates the ionic
-   * strength plainly from zero (activity effects on the background κ stay well below it in the
-   * range of the conductivity model).
-   */
-  private static final double BACKGROUND_MARGIN = 0.10;
-
   // solute groups: the amounts of Solutes in the order of its components
   private static final int ALK = 0;
   private static final int SOD = 1;
@@ -252,10 +245,15 @@ public final class SolutionModel {
   }
 
   /**
-   * @param plain iterate the ionic strength plainly from zero, as the original nested Brent search
-   *     did: used when the target is within {@link #BACKGROUND_MARGIN} of the background
-   *     conductivity, where the test "target at or below the background" depends on the activity
-   *     iterates themselves, so that the decision stays the original's
+   * The fit proper. Whether the target lies at or below the background conductivity is tested at
+   * every iterate of the ionic strength, as the original nested Brent search did; near the
+   * background the outcome depends on the iterates themselves. So the test is made only at the
+   * original's iterates (the first two of an unstarted fit, which match it), and when the target is
+   * within {@link #activityMargin} of the background the fit iterates plainly from I = 0 like the
+   * original (a started or accelerated fit restarts so); secant steps and starting values are used
+   * only away from the background.
+   *
+   * @param plain iterate plainly from zero
    */
   private Solution fit(
       Solutes known, Solute unknown, double kappaTarget, Solution near, boolean plain) {
@@ -274,10 +272,14 @@ public final class SolutionModel {
       st.activity(ionic);
       pHbg = st.chargeRoot(n, pHbg);
       double kappaBg = st.kappa(pHbg, n, u, 0);
-      if (kappaTarget <= kappaBg) {
-        return solve(base);
-      }
-      if (!plain && it == 0 && kappaTarget <= kappaBg * (1 + BACKGROUND_MARGIN)) {
+      boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+      if (plain || (near == null && it <= 1)) {
+        // the iterates so far are the original's: decide as it did
+        if (kappaTarget <= kappaBg) {
+          return solve(base);
+        }
+        plain |= marginal;
+      } else if (marginal) {
         return fit(known, unknown, kappaTarget, null, true);
       }
       boolean raisesPh = st.z[u] > 0;
@@ -289,9 +291,19 @@ public final class SolutionModel {
         Solutes s = base.with(unknown, x);
         return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
       }
-      ionic = plain ? next : secant.next(ionic, next);
+      double accelerated = secant.next(ionic, next);
+      ionic = plain ? next : accelerated;
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
+  }
+
+  /**
+   * An upper bound on the relative change of the background conductivity when the activity
+   * coefficients move between γ(0) = 1 and γ(2I): twice 1 − γ of a trivalent ion at 2I (divalent
+   * and monovalent ions, and the weak-electrolyte fractions they shift, move less).
+   */
+  private double activityMargin(double ionicStrength) {
+    return 2 * (1 - Davies.gamma(dhA, 3, 2 * ionicStrength));
   }
 
   private static double[] amounts(Solutes s) {

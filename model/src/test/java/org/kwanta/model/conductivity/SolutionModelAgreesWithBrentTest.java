@@ -93,6 +93,15 @@ class SolutionModelAgreesWithBrentTest {
     same(fa, fb);
     // started from a nearby solution, the same decisions and the same result
     same(fast.fit(known, c.unknown(), target, fast.solve(c.solutes())), fb);
+    // targets just above the background, where the original decides between the background
+    // alone and an amount of the unknown at the activity iterates themselves
+    double background = oracle.solve(known).kappa();
+    for (double above : new double[] {1e-5, 1e-4, 1e-3, 3e-3, 1e-2, 3e-2}) {
+      double k = background * (1 + above);
+      Solution expected = oracle.fit(known, c.unknown(), k);
+      same(fast.fit(known, c.unknown(), k), expected);
+      same(fast.fit(known, c.unknown(), k, fa), expected);
+    }
     // and from a slightly higher conductivity, started near the first fit
     Solution ga = fast.fit(known, c.unknown(), target * 1.02, fa);
     Solution gb = oracle.fit(known, c.unknown(), target * 1.02);
