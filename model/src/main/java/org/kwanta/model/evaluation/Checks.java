@@ -293,6 +293,10 @@ final class Checks {
     if (h.isEmpty() || h.get(0).time().isAfter(start)) {
       return; // history does not cover the persistence time
     }
+    List<Reading> scHistory = snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY);
+    List<Reading> cHistory = snapshot.readings(Parameter.CATION_CONDUCTIVITY);
+    boolean scSorted = isSorted(scHistory);
+    boolean cSorted = isSorted(cHistory);
     int sign = 0;
     double lastResidual = Double.NaN;
     for (Reading r : h) {
@@ -302,8 +306,8 @@ final class Checks {
       // calculated pH at the time of r: anchored at the present rigorous value, shifted as
       // log10(SC − CACE/3) moved (alkaline samples); exact when the conductivities were steady
       double shift = 0;
-      Reading scThen = nearest(snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY), r.time());
-      Reading cThen = nearest(snapshot.readings(Parameter.CATION_CONDUCTIVITY), r.time());
+      Reading scThen = nearest(scHistory, r.time(), scSorted);
+      Reading cThen = nearest(cHistory, r.time(), cSorted);
       if (scThen != null && argNow > 0) {
         double arg = scThen.value() - (cThen == null ? 0 : cThen.value() / 3);
         if (arg > 0) {
@@ -336,6 +340,16 @@ final class Checks {
   }
 
   static Reading nearest(List<Reading> h, Instant time) {
+    return nearest(h, time, false);
+  }
+
+  /**
+   * The reading nearest in time (the first of equally near ones).
+   *
+   * @param sorted true when the readings are in non-decreasing time order: the gaps then fall and
+   *     rise again, so the scan stops at the first gap above the best (same answer, fewer steps)
+   */
+  static Reading nearest(List<Reading> h, Instant time, boolean sorted) {
     Reading best = null;
     long bestGap = Long.MAX_VALUE;
     for (Reading r : h) {
@@ -343,9 +357,21 @@ final class Checks {
       if (gap < bestGap) {
         bestGap = gap;
         best = r;
+      } else if (sorted && gap > bestGap) {
+        break;
       }
     }
     return best;
+  }
+
+  /** True when the readings are in non-decreasing time order. */
+  static boolean isSorted(List<Reading> h) {
+    for (int i = 1; i < h.size(); i++) {
+      if (h.get(i).time().isBefore(h.get(i - 1).time())) {
+        return false;
+      }
+    }
+    return true;
   }
 
   /**
@@ -429,8 +455,9 @@ final class Checks {
       double sx = 0;
       double sy = 0;
       double[] ys = new double[n];
+      boolean ySorted = isSorted(y);
       for (int i = 0; i < n; i++) {
-        ys[i] = nearest(y, x.get(i).time()).value();
+        ys[i] = nearest(y, x.get(i).time(), ySorted).value();
         sx += x.get(i).value();
         sy += ys[i];
       }
