@@ -13,12 +13,21 @@ import org.kwanta.model.water.WaterState;
  *
  * <p>Species follow from a(H⁺) in closed form (Kw; BH⁺ = B + H⁺ for each alkalizer; carbonic and
  * phosphoric acid steps; Na⁺, Cl⁻, SO₄²⁻ fully dissociated), with Davies activity coefficients at
- * an ionic strength iterated to a fixed point. The charge balance Σ zᵢmᵢ = 0 is solved for pH with
- * Brent's method. For the inverse problem the unknown amount x enters the charge balance linearly,
- * x = −(charge of the rest)/(charge per unit x), so the fit is a single Brent search on pH rather
- * than a search nested around a speciation. (For a neutral salt, which does not enter the charge
- * balance, the search is on x.) Conductivity per {@link IonConductivities}. Immutable and
- * thread-safe.
+ * an ionic strength iterated to a fixed point. For the inverse problem the unknown amount x enters
+ * the charge balance linearly, x = −(charge of the rest)/(charge per unit x), so the fit is a
+ * single search on pH rather than a search nested around a speciation. (For a neutral salt, which
+ * does not enter the charge balance, the search is on x.) Conductivity per {@link
+ * IonConductivities}. Immutable and thread-safe.
+ *
+ * <p>Numerics. At fixed activity coefficients every species fraction is a rational function of
+ * a(H⁺) whose derivative is closed-form too (d ln αᵢ/d ln a(H⁺) from the mean charge of each acid
+ * chain), so both searches on pH use a safeguarded Newton method (Newton steps kept inside a
+ * bracket with a known sign change, bisection when a step leaves it or does not halve the
+ * residual), started from the previous iterate or from the strong-electrolyte estimate. The fixed
+ * point of the ionic strength I ↦ I(species at pH(γ(I))) is accelerated by secant steps on I(…) −
+ * I. The stopping rules are those of the original nested Brent searches (pH to 1e-13, I to 1e-10
+ * relative), so results agree with them to numerical noise; where a Newton search does not
+ * converge, the original Brent search is run instead.
  */
 public final class SolutionModel {
 
@@ -35,8 +44,30 @@ public final class SolutionModel {
   /** Relative change of ionic strength at which the activity iteration stops. */
   private static final double IONIC_STRENGTH_TOLERANCE = 1e-10;
 
-  /** Half-width of the warm-start pH bracket. */
+  /** Half-width of the warm-start pH bracket of the Brent fallback. */
   private static final double WARM_HALF_WIDTH = 0.01;
+
+  /**
+   * A Newton step on pH this small ends the search: the error left is of the order of its square
+   * times |f″/f′| (a few per pH unit), far below {@link #PH_TOLERANCE}.
+   */
+  private static final double NEWTON_LAST_STEP = 1e-9;
+
+  private static final int NEWTON_ITERATIONS = 100;
+
+  /** A Newton result this close to a bracket end is not trusted (Brent decides instead). */
+  private static final double BRACKET_END_MARGIN = 1e-6;
+
+  private static final double LN10 = Math.log(10);
+
+  // solute groups: the amounts of Solutes in the order of its components
+  private static final int ALK = 0;
+  private static final int SOD = 1;
+  private static final int CHL = 2;
+  private static final int SUL = 3;
+  private static final int CAR = 4;
+  private static final int PHO = 5;
+  private static final int GROUPS = 6;
 
   private static final int H = Ion.H.ordinal();
   private static final int OH = Ion.OH.ordinal();
@@ -49,7 +80,6 @@ public final class SolutionModel {
   private static final int HPO4 = Ion.HPO4.ordinal();
   private static final int PO4 = Ion.PO4.ordinal();
   private static final int N_IONS = Ion.values().length;
-  private static final int[] CHARGES = charges();
 
   private final IonConductivities ions;
   private final WaterState water;
@@ -63,6 +93,24 @@ public final class SolutionModel {
   private final int[] baseCation;
   private final double[] baseFraction;
   private final double[] baseKa;
+
+  /** ρ, kg/m³, and ½ρ/1000 (molal Σmz² to molar ionic strength). */
+  private final double rho;
+
+  private final double halfRhoPerLiter;
+
+  /** Per ion: |z|·λ°, and z²·(B1·λ° + B2/2), of κ = ρ Σ m (|z|λ° − z²(B1λ° + B2/2)√I). */
+  private final double[] wa = new double[N_IONS];
+
+  private final double[] wb = new double[N_IONS];
+
+  /** Per base of the mix: wa and wb of its cation. */
+  private final double[] baseA;
+
+  private final double[] baseB;
+
+  /** Per group: |z|λ° of the ion pair the solute forms with H⁺ or OH⁻ (for first estimates). */
+  private final double[] pairA = new double[GROUPS];
 
   /**
    * @param ions ion conductivities at the temperature
@@ -104,15 +152,29 @@ public final class SolutionModel {
       baseKa[i] = Math.pow(10, -pk);
       i++;
     }
-  }
-
-  private static int[] charges() {
+    this.rho = water.densityKgPerM3();
+    this.halfRhoPerLiter = 0.5 * rho / 1000;
     Ion[] all = Ion.values();
-    int[] z = new int[all.length];
-    for (int i = 0; i < all.length; i++) {
-      z[i] = all[i].charge();
+    for (int k = 0; k < N_IONS; k++) {
+      int z = Math.abs(all[k].charge());
+      double l0 = ions.limiting(all[k]);
+      wa[k] = z * l0;
+      wb[k] = z * z * (ions.onsagerB1() * l0 + ions.onsagerB2() / 2);
     }
-    return z;
+    this.baseA = new double[n];
+    this.baseB = new double[n];
+    double cationA = 0;
+    for (int k = 0; k < n; k++) {
+      baseA[k] = wa[baseCation[k]];
+      baseB[k] = wb[baseCation[k]];
+      cationA += baseFraction[k] * baseA[k];
+    }
+    pairA[ALK] = wa[OH] + cationA;
+    pairA[SOD] = wa[OH] + wa[NA];
+    pairA[CHL] = wa[H] + wa[CL];
+    pairA[SUL] = wa[H] + wa[SO4] / 2;
+    pairA[CAR] = wa[H] + wa[HCO3];
+    pairA[PHO] = wa[H] + wa[H2PO4];
   }
 
   /** The ion conductivities this model uses. */
@@ -127,19 +189,32 @@ public final class SolutionModel {
 
   /** Speciates given totals: pH from the charge balance, then κ. */
   public Solution solve(Solutes s) {
+    return solve(s, null);
+  }
+
+  /**
+   * {@link #solve(Solutes)} started from a nearby solution (of a similar composition, at any
+   * temperature): only its pH and ionic strength are used, as starting values, so the result is the
+   * same within the solver's tolerance, only found faster.
+   *
+   * @param s the totals
+   * @param near a solution to start from, or null
+   */
+  public Solution solve(Solutes s, Solution near) {
     State st = new State();
-    double ionic = 0;
-    double pH = Double.NaN;
+    double[] n = amounts(s);
+    double ionic = near == null ? 0 : near.ionicStrength();
+    double pH = near == null ? Double.NaN : near.pH();
+    Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pH = warmBrent(p -> st.charge(p, s), pH, PH_MIN, water.pKw() - 1);
-      st.charge(pH, s);
-      st.fill(s);
-      double next = st.ionicStrength();
+      pH = st.chargeRoot(n, pH);
+      st.at(pH);
+      double next = st.ionicStrength(n, 0, 0);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(s, pH, next, ions.kappa(st.m), water.temperatureK());
+        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
       }
-      ionic = next;
+      ionic = secant.next(ionic, next);
     }
     throw new NoConvergenceException("activity iteration", MAX_ACTIVITY_ITERATIONS, ionic);
   }
@@ -155,45 +230,103 @@ public final class SolutionModel {
    * @param kappaTarget conductivity at this model's temperature, µS/cm
    */
   public Solution fit(Solutes known, Solute unknown, double kappaTarget) {
+    return fit(known, unknown, kappaTarget, null);
+  }
+
+  /**
+   * {@link #fit(Solutes, Solute, double)} started from a nearby solution (for example the fit of a
+   * slightly different target): only its pH and ionic strength are used, as starting values, so the
+   * result is the same within the solver's tolerance, only found faster.
+   *
+   * @param near a solution to start from, or null
+   */
+  public Solution fit(Solutes known, Solute unknown, double kappaTarget, Solution near) {
+    return fit(known, unknown, kappaTarget, near, false);
+  }
+
+  /**
+   * The fit proper. Whether the target lies at or below the background conductivity is tested at
+   * every iterate of the ionic strength, as the original nested Brent search did; near the
+   * background the outcome depends on the iterates themselves. So the test is made only at the
+   * original's iterates (the first two of an unstarted fit, which match it), and when the target is
+   * within {@link #activityMargin} of the background the fit iterates plainly from I = 0 like the
+   * original (a started or accelerated fit restarts so); secant steps and starting values are used
+   * only away from the background.
+   *
+   * @param plain iterate plainly from zero
+   */
+  private Solution fit(
+      Solutes known, Solute unknown, double kappaTarget, Solution near, boolean plain) {
     Solutes base = known.with(unknown, 0);
     if (unknown == Solute.SODIUM_CHLORIDE) {
       return fitNeutralSalt(base, kappaTarget);
     }
+    int u = group(unknown);
+    double[] n = amounts(base);
     State st = new State();
-    double ionic = 0;
+    double ionic = near == null ? 0 : near.ionicStrength();
     double pHbg = Double.NaN;
-    double pH = Double.NaN;
+    double pH = near == null ? Double.NaN : near.pH();
+    Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pHbg = warmBrent(p -> st.charge(p, base), pHbg, PH_MIN, water.pKw() - 1);
-      double kappaBg = st.kappaWith(pHbg, base, unknown, 0);
-      if (kappaTarget <= kappaBg) {
-        return solve(base);
+      pHbg = st.chargeRoot(n, pHbg);
+      double kappaBg = st.kappa(pHbg, n, u, 0);
+      boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+      if (plain || (near == null && it <= 1)) {
+        // the iterates so far are the original's: decide as it did
+        if (kappaTarget <= kappaBg) {
+          return solve(base);
+        }
+        plain |= marginal;
+      } else if (marginal) {
+        return fit(known, unknown, kappaTarget, null, true);
       }
-      boolean raisesPh = st.chargePerUnit(pHbg, unknown) > 0;
+      boolean raisesPh = st.z[u] > 0;
       double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
-      pH =
-          warmBrent(
-              p -> st.kappaWith(p, base, unknown, st.amountAt(p, base, unknown)) - kappaTarget,
-              pH,
-              Math.min(pHbg, end),
-              Math.max(pHbg, end));
-      double x = Math.max(0, st.amountAt(pH, base, unknown));
-      Solutes s = base.with(unknown, x);
-      st.charge(pH, s);
-      st.fill(s);
-      double next = st.ionicStrength();
+      pH = st.kappaRoot(n, u, kappaTarget, pH, pHbg, end, raisesPh);
+      double x = Math.max(0, st.amountAt(pH, n, u));
+      double next = st.ionicStrength(n, u, x);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(s, pH, next, ions.kappa(st.m), water.temperatureK());
+        Solutes s = base.with(unknown, x);
+        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
       }
-      ionic = next;
+      double accelerated = secant.next(ionic, next);
+      ionic = plain ? next : accelerated;
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
   }
 
   /**
-   * Brent on [lo, hi], first trying a narrow bracket around the previous iterate's root (the
-   * activity coefficients move the root only slightly between iterations).
+   * An upper bound on the relative change of the background conductivity when the activity
+   * coefficients move between γ(0) = 1 and γ(2I): twice 1 − γ of a trivalent ion at 2I (divalent
+   * and monovalent ions, and the weak-electrolyte fractions they shift, move less).
+   */
+  private double activityMargin(double ionicStrength) {
+    return 2 * (1 - Davies.gamma(dhA, 3, 2 * ionicStrength));
+  }
+
+  private static double[] amounts(Solutes s) {
+    return new double[] {
+      s.alkalizer(), s.sodium(), s.chloride(), s.sulfate(), s.carbonate(), s.phosphate()
+    };
+  }
+
+  private static int group(Solute u) {
+    return switch (u) {
+      case ALKALIZER -> ALK;
+      case SODIUM_HYDROXIDE -> SOD;
+      case HYDROCHLORIC_ACID -> CHL;
+      case SULFURIC_ACID -> SUL;
+      case CARBON_DIOXIDE -> CAR;
+      case PHOSPHORIC_ACID -> PHO;
+      case SODIUM_CHLORIDE -> throw new IllegalArgumentException("a neutral salt has no group");
+    };
+  }
+
+  /**
+   * Brent on [lo, hi], first trying a narrow bracket around a guess (the original search, kept as
+   * the fallback of the Newton searches).
    */
   private static double warmBrent(DoubleUnaryOperator f, double guess, double lo, double hi) {
     if (!Double.isNaN(guess)) {
@@ -215,26 +348,61 @@ public final class SolutionModel {
     }
     double perMol = water.densityKgPerM3() * (ions.limiting(Ion.NA) + ions.limiting(Ion.CL));
     double hi = 2 * (kappaTarget - bg.kappa()) / perMol + 1e-12;
-    while (solve(base.with(Solute.SODIUM_CHLORIDE, hi)).kappa() < kappaTarget) {
+    while (solve(base.with(Solute.SODIUM_CHLORIDE, hi), bg).kappa() < kappaTarget) {
       hi *= 2;
     }
     double x =
         Brent.solve(
-            v -> solve(base.with(Solute.SODIUM_CHLORIDE, v)).kappa() - kappaTarget,
+            v -> solve(base.with(Solute.SODIUM_CHLORIDE, v), bg).kappa() - kappaTarget,
             0,
             hi,
             hi * 1e-14,
             BRENT_ITERATIONS);
-    return solve(base.with(Solute.SODIUM_CHLORIDE, x));
+    return solve(base.with(Solute.SODIUM_CHLORIDE, x), bg);
   }
 
-  /** Working state: activity coefficients and species molalities at one trial pH. */
+  private static double trusted(double x, double lo, double hi) {
+    return x - lo > BRACKET_END_MARGIN && hi - x > BRACKET_END_MARGIN ? x : Double.NaN;
+  }
+
+  /**
+   * Secant acceleration of the fixed point I = G(I): from the last two pairs (I, G(I)) the root of
+   * G(I) − I, kept when it lies within one plain step of G(I); otherwise the plain step G(I).
+   */
+  private static final class Secant {
+    private double previousI = Double.NaN;
+    private double previousG = Double.NaN;
+
+    double next(double ionic, double g) {
+      double proposal = g;
+      if (!Double.isNaN(previousI)) {
+        double r0 = previousG - previousI;
+        double r1 = g - ionic;
+        double denominator = r1 - r0;
+        if (denominator != 0) {
+          double candidate = ionic - r1 * (ionic - previousI) / denominator;
+          if (candidate > 0 && Math.abs(candidate - g) <= Math.abs(g - ionic)) {
+            proposal = candidate;
+          }
+        }
+      }
+      previousI = ionic;
+      previousG = g;
+      return proposal;
+    }
+  }
+
+  /**
+   * Working state of one solve or fit: activity coefficients, and at one trial pH the per-unit
+   * charge and conductivity sums of each solute group with their derivatives in ln a(H⁺).
+   */
   private final class State {
-    final double[] m = new double[N_IONS];
     double g1 = 1;
     double g2 = 1;
     double g3 = 1;
-    // species per unit total at the last pH evaluated
+    double lastPh = Double.NaN;
+
+    // species at the last pH
     double mH;
     double mOH;
     final double[] alpha = new double[baseKa.length];
@@ -243,7 +411,48 @@ public final class SolutionModel {
     double fH2po4;
     double fHpo4;
     double fPo4;
-    double lastPh = Double.NaN;
+
+    // water (H⁺, OH⁻): charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺) (suffix L)
+    double qw;
+    double qwL;
+    double aw;
+    double awL;
+    double bw;
+    double bwL;
+    double cw;
+    double cwL;
+
+    // per unit amount of each group: the same sums and derivatives
+    final double[] z = new double[GROUPS];
+    final double[] zL = new double[GROUPS];
+    final double[] ua = new double[GROUPS];
+    final double[] uaL = new double[GROUPS];
+    final double[] ub = new double[GROUPS];
+    final double[] ubL = new double[GROUPS];
+    final double[] uc = new double[GROUPS];
+    final double[] ucL = new double[GROUPS];
+
+    // result of the last evaluation of a search function: value and d/dpH
+    double f;
+    double df;
+
+    final double[] m = new double[N_IONS];
+
+    State() {
+      // the fully dissociated groups do not depend on pH
+      z[SOD] = 1;
+      ua[SOD] = wa[NA];
+      ub[SOD] = wb[NA];
+      uc[SOD] = 1;
+      z[CHL] = -1;
+      ua[CHL] = wa[CL];
+      ub[CHL] = wb[CL];
+      uc[CHL] = 1;
+      z[SUL] = -2;
+      ua[SUL] = wa[SO4];
+      ub[SUL] = wb[SO4];
+      uc[SUL] = 4;
+    }
 
     void activity(double ionicStrength) {
       g1 = Davies.gamma(dhA, 1, ionicStrength);
@@ -259,14 +468,62 @@ public final class SolutionModel {
       double aH = Math.pow(10, -pH);
       mH = aH / g1;
       mOH = kw / (aH * g1);
+      qw = mH - mOH;
+      qwL = mH + mOH;
+      aw = mH * wa[H] + mOH * wa[OH];
+      awL = mH * wa[H] - mOH * wa[OH];
+      bw = mH * wb[H] + mOH * wb[OH];
+      bwL = mH * wb[H] - mOH * wb[OH];
+      cw = mH + mOH;
+      cwL = mH - mOH;
+
+      double q = 0;
+      double qL = 0;
+      double a = 0;
+      double aL = 0;
+      double b = 0;
+      double bL = 0;
       for (int i = 0; i < baseKa.length; i++) {
-        alpha[i] = aH / (aH + baseKa[i] * g1);
+        double al = aH / (aH + baseKa[i] * g1);
+        alpha[i] = al;
+        double fr = baseFraction[i];
+        double p = fr * al;
+        double pL = p * (1 - al);
+        q += p;
+        qL += pL;
+        a += p * baseA[i];
+        aL += pL * baseA[i];
+        b += p * baseB[i];
+        bL += pL * baseB[i];
       }
+      z[ALK] = q;
+      zL[ALK] = qL;
+      ua[ALK] = a;
+      uaL[ALK] = aL;
+      ub[ALK] = b;
+      ubL[ALK] = bL;
+      uc[ALK] = q;
+      ucL[ALK] = qL;
+
+      // carbonic acid: fractions f1 (HCO3-), f2 (CO3-2); mean charge nc; df_j/dL = f_j (nc − j)
       double r1 = k1c / (aH * g1);
       double r2 = k1c * k2c / (aH * aH * g2);
       double d = 1 + r1 + r2;
       fHco3 = r1 / d;
       fCo3 = r2 / d;
+      double nc = fHco3 + 2 * fCo3;
+      double e1 = fHco3 * (nc - 1);
+      double e2 = fCo3 * (nc - 2);
+      z[CAR] = -nc;
+      zL[CAR] = -(e1 + 2 * e2);
+      ua[CAR] = fHco3 * wa[HCO3] + fCo3 * wa[CO3];
+      uaL[CAR] = e1 * wa[HCO3] + e2 * wa[CO3];
+      ub[CAR] = fHco3 * wb[HCO3] + fCo3 * wb[CO3];
+      ubL[CAR] = e1 * wb[HCO3] + e2 * wb[CO3];
+      uc[CAR] = fHco3 + 4 * fCo3;
+      ucL[CAR] = e1 + 4 * e2;
+
+      // phosphoric acid: H2PO4-, HPO4-2, PO4-3
       double p1 = k1p / (aH * g1);
       double p2 = k1p * k2p / (aH * aH * g2);
       double p3 = k1p * k2p * k3p / (aH * aH * aH * g3);
@@ -274,57 +531,209 @@ public final class SolutionModel {
       fH2po4 = p1 / dp;
       fHpo4 = p2 / dp;
       fPo4 = p3 / dp;
+      double np = fH2po4 + 2 * fHpo4 + 3 * fPo4;
+      double h1 = fH2po4 * (np - 1);
+      double h2 = fHpo4 * (np - 2);
+      double h3 = fPo4 * (np - 3);
+      z[PHO] = -np;
+      zL[PHO] = -(h1 + 2 * h2 + 3 * h3);
+      ua[PHO] = fH2po4 * wa[H2PO4] + fHpo4 * wa[HPO4] + fPo4 * wa[PO4];
+      uaL[PHO] = h1 * wa[H2PO4] + h2 * wa[HPO4] + h3 * wa[PO4];
+      ub[PHO] = fH2po4 * wb[H2PO4] + fHpo4 * wb[HPO4] + fPo4 * wb[PO4];
+      ubL[PHO] = h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4];
+      uc[PHO] = fH2po4 + 4 * fHpo4 + 9 * fPo4;
+      ucL[PHO] = h1 + 4 * h2 + 9 * h3;
       lastPh = pH;
     }
 
-    double alkalizerCharge() {
-      double q = 0;
-      for (int i = 0; i < alpha.length; i++) {
-        q += baseFraction[i] * alpha[i];
+    /** Net charge of amounts n at the current pH, mol/kg (decreasing in pH). */
+    double charge(double[] n) {
+      double q = qw;
+      for (int k = 0; k < GROUPS; k++) {
+        q += n[k] * z[k];
       }
       return q;
     }
 
-    /** Net charge, mol/kg, of the totals at a trial pH (decreasing in pH). */
-    double charge(double pH, Solutes s) {
+    private double chargeL(double[] n) {
+      double q = qwL;
+      for (int k = 0; k < GROUPS; k++) {
+        q += n[k] * zL[k];
+      }
+      return q;
+    }
+
+    /** Amount of group u that balances the charge of n at a trial pH. */
+    double amountAt(double pH, double[] n, int u) {
       at(pH);
-      return mH
-          - mOH
-          + s.alkalizer() * alkalizerCharge()
-          + s.sodium()
-          - s.chloride()
-          - 2 * s.sulfate()
-          - s.carbonate() * (fHco3 + 2 * fCo3)
-          - s.phosphate() * (fH2po4 + 2 * fHpo4 + 3 * fPo4);
+      return -charge(n) / z[u];
     }
 
-    double chargePerUnit(double pH, Solute u) {
+    /** Molal ionic strength of n plus x of group u at the current pH, mol/kg. */
+    double ionicStrength(double[] n, int u, double x) {
+      double c = cw + x * uc[u];
+      for (int k = 0; k < GROUPS; k++) {
+        c += n[k] * uc[k];
+      }
+      return 0.5 * c;
+    }
+
+    /** κ of n plus x of group u at a trial pH, µS/cm. */
+    double kappa(double pH, double[] n, int u, double x) {
       at(pH);
-      return switch (u) {
-        case ALKALIZER -> alkalizerCharge();
-        case SODIUM_HYDROXIDE -> 1;
-        case HYDROCHLORIC_ACID -> -1;
-        case SULFURIC_ACID -> -2;
-        case CARBON_DIOXIDE -> -(fHco3 + 2 * fCo3);
-        case PHOSPHORIC_ACID -> -(fH2po4 + 2 * fHpo4 + 3 * fPo4);
-        case SODIUM_CHLORIDE -> 0;
-      };
+      double a = aw + x * ua[u];
+      double b = bw + x * ub[u];
+      double c = cw + x * uc[u];
+      for (int k = 0; k < GROUPS; k++) {
+        a += n[k] * ua[k];
+        b += n[k] * ub[k];
+        c += n[k] * uc[k];
+      }
+      return rho * (a - Math.sqrt(halfRhoPerLiter * c) * b);
     }
 
-    /** Amount of the unknown that balances the charge at a trial pH. */
-    double amountAt(double pH, Solutes base, Solute u) {
-      double rest = charge(pH, base);
-      return -rest / chargePerUnit(pH, u);
-    }
-
-    double kappaWith(double pH, Solutes base, Solute u, double x) {
-      Solutes s = x == 0 ? base : base.with(u, x);
+    /** Sets f and df to the charge balance of n and its pH derivative. */
+    void evalCharge(double pH, double[] n) {
       at(pH);
-      fill(s);
-      return ions.kappa(m);
+      f = charge(n);
+      df = -LN10 * chargeL(n);
     }
 
-    void fill(Solutes s) {
+    /**
+     * Sets f and df to κ − target along the charge balance (the amount of group u that balances n
+     * at pH) and its pH derivative.
+     */
+    void evalKappa(double pH, double[] n, int u, double target) {
+      at(pH);
+      double qb = charge(n);
+      double qbL = chargeL(n);
+      double zu = z[u];
+      double x = -qb / zu;
+      double xL = -(qbL * zu - qb * zL[u]) / (zu * zu);
+      double a = aw + x * ua[u];
+      double aL = awL + x * uaL[u] + xL * ua[u];
+      double b = bw + x * ub[u];
+      double bL = bwL + x * ubL[u] + xL * ub[u];
+      double c = cw + x * uc[u];
+      double cL = cwL + x * ucL[u] + xL * uc[u];
+      for (int k = 0; k < GROUPS; k++) {
+        double nk = n[k];
+        a += nk * ua[k];
+        aL += nk * uaL[k];
+        b += nk * ub[k];
+        bL += nk * ubL[k];
+        c += nk * uc[k];
+        cL += nk * ucL[k];
+      }
+      double sqrtI = Math.sqrt(halfRhoPerLiter * c);
+      f = rho * (a - sqrtI * b) - target;
+      double kappaL = rho * (aL - sqrtI * bL - b * halfRhoPerLiter * cL / (2 * sqrtI));
+      df = -LN10 * kappaL;
+    }
+
+    /** The pH of the charge balance of n, started from a guess (NaN: an estimate). */
+    double chargeRoot(double[] n, double guess) {
+      double lo = PH_MIN;
+      double hi = water.pKw() - 1;
+      double start = guess;
+      if (Double.isNaN(start)) {
+        // strong-electrolyte estimate: mH − mOH + R = 0 with R the solutes' charge at neutrality
+        at(water.pKw() / 2);
+        double r = charge(n) - qw;
+        double k = kw / (g1 * g1);
+        double root = Math.sqrt(r * r + 4 * k);
+        double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
+        start = -Math.log10(mh * g1);
+      }
+      double pH = newton(false, n, 0, 0, start, hi, lo);
+      if (Double.isNaN(pH)) {
+        pH = warmBrent(p -> charge(p, n), guess, lo, hi);
+      }
+      return pH;
+    }
+
+    private double charge(double pH, double[] n) {
+      at(pH);
+      return charge(n);
+    }
+
+    /**
+     * The pH at which κ along the charge balance meets the target, between pHbg (κ below target)
+     * and end, started from a guess (NaN or outside that bracket: an estimate from the ion pair the
+     * unknown forms).
+     */
+    double kappaRoot(
+        double[] n, int u, double target, double guess, double pHbg, double end, boolean raises) {
+      double start = guess;
+      if (!(start > Math.min(pHbg, end) && start < Math.max(pHbg, end))) {
+        at(pHbg);
+        double extra = (target - kappa(pHbg, n, u, 0)) / (rho * pairA[u]);
+        start = raises ? -Math.log10(kw / (g1 * (mOH + extra))) : -Math.log10(g1 * (mH + extra));
+      }
+      double pH = newton(true, n, u, target, start, pHbg, end);
+      if (Double.isNaN(pH)) {
+        pH =
+            warmBrent(
+                p -> kappa(p, n, u, -charge(p, n) / z[u]) - target,
+                guess,
+                Math.min(pHbg, end),
+                Math.max(pHbg, end));
+      }
+      return pH;
+    }
+
+    /**
+     * Safeguarded Newton search (after Numerical Recipes' rtsafe) for the root of the charge
+     * balance or of the κ function, on the bracket where f(neg) < 0 < f(pos). Returns NaN when it
+     * does not converge or ends at a bracket end (the caller then runs Brent).
+     */
+    private double newton(
+        boolean kappa, double[] n, int u, double target, double start, double neg, double pos) {
+      double lo = Math.min(neg, pos);
+      double hi = Math.max(neg, pos);
+      double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
+      double stepBefore = hi - lo;
+      double step = stepBefore;
+      for (int i = 0; i < NEWTON_ITERATIONS; i++) {
+        if (kappa) {
+          evalKappa(x, n, u, target);
+        } else {
+          evalCharge(x, n);
+        }
+        if (f == 0) {
+          return x;
+        }
+        if (f < 0) {
+          neg = x;
+        } else {
+          pos = x;
+        }
+        double next = x - f / df;
+        if (Math.abs(f / df) <= NEWTON_LAST_STEP && (next - neg) * (next - pos) <= 0) {
+          // converged: the step is below the tolerance (possibly below one ulp of x)
+          return trusted(next, lo, hi);
+        }
+        boolean useNewton =
+            df != 0
+                && (next - neg) * (next - pos) < 0
+                && Math.abs(2 * f) <= Math.abs(stepBefore * df);
+        stepBefore = step;
+        if (useNewton) {
+          step = f / df;
+        } else {
+          next = 0.5 * (neg + pos);
+          step = x - next;
+          if (Math.abs(pos - neg) <= PH_TOLERANCE) {
+            return trusted(next, lo, hi);
+          }
+        }
+        x = next;
+      }
+      return Double.NaN;
+    }
+
+    /** κ of totals at the current pH, by {@link IonConductivities#kappa(double[])}. */
+    double kappaOf(Solutes s) {
       Arrays.fill(m, 0);
       m[H] = mH;
       m[OH] = mOH;
@@ -339,15 +748,7 @@ public final class SolutionModel {
       m[H2PO4] += s.phosphate() * fH2po4;
       m[HPO4] += s.phosphate() * fHpo4;
       m[PO4] += s.phosphate() * fPo4;
-    }
-
-    double ionicStrength() {
-      double sum = 0;
-      for (int i = 0; i < N_IONS; i++) {
-        int z = CHARGES[i];
-        sum += m[i] * z * z;
-      }
-      return 0.5 * sum;
+      return ions.kappa(m);
     }
   }
 }

@@ -8,7 +8,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import org.kwanta.model.conductivity.Conductivity;
-import org.kwanta.model.conductivity.SolutionModel;
 
 /**
  * The consistency checks, as pure functions of the configuration, the snapshot and the values
@@ -158,6 +157,16 @@ final class Checks {
 
   // ---- consistency between instruments ------------------------------------------------------
 
+  /** The pH of the inferred composition at a temperature (the pH check's calculated value). */
+  @FunctionalInterface
+  interface PhOfComposition {
+    /**
+     * @param temperatureK temperature of the measured pH, K
+     * @return the calculated pH there
+     */
+    double at(double temperatureK);
+  }
+
   static void consistency(
       SamplePointConfig config,
       Snapshot snapshot,
@@ -165,7 +174,7 @@ final class Checks {
       Map<Parameter, Double> at25,
       ChannelFits.Result fitted,
       Optional<CalculatedPh> calculated,
-      Map<Double, SolutionModel> models,
+      PhOfComposition calculatedAt,
       List<Finding> out) {
     CheckSettings cs = config.checks();
     Tolerances tol = config.tolerances();
@@ -259,16 +268,15 @@ final class Checks {
                 num(fitted.all().carbonate() * Evaluator.CO2_G_PER_MOL * 1e6)));
       }
     }
-    phCheck(config, snapshot, usable, fitted, calculated, models, out);
+    phCheck(config, snapshot, usable, calculated, calculatedAt, out);
   }
 
   private static void phCheck(
       SamplePointConfig config,
       Snapshot snapshot,
       Map<Parameter, Reading> usable,
-      ChannelFits.Result fitted,
       Optional<CalculatedPh> calculated,
-      Map<Double, SolutionModel> models,
+      PhOfComposition calculatedAt,
       List<Finding> out) {
     Reading ph = usable.get(Parameter.PH);
     Reading scNow = usable.get(Parameter.SPECIFIC_CONDUCTIVITY);
@@ -277,8 +285,7 @@ final class Checks {
     }
     CheckSettings cs = config.checks();
     double t = ph.compensatedByAnalyser() ? Evaluator.T25_K : ph.sampleTemperatureK();
-    SolutionModel m = models.computeIfAbsent(t, k -> Evaluator.modelAt(k, config.alkalizer()));
-    double calcNow = m.solve(fitted.all()).pH();
+    double calcNow = calculatedAt.at(t);
     Reading cNow = usable.get(Parameter.CATION_CONDUCTIVITY);
     double argNow = scNow.value() - (cNow == null ? 0 : cNow.value() / 3);
     List<Reading> h = snapshot.readings(Parameter.PH);
@@ -286,6 +293,10 @@ final class Checks {
     if (h.isEmpty() || h.get(0).time().isAfter(start)) {
       return; // history does not cover the persistence time
     }
+    List<Reading> scHistory = snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY);
+    List<Reading> cHistory = snapshot.readings(Parameter.CATION_CONDUCTIVITY);
+    boolean scSorted = isSorted(scHistory);
+    boolean cSorted = isSorted(cHistory);
     int sign = 0;
     double lastResidual = Double.NaN;
     for (Reading r : h) {
@@ -295,8 +306,8 @@ final class Checks {
       // calculated pH at the time of r: anchored at the present rigorous value, shifted as
       // log10(SC − CACE/3) moved (alkaline samples); exact when the conductivities were steady
       double shift = 0;
-      Reading scThen = nearest(snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY), r.time());
-      Reading cThen = nearest(snapshot.readings(Parameter.CATION_CONDUCTIVITY), r.time());
+      Reading scThen = nearest(scHistory, r.time(), scSorted);
+      Reading cThen = nearest(cHistory, r.time(), cSorted);
       if (scThen != null && argNow > 0) {
         double arg = scThen.value() - (cThen == null ? 0 : cThen.value() / 3);
         if (arg > 0) {
@@ -329,16 +340,51 @@ final class Checks {
   }
 
   static Reading nearest(List<Reading> h, Instant time) {
+    return nearest(h, time, false);
+  }
+
+  /**
+   * The reading nearest in time (the first of equally near ones).
+   *
+   * @param sorted true when the readings are in non-decreasing time order: the gaps then fall and
+   *     rise again, so the scan stops at the first gap above the best (same answer, fewer steps)
+   */
+  static Reading nearest(List<Reading> h, Instant time, boolean sorted) {
     Reading best = null;
     long bestGap = Long.MAX_VALUE;
     for (Reading r : h) {
-      long gap = Math.abs(Duration.between(r.time(), time).toMillis());
+      long gap = gapMillis(r.time(), time);
       if (gap < bestGap) {
         bestGap = gap;
         best = r;
+      } else if (sorted && gap > bestGap) {
+        break;
       }
     }
     return best;
+  }
+
+  /** True when the readings are in non-decreasing time order. */
+  static boolean isSorted(List<Reading> h) {
+    for (int i = 1; i < h.size(); i++) {
+      if (h.get(i).time().isBefore(h.get(i - 1).time())) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  /**
+   * |Duration.between(a, b).toMillis()| without creating the Duration: the absolute difference in
+   * whole milliseconds, truncated (as toMillis truncates toward zero).
+   */
+  static long gapMillis(Instant a, Instant b) {
+    long seconds = b.getEpochSecond() - a.getEpochSecond();
+    if (Math.abs(seconds) >= 9_000_000_000L) {
+      return Math.abs(Duration.between(a, b).toMillis()); // beyond the nanosecond range of a long
+    }
+    long nanos = seconds * 1_000_000_000L + (b.getNano() - a.getNano());
+    return Math.abs(nanos) / 1_000_000L;
   }
 
   /** Trends over the snapshot's history: rise = median of the last three − of the first three. */
@@ -409,8 +455,9 @@ final class Checks {
       double sx = 0;
       double sy = 0;
       double[] ys = new double[n];
+      boolean ySorted = isSorted(y);
       for (int i = 0; i < n; i++) {
-        ys[i] = nearest(y, x.get(i).time()).value();
+        ys[i] = nearest(y, x.get(i).time(), ySorted).value();
         sx += x.get(i).value();
         sy += ys[i];
       }

@@ -5,6 +5,7 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.concurrent.ConcurrentHashMap;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.Speciation;
@@ -64,9 +65,7 @@ public final class Evaluator {
     Map<Parameter, Reading> usable = Checks.signals(config, snapshot, findings);
     Checks.sampleTemperature(config, usable, findings);
 
-    SolutionModel model25 = new SolutionModel(IONS_25, EQUILIBRIA_25, config.alkalizer());
-    Map<Double, SolutionModel> byTemperature = new java.util.HashMap<>();
-    byTemperature.put(T25_K, model25);
+    SolutionModel model25 = modelAt(T25_K, config.alkalizer());
 
     Map<Parameter, Double> rawValues = new EnumMap<>(Parameter.class);
     Map<Parameter, SolutionModel> models = new EnumMap<>(Parameter.class);
@@ -77,7 +76,7 @@ public final class Evaluator {
         continue;
       }
       double t = r.compensatedByAnalyser() ? T25_K : r.sampleTemperatureK();
-      SolutionModel m = byTemperature.computeIfAbsent(t, k -> modelAt(k, config.alkalizer()));
+      SolutionModel m = t == T25_K ? model25 : modelAt(t, config.alkalizer());
       double pure = m.ions().pureWater();
       boolean isBelow = r.value() < pure * (1 - config.checks().belowPureWaterRelative());
       below.put(p, isBelow);
@@ -95,18 +94,25 @@ public final class Evaluator {
     Optional<OperatingPh> operating = Optional.empty();
     ChannelFits.Result fitted = null;
     Map<Parameter, Double> at25 = new EnumMap<>(Parameter.class);
+    // each channel's fitted composition as a solution at 25 °C
+    Map<Parameter, Solution> solutions25 = new EnumMap<>(Parameter.class);
     if (!rawValues.isEmpty()) {
       fitted = ChannelFits.fit(config.regime(), sodiumMolal, rawValues, models);
       for (Map.Entry<Parameter, Double> e : rawValues.entrySet()) {
         Parameter p = e.getKey();
         Reading r = usable.get(p);
+        Solution fit = fitted.channelSolutions().get(p);
+        // a channel fitted at 25 °C is its own 25 °C solution
+        Solution s25 =
+            models.get(p) == model25 ? fit : model25.solve(fitted.channelSolutes().get(p), fit);
+        solutions25.put(p, s25);
         double k25;
         if (below.get(p)) {
           k25 = PURE_WATER_25;
         } else if (r.compensatedByAnalyser()) {
           k25 = r.value();
         } else {
-          k25 = model25.solve(fitted.channelSolutes().get(p)).kappa();
+          k25 = s25.kappa();
         }
         at25.put(p, k25);
         compensated.put(
@@ -121,19 +127,11 @@ public final class Evaluator {
       }
       Checks.belowPureWater(below, findings);
 
-      // uncertainty: each 25 °C value perturbed by its tolerance, refitted at 25 °C
-      Map<Parameter, SolutionModel> models25 = new EnumMap<>(Parameter.class);
-      for (Parameter p : at25.keySet()) {
-        models25.put(p, model25);
-      }
-      Solution sc25 = fitted.channelSolutions().get(Parameter.SPECIFIC_CONDUCTIVITY);
+      // uncertainty: each 25 °C value perturbed by its tolerance, refitted at 25 °C (the
+      // channels before the perturbed one in the fitting chain keep their central amounts)
+      Solution sc25 = solutions25.get(Parameter.SPECIFIC_CONDUCTIVITY);
       boolean hasSc = sc25 != null;
-      double pH25 =
-          hasSc
-              ? (models.get(Parameter.SPECIFIC_CONDUCTIVITY) == model25
-                  ? sc25.pH()
-                  : model25.solve(fitted.all()).pH())
-              : Double.NaN;
+      double pH25 = hasSc ? sc25.pH() : Double.NaN;
       Tolerances tol = config.tolerances();
       List<Solutes> perturbed = new ArrayList<>(3);
       double[] uncertainty = new double[6];
@@ -149,7 +147,9 @@ public final class Evaluator {
                 : tol.cationConductivityAbsolute();
         Map<Parameter, Double> values = new EnumMap<>(at25);
         values.put(p, v + dv);
-        ChannelFits.Result alt = ChannelFits.fit(config.regime(), sodiumMolal, values, models25);
+        ChannelFits.Result alt =
+            ChannelFits.refit(
+                config.regime(), sodiumMolal, values, model25, fitted, p, solutions25);
         perturbed.add(alt.all());
         addSquares(uncertainty, fitted.all(), alt.all());
         if (hasSc) {
@@ -176,7 +176,22 @@ public final class Evaluator {
         operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
       }
     }
-    Checks.consistency(config, snapshot, usable, at25, fitted, calculated, byTemperature, findings);
+    ChannelFits.Result central = fitted;
+    Solution sc25 = solutions25.get(Parameter.SPECIFIC_CONDUCTIVITY);
+    Checks.PhOfComposition calculatedAt =
+        t -> {
+          // the composition is the specific-conductivity fit: reuse its solutions where the
+          // temperature matches, otherwise solve it at t
+          Solution scFit = central.channelSolutions().get(Parameter.SPECIFIC_CONDUCTIVITY);
+          if (scFit != null && t == scFit.temperatureK()) {
+            return scFit.pH();
+          }
+          if (sc25 != null && t == T25_K) {
+            return sc25.pH();
+          }
+          return modelAt(t, config.alkalizer()).solve(central.all(), sc25).pH();
+        };
+    Checks.consistency(config, snapshot, usable, at25, fitted, calculated, calculatedAt, findings);
     return new Evaluation(config.id(), compensated, composition, calculated, operating, findings);
   }
 
@@ -186,11 +201,66 @@ public final class Evaluator {
     Parameter.SPECIFIC_CONDUCTIVITY
   };
 
+  /**
+   * The solution model at a temperature (0.101325 MPa, R11-07) for an alkalizer mix. Models are
+   * immutable and a pure function of (temperature, mix), so they are shared across evaluations and
+   * threads; the cache is keyed by the exact temperature (no rounding, so a cached model is the one
+   * that would be built) and stops growing at {@link #MODEL_CACHE_LIMIT} entries, after which
+   * further models are built per call.
+   *
+   * @throws org.kwanta.model.OutOfValidityRangeException outside 0–100 °C
+   */
   static SolutionModel modelAt(double temperatureK, AlkalizerMix mix) {
+    ModelKey key = new ModelKey(temperatureK, mix);
+    SolutionModel m = MODELS.get(key);
+    if (m != null) {
+      return m;
+    }
     Conductivity.TEMPERATURE_VALIDITY.check(temperatureK);
     WaterState w =
         Water.at(temperatureK, Water.ATMOSPHERIC_PRESSURE_PA, IonizationFormulation.R11_07);
-    return new SolutionModel(Conductivity.at(w), Equilibria.of(w), mix);
+    m = new SolutionModel(Conductivity.at(w), Equilibria.of(w), mix);
+    if (MODELS.size() < MODEL_CACHE_LIMIT) {
+      SolutionModel earlier = MODELS.putIfAbsent(key, m);
+      return earlier == null ? m : earlier;
+    }
+    return m;
+  }
+
+  /** Largest number of cached solution models (a few kB each). */
+  static final int MODEL_CACHE_LIMIT = 2048;
+
+  private record ModelKey(double temperatureK, AlkalizerMix mix) {}
+
+  private static final ConcurrentHashMap<ModelKey, SolutionModel> MODELS =
+      new ConcurrentHashMap<>();
+
+  /** Largest number of cached operating water states. */
+  static final int WATER_CACHE_LIMIT = 2048;
+
+  private record StateKey(double temperatureK, double pressurePa) {}
+
+  private static final ConcurrentHashMap<StateKey, WaterState> OPERATING_WATER =
+      new ConcurrentHashMap<>();
+
+  /**
+   * The water state at an operating point (NaN pressure: saturation), R11-07; cached by the exact
+   * (T, p) like {@link #modelAt}.
+   */
+  static WaterState operatingWater(double temperatureK, double pressurePa) {
+    StateKey key = new StateKey(temperatureK, pressurePa);
+    WaterState w = OPERATING_WATER.get(key);
+    if (w != null) {
+      return w;
+    }
+    w =
+        Double.isNaN(pressurePa)
+            ? Water.atSaturation(temperatureK, IonizationFormulation.R11_07)
+            : Water.at(temperatureK, pressurePa, IonizationFormulation.R11_07);
+    if (OPERATING_WATER.size() < WATER_CACHE_LIMIT) {
+      OPERATING_WATER.putIfAbsent(key, w);
+    }
+    return w;
   }
 
   private static void addSquares(double[] acc, Solutes a, Solutes b) {
@@ -258,13 +328,7 @@ public final class Evaluator {
 
   private static OperatingPh operatingPh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
-    WaterState w =
-        Double.isNaN(config.operatingPressurePa())
-            ? Water.atSaturation(config.operatingTemperatureK(), IonizationFormulation.R11_07)
-            : Water.at(
-                config.operatingTemperatureK(),
-                config.operatingPressurePa(),
-                IonizationFormulation.R11_07);
+    WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
     double ph = Speciation.solve(toComposition(central, config.alkalizer()), w).ph();
     double var = 0;
     for (Solutes s : perturbed) {

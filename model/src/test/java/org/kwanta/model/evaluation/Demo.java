@@ -94,6 +94,81 @@ final class Demo {
     return new EnumMap<>(Parameter.class);
   }
 
+  // ---- the five demo stories (histories; see BrackenmoorStoriesTest) -------------------------
+
+  /** Story 1: Unit 1 feedwater on ammonia at pH25 ≈ 9.6–9.8, everything green. */
+  static Map<Parameter, List<Reading>> normalDay() {
+    double[] v = normalDayReadings();
+    Map<Parameter, List<Reading>> h = map();
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, series(i -> v[0] * wobble(i, 0.004)));
+    h.put(Parameter.CATION_CONDUCTIVITY, series(i -> v[1] * wobble(i + 1, 0.01)));
+    h.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, series(i -> v[2] * wobble(i + 2, 0.01)));
+    h.put(Parameter.PH, series(i -> v[3] + 0.02 * Math.sin(i)));
+    return h;
+  }
+
+  /** SC, CACE, DCACE, pH25 of the normal day (3.5 mg/kg NH₃, 3 µg/kg Cl, 10 µg/kg CO₂). */
+  static double[] normalDayReadings() {
+    return readings(ammonia(3.5), 0, chloride(3), co2(10));
+  }
+
+  /** Story 2: condenser leak, Unit 2: sodium and cation conductivity climb at U2-CPD. */
+  static Map<Parameter, List<Reading>> condenserLeak() {
+    Map<Parameter, List<Reading>> h = map();
+    IntToDoubleFunction na = i -> 1.0 + 14.0 * i / (N - 1);
+    java.util.function.IntFunction<double[]> at =
+        i ->
+            readings(
+                ammonia(0.8),
+                sodium(na.applyAsDouble(i)),
+                sodium(na.applyAsDouble(i)) + chloride(1),
+                co2(5));
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, series(i -> at.apply(i)[0] * wobble(i, 0.003)));
+    h.put(Parameter.CATION_CONDUCTIVITY, series(i -> at.apply(i)[1] * wobble(i, 0.005)));
+    h.put(Parameter.SODIUM, series(i -> na.applyAsDouble(i) * wobble(i, 0.02)));
+    return h;
+  }
+
+  /** Story 3: exhausted cation column, Unit 1 main steam: CACE creeps up tracking SC, Na flat. */
+  static Map<Parameter, List<Reading>> exhaustedColumn() {
+    Map<Parameter, List<Reading>> h = map();
+    // invented: SC follows an ammonia dosing increase; the column lets through a growing
+    // fraction of the ammonium, which the cation and degassed cation cells both see
+    IntToDoubleFunction sc = i -> 4.0 + 0.6 * i / (N - 1) + 0.05 * Math.sin(i);
+    IntToDoubleFunction leak = i -> 0.004 + 0.03 * i / (N - 1);
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, series(sc));
+    h.put(
+        Parameter.CATION_CONDUCTIVITY,
+        series(i -> 0.07 + leak.applyAsDouble(i) * sc.applyAsDouble(i)));
+    h.put(
+        Parameter.DEGASSED_CATION_CONDUCTIVITY,
+        series(i -> 0.06 + leak.applyAsDouble(i) * sc.applyAsDouble(i)));
+    h.put(Parameter.SODIUM, series(i -> 0.8 * wobble(i, 0.03)));
+    return h;
+  }
+
+  /** Story 4: drifting pH electrode, Unit 1 feedwater: measured pH wanders from calculated. */
+  static Map<Parameter, List<Reading>> driftingElectrode() {
+    double[] v = normalDayReadings();
+    Map<Parameter, List<Reading>> h = map();
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, series(i -> v[0] * wobble(i, 0.004)));
+    h.put(Parameter.CATION_CONDUCTIVITY, series(i -> v[1] * wobble(i + 1, 0.01)));
+    h.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, series(i -> v[2] * wobble(i + 2, 0.01)));
+    h.put(Parameter.PH, series(i -> v[3] - 0.45 * i / (N - 1)));
+    return h;
+  }
+
+  /** Story 5: start-up with air in-leakage: CACE high, DCACE normal: carbon dioxide. */
+  static Map<Parameter, List<Reading>> airInLeakage() {
+    double[] v = readings(ammonia(1.5), 0, chloride(2), co2(400));
+    Map<Parameter, List<Reading>> h = map();
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, series(i -> v[0] * wobble(i, 0.004)));
+    h.put(Parameter.CATION_CONDUCTIVITY, series(i -> v[1] * wobble(i + 1, 0.01)));
+    h.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, series(i -> v[2] * wobble(i + 2, 0.01)));
+    h.put(Parameter.PH, series(i -> v[3] + 0.02 * Math.sin(i)));
+    return h;
+  }
+
   static Solute unused() {
     return Solute.ALKALIZER;
   }

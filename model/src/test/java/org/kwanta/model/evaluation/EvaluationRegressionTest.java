@@ -1,0 +1,139 @@
+package org.kwanta.model.evaluation;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+
+/**
+ * Pins full evaluations to the results of the engine before it was optimised for speed: regression
+ * values computed by the unoptimised engine at commit 51e8942, not an outside source (see the CSV
+ * header). The optimisations must not move any number by more than numerical noise (1e-9 relative),
+ * nor change a flag or a finding.
+ */
+class EvaluationRegressionTest {
+
+  private static final String RESOURCE = "/evaluation/regression-unoptimised-51e8942.csv";
+
+  /** Relative tolerance of the pinned numbers (numerical noise of the iterative solvers). */
+  private static final double RELATIVE = 1e-9;
+
+  static Stream<Arguments> cases() {
+    Map<String, Map<String, String>> pinned = pinned();
+    return RegressionCases.all().stream().map(c -> Arguments.of(c.name(), c, pinned.get(c.name())));
+  }
+
+  @ParameterizedTest(name = "{0}")
+  @MethodSource("cases")
+  void matchesTheUnoptimisedEngine(
+      String name, RegressionCases.Case c, Map<String, String> expected) {
+    assertThat(expected).as("pinned values for " + name).isNotNull();
+    Map<String, String> actual =
+        RegressionCases.flatten(Evaluator.evaluate(c.config(), c.snapshot()));
+    assertThat(actual.keySet()).containsExactlyElementsOf(expected.keySet());
+    for (Map.Entry<String, String> e : expected.entrySet()) {
+      String got = actual.get(e.getKey());
+      assertThat(close(e.getValue(), got))
+          .as("%s %s: pinned %s, got %s", name, e.getKey(), e.getValue(), got)
+          .isTrue();
+    }
+  }
+
+  /** Many threads evaluating the same snapshots at once get equal results, equal to one thread. */
+  @Test
+  void concurrentEvaluationsAreIdentical() throws Exception {
+    List<RegressionCases.Case> all = RegressionCases.all();
+    List<Evaluation> sequential = new ArrayList<>();
+    for (RegressionCases.Case c : all) {
+      sequential.add(Evaluator.evaluate(c.config(), c.snapshot()));
+    }
+    ExecutorService pool = Executors.newFixedThreadPool(8);
+    try {
+      List<Future<List<Evaluation>>> futures = new ArrayList<>();
+      for (int t = 0; t < 8; t++) {
+        int offset = t;
+        Callable<List<Evaluation>> job =
+            () -> {
+              List<Evaluation> out = new ArrayList<>();
+              for (int round = 0; round < 20; round++) {
+                for (int k = 0; k < all.size(); k++) {
+                  // each thread walks the cases in its own order, so caches fill concurrently
+                  int i = (k + offset + round) % all.size();
+                  RegressionCases.Case c = all.get(i);
+                  out.add(Evaluator.evaluate(c.config(), c.snapshot()));
+                }
+              }
+              return out;
+            };
+        futures.add(pool.submit(job));
+      }
+      for (int t = 0; t < futures.size(); t++) {
+        List<Evaluation> got = futures.get(t).get();
+        for (int j = 0; j < got.size(); j++) {
+          int round = j / all.size();
+          int i = (j % all.size() + t + round) % all.size();
+          assertThat(got.get(j)).isEqualTo(sequential.get(i));
+        }
+      }
+    } finally {
+      pool.shutdownNow();
+    }
+  }
+
+  private static boolean close(String expected, String actual) {
+    if (actual == null) {
+      return false;
+    }
+    if (expected.equals(actual)) {
+      return true;
+    }
+    double a;
+    double b;
+    try {
+      a = Double.parseDouble(expected);
+      b = Double.parseDouble(actual);
+    } catch (NumberFormatException notANumber) {
+      return false;
+    }
+    return Math.abs(a - b) <= RELATIVE * Math.max(Math.abs(a), Math.abs(b));
+  }
+
+  private static Map<String, Map<String, String>> pinned() {
+    Map<String, Map<String, String>> out = new LinkedHashMap<>();
+    try (InputStream in = EvaluationRegressionTest.class.getResourceAsStream(RESOURCE);
+        BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
+      String line;
+      boolean header = true;
+      while ((line = r.readLine()) != null) {
+        if (line.startsWith("#") || line.isBlank()) {
+          continue;
+        }
+        if (header) {
+          header = false;
+          continue;
+        }
+        String[] f = line.split(",", 3);
+        out.computeIfAbsent(f[0], k -> new LinkedHashMap<>()).put(f[1], f[2]);
+      }
+    } catch (IOException e) {
+      throw new IllegalStateException(e);
+    }
+    return out;
+  }
+}
