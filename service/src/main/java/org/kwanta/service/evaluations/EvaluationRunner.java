@@ -47,7 +47,8 @@ public final class EvaluationRunner {
    * has a reading.
    *
    * @param readings the point's readings from {@code from − historyWindow} to {@code to}, ordered
-   *     by time
+   *     by time; before the bucket of {@code from}, the latest of each parameter per bucket is
+   *     enough (see {@link #latestPerBucket})
    */
   public static List<Result> run(
       SamplePointConfigs.Versioned config,
@@ -63,24 +64,22 @@ public final class EvaluationRunner {
       }
     }
     List<Result> out = new ArrayList<>(times.size());
+    long bucketMillis = bucketMillis(historyWindow);
     int start = 0;
+    int end = 0;
     for (Instant t : times) {
       Instant windowStart = t.minus(historyWindow);
       while (start < readings.size() && !readings.get(start).time().isAfter(windowStart)) {
         start++;
       }
+      while (end < readings.size() && !readings.get(end).time().isAfter(t)) {
+        end++;
+      }
       Map<Parameter, List<Reading>> history = new EnumMap<>(Parameter.class);
       List<String> notes = new ArrayList<>();
       double lastSampleTemperatureCel = Double.NaN;
       Instant lastSampleTemperatureTime = null;
-      for (int i = start; i < readings.size(); i++) {
-        StoredReading r = readings.get(i);
-        if (r.time().isAfter(t)) {
-          break;
-        }
-        if (r.quality() == 2) {
-          continue; // bad quality never enters an evaluation
-        }
+      for (StoredReading r : latestPerBucket(readings, start, end, bucketMillis)) {
         if ("sample_temperature".equals(r.parameter())) {
           lastSampleTemperatureCel = r.value();
           lastSampleTemperatureTime = r.time();
@@ -113,7 +112,6 @@ public final class EvaluationRunner {
             .computeIfAbsent(p, k -> new ArrayList<>())
             .add(new Reading(r.time(), r.value(), temperatureK, compensated));
       }
-      history.replaceAll((p, list) -> thin(list));
       try {
         Evaluation e = Evaluator.evaluate(config.config(), new Snapshot(t, history));
         out.add(
@@ -153,24 +151,47 @@ public final class EvaluationRunner {
     return out;
   }
 
-  /** Most readings an evaluation sees per parameter; longer histories are thinned evenly. */
-  static final int MAX_HISTORY = 30;
+  /**
+   * History buckets per window: an evaluation sees at most this many readings (+1) per parameter.
+   */
+  public static final int HISTORY_BUCKETS = 30;
 
   /**
-   * Keeps at most {@link #MAX_HISTORY} readings, evenly spread and always including the first and
-   * the latest, so the trend, flat-line and persistence checks cost the same at 1-second or
-   * 1-minute resolution. It depends only on the readings, so evaluations stay independent of
-   * arrival order.
+   * Bucket length for a history window: window / {@value #HISTORY_BUCKETS}, at least one second.
    */
-  static List<Reading> thin(List<Reading> readings) {
-    int n = readings.size();
-    if (n <= MAX_HISTORY) {
-      return readings;
+  public static long bucketMillis(Duration historyWindow) {
+    return Math.max(1000, historyWindow.toMillis() / HISTORY_BUCKETS);
+  }
+
+  /** The bucket of a time: floor(epoch millis / bucket millis). */
+  public static long bucketOf(Instant t, long bucketMillis) {
+    return Math.floorDiv(t.toEpochMilli(), bucketMillis);
+  }
+
+  /**
+   * The history an evaluation sees: of the readings {@code [start, end)} (time-ordered, all within
+   * the window), only the latest good or uncertain reading of each parameter in each bucket. So the
+   * trend, flat-line and persistence checks cost the same at 1-second or 1-minute resolution, the
+   * database need only return the latest reading per bucket for the older part of a window, and an
+   * evaluation depends only on the stored readings, whatever their arrival order.
+   */
+  static List<StoredReading> latestPerBucket(
+      List<StoredReading> readings, int start, int end, long bucketMillis) {
+    List<StoredReading> out = new ArrayList<>();
+    Map<String, Long> lastBucket = new java.util.HashMap<>();
+    for (int i = end - 1; i >= start; i--) {
+      StoredReading r = readings.get(i);
+      if (r.quality() == 2) {
+        continue; // bad quality never enters an evaluation
+      }
+      long b = bucketOf(r.time(), bucketMillis);
+      Long seen = lastBucket.get(r.parameter());
+      if (seen == null || seen != b) {
+        lastBucket.put(r.parameter(), b);
+        out.add(r);
+      }
     }
-    List<Reading> out = new ArrayList<>(MAX_HISTORY);
-    for (int k = 0; k < MAX_HISTORY; k++) {
-      out.add(readings.get((int) Math.round((double) k * (n - 1) / (MAX_HISTORY - 1))));
-    }
+    java.util.Collections.reverse(out);
     return out;
   }
 

@@ -153,7 +153,7 @@ public class IngestService {
         Instant from = e.getValue()[0];
         Instant to = e.getValue()[1].plus(window);
         List<EvaluationRunner.StoredReading> stored =
-            evaluations.readings(e.getKey(), from.minus(window), to);
+            evaluations.readings(e.getKey(), from, to, window);
         List<EvaluationRunner.Result> results =
             metrics.timeEvaluation(
                 () ->

@@ -206,24 +206,35 @@ class ReadingsIngestIT {
 
   @Test
   void storedEvaluationsDoNotDependOnArrivalOrderOrDuplication() {
+    assertOrderIndependent(144, 600); // one day at 10-minute steps
+  }
+
+  @Test
+  void storedEvaluationsAtFineResolutionDoNotDependOnArrivalOrder() {
+    // 20 s steps: several readings per history bucket, so the history is thinned
+    assertOrderIndependent(360, 20);
+  }
+
+  private void assertOrderIndependent(int steps, long stepSeconds) {
     List<String> points = TestPlants.feedwaterPoints(http, 3);
     Instant start = yesterday();
-    int steps = 144; // one day at 10-minute steps
     // 1. in order, in batches of 100
-    List<String> inOrder = feedwaterReadings(points.get(0), start, steps, 600);
+    List<String> inOrder = feedwaterReadings(points.get(0), start, steps, stepSeconds);
     for (int i = 0; i < inOrder.size(); i += 100) {
       assertThat(post(inOrder.subList(i, Math.min(i + 100, inOrder.size()))).statusCode())
           .isEqualTo(200);
     }
     // 2. shuffled, in batches of 37
-    List<String> shuffled = new ArrayList<>(feedwaterReadings(points.get(1), start, steps, 600));
+    List<String> shuffled =
+        new ArrayList<>(feedwaterReadings(points.get(1), start, steps, stepSeconds));
     Collections.shuffle(shuffled, new Random(7));
     for (int i = 0; i < shuffled.size(); i += 37) {
       assertThat(post(shuffled.subList(i, Math.min(i + 37, shuffled.size()))).statusCode())
           .isEqualTo(200);
     }
     // 3. reversed and every batch sent twice, plus duplicates inside batches
-    List<String> reversed = new ArrayList<>(feedwaterReadings(points.get(2), start, steps, 600));
+    List<String> reversed =
+        new ArrayList<>(feedwaterReadings(points.get(2), start, steps, stepSeconds));
     Collections.reverse(reversed);
     for (int i = 0; i < reversed.size(); i += 50) {
       List<String> part = new ArrayList<>(reversed.subList(i, Math.min(i + 50, reversed.size())));
