@@ -89,11 +89,13 @@ def main():
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',
                                      interval '10 s') t""")
-        psql(args.db, "ANALYZE reading; ANALYZE evaluation")
+        psql(args.db, "VACUUM ANALYZE reading")
+        psql(args.db, "VACUUM ANALYZE evaluation")
         rows = args.days * args.points * 8640
         print(f"filled {rows * len(PARAMS):,} readings and {rows:,} evaluations in {time.monotonic() - t0:.0f} s"
               f" (plant tag {tag})")
 
+    conn = http.client.HTTPConnection(u.hostname, u.port or 80, timeout=60)  # the fill outlasts keep-alive
     rnd = random.Random(1)
     latencies = []
     errors = 0
