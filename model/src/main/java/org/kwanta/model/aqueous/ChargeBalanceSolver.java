@@ -18,7 +18,8 @@ import org.kwanta.model.water.WaterState;
  * steps safeguarded by bisection (W. H. Press et al., <i>Numerical Recipes</i>, 3rd ed. 2007, §9.4
  * "rtsafe"): a Newton step that would leave the bracket or shrink it too slowly is replaced by a
  * bisection, so convergence is guaranteed like bisection and quadratic near the root. I is then
- * recomputed from the species and the solve repeated until |ΔI| &lt; 1e-12 mol/kg.
+ * recomputed from the species and the solve repeated until |ΔI| &lt; 1e-12 mol/kg and the change in
+ * every log10 γ it implies is below 1e-13.
  *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
@@ -29,6 +30,14 @@ final class ChargeBalanceSolver {
 
   /** Stop the outer iteration when |ΔI| is below this, mol/kg. */
   static final double IONIC_STRENGTH_TOLERANCE = 1e-12;
+
+  /**
+   * Stop the outer iteration only when the last change in I also moves every log10 γ (|z| ≤ 3) by
+   * less than this. At low ionic strength the absolute I tolerance alone leaves up to 1e-8 in log10
+   * γ (class comment); this bound makes the root independent of where the iteration started, to
+   * well below 1e-10 in pH.
+   */
+  static final double LOG_GAMMA_TOLERANCE = 1e-13;
 
   /** Tolerance on x = log10 a(H⁺) for the inner root find. */
   static final double LOG_ACTIVITY_TOLERANCE = 1e-14;
@@ -41,6 +50,9 @@ final class ChargeBalanceSolver {
    * (under 40 log units) to 1e-14 takes 52 steps, so the cap is never reached.
    */
   static final int MAX_INNER_ITERATIONS = 300;
+
+  /** Half-width of the first bracket around a warm start, in log10 a(H⁺). */
+  static final double WARM_START_HALF_WIDTH = 0.05;
 
   private static final double LN10 = Math.log(10);
 
@@ -132,24 +144,75 @@ final class ChargeBalanceSolver {
   record Solution(double log10ActivityH, double ionicStrength, double[] gamma, int iterations) {}
 
   Solution solve() {
-    double ionicStrength = 0;
-    double x = Double.NaN;
+    return solve(Double.NaN, 0);
+  }
+
+  /**
+   * Solves from a starting point, typically the solution of a nearby composition at the same water
+   * state. The start only sets where the search begins: the first bracket around it is verified
+   * (and widened when it holds no sign change) and the ionic-strength iteration runs to the same
+   * tolerance, so any start gives the same root within the solver tolerances.
+   *
+   * @param startLog10ActivityH starting x = log10 a(H⁺), or NaN for the cold bracket of the class
+   *     comment
+   * @param startIonicStrength starting I, mol/kg (0 for a cold start)
+   */
+  Solution solve(double startLog10ActivityH, double startIonicStrength) {
+    double ionicStrength =
+        Double.isFinite(startIonicStrength) && startIonicStrength > 0 ? startIonicStrength : 0;
+    double x = Double.isFinite(startLog10ActivityH) ? startLog10ActivityH : Double.NaN;
+    double previousIonicStrength = Double.NaN;
+    double previousResidual = Double.NaN;
     for (int iteration = 1; iteration <= MAX_OUTER_ITERATIONS; iteration++) {
       double shift = setActivityCoefficients(ionicStrength);
+      if (iteration == 1 && !Double.isNaN(x)) {
+        // Warm start: the root lies within a few hundredths of a nearby solution's; the bracket
+        // is verified and widened below when it does not.
+        shift = WARM_START_HALF_WIDTH / 4;
+      }
       // The root moves by about the change in log10 γ between outer iterations; the warm
       // bracket is a few times that, and is widened whenever it holds no sign change.
       x = solveForLogActivity(x, 4 * shift + 1e-12);
       double updated = ionicStrengthAt(x);
-      double change = Math.abs(updated - ionicStrength);
-      ionicStrength = updated;
-      if (change < IONIC_STRENGTH_TOLERANCE) {
-        return new Solution(x, ionicStrength, gamma.clone(), iteration);
+      double residual = updated - ionicStrength;
+      if (Math.abs(residual) < IONIC_STRENGTH_TOLERANCE
+          && activityShiftAt(updated) < LOG_GAMMA_TOLERANCE) {
+        return new Solution(x, updated, gamma.clone(), iteration);
       }
+      // Secant step on h(I) = I(species at I) − I from the last two iterates; the plain
+      // fixed-point step I ← I(species) whenever the secant is undefined or lands outside a
+      // factor of two of it.
+      double next = updated;
+      if (!Double.isNaN(previousResidual) && residual != previousResidual) {
+        double secant =
+            ionicStrength
+                - residual
+                    * (ionicStrength - previousIonicStrength)
+                    / (residual - previousResidual);
+        if (secant > 0.5 * updated && secant < 2 * updated) {
+          next = secant;
+        }
+      }
+      previousIonicStrength = ionicStrength;
+      previousResidual = residual;
+      ionicStrength = next;
     }
     throw new NoConvergenceException(
         "ionic-strength iteration of the speciation",
         MAX_OUTER_ITERATIONS,
         Math.abs(ionicStrengthAt(x) - ionicStrength));
+  }
+
+  /** The largest change in log10 γ that moving to an ionic strength would make. */
+  private double activityShiftAt(double ionicStrength) {
+    double a = water.debyeHuckelA();
+    double b = water.debyeHuckelB();
+    double shift = 0;
+    for (int z = 1; z <= 3; z++) {
+      double lg = activityModel.log10Gamma(z, ionicStrength, a, b, temperatureK);
+      shift = Math.max(shift, Math.abs(lg - logGamma[z]));
+    }
+    return shift;
   }
 
   /** Sets γ at an ionic strength; returns the largest change in log10 γ. */
