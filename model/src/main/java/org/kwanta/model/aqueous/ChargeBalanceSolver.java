@@ -18,8 +18,8 @@ import org.kwanta.model.water.WaterState;
  * steps safeguarded by bisection (W. H. Press et al., <i>Numerical Recipes</i>, 3rd ed. 2007, §9.4
  * "rtsafe"): a Newton step that would leave the bracket or shrink it too slowly is replaced by a
  * bisection, so convergence is guaranteed like bisection and quadratic near the root. I is then
- * recomputed from the species and the solve repeated until |ΔI| &lt; 1e-12 mol/kg and the change in
- * every log10 γ it implies is below 1e-13.
+ * recomputed from the species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12
+ * mol/kg and the change in every log10 γ it implies is below 1e-11.
  *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
@@ -37,7 +37,7 @@ final class ChargeBalanceSolver {
    * γ (class comment); this bound makes the root independent of where the iteration started, to
    * well below 1e-10 in pH.
    */
-  static final double LOG_GAMMA_TOLERANCE = 1e-13;
+  static final double LOG_GAMMA_TOLERANCE = 1e-11;
 
   /** Tolerance on x = log10 a(H⁺) for the inner root find. */
   static final double LOG_ACTIVITY_TOLERANCE = 1e-14;
@@ -104,7 +104,7 @@ final class ChargeBalanceSolver {
 
   ChargeBalanceSolver(
       Map<Component, Double> composition,
-      double[] log10KaByEquilibrium,
+      double[] kaByEquilibrium,
       WaterState water,
       ActivityModel activityModel) {
     this.water = water;
@@ -129,7 +129,7 @@ final class ChargeBalanceSolver {
       ka[k] = new double[steps.length];
       conditional[k] = new double[steps.length];
       for (int i = 0; i < steps.length; i++) {
-        ka[k][i] = Math.exp(LN10 * log10KaByEquilibrium[steps[i]]);
+        ka[k][i] = kaByEquilibrium[steps[i]];
       }
       // Chains run from the highest charge (first) to the lowest (last).
       cations += totals[k] * Math.max(charges[k][0], 0);
@@ -308,55 +308,103 @@ final class ChargeBalanceSolver {
   private double solveForLogActivity(double previous, double halfWidth) {
     double lo;
     double hi;
+    double fLo;
+    double fHi;
     if (Double.isNaN(previous)) {
       // At the root m(H⁺) ≤ m(OH⁻) + anion capacity and m(OH⁻) ≤ m(H⁺) + cation capacity;
       // 2·√Kw covers the water contribution and ±1 the activity coefficients.
       double root = 2 * Math.sqrt(kw);
       hi = Math.log10(anionCapacity + root) + 1;
       lo = -water.pKw() - Math.log10(cationCapacity + root) - 1;
+      fLo = evaluate(lo);
+      fHi = Double.NaN;
       previous = Math.max(lo, Math.min(hi, -water.pKw() / 2));
     } else {
-      lo = previous - halfWidth;
-      hi = previous + halfWidth;
-    }
-    double fLo = evaluate(lo);
-    int widen = 0;
-    while (!(fLo < 0)) {
+      // Warm: the previous root is one end of the bracket (its sign says which), the other end
+      // lies halfWidth away and is verified below like any other.
+      double f = evaluate(previous);
+      if (f == 0) {
+        return previous;
+      }
+      double df = derivative;
+      if (f < 0) {
+        lo = previous;
+        fLo = f;
+        hi = previous + halfWidth;
+        fHi = widenHigh(lo, hi);
+        hi = widenedEnd;
+      } else {
+        hi = previous;
+        fHi = f;
+        lo = previous - halfWidth;
+        fLo = widenLow(lo, hi);
+        lo = widenedEnd;
+      }
       if (fLo == 0) {
         return lo;
       }
+      if (fHi == 0) {
+        return hi;
+      }
+      return safeguardedNewton(lo, hi, previous, f, df);
+    }
+    fLo = widenLow(lo, hi);
+    lo = widenedEnd;
+    if (fLo == 0) {
+      return lo;
+    }
+    fHi = widenHigh(lo, hi);
+    hi = widenedEnd;
+    if (fHi == 0) {
+      return hi;
+    }
+    double x = previous > lo && previous < hi ? previous : 0.5 * (lo + hi);
+    double f = evaluate(x);
+    return safeguardedNewton(lo, hi, x, f, derivative);
+  }
+
+  /** The end reached by the last {@link #widenLow} or {@link #widenHigh}. */
+  private double widenedEnd;
+
+  /** Moves lo down until f(lo) ≤ 0; returns f there and leaves the end in {@link #widenedEnd}. */
+  private double widenLow(double lo, double hi) {
+    double fLo = evaluate(lo);
+    int widen = 0;
+    while (!(fLo <= 0)) {
       lo -= Math.max(hi - lo, 0.01) * 4;
       fLo = evaluate(lo);
       if (++widen > 40) {
         throw new NoConvergenceException("charge-balance bracket (low side)", widen, fLo);
       }
     }
+    widenedEnd = lo;
+    return fLo;
+  }
+
+  /** Moves hi up until f(hi) ≥ 0; returns f there and leaves the end in {@link #widenedEnd}. */
+  private double widenHigh(double lo, double hi) {
     double fHi = evaluate(hi);
-    widen = 0;
-    while (!(fHi > 0)) {
-      if (fHi == 0) {
-        return hi;
-      }
+    int widen = 0;
+    while (!(fHi >= 0)) {
       hi += Math.max(hi - lo, 0.01) * 4;
       fHi = evaluate(hi);
       if (++widen > 40) {
         throw new NoConvergenceException("charge-balance bracket (high side)", widen, fHi);
       }
     }
-    return safeguardedNewton(lo, hi, previous);
+    widenedEnd = hi;
+    return fHi;
   }
 
   /**
    * Root of the increasing function {@link #evaluate} in [lo, hi] with f(lo) &lt; 0 &lt; f(hi),
-   * starting from {@code start}: Newton steps, replaced by bisection whenever the Newton step would
-   * leave the bracket or fail to halve the step before last (Press et al., rtsafe).
+   * starting from x in [lo, hi] with f = f(x) and df = f'(x): Newton steps, replaced by bisection
+   * whenever the Newton step would leave the bracket or fail to halve the step before last (Press
+   * et al., rtsafe).
    */
-  private double safeguardedNewton(double lo, double hi, double start) {
-    double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
+  private double safeguardedNewton(double lo, double hi, double x, double f, double df) {
     double stepBeforeLast = hi - lo;
     double step = stepBeforeLast;
-    double f = evaluate(x);
-    double df = derivative;
     for (int i = 0; i < MAX_INNER_ITERATIONS; i++) {
       if (f == 0) {
         return x;

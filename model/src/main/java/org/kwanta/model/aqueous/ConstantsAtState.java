@@ -22,23 +22,28 @@ final class ConstantsAtState {
   /** Most entries kept (a few hundred bytes each). */
   static final int CACHE_LIMIT = 4096;
 
-  private static final Map<Key, ConstantsAtState> CACHE = new ConcurrentHashMap<>();
+  private static final double LN10 = Math.log(10);
 
-  /** log10 Ka by {@link Equilibrium#ordinal()}; 0 for equilibria of absent components. */
-  private final double[] log10Ka;
+  private static final Map<Key, ConstantsAtState> CACHE = new ConcurrentHashMap<>();
 
   final List<ConstantUsed> used;
   final boolean extrapolated;
 
+  /** Ka = 10^log10 Ka by {@link Equilibrium#ordinal()}. */
+  private final double[] ka;
+
   private ConstantsAtState(double[] log10Ka, List<ConstantUsed> used, boolean extrapolated) {
-    this.log10Ka = log10Ka;
+    this.ka = new double[log10Ka.length];
+    for (int i = 0; i < ka.length; i++) {
+      ka[i] = Math.exp(LN10 * log10Ka[i]);
+    }
     this.used = used;
     this.extrapolated = extrapolated;
   }
 
-  /** log10 Ka by equilibrium ordinal; callers must not modify it. */
-  double[] log10KaByEquilibrium() {
-    return log10Ka;
+  /** Ka by equilibrium ordinal (1 for equilibria of absent components); do not modify. */
+  double[] kaByEquilibrium() {
+    return ka;
   }
 
   static ConstantsAtState of(

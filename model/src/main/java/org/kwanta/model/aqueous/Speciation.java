@@ -122,7 +122,7 @@ public final class Speciation {
         ConstantsAtState.of(options.constants(), t, water.pKw(), composition.totals().keySet());
     ChargeBalanceSolver.Solution s =
         new ChargeBalanceSolver(
-                composition.totals(), k.log10KaByEquilibrium(), water, options.activityModel())
+                composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
             .solve(startX, startI);
     return new PhSolution(-s.log10ActivityH(), s.ionicStrength());
   }
@@ -163,7 +163,7 @@ public final class Speciation {
 
     ChargeBalanceSolver solver =
         new ChargeBalanceSolver(
-            composition.totals(), k.log10KaByEquilibrium(), water, options.activityModel());
+            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
     ChargeBalanceSolver.Solution s = solver.solve(startX, startI);
     double residual =
         Math.abs(solver.chargeBalance(s.log10ActivityH())) / solver.chargeScale(s.log10ActivityH());
