@@ -218,7 +218,9 @@ public final class Speciation {
    * evaluated once.
    */
   public static PhBand band(Composition composition, WaterState water, SpeciationOptions options) {
-    double t = TEMPERATURE_RANGE.check(water.temperatureK());
+    double t = checkInputs(composition, water, options);
+    double startX = Double.NaN;
+    double startI = 0;
     List<List<Fit>> seen = new ArrayList<>();
     List<PhBand.Member> members = new ArrayList<>();
     double min = Double.POSITIVE_INFINITY;
@@ -236,14 +238,25 @@ public final class Speciation {
         continue;
       }
       seen.add(selection);
-      SpeciationResult r = solve(composition, water, options.withConstants(set));
-      members.add(new PhBand.Member(set.name(), r.ph(), r.anyExtrapolated()));
-      if (r.ph() < min) {
-        min = r.ph();
+      // pH only, each set started from the first (default) set's solution: the same root as a
+      // full solve within the solver tolerances.
+      ConstantsAtState k = ConstantsAtState.of(set, t, water.pKw(), composition.totals().keySet());
+      ChargeBalanceSolver.Solution s =
+          new ChargeBalanceSolver(
+                  composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+              .solve(startX, startI);
+      if (Double.isNaN(startX)) {
+        startX = s.log10ActivityH();
+        startI = s.ionicStrength();
+      }
+      double ph = -s.log10ActivityH();
+      members.add(new PhBand.Member(set.name(), ph, k.extrapolated));
+      if (ph < min) {
+        min = ph;
         minSet = set.name();
       }
-      if (r.ph() > max) {
-        max = r.ph();
+      if (ph > max) {
+        max = ph;
         maxSet = set.name();
       }
     }

@@ -105,4 +105,24 @@ class WarmStartTest {
         .as("%s at %s K from %s", c, t, far)
         .isCloseTo(Speciation.solve(c, w).ph(), within(PH_AGREEMENT));
   }
+
+  @ParameterizedTest(name = "seed {0}")
+  @MethodSource("seeds")
+  void bandMembersAgreeWithFullSolvesOfTheirSets(long seed) {
+    Random rnd = new Random(seed);
+    double t = 273.15 + 350 * rnd.nextDouble();
+    WaterState w = Water.atSaturation(t, IonizationFormulation.R11_07);
+    Composition c = randomComposition(rnd);
+    SpeciationOptions options = SpeciationOptions.defaults();
+    PhBand band = Speciation.band(c, w, options);
+    assertThat(band.members()).isNotEmpty();
+    for (PhBand.Member m : band.members()) {
+      SpeciationResult full =
+          Speciation.solve(c, w, options.withConstants(ConstantSets.byName(m.constantSet())));
+      assertThat(m.ph())
+          .as("%s, %s at %s K", m.constantSet(), c, t)
+          .isCloseTo(full.ph(), within(PH_AGREEMENT));
+      assertThat(m.extrapolated()).isEqualTo(full.anyExtrapolated());
+    }
+  }
 }
