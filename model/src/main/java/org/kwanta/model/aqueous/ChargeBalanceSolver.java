@@ -18,7 +18,8 @@ import org.kwanta.model.water.WaterState;
  * steps safeguarded by bisection (W. H. Press et al., <i>Numerical Recipes</i>, 3rd ed. 2007, §9.4
  * "rtsafe"): a Newton step that would leave the bracket or shrink it too slowly is replaced by a
  * bisection, so convergence is guaranteed like bisection and quadratic near the root. I is then
- * recomputed from the species and the solve repeated until |ΔI| &lt; 1e-12 mol/kg.
+ * recomputed from the species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12
+ * mol/kg and the change in every log10 γ it implies is below 1e-11.
  *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
@@ -29,6 +30,14 @@ final class ChargeBalanceSolver {
 
   /** Stop the outer iteration when |ΔI| is below this, mol/kg. */
   static final double IONIC_STRENGTH_TOLERANCE = 1e-12;
+
+  /**
+   * Stop the outer iteration only when the last change in I also moves every log10 γ (|z| ≤ 3) by
+   * less than this. At low ionic strength the absolute I tolerance alone leaves up to 1e-8 in log10
+   * γ (class comment); this bound makes the root independent of where the iteration started, to
+   * well below 1e-10 in pH.
+   */
+  static final double LOG_GAMMA_TOLERANCE = 1e-11;
 
   /** Tolerance on x = log10 a(H⁺) for the inner root find. */
   static final double LOG_ACTIVITY_TOLERANCE = 1e-14;
@@ -41,6 +50,9 @@ final class ChargeBalanceSolver {
    * (under 40 log units) to 1e-14 takes 52 steps, so the cap is never reached.
    */
   static final int MAX_INNER_ITERATIONS = 300;
+
+  /** Half-width of the first bracket around a warm start, in log10 a(H⁺). */
+  static final double WARM_START_HALF_WIDTH = 0.05;
 
   private static final double LN10 = Math.log(10);
 
@@ -92,7 +104,7 @@ final class ChargeBalanceSolver {
 
   ChargeBalanceSolver(
       Map<Component, Double> composition,
-      double[] log10KaByEquilibrium,
+      double[] kaByEquilibrium,
       WaterState water,
       ActivityModel activityModel) {
     this.water = water;
@@ -117,7 +129,7 @@ final class ChargeBalanceSolver {
       ka[k] = new double[steps.length];
       conditional[k] = new double[steps.length];
       for (int i = 0; i < steps.length; i++) {
-        ka[k][i] = Math.exp(LN10 * log10KaByEquilibrium[steps[i]]);
+        ka[k][i] = kaByEquilibrium[steps[i]];
       }
       // Chains run from the highest charge (first) to the lowest (last).
       cations += totals[k] * Math.max(charges[k][0], 0);
@@ -132,24 +144,75 @@ final class ChargeBalanceSolver {
   record Solution(double log10ActivityH, double ionicStrength, double[] gamma, int iterations) {}
 
   Solution solve() {
-    double ionicStrength = 0;
-    double x = Double.NaN;
+    return solve(Double.NaN, 0);
+  }
+
+  /**
+   * Solves from a starting point, typically the solution of a nearby composition at the same water
+   * state. The start only sets where the search begins: the first bracket around it is verified
+   * (and widened when it holds no sign change) and the ionic-strength iteration runs to the same
+   * tolerance, so any start gives the same root within the solver tolerances.
+   *
+   * @param startLog10ActivityH starting x = log10 a(H⁺), or NaN for the cold bracket of the class
+   *     comment
+   * @param startIonicStrength starting I, mol/kg (0 for a cold start)
+   */
+  Solution solve(double startLog10ActivityH, double startIonicStrength) {
+    double ionicStrength =
+        Double.isFinite(startIonicStrength) && startIonicStrength > 0 ? startIonicStrength : 0;
+    double x = Double.isFinite(startLog10ActivityH) ? startLog10ActivityH : Double.NaN;
+    double previousIonicStrength = Double.NaN;
+    double previousResidual = Double.NaN;
     for (int iteration = 1; iteration <= MAX_OUTER_ITERATIONS; iteration++) {
       double shift = setActivityCoefficients(ionicStrength);
+      if (iteration == 1 && !Double.isNaN(x)) {
+        // Warm start: the root lies within a few hundredths of a nearby solution's; the bracket
+        // is verified and widened below when it does not.
+        shift = WARM_START_HALF_WIDTH / 4;
+      }
       // The root moves by about the change in log10 γ between outer iterations; the warm
       // bracket is a few times that, and is widened whenever it holds no sign change.
       x = solveForLogActivity(x, 4 * shift + 1e-12);
       double updated = ionicStrengthAt(x);
-      double change = Math.abs(updated - ionicStrength);
-      ionicStrength = updated;
-      if (change < IONIC_STRENGTH_TOLERANCE) {
-        return new Solution(x, ionicStrength, gamma.clone(), iteration);
+      double residual = updated - ionicStrength;
+      if (Math.abs(residual) < IONIC_STRENGTH_TOLERANCE
+          && activityShiftAt(updated) < LOG_GAMMA_TOLERANCE) {
+        return new Solution(x, updated, gamma.clone(), iteration);
       }
+      // Secant step on h(I) = I(species at I) − I from the last two iterates; the plain
+      // fixed-point step I ← I(species) whenever the secant is undefined or lands outside a
+      // factor of two of it.
+      double next = updated;
+      if (!Double.isNaN(previousResidual) && residual != previousResidual) {
+        double secant =
+            ionicStrength
+                - residual
+                    * (ionicStrength - previousIonicStrength)
+                    / (residual - previousResidual);
+        if (secant > 0.5 * updated && secant < 2 * updated) {
+          next = secant;
+        }
+      }
+      previousIonicStrength = ionicStrength;
+      previousResidual = residual;
+      ionicStrength = next;
     }
     throw new NoConvergenceException(
         "ionic-strength iteration of the speciation",
         MAX_OUTER_ITERATIONS,
         Math.abs(ionicStrengthAt(x) - ionicStrength));
+  }
+
+  /** The largest change in log10 γ that moving to an ionic strength would make. */
+  private double activityShiftAt(double ionicStrength) {
+    double a = water.debyeHuckelA();
+    double b = water.debyeHuckelB();
+    double shift = 0;
+    for (int z = 1; z <= 3; z++) {
+      double lg = activityModel.log10Gamma(z, ionicStrength, a, b, temperatureK);
+      shift = Math.max(shift, Math.abs(lg - logGamma[z]));
+    }
+    return shift;
   }
 
   /** Sets γ at an ionic strength; returns the largest change in log10 γ. */
@@ -245,55 +308,103 @@ final class ChargeBalanceSolver {
   private double solveForLogActivity(double previous, double halfWidth) {
     double lo;
     double hi;
+    double fLo;
+    double fHi;
     if (Double.isNaN(previous)) {
       // At the root m(H⁺) ≤ m(OH⁻) + anion capacity and m(OH⁻) ≤ m(H⁺) + cation capacity;
       // 2·√Kw covers the water contribution and ±1 the activity coefficients.
       double root = 2 * Math.sqrt(kw);
       hi = Math.log10(anionCapacity + root) + 1;
       lo = -water.pKw() - Math.log10(cationCapacity + root) - 1;
+      fLo = evaluate(lo);
+      fHi = Double.NaN;
       previous = Math.max(lo, Math.min(hi, -water.pKw() / 2));
     } else {
-      lo = previous - halfWidth;
-      hi = previous + halfWidth;
-    }
-    double fLo = evaluate(lo);
-    int widen = 0;
-    while (!(fLo < 0)) {
+      // Warm: the previous root is one end of the bracket (its sign says which), the other end
+      // lies halfWidth away and is verified below like any other.
+      double f = evaluate(previous);
+      if (f == 0) {
+        return previous;
+      }
+      double df = derivative;
+      if (f < 0) {
+        lo = previous;
+        fLo = f;
+        hi = previous + halfWidth;
+        fHi = widenHigh(lo, hi);
+        hi = widenedEnd;
+      } else {
+        hi = previous;
+        fHi = f;
+        lo = previous - halfWidth;
+        fLo = widenLow(lo, hi);
+        lo = widenedEnd;
+      }
       if (fLo == 0) {
         return lo;
       }
+      if (fHi == 0) {
+        return hi;
+      }
+      return safeguardedNewton(lo, hi, previous, f, df);
+    }
+    fLo = widenLow(lo, hi);
+    lo = widenedEnd;
+    if (fLo == 0) {
+      return lo;
+    }
+    fHi = widenHigh(lo, hi);
+    hi = widenedEnd;
+    if (fHi == 0) {
+      return hi;
+    }
+    double x = previous > lo && previous < hi ? previous : 0.5 * (lo + hi);
+    double f = evaluate(x);
+    return safeguardedNewton(lo, hi, x, f, derivative);
+  }
+
+  /** The end reached by the last {@link #widenLow} or {@link #widenHigh}. */
+  private double widenedEnd;
+
+  /** Moves lo down until f(lo) ≤ 0; returns f there and leaves the end in {@link #widenedEnd}. */
+  private double widenLow(double lo, double hi) {
+    double fLo = evaluate(lo);
+    int widen = 0;
+    while (!(fLo <= 0)) {
       lo -= Math.max(hi - lo, 0.01) * 4;
       fLo = evaluate(lo);
       if (++widen > 40) {
         throw new NoConvergenceException("charge-balance bracket (low side)", widen, fLo);
       }
     }
+    widenedEnd = lo;
+    return fLo;
+  }
+
+  /** Moves hi up until f(hi) ≥ 0; returns f there and leaves the end in {@link #widenedEnd}. */
+  private double widenHigh(double lo, double hi) {
     double fHi = evaluate(hi);
-    widen = 0;
-    while (!(fHi > 0)) {
-      if (fHi == 0) {
-        return hi;
-      }
+    int widen = 0;
+    while (!(fHi >= 0)) {
       hi += Math.max(hi - lo, 0.01) * 4;
       fHi = evaluate(hi);
       if (++widen > 40) {
         throw new NoConvergenceException("charge-balance bracket (high side)", widen, fHi);
       }
     }
-    return safeguardedNewton(lo, hi, previous);
+    widenedEnd = hi;
+    return fHi;
   }
 
   /**
    * Root of the increasing function {@link #evaluate} in [lo, hi] with f(lo) &lt; 0 &lt; f(hi),
-   * starting from {@code start}: Newton steps, replaced by bisection whenever the Newton step would
-   * leave the bracket or fail to halve the step before last (Press et al., rtsafe).
+   * starting from x in [lo, hi] with f = f(x) and df = f'(x): Newton steps, replaced by bisection
+   * whenever the Newton step would leave the bracket or fail to halve the step before last (Press
+   * et al., rtsafe).
    */
-  private double safeguardedNewton(double lo, double hi, double start) {
-    double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
+  private double safeguardedNewton(double lo, double hi, double x, double f, double df) {
     double stepBeforeLast = hi - lo;
     double step = stepBeforeLast;
-    double f = evaluate(x);
-    double df = derivative;
     for (int i = 0; i < MAX_INNER_ITERATIONS; i++) {
       if (f == 0) {
         return x;

@@ -65,6 +65,70 @@ public final class Speciation {
    */
   public static SpeciationResult solve(
       Composition composition, WaterState water, SpeciationOptions options) {
+    return solveFrom(composition, water, options, Double.NaN, 0);
+  }
+
+  /**
+   * {@link #solve(Composition, WaterState, SpeciationOptions)} started from the pH and ionic
+   * strength of a nearby solution, typically the same sample with slightly different totals at the
+   * same water state. The start only sets where the search begins (the bracket is verified and the
+   * ionic-strength iteration runs to the same tolerance), so the result agrees with the plain solve
+   * within the solver tolerances; only {@link SpeciationResult#ionicStrengthIterations()} may
+   * differ.
+   *
+   * @param near a result to start from (any water state; a distant one only costs iterations)
+   * @throws org.kwanta.model.OutOfValidityRangeException as the plain solve
+   * @throws IllegalArgumentException as the plain solve
+   */
+  public static SpeciationResult solve(
+      Composition composition, WaterState water, SpeciationOptions options, SpeciationResult near) {
+    Objects.requireNonNull(near, "near");
+    return solveFrom(composition, water, options, -near.ph(), near.ionicStrengthMolPerKg());
+  }
+
+  /**
+   * pH at temperature and ionic strength only: the same validation, constants and solver as {@link
+   * #solve(Composition, WaterState, SpeciationOptions)}, without building the species list,
+   * constants list and notices. For callers that need the pH of many compositions (e.g. a pH band
+   * from perturbed totals); check the full result when the extrapolation notices matter.
+   *
+   * @throws org.kwanta.model.OutOfValidityRangeException as the plain solve
+   * @throws IllegalArgumentException as the plain solve
+   */
+  public static PhSolution ph(
+      Composition composition, WaterState water, SpeciationOptions options) {
+    return phFrom(composition, water, options, Double.NaN, 0);
+  }
+
+  /**
+   * {@link #ph(Composition, WaterState, SpeciationOptions)} started from a nearby solution (see
+   * {@link #solve(Composition, WaterState, SpeciationOptions, SpeciationResult)}); agrees with the
+   * plain solve within the solver tolerances.
+   */
+  public static PhSolution ph(
+      Composition composition, WaterState water, SpeciationOptions options, PhSolution near) {
+    Objects.requireNonNull(near, "near");
+    return phFrom(composition, water, options, -near.ph(), near.ionicStrengthMolPerKg());
+  }
+
+  private static PhSolution phFrom(
+      Composition composition,
+      WaterState water,
+      SpeciationOptions options,
+      double startX,
+      double startI) {
+    double t = checkInputs(composition, water, options);
+    ConstantsAtState k =
+        ConstantsAtState.of(options.constants(), t, water.pKw(), composition.totals().keySet());
+    ChargeBalanceSolver.Solution s =
+        new ChargeBalanceSolver(
+                composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+            .solve(startX, startI);
+    return new PhSolution(-s.log10ActivityH(), s.ionicStrength());
+  }
+
+  private static double checkInputs(
+      Composition composition, WaterState water, SpeciationOptions options) {
     Objects.requireNonNull(composition, "composition");
     Objects.requireNonNull(water, "water");
     Objects.requireNonNull(options, "options");
@@ -81,27 +145,26 @@ public final class Speciation {
               + " temperature) with SampleOrigin.CONDENSED_STEAM");
     }
     options.activityModel().checkTemperature(t);
+    return t;
+  }
 
+  private static SpeciationResult solveFrom(
+      Composition composition,
+      WaterState water,
+      SpeciationOptions options,
+      double startX,
+      double startI) {
+    double t = checkInputs(composition, water, options);
     double pKw = water.pKw();
-    double[] log10Ka = new double[Equilibrium.values().length];
-    List<ConstantUsed> used = new ArrayList<>();
-    boolean extrapolated = false;
-    for (Component c : composition.totals().keySet()) {
-      for (Equilibrium e : c.equilibria()) {
-        Fit fit = options.constants().fitAt(e, t);
-        double logK = fit.log10K(t, pKw);
-        boolean outside = fit.isExtrapolatedAt(t);
-        extrapolated |= outside;
-        log10Ka[e.ordinal()] = logK;
-        used.add(new ConstantUsed(e, logK, fit.id(), fit.reference(), fit.validity(), outside));
-      }
-    }
-    // Components iterate in enum order and their equilibria in chain order, which is the order
-    // of Equilibrium: the list is already sorted.
+    ConstantsAtState k =
+        ConstantsAtState.of(options.constants(), t, pKw, composition.totals().keySet());
+    List<ConstantUsed> used = k.used;
+    boolean extrapolated = k.extrapolated;
 
     ChargeBalanceSolver solver =
-        new ChargeBalanceSolver(composition.totals(), log10Ka, water, options.activityModel());
-    ChargeBalanceSolver.Solution s = solver.solve();
+        new ChargeBalanceSolver(
+            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
+    ChargeBalanceSolver.Solution s = solver.solve(startX, startI);
     double residual =
         Math.abs(solver.chargeBalance(s.log10ActivityH())) / solver.chargeScale(s.log10ActivityH());
 
@@ -155,7 +218,9 @@ public final class Speciation {
    * evaluated once.
    */
   public static PhBand band(Composition composition, WaterState water, SpeciationOptions options) {
-    double t = TEMPERATURE_RANGE.check(water.temperatureK());
+    double t = checkInputs(composition, water, options);
+    double startX = Double.NaN;
+    double startI = 0;
     List<List<Fit>> seen = new ArrayList<>();
     List<PhBand.Member> members = new ArrayList<>();
     double min = Double.POSITIVE_INFINITY;
@@ -173,14 +238,25 @@ public final class Speciation {
         continue;
       }
       seen.add(selection);
-      SpeciationResult r = solve(composition, water, options.withConstants(set));
-      members.add(new PhBand.Member(set.name(), r.ph(), r.anyExtrapolated()));
-      if (r.ph() < min) {
-        min = r.ph();
+      // pH only, each set started from the first (default) set's solution: the same root as a
+      // full solve within the solver tolerances.
+      ConstantsAtState k = ConstantsAtState.of(set, t, water.pKw(), composition.totals().keySet());
+      ChargeBalanceSolver.Solution s =
+          new ChargeBalanceSolver(
+                  composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+              .solve(startX, startI);
+      if (Double.isNaN(startX)) {
+        startX = s.log10ActivityH();
+        startI = s.ionicStrength();
+      }
+      double ph = -s.log10ActivityH();
+      members.add(new PhBand.Member(set.name(), ph, k.extrapolated));
+      if (ph < min) {
+        min = ph;
         minSet = set.name();
       }
-      if (r.ph() > max) {
-        max = r.ph();
+      if (ph > max) {
+        max = ph;
         maxSet = set.name();
       }
     }

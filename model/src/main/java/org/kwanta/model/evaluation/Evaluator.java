@@ -8,7 +8,9 @@ import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.Composition;
+import org.kwanta.model.aqueous.PhSolution;
 import org.kwanta.model.aqueous.Speciation;
+import org.kwanta.model.aqueous.SpeciationOptions;
 import org.kwanta.model.conductivity.Alkalizer;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Conductivity;
@@ -329,10 +331,14 @@ public final class Evaluator {
   private static OperatingPh operatingPh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
     WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
-    double ph = Speciation.solve(toComposition(central, config.alkalizer()), w).ph();
+    SpeciationOptions options = SpeciationOptions.defaults();
+    PhSolution centralPh = Speciation.ph(toComposition(central, config.alkalizer()), w, options);
+    double ph = centralPh.ph();
     double var = 0;
     for (Solutes s : perturbed) {
-      double d = Speciation.solve(toComposition(s, config.alkalizer()), w).ph() - ph;
+      // The perturbed totals are near the central ones: start from the central solution.
+      double d =
+          Speciation.ph(toComposition(s, config.alkalizer()), w, options, centralPh).ph() - ph;
       var += d * d;
     }
     double sd = Math.sqrt(var);
