@@ -32,6 +32,10 @@ class EmbeddedDatabaseConfiguration {
     return EmbeddedPostgres.builder()
         .setDataDirectory(dataDirectory)
         .setCleanDataDirectory(false)
+        // Stopped by this bean's close(), after the web server has finished in-flight requests and
+        // the pool
+        // is closed; a JVM shutdown hook of its own would stop it while requests are still running.
+        .setRegisterShutdownHook(false)
         .setPort(properties.port())
         .setServerConfig("max_connections", "100")
         .start();

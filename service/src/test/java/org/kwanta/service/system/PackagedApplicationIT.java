@@ -108,6 +108,105 @@ class PackagedApplicationIT {
     }
   }
 
+  /**
+   * SIGTERM while historians are pushing: batches already being processed complete and are stored
+   * whole, new ones are refused, and what was acknowledged is exactly what is stored (checked after
+   * a restart).
+   */
+  @Test
+  void gracefulShutdownUnderLoadKeepsEveryAcknowledgedBatchWhole(@TempDir Path dataDir)
+      throws Exception {
+    int port = freePort();
+    Map<String, String> env = Map.of("KWANTA_ADMIN_KEY", org.kwanta.service.support.TestKeys.ADMIN);
+    List<String> args =
+        List.of("--kwanta.embedded-database.data-directory=" + dataDir.resolve("pg"));
+    Process app = start(port, env, args);
+    Instant base =
+        Instant.now().truncatedTo(java.time.temporal.ChronoUnit.DAYS).minusSeconds(86_400);
+    int perBatch = 500;
+    java.util.concurrent.atomic.AtomicInteger acknowledged =
+        new java.util.concurrent.atomic.AtomicInteger();
+    java.util.concurrent.atomic.AtomicInteger refused =
+        new java.util.concurrent.atomic.AtomicInteger();
+    java.util.concurrent.atomic.AtomicInteger serverErrors =
+        new java.util.concurrent.atomic.AtomicInteger();
+    java.util.concurrent.ExecutorService pool =
+        java.util.concurrent.Executors.newFixedThreadPool(6);
+    try {
+      awaitHealthy(app, port);
+      Http http = Http.admin(port);
+      List<java.util.concurrent.Future<?>> clients = new ArrayList<>();
+      for (int c = 0; c < 6; c++) {
+        int client = c;
+        clients.add(
+            pool.submit(
+                () -> {
+                  for (int b = 0; b < 40; b++) {
+                    StringBuilder body = new StringBuilder("{\"readings\":[");
+                    for (int i = 0; i < perBatch; i++) {
+                      Instant t = base.plusSeconds(client * 100_000L + b * 1_000L + i);
+                      body.append(i == 0 ? "" : ",")
+                          .append(
+                              "{\"samplePoint\":\"U1-ECO-IN\",\"parameter\":\"sodium\",\"time\":\"")
+                          .append(t)
+                          .append("\",\"value\":0.5,\"unit\":\"ug/kg\"}");
+                    }
+                    body.append("]}");
+                    try {
+                      HttpResponse<String> r =
+                          http.post("/api/v1/readings", "application/json", body.toString());
+                      if (r.statusCode() == 200) {
+                        acknowledged.incrementAndGet();
+                      } else if (r.statusCode() >= 500 && r.statusCode() != 503) {
+                        serverErrors.incrementAndGet();
+                      } else {
+                        refused.incrementAndGet();
+                      }
+                    } catch (RuntimeException connectionRefusedOrClosed) {
+                      refused.incrementAndGet();
+                    }
+                  }
+                }));
+      }
+      while (acknowledged.get() < 6) {
+        Thread.sleep(50);
+      }
+      app.destroy(); // SIGTERM under load
+      assertThat(app.waitFor(90, java.util.concurrent.TimeUnit.SECONDS))
+          .as("graceful shutdown finished")
+          .isTrue();
+      for (java.util.concurrent.Future<?> f : clients) {
+        f.get(120, java.util.concurrent.TimeUnit.SECONDS);
+      }
+    } finally {
+      pool.shutdownNow();
+      if (app.isAlive()) {
+        app.destroyForcibly().waitFor();
+      }
+    }
+    System.out.printf(
+        "graceful shutdown under load: %d batches acknowledged, %d refused or cut off, %d server errors%n",
+        acknowledged.get(), refused.get(), serverErrors.get());
+    assertThat(serverErrors.get()).isZero();
+    assertThat(refused.get()).as("requests after SIGTERM are refused").isPositive();
+    Process second = start(port, env, args);
+    try {
+      awaitHealthy(second, port);
+      HttpResponse<String> r =
+          Http.admin(port)
+              .get(
+                  "/api/v1/sample-points/U1-ECO-IN/series?parameter=sodium&limit=100000&from="
+                      + base
+                      + "&to="
+                      + base.plusSeconds(700_000));
+      assertThat(r.statusCode()).isEqualTo(200);
+      int stored = r.body().split("\"quality\"", -1).length - 1;
+      assertThat(stored).isEqualTo(acknowledged.get() * perBatch);
+    } finally {
+      stop(second);
+    }
+  }
+
   private static final String ADMIN_KEY_BANNER = "No admin key existed, so one was generated";
 
   private static String generatedKey(Path log) throws IOException {
