@@ -31,8 +31,8 @@ import tools.jackson.databind.node.ObjectNode;
 /**
  * Seeded random and mutated payloads against {@code POST /api/v1/readings} (JSON and CSV) and
  * {@code POST /api/v1/plants}. For every request: never a 5xx; and when refused, nothing stored
- * (the row counts of readings, revisions, plants, units and sample points are unchanged). The seed
- * is fixed so a failure reproduces; {@code -Dkwanta.fuzz.seed=<n>} and {@code
+ * (the row counts of readings, revisions, plants, units and sample points are unchanged). The
+ * random seed is fixed so a failure reproduces; {@code -Dkwanta.fuzz.seed=<n>} and {@code
  * -Dkwanta.fuzz.cases=<n>} explore further.
  */
 @DatabaseTest
