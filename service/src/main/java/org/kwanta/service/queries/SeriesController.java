@@ -13,6 +13,7 @@ import java.util.Map;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ProblemTypes;
+import org.kwanta.service.system.ResponseFormats;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -108,7 +109,7 @@ class SeriesController {
     if (Duration.between(start, end).compareTo(MAX_RANGE) > 0) {
       throw BadRequestException.of("range longer than " + MAX_RANGE.toDays() + " days");
     }
-    boolean csv = Formats.csv(format, accept);
+    boolean csv = ResponseFormats.csvRequested(format, accept);
     Duration size = bucketSize(bucket, maxPoints, start, end);
     SeriesResponse response;
     if (size == null) {
@@ -131,11 +132,11 @@ class SeriesController {
     }
     if (csv) {
       return ResponseEntity.ok()
-          .contentType(Formats.TEXT_CSV)
+          .contentType(ResponseFormats.TEXT_CSV)
           .header(
               "Content-Disposition",
               "attachment; filename=\"" + samplePointId + "_" + p.code() + ".csv\"")
-          .body(Formats.seriesCsv(response));
+          .body(SeriesCsv.write(response));
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(response);
   }

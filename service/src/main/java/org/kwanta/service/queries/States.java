@@ -1,6 +1,5 @@
 package org.kwanta.service.queries;
 
-import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
@@ -104,9 +103,5 @@ class States {
     return java.util.Arrays.stream(MeasuredParameter.values())
         .map(MeasuredParameter::code)
         .toArray(String[]::new);
-  }
-
-  static Timestamp ts(Instant t) {
-    return Timestamp.from(t);
   }
 }

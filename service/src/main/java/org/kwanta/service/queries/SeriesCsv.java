@@ -1,21 +1,13 @@
 package org.kwanta.service.queries;
 
 import java.util.Locale;
-import org.kwanta.service.system.ResponseFormats;
-import org.springframework.http.MediaType;
 
-/** JSON or CSV, chosen by {@code format} or the Accept header. */
-final class Formats {
+/** CSV (RFC 4180) of a series; the header names the unit of each column. */
+final class SeriesCsv {
 
-  static final MediaType TEXT_CSV = ResponseFormats.TEXT_CSV;
+  private SeriesCsv() {}
 
-  private Formats() {}
-
-  static boolean csv(String format, String accept) {
-    return ResponseFormats.csvRequested(format, accept);
-  }
-
-  static String seriesCsv(SeriesController.SeriesResponse r) {
+  static String write(SeriesController.SeriesResponse r) {
     StringBuilder sb = new StringBuilder();
     String unit = r.unit().replace("[", "").replace("]", "").replace("/", "_per_");
     if (r.points() != null) {
