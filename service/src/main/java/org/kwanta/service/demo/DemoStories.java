@@ -88,7 +88,8 @@ final class DemoStories {
         false,
         true,
         false,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U1-ECO-IN",
@@ -111,7 +112,8 @@ final class DemoStories {
         false,
         false,
         true,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U1-IP-DRUM",
@@ -122,7 +124,8 @@ final class DemoStories {
         false,
         false,
         true,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U1-HP-DRUM",
@@ -133,7 +136,8 @@ final class DemoStories {
         false,
         false,
         true,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U1-HP-SAT",
@@ -144,7 +148,8 @@ final class DemoStories {
         false,
         true,
         false,
-        noise);
+        noise,
+        0);
     exhaustedColumnPoint(out, "U1-MS", t, sampleT, column, noise);
     volatilePoint(
         out,
@@ -156,7 +161,8 @@ final class DemoStories {
         true,
         true,
         false,
-        noise);
+        noise,
+        0);
     // Unit 2: the condenser leak enters at the condensate pump and travels on, diluted by nothing
     double na = 0.4 + 14 * leak;
     double cl =
@@ -171,7 +177,8 @@ final class DemoStories {
         false,
         true,
         false,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U2-ECO-IN",
@@ -182,7 +189,8 @@ final class DemoStories {
         true,
         false,
         true,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U2-LP-DRUM",
@@ -193,7 +201,8 @@ final class DemoStories {
         false,
         false,
         true,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U2-IP-DRUM",
@@ -204,7 +213,8 @@ final class DemoStories {
         false,
         false,
         true,
-        noise);
+        noise,
+        0);
     phosphateDrum(out, "U2-HP-DRUM", t, sampleT, 8 * cl, noise);
     volatilePoint(
         out,
@@ -216,7 +226,8 @@ final class DemoStories {
         false,
         true,
         false,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U2-MS",
@@ -227,7 +238,8 @@ final class DemoStories {
         true,
         true,
         false,
-        noise);
+        noise,
+        0);
     volatilePoint(
         out,
         "U2-RH",
@@ -238,7 +250,8 @@ final class DemoStories {
         true,
         true,
         false,
-        noise);
+        noise,
+        0);
     // make-up water after the mixed bed
     Solution mu =
         model(sampleT).solve(new Solutes(0, 0.02 * UG_NA, 0.03 * UG_CL, 0, 0.5 * UG_CO2, 0));
@@ -246,20 +259,6 @@ final class DemoStories {
     out.add(reading("MU-DEMIN", "silica", t, 5 + 0.5 * noise, "ug/kg", null, null));
     out.add(reading("MU-DEMIN", "sample_temperature", t, sampleT, "Cel", null, null));
     return out;
-  }
-
-  private void volatilePoint(
-      List<ReadingInput> out,
-      String id,
-      Instant t,
-      double sampleT,
-      Solutes s,
-      boolean specific,
-      boolean degassed,
-      boolean sodium,
-      boolean ph,
-      double noise) {
-    volatilePoint(out, id, t, sampleT, s, specific, degassed, sodium, ph, noise, 0);
   }
 
   private void volatilePoint(

@@ -13,7 +13,7 @@ final class WebLookups {
 
   static BadRequestException notFound(String detail) {
     return new BadRequestException(
-        HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not Found", detail, Map.of());
+        HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not found", detail, Map.of());
   }
 
   static Limits.Point point(Limits limits, String id) {

@@ -60,15 +60,6 @@ class PlantsController {
   @GetMapping("/{plantId}")
   @Operation(summary = "A plant with its units and sample points")
   PlantDeclaration get(@PathVariable String plantId) {
-    return plants
-        .find(plantId)
-        .orElseThrow(
-            () ->
-                new BadRequestException(
-                    HttpStatus.NOT_FOUND,
-                    ProblemTypes.NOT_FOUND,
-                    "Not found",
-                    "No plant with id '" + plantId + "'",
-                    java.util.Map.of()));
+    return plants.find(plantId).orElseThrow(() -> BadRequestException.notFound("plant", plantId));
   }
 }

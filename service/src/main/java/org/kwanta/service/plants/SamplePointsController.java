@@ -111,11 +111,6 @@ class SamplePointsController {
   }
 
   private static BadRequestException notFound(String id) {
-    return new BadRequestException(
-        HttpStatus.NOT_FOUND,
-        ProblemTypes.NOT_FOUND,
-        "Not found",
-        "No sample point with id '" + id + "'",
-        Map.of());
+    return BadRequestException.notFound("sample point", id);
   }
 }

@@ -9,12 +9,9 @@ import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.BadRequestException;
-import org.kwanta.service.system.ProblemTypes;
 import org.kwanta.service.system.ResponseFormats;
-import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -85,12 +82,7 @@ class SeriesController {
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
     if (configs.existing(List.of(samplePointId)).isEmpty()) {
-      throw new BadRequestException(
-          HttpStatus.NOT_FOUND,
-          ProblemTypes.NOT_FOUND,
-          "Not found",
-          "No sample point with id '" + samplePointId + "'",
-          Map.of());
+      throw BadRequestException.notFound("sample point", samplePointId);
     }
     SeriesParameter p =
         SeriesParameter.byCode(parameter)

@@ -6,12 +6,9 @@ import io.swagger.v3.oas.annotations.tags.Tag;
 import java.time.Clock;
 import java.time.Instant;
 import java.util.List;
-import java.util.Map;
 import org.kwanta.service.plants.PlantDeclaration;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.BadRequestException;
-import org.kwanta.service.system.ProblemTypes;
-import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RestController;
@@ -65,11 +62,6 @@ class StateController {
   }
 
   static BadRequestException notFound(String what, String id) {
-    return new BadRequestException(
-        HttpStatus.NOT_FOUND,
-        ProblemTypes.NOT_FOUND,
-        "Not found",
-        "No " + what + " with id '" + id + "'",
-        Map.of());
+    return BadRequestException.notFound(what, id);
   }
 }

@@ -66,12 +66,7 @@ class KeysController {
   }
 
   private static BadRequestException notFound(String id) {
-    return new BadRequestException(
-        HttpStatus.NOT_FOUND,
-        ProblemTypes.NOT_FOUND,
-        "Not found",
-        "No key with id '" + id + "'",
-        Map.of());
+    return BadRequestException.notFound("key", id);
   }
 
   /**

@@ -26,6 +26,16 @@ public class BadRequestException extends RuntimeException {
     this.properties = Map.copyOf(properties);
   }
 
+  /** 404: no {@code what} (e.g. "sample point") with that id. */
+  public static BadRequestException notFound(String what, String id) {
+    return new BadRequestException(
+        HttpStatus.NOT_FOUND,
+        ProblemTypes.NOT_FOUND,
+        "Not found",
+        "No " + what + " with id '" + id + "'",
+        Map.of());
+  }
+
   /** 400 with the generic bad-request type. */
   public static BadRequestException of(String detail) {
     return new BadRequestException(
