@@ -92,8 +92,11 @@ public class IngestService {
     }
     ReadingValidator.Outcome checked = validator.validate(inputs, configs.existing(named));
     if (!checked.rejected().isEmpty() || !alreadyRejected.isEmpty()) {
+      // a row the CSV parser refused is reported with the parser's reason only
+      Set<Integer> parsedBad = new TreeSet<>();
+      alreadyRejected.forEach(r -> parsedBad.add(r.index()));
       List<RejectedReading> all = new ArrayList<>(alreadyRejected);
-      all.addAll(checked.rejected());
+      checked.rejected().stream().filter(r -> !parsedBad.contains(r.index())).forEach(all::add);
       all.sort(java.util.Comparator.comparingInt(RejectedReading::index));
       for (RejectedReading r : all) {
         metrics.rejected(r.field() == null ? "reading" : r.field(), 1);
