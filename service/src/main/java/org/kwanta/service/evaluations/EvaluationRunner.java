@@ -199,7 +199,8 @@ public final class EvaluationRunner {
     return notes.isEmpty() ? List.of() : List.copyOf(new java.util.LinkedHashSet<>(notes));
   }
 
-  static boolean relevant(String parameter) {
+  /** Whether readings of this parameter make evaluation times. */
+  public static boolean relevant(String parameter) {
     return "sample_temperature".equals(parameter) || engineParameter(parameter) != null;
   }
 

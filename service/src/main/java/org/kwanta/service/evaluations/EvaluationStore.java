@@ -5,6 +5,7 @@ import java.sql.PreparedStatement;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.List;
+import org.kwanta.service.system.BinaryCopy;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 import tools.jackson.databind.json.JsonMapper;
@@ -170,6 +171,51 @@ public class EvaluationStore {
           }
         });
   }
+
+  /**
+   * Inserts evaluations at times that have none yet with binary COPY. An evaluation that exists
+   * after all fails the statement (and the transaction; the ingest then retries with {@link
+   * #upsert}).
+   */
+  public void copyNew(List<EvaluationRunner.Result> results) {
+    if (results.isEmpty()) {
+      return;
+    }
+    BinaryCopy rows = new BinaryCopy(results.size(), 1800);
+    for (EvaluationRunner.Result r : results) {
+      EvaluationView v = r.view();
+      rows.row(14)
+          .text(r.samplePointId())
+          .timestamp(r.time())
+          .int4(v.configVersion())
+          .float8(v.at25("specific_conductivity"))
+          .float8(v.at25("cation_conductivity"))
+          .float8(v.at25("degassed_cation_conductivity"))
+          .float8(v.calculatedPh() == null ? null : finite(v.calculatedPh().rigorous()));
+      if (v.phAtTemperature() == null) {
+        rows.float8((Double) null)
+            .float8((Double) null)
+            .float8((Double) null)
+            .float8((Double) null);
+      } else {
+        rows.float8(finite(v.phAtTemperature().ph()))
+            .float8(finite(v.phAtTemperature().low()))
+            .float8(finite(v.phAtTemperature().high()))
+            .float8(finite(v.phAtTemperature().neutralPh()));
+      }
+      rows.bool(v.suspect())
+          .textArray(
+              v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList())
+          .jsonb(json.writeValueAsBytes(v));
+    }
+    jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));
+  }
+
+  static final String COPY_TARGET =
+      """
+      evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
+          degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
+          ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes, details)""";
 
   private static Double finite(double v) {
     return Double.isFinite(v) ? v : null;

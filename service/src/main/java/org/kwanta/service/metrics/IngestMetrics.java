@@ -17,6 +17,7 @@ public class IngestMetrics {
   private final MeterRegistry registry;
   private final Timer evaluation;
   private final Timer batch;
+  private final Counter retried;
 
   IngestMetrics(MeterRegistry registry) {
     this.registry = registry;
@@ -29,6 +30,10 @@ public class IngestMetrics {
         Timer.builder(MetricNames.INGEST_BATCH_DURATION)
             .description("Time to ingest one batch")
             .publishPercentileHistogram()
+            .register(registry);
+    this.retried =
+        Counter.builder(MetricNames.INGEST_RETRIED)
+            .description("Batches written again on the plain path after the fast path failed")
             .register(registry);
     ingestedCounter("none");
   }
@@ -52,6 +57,14 @@ public class IngestMetrics {
         .tag(MetricNames.REASON, reason)
         .register(registry)
         .increment(readings);
+  }
+
+  /**
+   * Counts batches whose fast write (in-memory history, COPY) failed and were written again on the
+   * plain path (database history, upserts); steadily rising means something else writes readings.
+   */
+  public void retried(int batches) {
+    retried.increment(batches);
   }
 
   /** Times one batch from parse to commit. */

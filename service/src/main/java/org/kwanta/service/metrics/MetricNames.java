@@ -80,6 +80,9 @@ public final class MetricNames {
   /** Ingest requests refused with 503 because the concurrency bound was reached. */
   public static final String INGEST_REJECTED_BUSY = "kwanta.ingest.rejected.busy";
 
+  /** Batches written again on the plain path after the fast path failed (counter). */
+  public static final String INGEST_RETRIED = "kwanta.ingest.retried";
+
   /** Kind of meter, for the exposed suffixes. */
   public enum Type {
     GAUGE,
@@ -188,7 +191,13 @@ public final class MetricNames {
               "kwanta_ingest_rejected_busy_total",
               Type.COUNTER,
               List.of(),
-              "Ingest requests refused with 503 because too many were in flight"));
+              "Ingest requests refused with 503 because too many were in flight"),
+          new Metric(
+              INGEST_RETRIED,
+              "kwanta_ingest_retried_total",
+              Type.COUNTER,
+              List.of(),
+              "Batches written again on the plain path after the fast path failed"));
 
   /** Platform metrics the dashboards and rules may use (HikariCP pool, JVM, Prometheus's own). */
   public static final List<String> PLATFORM =

@@ -12,6 +12,8 @@ import org.springframework.boot.context.properties.ConfigurationProperties;
  * @param maxAge how old the latest value of a parameter may be to enter an evaluation
  * @param historyWindow how much history per parameter an evaluation sees (trend, flat-line and
  *     persistence checks)
+ * @param recentReadings how many readings (over all sample points) the ingest keeps in memory to
+ *     evaluate new batches without reading history back from the database; about 100 bytes each
  */
 @ConfigurationProperties("kwanta.ingest")
 public record IngestLimits(
@@ -19,7 +21,8 @@ public record IngestLimits(
     Duration futureSkew,
     Duration pastHorizon,
     Duration maxAge,
-    Duration historyWindow) {
+    Duration historyWindow,
+    int recentReadings) {
 
   public IngestLimits {
     if (maxBatchSize <= 0) {
@@ -36,6 +39,9 @@ public record IngestLimits(
     }
     if (historyWindow == null) {
       historyWindow = Duration.ofMinutes(60);
+    }
+    if (recentReadings <= 0) {
+      recentReadings = 500_000;
     }
   }
 }

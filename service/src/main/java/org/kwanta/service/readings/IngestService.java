@@ -1,5 +1,6 @@
 package org.kwanta.service.readings;
 
+import java.sql.Timestamp;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
@@ -14,6 +15,7 @@ import org.kwanta.service.evaluations.EvaluationRunner;
 import org.kwanta.service.evaluations.EvaluationStore;
 import org.kwanta.service.metrics.IngestMetrics;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
+import org.kwanta.service.system.DatabaseOutage;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Service;
 import org.springframework.transaction.PlatformTransactionManager;
@@ -27,6 +29,9 @@ import org.springframework.transaction.support.TransactionTemplate;
 @Service
 public class IngestService {
 
+  private static final org.slf4j.Logger log =
+      org.slf4j.LoggerFactory.getLogger(IngestService.class);
+
   private final SamplePointConfigs configs;
   private final ReadingStore readings;
   private final EvaluationStore evaluations;
@@ -36,6 +41,11 @@ public class IngestService {
   private final ReadingValidator validator;
   private final TransactionTemplate transaction;
   private final IngestMetrics metrics;
+  private final RecentReadings recent;
+  private final java.util.concurrent.ConcurrentLinkedQueue<Pending> queue =
+      new java.util.concurrent.ConcurrentLinkedQueue<>();
+  private final java.util.concurrent.locks.ReentrantLock combining =
+      new java.util.concurrent.locks.ReentrantLock();
 
   IngestService(
       SamplePointConfigs configs,
@@ -56,6 +66,7 @@ public class IngestService {
     this.jdbc = jdbc;
     this.limits = limits;
     this.validator = new ReadingValidator(limits, clock);
+    this.recent = new RecentReadings(limits.recentReadings());
   }
 
   /** The outcome of an accepted batch. */
@@ -117,63 +128,362 @@ public class IngestService {
     }
     partitions.ensure(days);
     int duplicates = inputs.size() - batch.size();
-    Stored stored =
-        metrics.timeBatch(
-            () -> transaction.execute(status -> store(batch, inputs.size(), duplicates)));
-    stored.changedPerPlant().forEach(metrics::ingested);
-    return stored.outcome();
+    Pending pending = new Pending(batch, inputs.size(), duplicates);
+    Outcome outcome = metrics.timeBatch(() -> submit(pending));
+    pending.changedPerPlant.forEach(metrics::ingested);
+    return outcome;
   }
 
-  /** A committed batch and how many readings it added or changed per plant. */
-  private record Stored(Outcome outcome, Map<String, Integer> changedPerPlant) {}
+  /** A validated batch waiting to be written, and what writing it gave. */
+  private static final class Pending {
+    final List<ValidReading> readings;
+    final int received;
+    final int duplicates;
+    final Map<String, Instant[]> ranges = new TreeMap<>();
+    final Map<String, Integer> changedPerPlant = new TreeMap<>();
+    final List<ValidReading> uncovered = new ArrayList<>();
+    int inserted;
+    int corrected;
+    int unchanged;
+    int evaluations;
+    Outcome outcome;
+    RuntimeException failure;
 
-  private Stored store(List<ValidReading> batch, int received, int duplicates) {
-    // Per-point locks, in a fixed order: concurrent batches for the same point evaluate one after
-    // the other,
-    // each seeing the other's committed readings, so the stored evaluations do not depend on
-    // arrival order.
-    TreeMap<String, Instant[]> ranges = new TreeMap<>();
-    for (ValidReading r : batch) {
-      ranges.merge(
-          r.samplePointId(),
-          new Instant[] {r.time(), r.time()},
-          (a, b) ->
-              new Instant[] {a[0].isBefore(b[0]) ? a[0] : b[0], a[1].isAfter(b[1]) ? a[1] : b[1]});
-    }
-    for (String point : ranges.keySet()) {
-      jdbc.queryForObject("SELECT pg_advisory_xact_lock(hashtext(?))", Object.class, point);
-    }
-    ReadingStore.Counts counts = readings.upsert(batch);
-    int written = 0;
-    Map<String, SamplePointConfigs.Versioned> current = configs.current(ranges.keySet());
-    Map<String, Integer> perPlant = new TreeMap<>();
-    if (counts.inserted() + counts.corrected() > 0) {
-      for (ValidReading r : batch) {
-        perPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
-      }
-      Duration window = limits.historyWindow();
-      for (Map.Entry<String, Instant[]> e : ranges.entrySet()) {
-        Instant from = e.getValue()[0];
-        Instant to = e.getValue()[1].plus(window);
-        List<EvaluationRunner.StoredReading> stored =
-            evaluations.readings(e.getKey(), from, to, window);
-        List<EvaluationRunner.Result> results =
-            metrics.timeEvaluation(
-                () ->
-                    EvaluationRunner.run(
-                        current.get(e.getKey()), stored, from, to, window, limits.maxAge()));
-        evaluations.upsert(results);
-        written += results.size();
+    Pending(List<ValidReading> readings, int received, int duplicates) {
+      this.readings = readings;
+      this.received = received;
+      this.duplicates = duplicates;
+      for (ValidReading r : readings) {
+        ranges.merge(
+            r.samplePointId(),
+            new Instant[] {r.time(), r.time()},
+            (a, b) -> new Instant[] {min(a[0], b[0]), max(a[1], b[1])});
       }
     }
-    return new Stored(
-        new Outcome(
-            received,
-            counts.inserted(),
-            counts.corrected(),
-            counts.unchanged(),
-            duplicates,
-            written),
-        perPlant);
+
+    boolean done() {
+      return outcome != null || failure != null;
+    }
+
+    void reset() {
+      changedPerPlant.clear();
+      uncovered.clear();
+      inserted = 0;
+      corrected = 0;
+      unchanged = 0;
+      evaluations = 0;
+    }
+  }
+
+  /**
+   * Group commit: batches waiting while another is written are written together, in one
+   * transaction, by whichever request thread holds the combining lock (each batch still succeeds or
+   * fails whole: if a group's transaction fails, its batches are retried one by one). So concurrent
+   * historians sending the same sample points do not queue behind each other's transactions one at
+   * a time.
+   */
+  private Outcome submit(Pending pending) {
+    queue.add(pending);
+    combining.lock();
+    try {
+      while (!pending.done()) {
+        write(drain());
+      }
+    } finally {
+      combining.unlock();
+    }
+    if (pending.failure != null) {
+      throw pending.failure;
+    }
+    return pending.outcome;
+  }
+
+  /**
+   * Takes waiting batches in arrival order, up to {@link #MAX_GROUP_READINGS} readings, stopping
+   * before a batch that repeats a key (sample point, parameter, time) already in the group, so that
+   * within a group every key is written once and later batches still correct earlier ones.
+   */
+  private List<Pending> drain() {
+    List<Pending> group = new ArrayList<>();
+    java.util.HashSet<Long> keys = new java.util.HashSet<>();
+    int size = 0;
+    Pending next;
+    while ((next = queue.peek()) != null) {
+      if (!group.isEmpty() && size + next.readings.size() > MAX_GROUP_READINGS) {
+        break;
+      }
+      List<Long> own = new ArrayList<>(next.readings.size());
+      boolean clash = false;
+      for (ValidReading r : next.readings) {
+        long k = keyHash(r);
+        if (keys.contains(k)) {
+          clash = true;
+          break;
+        }
+        own.add(k);
+      }
+      if (clash && !group.isEmpty()) {
+        break;
+      }
+      keys.addAll(own);
+      group.add(queue.poll());
+      size += next.readings.size();
+    }
+    return group;
+  }
+
+  /** A hash of a reading's key; a collision only makes a group smaller. */
+  private static long keyHash(ValidReading r) {
+    long h = r.samplePointId().hashCode();
+    h = h * 0x9E3779B97F4A7C15L + r.parameter().ordinal();
+    h = h * 0x9E3779B97F4A7C15L + r.time().getEpochSecond();
+    return h * 0x9E3779B97F4A7C15L + r.time().getNano();
+  }
+
+  static final int MAX_GROUP_READINGS = 20_000;
+
+  /**
+   * Writes a group in one transaction. If that fails because the database is unreachable, every
+   * batch of the group fails with it; otherwise each batch is retried alone (once more if it failed
+   * alone: the in-memory copy is dropped first, so a copy out of step cannot fail a batch).
+   */
+  private void write(List<Pending> group) {
+    write(group, true);
+  }
+
+  private void write(List<Pending> group, boolean retry) {
+    if (group.isEmpty()) {
+      return;
+    }
+    Map<String, Kept> kept = new TreeMap<>();
+    try {
+      // a retried batch takes the plain path: no in-memory copy, upserts only
+      boolean fast = retry;
+      transaction.executeWithoutResult(status -> store(group, kept, fast));
+    } catch (RuntimeException e) {
+      group.forEach(p -> p.ranges.keySet().forEach(recent::forget));
+      if (!retry || DatabaseOutage.isCause(e)) {
+        group.forEach(p -> p.failure = e);
+      } else {
+        log.warn(
+            "Ingest of {} batch(es) failed on the fast path; retrying each on the plain path: {}",
+            group.size(),
+            e.toString());
+        metrics.retried(group.size());
+        for (Pending p : group) {
+          p.reset();
+          write(List.of(p), group.size() > 1);
+        }
+      }
+      return;
+    }
+    kept.forEach(
+        (point, k) -> {
+          if (k.generation() == null) {
+            recent.forget(point);
+          } else {
+            recent.committed(point, k.generation(), k.keepFrom());
+          }
+        });
+    recent.evict();
+    for (Pending p : group) {
+      p.outcome =
+          new Outcome(
+              p.received, p.inserted, p.corrected, p.unchanged, p.duplicates, p.evaluations);
+    }
+  }
+
+  /** What to keep of a point's in-memory copy after the commit (no generation: drop it). */
+  private record Kept(Long generation, Instant keepFrom) {}
+
+  private void store(List<Pending> group, Map<String, Kept> kept, boolean fast) {
+    Duration window = limits.historyWindow();
+    Duration keep = window.multipliedBy(2);
+    // the group's time range per point, and its points' heads, locked in id order: concurrent
+    // transactions for the same point (from this or another instance) run one after the other
+    Map<String, Instant[]> groupRanges = new TreeMap<>();
+    for (Pending p : group) {
+      p.ranges.forEach(
+          (point, r) ->
+              groupRanges.merge(
+                  point, r.clone(), (a, b) -> new Instant[] {min(a[0], b[0]), max(a[1], b[1])}));
+    }
+    Map<String, Instant> maxTimes = new TreeMap<>();
+    groupRanges.forEach((point, r) -> maxTimes.put(point, r[1]));
+    Map<String, ReadingStore.Head> heads = readings.lockHeads(maxTimes);
+    Map<String, SamplePointConfigs.Versioned> current = configs.current(groupRanges.keySet());
+
+    // which points have an in-memory copy that covers the group's evaluations
+    Map<String, RecentReadings.PointHistory> copies = new TreeMap<>();
+    Map<String, Instant> toLoad = new TreeMap<>();
+    for (Map.Entry<String, Instant[]> e : groupRanges.entrySet()) {
+      String point = e.getKey();
+      ReadingStore.Head head = heads.get(point);
+      Instant latest = max(head.previousLatest(), e.getValue()[1]);
+      if (head.previousLatest() == null) {
+        Instant stored = readings.latestStored(point);
+        if (stored != null && stored.isAfter(latest)) {
+          latest = stored;
+          jdbc.update(
+              "UPDATE reading_head SET latest_time = greatest(latest_time, ?) WHERE"
+                  + " sample_point_id = ?",
+              Timestamp.from(stored),
+              point);
+        }
+      }
+      Instant keepFrom = latest.minus(keep);
+      Instant needed = e.getValue()[0].minus(window);
+      RecentReadings.PointHistory copy =
+          fast ? recent.current(point, head.previousGeneration()) : null;
+      if (copy != null && !copy.coveredFrom().isAfter(needed)) {
+        copies.put(point, copy);
+        kept.put(point, new Kept(head.generation(), keepFrom));
+      } else if (fast && !keepFrom.isAfter(needed)) {
+        toLoad.put(point, keepFrom);
+        kept.put(point, new Kept(head.generation(), keepFrom));
+      } else {
+        // backfill further back than the copy reaches: read from the database
+        kept.put(point, new Kept(null, keepFrom));
+      }
+    }
+    readings
+        .loadSince(toLoad)
+        .forEach(
+            (point, loaded) -> copies.put(point, recent.start(point, toLoad.get(point), loaded)));
+
+    // classify every reading against the copy: new, correction or unchanged
+    List<ValidReading> fresh = new ArrayList<>();
+    List<ValidReading> corrections = new ArrayList<>();
+    Map<String, Instant[]> changed = new TreeMap<>();
+    // per point, whether each time seen had an evaluation before this group (a relevant reading)
+    Map<String, Map<Instant, Boolean>> evaluatedBefore = new TreeMap<>();
+    Map<String, java.util.Set<Instant>> newTimes = new TreeMap<>();
+    for (Pending p : group) {
+      for (ValidReading r : p.readings) {
+        RecentReadings.PointHistory copy = copies.get(r.samplePointId());
+        if (copy == null) {
+          p.uncovered.add(r);
+          continue;
+        }
+        boolean hadEvaluation =
+            evaluatedBefore
+                .computeIfAbsent(r.samplePointId(), k -> new java.util.HashMap<>())
+                .computeIfAbsent(r.time(), t -> copy.anyAt(t, EvaluationRunner::relevant));
+        if (!hadEvaluation && EvaluationRunner.relevant(r.parameter().code())) {
+          newTimes.computeIfAbsent(r.samplePointId(), k -> new java.util.HashSet<>()).add(r.time());
+        }
+        EvaluationRunner.StoredReading now = stored(r);
+        EvaluationRunner.StoredReading before = copy.find(now.parameter(), now.time());
+        if (before == null) {
+          fresh.add(r);
+          p.inserted++;
+        } else if (same(before, now)) {
+          p.unchanged++;
+          continue;
+        } else {
+          corrections.add(r);
+          p.corrected++;
+        }
+        copy.put(now);
+        widen(changed, r.samplePointId(), r.time(), r.time());
+        p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+      }
+    }
+    readings.copyNew(fresh);
+    if (!corrections.isEmpty()) {
+      ReadingStore.Counts counts = readings.upsert(corrections);
+      if (counts.corrected() != corrections.size()) {
+        throw new IllegalStateException(
+            "in-memory readings out of step with the database; the batch is retried");
+      }
+    }
+    for (Pending p : group) {
+      if (p.uncovered.isEmpty()) {
+        continue;
+      }
+      ReadingStore.Counts counts = readings.upsert(p.uncovered);
+      p.inserted += counts.inserted();
+      p.corrected += counts.corrected();
+      p.unchanged += counts.unchanged();
+      if (counts.inserted() + counts.corrected() > 0) {
+        for (ValidReading r : p.uncovered) {
+          widen(changed, r.samplePointId(), r.time(), r.time());
+          p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+        }
+      }
+    }
+
+    // recompute every evaluation the changes can affect: [first change, last change + window]
+    Map<String, List<EvaluationRunner.Result>> results = new TreeMap<>();
+    List<EvaluationRunner.Result> all = new ArrayList<>();
+    for (Map.Entry<String, Instant[]> e : changed.entrySet()) {
+      String point = e.getKey();
+      Instant from = e.getValue()[0];
+      Instant to = e.getValue()[1].plus(window);
+      RecentReadings.PointHistory copy = copies.get(point);
+      List<EvaluationRunner.StoredReading> history =
+          copy != null
+              ? copy.forEvaluation(from, to, window)
+              : evaluations.readings(point, from, to, window);
+      List<EvaluationRunner.Result> computed =
+          metrics.timeEvaluation(
+              () ->
+                  EvaluationRunner.run(
+                      current.get(point), history, from, to, window, limits.maxAge()));
+      results.put(point, computed);
+      all.addAll(computed);
+    }
+    List<EvaluationRunner.Result> created = new ArrayList<>();
+    List<EvaluationRunner.Result> recomputed = new ArrayList<>();
+    for (EvaluationRunner.Result x : all) {
+      java.util.Set<Instant> firsts = newTimes.get(x.samplePointId());
+      (firsts != null && firsts.contains(x.time()) ? created : recomputed).add(x);
+    }
+    evaluations.copyNew(created);
+    evaluations.upsert(recomputed);
+    for (Pending p : group) {
+      p.ranges.forEach(
+          (point, r) -> {
+            Instant to = r[1].plus(window);
+            for (EvaluationRunner.Result x : results.getOrDefault(point, List.of())) {
+              if (!x.time().isBefore(r[0]) && !x.time().isAfter(to)) {
+                p.evaluations++;
+              }
+            }
+          });
+    }
+  }
+
+  private static EvaluationRunner.StoredReading stored(ValidReading r) {
+    return new EvaluationRunner.StoredReading(
+        r.parameter().code(),
+        r.time(),
+        r.value(),
+        r.quality().code(),
+        r.sampleTemperatureCel(),
+        r.compensated());
+  }
+
+  /** As PostgreSQL's IS DISTINCT FROM would judge the stored row (NaN temperature: none). */
+  private static boolean same(EvaluationRunner.StoredReading a, EvaluationRunner.StoredReading b) {
+    boolean noA = Double.isNaN(a.sampleTemperatureCel());
+    boolean noB = Double.isNaN(b.sampleTemperatureCel());
+    return a.value() == b.value()
+        && a.quality() == b.quality()
+        && a.compensated() == b.compensated()
+        && (noA ? noB : !noB && a.sampleTemperatureCel() == b.sampleTemperatureCel());
+  }
+
+  private static void widen(Map<String, Instant[]> ranges, String point, Instant a, Instant b) {
+    ranges.merge(
+        point, new Instant[] {a, b}, (x, y) -> new Instant[] {min(x[0], y[0]), max(x[1], y[1])});
+  }
+
+  private static Instant min(Instant a, Instant b) {
+    return a == null ? b : b == null ? a : a.isBefore(b) ? a : b;
+  }
+
+  private static Instant max(Instant a, Instant b) {
+    return a == null ? b : b == null ? a : a.isAfter(b) ? a : b;
   }
 }

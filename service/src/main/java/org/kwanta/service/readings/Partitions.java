@@ -97,6 +97,14 @@ public class Partitions {
       jdbc.execute("DROP TABLE IF EXISTS " + name);
       known.remove(LocalDate.parse(name.substring(name.length() - 8), SUFFIX));
     }
+    if (!dropped.isEmpty()) {
+      // dropping a partition fires no trigger: mark every in-memory copy of readings stale
+      jdbc.update(
+          """
+          UPDATE reading_head h SET generation = nextval('reading_generation'), latest_time = NULL
+          FROM (SELECT sample_point_id FROM reading_head ORDER BY sample_point_id FOR UPDATE) l
+          WHERE h.sample_point_id = l.sample_point_id""");
+    }
     return dropped;
   }
 

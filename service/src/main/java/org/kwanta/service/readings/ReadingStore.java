@@ -3,7 +3,15 @@ package org.kwanta.service.readings;
 import java.sql.Connection;
 import java.sql.PreparedStatement;
 import java.sql.ResultSet;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.kwanta.service.evaluations.EvaluationRunner.StoredReading;
+import org.kwanta.service.system.BinaryCopy;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 
@@ -44,6 +52,31 @@ class ReadingStore {
         RETURNING 1
       )
       SELECT (SELECT count(*) FROM upserted), (SELECT count(*) FROM revised)""";
+
+  static final String LOCK_HEADS =
+      """
+      WITH batch AS (
+        SELECT * FROM unnest(?::text[], ?::timestamptz[]) AS b(sample_point_id, max_time)
+      ), locked AS MATERIALIZED (
+        SELECT h.sample_point_id, h.generation, h.latest_time FROM reading_head h
+        WHERE h.sample_point_id IN (SELECT sample_point_id FROM batch)
+        ORDER BY h.sample_point_id
+        FOR UPDATE
+      )
+      UPDATE reading_head h
+         SET generation = nextval('reading_generation'), latest_time = greatest(h.latest_time, b.max_time)
+      FROM locked l JOIN batch b USING (sample_point_id)
+      WHERE h.sample_point_id = l.sample_point_id
+      RETURNING h.sample_point_id, l.generation, h.generation, l.latest_time""";
+
+  static final String COPY_TARGET =
+      "reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
+          + " compensated)";
+
+  private static final String[] PARAMETER_CODES =
+      java.util.Arrays.stream(MeasuredParameter.values())
+          .map(MeasuredParameter::code)
+          .toArray(String[]::new);
 
   private final JdbcTemplate jdbc;
 
@@ -96,5 +129,146 @@ class ReadingStore {
             }
           }
         });
+  }
+
+  /**
+   * A sample point's {@code reading_head} row as locked by an ingest transaction.
+   *
+   * @param previousGeneration the generation before this transaction
+   * @param generation the generation this transaction set
+   * @param previousLatest the latest reading time ingested before, or null when not known
+   */
+  record Head(long previousGeneration, long generation, Instant previousLatest) {}
+
+  /**
+   * Marks the transaction as the ingest's (see migration V31), then locks the heads of the given
+   * points in id order, setting new generations and latest times. Creates missing heads.
+   *
+   * @param maxTimes per sample point, the latest reading time of this batch
+   */
+  Map<String, Head> lockHeads(Map<String, Instant> maxTimes) {
+    jdbc.queryForObject("SELECT set_config('kwanta.writer', 'ingest', true)", String.class);
+    Map<String, Head> heads = lockOnce(maxTimes);
+    if (heads.size() < maxTimes.size()) {
+      jdbc.update(
+          "INSERT INTO reading_head (sample_point_id, generation) SELECT unnest(?::text[]), 0"
+              + " ON CONFLICT DO NOTHING",
+          (Object) maxTimes.keySet().toArray(String[]::new));
+      heads = lockOnce(maxTimes);
+    }
+    return heads;
+  }
+
+  private Map<String, Head> lockOnce(Map<String, Instant> maxTimes) {
+    String[] points = maxTimes.keySet().toArray(String[]::new);
+    String[] times = new String[points.length];
+    for (int i = 0; i < points.length; i++) {
+      times[i] = maxTimes.get(points[i]).toString();
+    }
+    Map<String, Head> out = new HashMap<>();
+    jdbc.query(
+        c -> {
+          PreparedStatement ps = c.prepareStatement(LOCK_HEADS);
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("text", times));
+          return ps;
+        },
+        rs -> {
+          Timestamp latest = rs.getTimestamp(4);
+          out.put(
+              rs.getString(1),
+              new Head(rs.getLong(2), rs.getLong(3), latest == null ? null : latest.toInstant()));
+        });
+    return out;
+  }
+
+  /** The latest stored reading time of a point, or null (one index probe per parameter). */
+  Instant latestStored(String samplePointId) {
+    String[] codes = PARAMETER_CODES;
+    Timestamp t =
+        jdbc.query(
+            c -> {
+              PreparedStatement ps =
+                  c.prepareStatement(
+                      """
+                      SELECT max(m) FROM unnest(?::text[]) AS p(code),
+                        LATERAL (SELECT max(time) AS m FROM reading
+                                 WHERE sample_point_id = ? AND parameter = p.code) x""");
+              ps.setArray(1, c.createArrayOf("text", codes));
+              ps.setString(2, samplePointId);
+              return ps;
+            },
+            rs -> rs.next() ? rs.getTimestamp(1) : null);
+    return t == null ? null : t.toInstant();
+  }
+
+  /**
+   * Every stored reading of the given points at or after the given time, per point, in time order.
+   */
+  Map<String, List<StoredReading>> loadSince(Map<String, Instant> since) {
+    Map<String, List<StoredReading>> out = new TreeMap<>();
+    if (since.isEmpty()) {
+      return out;
+    }
+    String[] points = since.keySet().toArray(String[]::new);
+    String[] times = new String[points.length];
+    for (int i = 0; i < points.length; i++) {
+      times[i] = since.get(points[i]).toString();
+      out.put(points[i], new ArrayList<>());
+    }
+    jdbc.query(
+        c -> {
+          PreparedStatement ps =
+              c.prepareStatement(
+                  """
+                  SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality,
+                         r.sample_temperature_cel, r.compensated
+                  FROM unnest(?::text[], ?::timestamptz[]) AS s(sample_point_id, since)
+                  CROSS JOIN LATERAL (
+                    SELECT * FROM reading x
+                    WHERE x.sample_point_id = s.sample_point_id AND x.parameter = ANY (?::text[])
+                      AND x.time >= s.since) r""");
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("text", times));
+          ps.setArray(3, c.createArrayOf("text", PARAMETER_CODES));
+          return ps;
+        },
+        rs -> {
+          double t = rs.getDouble(6);
+          boolean noTemperature = rs.wasNull();
+          out.get(rs.getString(1))
+              .add(
+                  new StoredReading(
+                      rs.getString(2),
+                      rs.getTimestamp(3).toInstant(),
+                      rs.getDouble(4),
+                      rs.getShort(5),
+                      noTemperature ? Double.NaN : t,
+                      rs.getBoolean(7)));
+        });
+    return out;
+  }
+
+  /**
+   * Inserts readings known to be new (keys absent from the table) with COPY. A key that exists
+   * after all fails the statement (and so the transaction): nothing is overwritten silently.
+   */
+  int copyNew(List<ValidReading> readings) {
+    if (readings.isEmpty()) {
+      return 0;
+    }
+    BinaryCopy rows = new BinaryCopy(readings.size(), 110);
+    for (ValidReading r : readings) {
+      rows.row(7)
+          .text(r.samplePointId())
+          .text(r.parameter().code())
+          .timestamp(r.time())
+          .float8(r.value())
+          .int2(r.quality().code())
+          .float8(r.sampleTemperatureCel())
+          .bool(r.compensated());
+    }
+    Long n = jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));
+    return n == null ? 0 : n.intValue();
   }
 }

@@ -4,6 +4,7 @@ import java.time.Clock;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
+import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -65,7 +66,8 @@ final class ReadingValidator {
         rejected.add(new RejectedReading(i, "time", "missing"));
       } else {
         try {
-          time = OffsetDateTime.parse(in.time()).toInstant();
+          // stored to the microsecond, as PostgreSQL keeps it
+          time = OffsetDateTime.parse(in.time()).toInstant().truncatedTo(ChronoUnit.MICROS);
           if (time.isAfter(latest)) {
             rejected.add(
                 new RejectedReading(

@@ -1,0 +1,217 @@
+package org.kwanta.service.readings;
+
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.Iterator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.NavigableSet;
+import java.util.TreeSet;
+import org.kwanta.service.evaluations.EvaluationRunner;
+import org.kwanta.service.evaluations.EvaluationRunner.StoredReading;
+
+/**
+ * The last hours of readings of recently ingested sample points, in memory, so that evaluating a
+ * new batch does not read the point's history back from PostgreSQL. A copy of a point holds
+ * <em>every</em> stored reading of the point from {@link PointHistory#coveredFrom()} on, as of
+ * generation {@link PointHistory#generation()} of the point's {@code reading_head} row; the ingest
+ * uses it only when the row still has that generation (see migration V31), so writes by another
+ * instance or by hand are never missed.
+ *
+ * <p>Not thread-safe: only the ingest's combining thread (one at a time) touches it. Bounded by a
+ * total number of readings; the least recently used points are dropped first.
+ */
+final class RecentReadings {
+
+  /** Time, then parameter code: the order the evaluation runner expects. */
+  static final Comparator<StoredReading> ORDER =
+      Comparator.comparing(StoredReading::time).thenComparing(StoredReading::parameter);
+
+  private final int maxReadings;
+  private final LinkedHashMap<String, PointHistory> points = new LinkedHashMap<>(64, 0.75f, true);
+  private long total;
+
+  RecentReadings(int maxReadings) {
+    this.maxReadings = maxReadings;
+  }
+
+  /** The copy of a point, if it is at the given generation; otherwise none (and it is dropped). */
+  PointHistory current(String samplePointId, long generation) {
+    PointHistory h = points.get(samplePointId);
+    if (h == null) {
+      return null;
+    }
+    if (h.generation != generation) {
+      forget(samplePointId);
+      return null;
+    }
+    return h;
+  }
+
+  /** Starts a copy from readings loaded from the database (all those at or after {@code from}). */
+  PointHistory start(String samplePointId, Instant from, Collection<StoredReading> loaded) {
+    forget(samplePointId);
+    PointHistory h = new PointHistory(from);
+    for (StoredReading r : loaded) {
+      h.put(r);
+    }
+    points.put(samplePointId, h);
+    h.accounted = h.readings.size();
+    total += h.accounted;
+    return h;
+  }
+
+  /** Drops a point's copy (after a failed transaction, or when it cannot be kept current). */
+  void forget(String samplePointId) {
+    PointHistory h = points.remove(samplePointId);
+    if (h != null) {
+      total -= h.accounted;
+    }
+  }
+
+  /** Drops every copy. */
+  void clear() {
+    points.clear();
+    total = 0;
+  }
+
+  /**
+   * After a commit: stamps the copy with its new generation, drops readings before {@code
+   * keepFrom}, and evicts the least recently used points while over the size bound.
+   */
+  void committed(String samplePointId, long generation, Instant keepFrom) {
+    PointHistory h = points.get(samplePointId);
+    if (h == null) {
+      return;
+    }
+    h.generation = generation;
+    h.trim(keepFrom);
+    total += h.readings.size() - h.accounted;
+    h.accounted = h.readings.size();
+  }
+
+  /** Evicts least recently used points until the total is within bounds. */
+  void evict() {
+    Iterator<Map.Entry<String, PointHistory>> it = points.entrySet().iterator();
+    while (total > maxReadings && it.hasNext()) {
+      total -= it.next().getValue().accounted;
+      it.remove();
+    }
+  }
+
+  /** Readings held, over all points (for tests and metrics). */
+  long size() {
+    return total;
+  }
+
+  /** Points held. */
+  int points() {
+    return points.size();
+  }
+
+  /** The copy of one sample point. */
+  static final class PointHistory {
+    private long generation = Long.MIN_VALUE;
+    private Instant coveredFrom;
+    private final TreeSet<StoredReading> readings = new TreeSet<>(ORDER);
+    private int accounted;
+
+    private PointHistory(Instant coveredFrom) {
+      this.coveredFrom = coveredFrom;
+    }
+
+    long generation() {
+      return generation;
+    }
+
+    /** Every stored reading of the point at or after this time is held. */
+    Instant coveredFrom() {
+      return coveredFrom;
+    }
+
+    /** The held reading with the same parameter and time, or null. */
+    StoredReading find(String parameter, Instant time) {
+      StoredReading probe = new StoredReading(parameter, time, 0, (short) 0, 0, false);
+      StoredReading found = readings.ceiling(probe);
+      return found != null && found.time().equals(time) && found.parameter().equals(parameter)
+          ? found
+          : null;
+    }
+
+    /** Whether a held reading at exactly this time has a parameter the filter accepts. */
+    boolean anyAt(Instant time, java.util.function.Predicate<String> parameter) {
+      for (StoredReading r :
+          readings.subSet(
+              new StoredReading("", time, 0, (short) 0, 0, false),
+              true,
+              new StoredReading("\uffff", time, 0, (short) 0, 0, false),
+              true)) {
+        if (parameter.test(r.parameter())) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    /** Adds or replaces a reading. */
+    void put(StoredReading r) {
+      if (!readings.add(r)) {
+        readings.remove(r);
+        readings.add(r);
+      }
+    }
+
+    private void trim(Instant keepFrom) {
+      if (keepFrom.isAfter(coveredFrom)) {
+        readings.headSet(new StoredReading("", keepFrom, 0, (short) 0, 0, false), false).clear();
+        coveredFrom = keepFrom;
+      }
+    }
+
+    /**
+     * What an evaluation of [from, to] needs, in the shape {@link EvaluationRunner#run} takes and
+     * {@code EvaluationStore.readings} returns: before the history bucket of {@code from} (back to
+     * {@code from − window}), only the latest good or uncertain reading of each parameter per
+     * bucket; from that bucket to {@code to}, every reading.
+     */
+    List<StoredReading> forEvaluation(Instant from, Instant to, java.time.Duration window) {
+      long bucketMillis = EvaluationRunner.bucketMillis(window);
+      Instant rawFrom =
+          Instant.ofEpochMilli(EvaluationRunner.bucketOf(from, bucketMillis) * bucketMillis);
+      Instant oldFrom = from.minus(window);
+      List<StoredReading> out = new ArrayList<>();
+      if (oldFrom.isBefore(rawFrom)) {
+        NavigableSet<StoredReading> old =
+            readings.subSet(
+                new StoredReading("\uffff", oldFrom, 0, (short) 0, 0, false),
+                false,
+                new StoredReading("", rawFrom, 0, (short) 0, 0, false),
+                false);
+        Map<String, Long> lastBucket = new HashMap<>();
+        for (StoredReading r : old.descendingSet()) {
+          if (r.quality() >= 2) {
+            continue;
+          }
+          long b = EvaluationRunner.bucketOf(r.time(), bucketMillis);
+          Long seen = lastBucket.get(r.parameter());
+          if (seen == null || seen != b) {
+            lastBucket.put(r.parameter(), b);
+            out.add(r);
+          }
+        }
+        out.sort(ORDER);
+      }
+      out.addAll(
+          readings.subSet(
+              new StoredReading("", rawFrom, 0, (short) 0, 0, false),
+              true,
+              new StoredReading("\uffff", to, 0, (short) 0, 0, false),
+              true));
+      return out;
+    }
+  }
+}
