@@ -48,7 +48,7 @@ public final class EvaluationRunner {
    *
    * @param readings the point's readings from {@code from − historyWindow} to {@code to}, ordered
    *     by time; before the bucket of {@code from}, the latest of each parameter per bucket is
-   *     enough (see {@link #latestPerBucket})
+   *     enough (see {@link #HISTORY_BUCKETS})
    */
   public static List<Result> run(
       SamplePointConfigs.Versioned config,
@@ -65,21 +65,47 @@ public final class EvaluationRunner {
     }
     List<Result> out = new ArrayList<>(times.size());
     long bucketMillis = bucketMillis(historyWindow);
+    // per reading, once: its slot (engine parameter or sample temperature; -1: not used) and bucket
+    int n = readings.size();
+    int[] slot = new int[n];
+    long[] bucket = new long[n];
+    for (int i = 0; i < n; i++) {
+      StoredReading r = readings.get(i);
+      slot[i] = r.quality() == 2 ? -1 : slot(r.parameter());
+      bucket[i] = bucketOf(r.time(), bucketMillis);
+    }
+    long[] lastBucket = new long[SLOTS];
+    List<StoredReading> seen = new ArrayList<>();
     int start = 0;
     int end = 0;
     for (Instant t : times) {
       Instant windowStart = t.minus(historyWindow);
-      while (start < readings.size() && !readings.get(start).time().isAfter(windowStart)) {
+      while (start < n && !readings.get(start).time().isAfter(windowStart)) {
         start++;
       }
-      while (end < readings.size() && !readings.get(end).time().isAfter(t)) {
+      while (end < n && !readings.get(end).time().isAfter(t)) {
         end++;
+      }
+      // The history this evaluation sees: the latest good or uncertain reading of each parameter in
+      // each bucket. So the trend, flat-line and persistence checks cost the same at 1-second or
+      // 1-minute resolution, the database need only return the latest reading per bucket for the
+      // older part of a window, and an evaluation depends only on the stored readings, whatever
+      // their arrival order.
+      java.util.Arrays.fill(lastBucket, Long.MIN_VALUE);
+      seen.clear();
+      for (int i = end - 1; i >= start; i--) {
+        int k = slot[i];
+        if (k >= 0 && lastBucket[k] != bucket[i]) {
+          lastBucket[k] = bucket[i];
+          seen.add(readings.get(i));
+        }
       }
       Map<Parameter, List<Reading>> history = new EnumMap<>(Parameter.class);
       List<String> notes = new ArrayList<>();
       double lastSampleTemperatureCel = Double.NaN;
       Instant lastSampleTemperatureTime = null;
-      for (StoredReading r : latestPerBucket(readings, start, end, bucketMillis)) {
+      for (int j = seen.size() - 1; j >= 0; j--) {
+        StoredReading r = seen.get(j);
         if ("sample_temperature".equals(r.parameter())) {
           lastSampleTemperatureCel = r.value();
           lastSampleTemperatureTime = r.time();
@@ -168,33 +194,6 @@ public final class EvaluationRunner {
     return Math.floorDiv(t.toEpochMilli(), bucketMillis);
   }
 
-  /**
-   * The history an evaluation sees: of the readings {@code [start, end)} (time-ordered, all within
-   * the window), only the latest good or uncertain reading of each parameter in each bucket. So the
-   * trend, flat-line and persistence checks cost the same at 1-second or 1-minute resolution, the
-   * database need only return the latest reading per bucket for the older part of a window, and an
-   * evaluation depends only on the stored readings, whatever their arrival order.
-   */
-  static List<StoredReading> latestPerBucket(
-      List<StoredReading> readings, int start, int end, long bucketMillis) {
-    List<StoredReading> out = new ArrayList<>();
-    Map<String, Long> lastBucket = new java.util.HashMap<>();
-    for (int i = end - 1; i >= start; i--) {
-      StoredReading r = readings.get(i);
-      if (r.quality() == 2) {
-        continue; // bad quality never enters an evaluation
-      }
-      long b = bucketOf(r.time(), bucketMillis);
-      Long seen = lastBucket.get(r.parameter());
-      if (seen == null || seen != b) {
-        lastBucket.put(r.parameter(), b);
-        out.add(r);
-      }
-    }
-    java.util.Collections.reverse(out);
-    return out;
-  }
-
   private static List<String> dedupe(List<String> notes) {
     return notes.isEmpty() ? List.of() : List.copyOf(new java.util.LinkedHashSet<>(notes));
   }
@@ -202,6 +201,17 @@ public final class EvaluationRunner {
   /** Whether readings of this parameter make evaluation times. */
   public static boolean relevant(String parameter) {
     return "sample_temperature".equals(parameter) || engineParameter(parameter) != null;
+  }
+
+  private static final int SLOTS = Parameter.values().length + 1;
+
+  /** Index of a parameter the evaluation uses (engine parameters, then sample temperature). */
+  private static int slot(String code) {
+    if ("sample_temperature".equals(code)) {
+      return SLOTS - 1;
+    }
+    Parameter p = engineParameter(code);
+    return p == null ? -1 : p.ordinal();
   }
 
   static Parameter engineParameter(String code) {

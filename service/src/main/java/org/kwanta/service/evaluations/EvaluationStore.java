@@ -55,9 +55,8 @@ public class EvaluationStore {
    * The readings an evaluation of the point over [from, to] needs, ordered by time: raw from the
    * history bucket of {@code from} to {@code to}; before that, back to {@code from − window}, only
    * the latest reading of each parameter per history bucket (all an evaluation uses of them, see
-   * {@link EvaluationRunner#latestPerBucket}, which also skips bad-quality readings; their times
-   * are still evaluation times, so a reading corrected to bad quality gets its evaluation
-   * recomputed).
+   * {@link EvaluationRunner#run}, which also skips bad-quality readings; their times are still
+   * evaluation times, so a reading corrected to bad quality gets its evaluation recomputed).
    */
   public List<EvaluationRunner.StoredReading> readings(
       String samplePointId, Instant from, Instant to, java.time.Duration window) {

@@ -66,7 +66,7 @@ public class IngestService {
     this.jdbc = jdbc;
     this.limits = limits;
     this.validator = new ReadingValidator(limits, clock);
-    this.recent = new RecentReadings(limits.recentReadings());
+    this.recent = new RecentReadings(limits.recentReadings(), limits.historyWindow());
   }
 
   /** The outcome of an accepted batch. */

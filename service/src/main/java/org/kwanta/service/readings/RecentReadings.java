@@ -9,7 +9,6 @@ import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.NavigableSet;
 import java.util.TreeSet;
 import org.kwanta.service.evaluations.EvaluationRunner;
 import org.kwanta.service.evaluations.EvaluationRunner.StoredReading;
@@ -32,11 +31,13 @@ final class RecentReadings {
       Comparator.comparing(StoredReading::time).thenComparing(StoredReading::parameter);
 
   private final int maxReadings;
+  private final long bucketMillis;
   private final LinkedHashMap<String, PointHistory> points = new LinkedHashMap<>(64, 0.75f, true);
   private long total;
 
-  RecentReadings(int maxReadings) {
+  RecentReadings(int maxReadings, java.time.Duration historyWindow) {
     this.maxReadings = maxReadings;
+    this.bucketMillis = EvaluationRunner.bucketMillis(historyWindow);
   }
 
   /** The copy of a point, if it is at the given generation; otherwise none (and it is dropped). */
@@ -55,7 +56,7 @@ final class RecentReadings {
   /** Starts a copy from readings loaded from the database (all those at or after {@code from}). */
   PointHistory start(String samplePointId, Instant from, Collection<StoredReading> loaded) {
     forget(samplePointId);
-    PointHistory h = new PointHistory(from);
+    PointHistory h = new PointHistory(from, bucketMillis);
     for (StoredReading r : loaded) {
       h.put(r);
     }
@@ -118,10 +119,19 @@ final class RecentReadings {
     private long generation = Long.MIN_VALUE;
     private Instant coveredFrom;
     private final TreeSet<StoredReading> readings = new TreeSet<>(ORDER);
+    private final long bucketMillis;
+
+    /**
+     * Per parameter that evaluations use, per history bucket, the latest good or uncertain reading:
+     * what an evaluation sees of the older part of its window.
+     */
+    private final Map<String, java.util.TreeMap<Long, StoredReading>> latestGood = new HashMap<>();
+
     private int accounted;
 
-    private PointHistory(Instant coveredFrom) {
+    private PointHistory(Instant coveredFrom, long bucketMillis) {
       this.coveredFrom = coveredFrom;
+      this.bucketMillis = bucketMillis;
     }
 
     long generation() {
@@ -163,11 +173,48 @@ final class RecentReadings {
         readings.remove(r);
         readings.add(r);
       }
+      if (!EvaluationRunner.relevant(r.parameter())) {
+        return;
+      }
+      long b = EvaluationRunner.bucketOf(r.time(), bucketMillis);
+      java.util.TreeMap<Long, StoredReading> buckets =
+          latestGood.computeIfAbsent(r.parameter(), k -> new java.util.TreeMap<>());
+      StoredReading latest = buckets.get(b);
+      if (r.quality() < 2 && (latest == null || !r.time().isBefore(latest.time()))) {
+        buckets.put(b, r);
+      } else if (latest != null && latest.time().equals(r.time())) {
+        // the bucket's latest good reading turned bad: look for the one before it
+        buckets.remove(b);
+        for (StoredReading x :
+            readings
+                .subSet(
+                    new StoredReading(
+                        "", Instant.ofEpochMilli(b * bucketMillis), 0, (short) 0, 0, false),
+                    true,
+                    r,
+                    false)
+                .descendingSet()) {
+          if (x.parameter().equals(r.parameter()) && x.quality() < 2) {
+            buckets.put(b, x);
+            break;
+          }
+        }
+      }
     }
 
     private void trim(Instant keepFrom) {
       if (keepFrom.isAfter(coveredFrom)) {
         readings.headSet(new StoredReading("", keepFrom, 0, (short) 0, 0, false), false).clear();
+        long first = EvaluationRunner.bucketOf(keepFrom, bucketMillis);
+        for (java.util.TreeMap<Long, StoredReading> buckets : latestGood.values()) {
+          buckets.headMap(first, false).clear();
+          java.util.Map.Entry<Long, StoredReading> partial = buckets.firstEntry();
+          if (partial != null
+              && partial.getKey() == first
+              && partial.getValue().time().isBefore(keepFrom)) {
+            buckets.remove(first);
+          }
+        }
         coveredFrom = keepFrom;
       }
     }
@@ -185,22 +232,13 @@ final class RecentReadings {
       Instant oldFrom = from.minus(window);
       List<StoredReading> out = new ArrayList<>();
       if (oldFrom.isBefore(rawFrom)) {
-        NavigableSet<StoredReading> old =
-            readings.subSet(
-                new StoredReading("\uffff", oldFrom, 0, (short) 0, 0, false),
-                false,
-                new StoredReading("", rawFrom, 0, (short) 0, 0, false),
-                false);
-        Map<String, Long> lastBucket = new HashMap<>();
-        for (StoredReading r : old.descendingSet()) {
-          if (r.quality() >= 2) {
-            continue;
-          }
-          long b = EvaluationRunner.bucketOf(r.time(), bucketMillis);
-          Long seen = lastBucket.get(r.parameter());
-          if (seen == null || seen != b) {
-            lastBucket.put(r.parameter(), b);
-            out.add(r);
+        long firstBucket = EvaluationRunner.bucketOf(oldFrom, bucketMillis);
+        long rawBucket = EvaluationRunner.bucketOf(rawFrom, bucketMillis);
+        for (java.util.TreeMap<Long, StoredReading> buckets : latestGood.values()) {
+          for (StoredReading r : buckets.subMap(firstBucket, true, rawBucket, false).values()) {
+            if (r.time().isAfter(oldFrom)) {
+              out.add(r);
+            }
           }
         }
         out.sort(ORDER);
