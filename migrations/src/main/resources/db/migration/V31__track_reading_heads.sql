@@ -36,3 +36,12 @@ CREATE TRIGGER reading_truncated
     AFTER TRUNCATE ON reading
     FOR EACH STATEMENT
     EXECUTE FUNCTION reading_written_outside_ingest();
+
+-- Evaluations: the engine's full result is written once per evaluation and read back whole, so it is kept as
+-- JSON text (parsing it into jsonb on every insert cost more than the rest of the row). What queries filter on
+-- has columns of its own: finding_codes and, new here, the instruments the findings suspect.
+ALTER TABLE evaluation ADD COLUMN suspects text[] NOT NULL DEFAULT '{}';
+UPDATE evaluation
+SET suspects = ARRAY(SELECT DISTINCT f ->> 'suspect' FROM jsonb_array_elements(details -> 'findings') f ORDER BY 1)
+WHERE jsonb_array_length(details -> 'findings') > 0;
+ALTER TABLE evaluation ALTER COLUMN details TYPE text USING details::text;

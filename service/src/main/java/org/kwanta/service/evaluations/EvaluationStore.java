@@ -19,14 +19,15 @@ public class EvaluationStore {
       INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
           cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
           ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes,
-          details, evaluated_at)
+          suspects, details, evaluated_at)
       SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
-             t.pht_high, t.neutral, t.suspect, string_to_array(t.codes, ','), t.details::jsonb, now()
+             t.pht_high, t.neutral, t.suspect, string_to_array(t.codes, ','), string_to_array(t.suspects, ','),
+             t.details, now()
       FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
-                  ?::text[])
+                  ?::text[], ?::text[])
         AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
-             suspect, codes, details)
+             suspect, codes, suspects, details)
       ON CONFLICT (sample_point_id, time) DO UPDATE SET
           config_version = EXCLUDED.config_version,
           specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
@@ -39,6 +40,7 @@ public class EvaluationStore {
           neutral_ph_at_temperature = EXCLUDED.neutral_ph_at_temperature,
           suspect = EXCLUDED.suspect,
           finding_codes = EXCLUDED.finding_codes,
+          suspects = EXCLUDED.suspects,
           details = EXCLUDED.details,
           evaluated_at = now()
         WHERE e.details IS DISTINCT FROM EXCLUDED.details OR e.config_version <> EXCLUDED.config_version""";
@@ -126,6 +128,7 @@ public class EvaluationStore {
     Double[] neutral = new Double[n];
     Boolean[] suspect = new Boolean[n];
     String[] codes = new String[n];
+    String[] suspects = new String[n];
     String[] details = new String[n];
     for (int i = 0; i < n; i++) {
       EvaluationRunner.Result r = results.get(i);
@@ -147,6 +150,7 @@ public class EvaluationStore {
       codes[i] =
           String.join(
               ",", v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList());
+      suspects[i] = String.join(",", suspects(v));
       details[i] = json.writeValueAsString(v);
     }
     jdbc.execute(
@@ -165,25 +169,21 @@ public class EvaluationStore {
             ps.setArray(11, c.createArrayOf("float8", neutral));
             ps.setArray(12, c.createArrayOf("bool", suspect));
             ps.setArray(13, c.createArrayOf("text", codes));
-            ps.setArray(14, c.createArrayOf("text", details));
+            ps.setArray(14, c.createArrayOf("text", suspects));
+            ps.setArray(15, c.createArrayOf("text", details));
             return ps.executeUpdate();
           }
         });
   }
 
   /**
-   * Inserts evaluations at times that have none yet with binary COPY. An evaluation that exists
-   * after all fails the statement (and the transaction; the ingest then retries with {@link
-   * #upsert}).
+   * Encodes evaluations for {@link #copyNew} (thread-safe: the ingest encodes points in parallel).
    */
-  public void copyNew(List<EvaluationRunner.Result> results) {
-    if (results.isEmpty()) {
-      return;
-    }
-    BinaryCopy rows = new BinaryCopy(results.size(), 1800);
+  public BinaryCopy encode(List<EvaluationRunner.Result> results) {
+    BinaryCopy rows = BinaryCopy.fragment(results.size(), 1800);
     for (EvaluationRunner.Result r : results) {
       EvaluationView v = r.view();
-      rows.row(14)
+      rows.row(15)
           .text(r.samplePointId())
           .timestamp(r.time())
           .int4(v.configVersion())
@@ -205,16 +205,39 @@ public class EvaluationStore {
       rows.bool(v.suspect())
           .textArray(
               v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList())
-          .jsonb(json.writeValueAsBytes(v));
+          .textArray(suspects(v))
+          .text(json.writeValueAsString(v));
     }
-    jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));
+    return rows;
+  }
+
+  /**
+   * Inserts encoded evaluations at times that have none yet with binary COPY. An evaluation that
+   * exists after all fails the statement (and the transaction; the ingest then retries the batch
+   * with {@link #upsert}).
+   */
+  public void copyNew(List<BinaryCopy> encoded) {
+    BinaryCopy all = new BinaryCopy(0, 0);
+    encoded.forEach(all::append);
+    if (all.rows() > 0) {
+      jdbc.execute((Connection c) -> all.send(c, COPY_TARGET));
+    }
   }
 
   static final String COPY_TARGET =
       """
       evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
-          ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes, details)""";
+          ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes, suspects, details)""";
+
+  /** The instruments the findings suspect, distinct, sorted. */
+  static List<String> suspects(EvaluationView v) {
+    return v.findings().stream()
+        .map(EvaluationView.FindingView::suspect)
+        .distinct()
+        .sorted()
+        .toList();
+  }
 
   private static Double finite(double v) {
     return Double.isFinite(v) ? v : null;

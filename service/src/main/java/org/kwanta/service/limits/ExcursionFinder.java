@@ -68,9 +68,8 @@ public class ExcursionFinder {
         jdbc.sql(
                 """
                 SELECT r.time, r.value,
-                       r.quality = 2 OR coalesce(EXISTS (
-                           SELECT 1 FROM jsonb_array_elements(e.details -> 'findings') f
-                           WHERE f ->> 'suspect' IN (?, 'SAMPLE_CONDITIONING')), false)
+                       r.quality = 2
+                         OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false)
                 FROM reading r
                 LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
                 WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?

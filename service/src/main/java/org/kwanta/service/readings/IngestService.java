@@ -15,6 +15,7 @@ import org.kwanta.service.evaluations.EvaluationRunner;
 import org.kwanta.service.evaluations.EvaluationStore;
 import org.kwanta.service.metrics.IngestMetrics;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
+import org.kwanta.service.system.BinaryCopy;
 import org.kwanta.service.system.DatabaseOutage;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Service;
@@ -42,6 +43,23 @@ public class IngestService {
   private final TransactionTemplate transaction;
   private final IngestMetrics metrics;
   private final RecentReadings recent;
+
+  /** Evaluates sample points of a group in parallel with the group's database writes. */
+  private final java.util.concurrent.ExecutorService evaluators =
+      java.util.concurrent.Executors.newFixedThreadPool(
+          Math.max(2, Runtime.getRuntime().availableProcessors()),
+          new java.util.concurrent.ThreadFactory() {
+            private final java.util.concurrent.atomic.AtomicInteger count =
+                new java.util.concurrent.atomic.AtomicInteger();
+
+            @Override
+            public Thread newThread(Runnable r) {
+              Thread t = new Thread(r, "kwanta-evaluate-" + count.getAndIncrement());
+              t.setDaemon(true);
+              return t;
+            }
+          });
+
   private final java.util.concurrent.ConcurrentLinkedQueue<Pending> queue =
       new java.util.concurrent.ConcurrentLinkedQueue<>();
   private final java.util.concurrent.locks.ReentrantLock combining =
@@ -389,55 +407,79 @@ public class IngestService {
         p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
       }
     }
-    readings.copyNew(fresh);
-    if (!corrections.isEmpty()) {
-      ReadingStore.Counts counts = readings.upsert(corrections);
-      if (counts.corrected() != corrections.size()) {
-        throw new IllegalStateException(
-            "in-memory readings out of step with the database; the batch is retried");
+    // evaluate the points held in memory on the evaluation threads while the readings are written
+    Map<String, java.util.concurrent.Future<Evaluated>> running = new TreeMap<>();
+    for (Map.Entry<String, Instant[]> e : changed.entrySet()) {
+      RecentReadings.PointHistory copy = copies.get(e.getKey());
+      if (copy != null) {
+        String point = e.getKey();
+        Instant from = e.getValue()[0];
+        Instant to = e.getValue()[1].plus(window);
+        java.util.Set<Instant> firsts = newTimes.getOrDefault(point, java.util.Set.of());
+        running.put(
+            point,
+            evaluators.submit(
+                () ->
+                    evaluate(
+                        current.get(point),
+                        copy.forEvaluation(from, to, window),
+                        from,
+                        to,
+                        firsts)));
       }
     }
-    for (Pending p : group) {
-      if (p.uncovered.isEmpty()) {
-        continue;
-      }
-      ReadingStore.Counts counts = readings.upsert(p.uncovered);
-      p.inserted += counts.inserted();
-      p.corrected += counts.corrected();
-      p.unchanged += counts.unchanged();
-      if (counts.inserted() + counts.corrected() > 0) {
-        for (ValidReading r : p.uncovered) {
-          widen(changed, r.samplePointId(), r.time(), r.time());
-          p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+    Map<String, List<EvaluationRunner.Result>> results = new TreeMap<>();
+    List<BinaryCopy> created = new ArrayList<>();
+    List<EvaluationRunner.Result> recomputed = new ArrayList<>();
+    try {
+      readings.copyNew(fresh);
+      if (!corrections.isEmpty()) {
+        ReadingStore.Counts counts = readings.upsert(corrections);
+        if (counts.corrected() != corrections.size()) {
+          throw new IllegalStateException(
+              "in-memory readings out of step with the database; the batch is retried");
         }
       }
-    }
+      for (Pending p : group) {
+        if (p.uncovered.isEmpty()) {
+          continue;
+        }
+        ReadingStore.Counts counts = readings.upsert(p.uncovered);
+        p.inserted += counts.inserted();
+        p.corrected += counts.corrected();
+        p.unchanged += counts.unchanged();
+        if (counts.inserted() + counts.corrected() > 0) {
+          for (ValidReading r : p.uncovered) {
+            widen(changed, r.samplePointId(), r.time(), r.time());
+            p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+          }
+        }
+      }
 
-    // recompute every evaluation the changes can affect: [first change, last change + window]
-    Map<String, List<EvaluationRunner.Result>> results = new TreeMap<>();
-    List<EvaluationRunner.Result> all = new ArrayList<>();
-    for (Map.Entry<String, Instant[]> e : changed.entrySet()) {
-      String point = e.getKey();
-      Instant from = e.getValue()[0];
-      Instant to = e.getValue()[1].plus(window);
-      RecentReadings.PointHistory copy = copies.get(point);
-      List<EvaluationRunner.StoredReading> history =
-          copy != null
-              ? copy.forEvaluation(from, to, window)
-              : evaluations.readings(point, from, to, window);
-      List<EvaluationRunner.Result> computed =
-          metrics.timeEvaluation(
-              () ->
-                  EvaluationRunner.run(
-                      current.get(point), history, from, to, window, limits.maxAge()));
-      results.put(point, computed);
-      all.addAll(computed);
-    }
-    List<EvaluationRunner.Result> created = new ArrayList<>();
-    List<EvaluationRunner.Result> recomputed = new ArrayList<>();
-    for (EvaluationRunner.Result x : all) {
-      java.util.Set<Instant> firsts = newTimes.get(x.samplePointId());
-      (firsts != null && firsts.contains(x.time()) ? created : recomputed).add(x);
+      // recompute every evaluation the changes can affect: [first change, last change + window]
+      for (Map.Entry<String, Instant[]> e : changed.entrySet()) {
+        String point = e.getKey();
+        Evaluated done;
+        if (running.containsKey(point)) {
+          done = join(running.get(point));
+        } else {
+          Instant from = e.getValue()[0];
+          Instant to = e.getValue()[1].plus(window);
+          done =
+              evaluate(
+                  current.get(point),
+                  evaluations.readings(point, from, to, window),
+                  from,
+                  to,
+                  java.util.Set.of());
+        }
+        results.put(point, done.all());
+        created.add(done.created());
+        recomputed.addAll(done.recomputed());
+      }
+    } catch (RuntimeException e) {
+      running.values().forEach(f -> f.cancel(true));
+      throw e;
     }
     evaluations.copyNew(created);
     evaluations.upsert(recomputed);
@@ -452,6 +494,51 @@ public class IngestService {
             }
           });
     }
+  }
+
+  /** A point's recomputed evaluations: new ones encoded for COPY, the others to upsert. */
+  private record Evaluated(
+      List<EvaluationRunner.Result> all,
+      BinaryCopy created,
+      List<EvaluationRunner.Result> recomputed) {}
+
+  private Evaluated evaluate(
+      SamplePointConfigs.Versioned config,
+      List<EvaluationRunner.StoredReading> history,
+      Instant from,
+      Instant to,
+      java.util.Set<Instant> firstEvaluated) {
+    List<EvaluationRunner.Result> all =
+        metrics.timeEvaluation(
+            () ->
+                EvaluationRunner.run(
+                    config, history, from, to, limits.historyWindow(), limits.maxAge()));
+    List<EvaluationRunner.Result> created = new ArrayList<>();
+    List<EvaluationRunner.Result> recomputed = new ArrayList<>();
+    for (EvaluationRunner.Result x : all) {
+      (firstEvaluated.contains(x.time()) ? created : recomputed).add(x);
+    }
+    return new Evaluated(all, evaluations.encode(created), recomputed);
+  }
+
+  private static <T> T join(java.util.concurrent.Future<T> f) {
+    try {
+      return f.get();
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("interrupted while evaluating", e);
+    } catch (java.util.concurrent.ExecutionException e) {
+      if (e.getCause() instanceof RuntimeException r) {
+        throw r;
+      }
+      throw new IllegalStateException(e.getCause());
+    }
+  }
+
+  /** Stops the evaluation threads (after the web server has finished its requests). */
+  @jakarta.annotation.PreDestroy
+  void stop() {
+    evaluators.shutdown();
   }
 
   private static EvaluationRunner.StoredReading stored(ValidReading r) {

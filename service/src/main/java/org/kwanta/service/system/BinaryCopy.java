@@ -32,16 +32,45 @@ public final class BinaryCopy {
   private final DataOutputStream out;
   private int rows;
 
+  private final boolean fragment;
+
   public BinaryCopy(int expectedRows, int bytesPerRow) {
+    this(expectedRows, bytesPerRow, false);
+  }
+
+  private BinaryCopy(int expectedRows, int bytesPerRow, boolean fragment) {
+    this.fragment = fragment;
     bytes = new ByteArrayOutputStream(19 + expectedRows * bytesPerRow);
     out = new DataOutputStream(bytes);
+    if (!fragment) {
+      try {
+        out.write(SIGNATURE);
+        out.writeInt(0); // flags
+        out.writeInt(0); // header extension length
+      } catch (IOException e) {
+        throw new UncheckedIOException(e);
+      }
+    }
+  }
+
+  /** Rows without the header, to be {@linkplain #append appended} to a whole COPY later. */
+  public static BinaryCopy fragment(int expectedRows, int bytesPerRow) {
+    return new BinaryCopy(expectedRows, bytesPerRow, true);
+  }
+
+  /** Appends the rows of a fragment. */
+  public BinaryCopy append(BinaryCopy rowsOnly) {
+    if (!rowsOnly.fragment) {
+      throw new IllegalArgumentException("only a fragment can be appended");
+    }
     try {
-      out.write(SIGNATURE);
-      out.writeInt(0); // flags
-      out.writeInt(0); // header extension length
+      rowsOnly.out.flush();
+      rowsOnly.bytes.writeTo(out);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
+    rows += rowsOnly.rows;
+    return this;
   }
 
   /** Starts a row of the given number of columns. */
@@ -133,18 +162,6 @@ public final class BinaryCopy {
     return this;
   }
 
-  /** A jsonb value from UTF-8 JSON text (binary jsonb format version 1: the text itself). */
-  public BinaryCopy jsonb(byte[] utf8Json) {
-    try {
-      out.writeInt(utf8Json.length + 1);
-      out.writeByte(1);
-      out.write(utf8Json);
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
-    return this;
-  }
-
   /** A one-dimensional text[] without NULL elements (empty: a zero-dimensional array). */
   public BinaryCopy textArray(List<String> values) {
     try {
@@ -181,6 +198,9 @@ public final class BinaryCopy {
    * (in its transaction) and returns the number of rows the server took.
    */
   public long send(Connection connection, String target) throws SQLException {
+    if (fragment) {
+      throw new IllegalStateException("a fragment cannot be sent alone");
+    }
     try {
       out.writeShort(-1); // trailer
       out.flush();
