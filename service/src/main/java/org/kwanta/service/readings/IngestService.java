@@ -316,7 +316,9 @@ public class IngestService {
 
   private void store(List<Pending> group, Map<String, Kept> kept, boolean fast) {
     Duration window = limits.historyWindow();
-    Duration keep = window.multipliedBy(2);
+    // what is kept in memory per point: a history window back from its latest reading, and a
+    // quarter window more so that slightly late data still finds its history there
+    Duration keep = window.plus(window.dividedBy(4));
     // the group's time range per point, and its points' heads, locked in id order: concurrent
     // transactions for the same point (from this or another instance) run one after the other
     Map<String, Instant[]> groupRanges = new TreeMap<>();
@@ -332,7 +334,7 @@ public class IngestService {
     Map<String, SamplePointConfigs.Versioned> current = configs.current(groupRanges.keySet());
 
     // which points have an in-memory copy that covers the group's evaluations
-    Map<String, RecentReadings.PointHistory> copies = new TreeMap<>();
+    Map<String, RecentReadings.PointHistory> copies = new java.util.HashMap<>();
     Map<String, Instant> toLoad = new TreeMap<>();
     for (Map.Entry<String, Instant[]> e : groupRanges.entrySet()) {
       String point = e.getKey();
@@ -373,39 +375,57 @@ public class IngestService {
     List<ValidReading> fresh = new ArrayList<>();
     List<ValidReading> corrections = new ArrayList<>();
     Map<String, Instant[]> changed = new TreeMap<>();
-    // per point, whether each time seen had an evaluation before this group (a relevant reading)
-    Map<String, Map<Instant, Boolean>> evaluatedBefore = new TreeMap<>();
-    Map<String, java.util.Set<Instant>> newTimes = new TreeMap<>();
+    // per point, the times at which this group makes the first evaluation (no relevant reading
+    // there before the group), and the times already judged
+    Map<String, java.util.Set<Instant>> newTimes = new java.util.HashMap<>();
+    Map<String, Map<Instant, Boolean>> judged = new java.util.HashMap<>();
     for (Pending p : group) {
+      Map<String, int[]> changedPerPoint = new java.util.HashMap<>();
       for (ValidReading r : p.readings) {
-        RecentReadings.PointHistory copy = copies.get(r.samplePointId());
+        String point = r.samplePointId();
+        RecentReadings.PointHistory copy = copies.get(point);
         if (copy == null) {
           p.uncovered.add(r);
           continue;
         }
-        boolean hadEvaluation =
-            evaluatedBefore
-                .computeIfAbsent(r.samplePointId(), k -> new java.util.HashMap<>())
-                .computeIfAbsent(r.time(), t -> copy.anyAt(t, EvaluationRunner::relevant));
-        if (!hadEvaluation && EvaluationRunner.relevant(r.parameter().code())) {
-          newTimes.computeIfAbsent(r.samplePointId(), k -> new java.util.HashSet<>()).add(r.time());
-        }
         EvaluationRunner.StoredReading now = stored(r);
         EvaluationRunner.StoredReading before = copy.find(now.parameter(), now.time());
         if (before == null) {
+          if (EvaluationRunner.relevant(now.parameter())) {
+            // judged before the first put at this time, so the group's own readings do not count
+            boolean first =
+                judged
+                    .computeIfAbsent(point, k -> new java.util.HashMap<>())
+                    .computeIfAbsent(now.time(), t -> !copy.anyAt(t, EvaluationRunner::relevant));
+            if (first) {
+              newTimes.computeIfAbsent(point, k -> new java.util.HashSet<>()).add(now.time());
+            }
+          }
           fresh.add(r);
           p.inserted++;
         } else if (same(before, now)) {
           p.unchanged++;
           continue;
         } else {
+          // a correction at a time that had a relevant reading: never a first evaluation
+          judged
+              .computeIfAbsent(point, k -> new java.util.HashMap<>())
+              .putIfAbsent(now.time(), !copy.anyAt(now.time(), EvaluationRunner::relevant));
           corrections.add(r);
           p.corrected++;
         }
         copy.put(now);
-        widen(changed, r.samplePointId(), r.time(), r.time());
-        p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
+        Instant[] range = changed.get(point);
+        if (range == null) {
+          changed.put(point, new Instant[] {now.time(), now.time()});
+        } else {
+          range[0] = min(range[0], now.time());
+          range[1] = max(range[1], now.time());
+        }
+        changedPerPoint.computeIfAbsent(point, k -> new int[1])[0]++;
       }
+      changedPerPoint.forEach(
+          (point, n) -> p.changedPerPlant.merge(current.get(point).plantId(), n[0], Integer::sum));
     }
     // evaluate the points held in memory on the evaluation threads while the readings are written
     Map<String, java.util.concurrent.Future<Evaluated>> running = new TreeMap<>();

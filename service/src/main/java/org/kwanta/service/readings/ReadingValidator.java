@@ -33,6 +33,7 @@ final class ReadingValidator {
     Instant now = clock.instant();
     Instant latest = now.plus(limits.futureSkew());
     Instant earliest = now.minus(limits.pastHorizon());
+    java.util.Map<String, Instant> parsedTimes = new java.util.HashMap<>();
     for (int i = 0; i < inputs.size(); i++) {
       ReadingInput in = inputs.get(i);
       int before = rejected.size();
@@ -66,8 +67,12 @@ final class ReadingValidator {
         rejected.add(new RejectedReading(i, "time", "missing"));
       } else {
         try {
-          // stored to the microsecond, as PostgreSQL keeps it
-          time = OffsetDateTime.parse(in.time()).toInstant().truncatedTo(ChronoUnit.MICROS);
+          // stored to the microsecond, as PostgreSQL keeps it; readings of a batch share times
+          time = parsedTimes.get(in.time());
+          if (time == null) {
+            time = OffsetDateTime.parse(in.time()).toInstant().truncatedTo(ChronoUnit.MICROS);
+            parsedTimes.put(in.time(), time);
+          }
           if (time.isAfter(latest)) {
             rejected.add(
                 new RejectedReading(

@@ -28,7 +28,10 @@ final class RecentReadings {
 
   /** Time, then parameter code: the order the evaluation runner expects. */
   static final Comparator<StoredReading> ORDER =
-      Comparator.comparing(StoredReading::time).thenComparing(StoredReading::parameter);
+      (a, b) -> {
+        int c = a.time().compareTo(b.time());
+        return c != 0 ? c : a.parameter().compareTo(b.parameter());
+      };
 
   private final int maxReadings;
   private final long bucketMillis;
