@@ -306,6 +306,41 @@ class ReadingsIngestIT {
     assertThat(count(point)).isEqualTo(150);
   }
 
+  @Test
+  void aFailedFastWriteIsRetriedOnThePlainPath() {
+    // an evaluation row the in-memory history cannot know of (written by hand, no readings at its
+    // time) makes the fast path's COPY of evaluations fail; the batch must still be stored whole,
+    // on the plain path, with the same evaluations as a clean run
+    List<String> points = TestPlants.feedwaterPoints(http, 2);
+    Instant start = yesterday().plusSeconds(12 * 3600);
+    List<String> clean = feedwaterReadings(points.get(0), start, 30, 20);
+    List<String> disturbed = feedwaterReadings(points.get(1), start, 30, 20);
+    assertThat(post(clean.subList(0, 75)).statusCode()).isEqualTo(200);
+    assertThat(post(clean.subList(75, 150)).statusCode()).isEqualTo(200);
+    assertThat(post(disturbed.subList(0, 75)).statusCode()).isEqualTo(200);
+    jdbc.update(
+        "INSERT INTO evaluation (sample_point_id, time, config_version, suspect, finding_codes,"
+            + " details) VALUES (?, ?, 1, false, '{}', '{}')",
+        points.get(1),
+        java.sql.Timestamp.from(start.plusSeconds(20 * 20)));
+    double retriedBefore = retried();
+    HttpResponse<String> second = post(disturbed.subList(75, 150));
+    assertThat(second.statusCode()).isEqualTo(200);
+    assertThat(JSON.readTree(second.body()).get("inserted").asInt()).isEqualTo(75);
+    assertThat(retried()).isEqualTo(retriedBefore + 1);
+    assertThat(count(points.get(1))).isEqualTo(150);
+    assertThat(evaluations(points.get(1))).hasSize(30).isEqualTo(evaluations(points.get(0)));
+  }
+
+  private double retried() {
+    String scrape = http.get("/actuator/prometheus").body();
+    return scrape
+        .lines()
+        .filter(l -> l.startsWith("kwanta_ingest_retried_total"))
+        .mapToDouble(l -> Double.parseDouble(l.substring(l.lastIndexOf(' ') + 1)))
+        .sum();
+  }
+
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
         "SELECT time::text || ' ' || details::text FROM evaluation WHERE sample_point_id = ? ORDER BY time",
