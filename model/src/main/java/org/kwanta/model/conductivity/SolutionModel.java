@@ -203,6 +203,7 @@ public final class SolutionModel {
   public Solution solve(Solutes s, Solution near) {
     State st = new State();
     double[] n = amounts(s);
+    st.use(n, -1);
     double ionic = near == null ? 0 : near.ionicStrength();
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
@@ -264,6 +265,7 @@ public final class SolutionModel {
     int u = group(unknown);
     double[] n = amounts(base);
     State st = new State();
+    st.use(n, u);
     double ionic = near == null ? 0 : near.ionicStrength();
     double pHbg = Double.NaN;
     double pH = near == null ? Double.NaN : near.pH();
@@ -402,6 +404,17 @@ public final class SolutionModel {
     double g3 = 1;
     double lastPh = Double.NaN;
 
+    // at the current activity coefficients: Kw/γ₁, and the cumulative acid constants over the
+    // activity coefficients of their anions (carbonic K1/γ₁, K1K2/γ₂; phosphoric up to K1K2K3/γ₃)
+    double kwPerG1 = kw;
+    double c1 = k1c;
+    double c2 = k1c * k2c;
+    double p1 = k1p;
+    double p2 = k1p * k2p;
+    double p3 = k1p * k2p * k3p;
+    boolean carbonic = true;
+    boolean phosphoric = true;
+
     // species at the last pH
     double mH;
     double mOH;
@@ -455,19 +468,39 @@ public final class SolutionModel {
     }
 
     void activity(double ionicStrength) {
+      // Davies: log10 γ is z² times that of a monovalent ion, so γ₂ = γ₁⁴ and γ₃ = γ₁⁹
       g1 = Davies.gamma(dhA, 1, ionicStrength);
-      g2 = Davies.gamma(dhA, 2, ionicStrength);
-      g3 = Davies.gamma(dhA, 3, ionicStrength);
+      double g1Squared = g1 * g1;
+      g2 = g1Squared * g1Squared;
+      g3 = g2 * g2 * g1;
+      double inverseG1 = 1 / g1;
+      kwPerG1 = kw * inverseG1;
+      c1 = k1c * inverseG1;
+      c2 = k1c * k2c / g2;
+      p1 = k1p * inverseG1;
+      p2 = k1p * k2p / g2;
+      p3 = k1p * k2p * k3p / g3;
       lastPh = Double.NaN;
+    }
+
+    /**
+     * Leaves out the carbonic and phosphoric acid fractions from {@link #at} when the amounts n and
+     * the unknown group u (−1: none) hold none of them; their per-unit sums then stay zero and are
+     * only ever multiplied by a zero amount.
+     */
+    void use(double[] n, int u) {
+      carbonic = n[CAR] != 0 || u == CAR;
+      phosphoric = n[PHO] != 0 || u == PHO;
     }
 
     void at(double pH) {
       if (pH == lastPh) {
         return;
       }
-      double aH = Math.pow(10, -pH);
+      double aH = Math.exp(-LN10 * pH);
+      double inverseAH = 1 / aH;
       mH = aH / g1;
-      mOH = kw / (aH * g1);
+      mOH = kwPerG1 * inverseAH;
       qw = mH - mOH;
       qwL = mH + mOH;
       aw = mH * wa[H] + mOH * wa[OH];
@@ -505,12 +538,23 @@ public final class SolutionModel {
       uc[ALK] = q;
       ucL[ALK] = qL;
 
-      // carbonic acid: fractions f1 (HCO3-), f2 (CO3-2); mean charge nc; df_j/dL = f_j (nc − j)
-      double r1 = k1c / (aH * g1);
-      double r2 = k1c * k2c / (aH * aH * g2);
-      double d = 1 + r1 + r2;
-      fHco3 = r1 / d;
-      fCo3 = r2 / d;
+      if (carbonic) {
+        carbonic(inverseAH);
+      }
+      if (phosphoric) {
+        phosphoric(inverseAH);
+      }
+      lastPh = pH;
+    }
+
+    /** Carbonic acid at 1/a(H⁺). */
+    private void carbonic(double inverseAH) {
+      // fractions f1 (HCO3-), f2 (CO3-2); mean charge nc; df_j/dL = f_j (nc − j)
+      double r1 = c1 * inverseAH;
+      double r2 = c2 * inverseAH * inverseAH;
+      double inverseD = 1 / (1 + r1 + r2);
+      fHco3 = r1 * inverseD;
+      fCo3 = r2 * inverseD;
       double nc = fHco3 + 2 * fCo3;
       double e1 = fHco3 * (nc - 1);
       double e2 = fCo3 * (nc - 2);
@@ -522,15 +566,17 @@ public final class SolutionModel {
       ubL[CAR] = e1 * wb[HCO3] + e2 * wb[CO3];
       uc[CAR] = fHco3 + 4 * fCo3;
       ucL[CAR] = e1 + 4 * e2;
+    }
 
-      // phosphoric acid: H2PO4-, HPO4-2, PO4-3
-      double p1 = k1p / (aH * g1);
-      double p2 = k1p * k2p / (aH * aH * g2);
-      double p3 = k1p * k2p * k3p / (aH * aH * aH * g3);
-      double dp = 1 + p1 + p2 + p3;
-      fH2po4 = p1 / dp;
-      fHpo4 = p2 / dp;
-      fPo4 = p3 / dp;
+    /** Phosphoric acid at 1/a(H⁺): H2PO4-, HPO4-2, PO4-3. */
+    private void phosphoric(double inverseAH) {
+      double r1 = p1 * inverseAH;
+      double r2 = p2 * inverseAH * inverseAH;
+      double r3 = p3 * inverseAH * inverseAH * inverseAH;
+      double inverseD = 1 / (1 + r1 + r2 + r3);
+      fH2po4 = r1 * inverseD;
+      fHpo4 = r2 * inverseD;
+      fPo4 = r3 * inverseD;
       double np = fH2po4 + 2 * fHpo4 + 3 * fPo4;
       double h1 = fH2po4 * (np - 1);
       double h2 = fHpo4 * (np - 2);
@@ -543,7 +589,6 @@ public final class SolutionModel {
       ubL[PHO] = h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4];
       uc[PHO] = fH2po4 + 4 * fHpo4 + 9 * fPo4;
       ucL[PHO] = h1 + 4 * h2 + 9 * h3;
-      lastPh = pH;
     }
 
     /** Net charge of amounts n at the current pH, mol/kg (decreasing in pH). */
