@@ -1,6 +1,5 @@
 package org.kwanta.model.conductivity;
 
-import java.util.Arrays;
 import java.util.Map;
 import java.util.function.DoubleUnaryOperator;
 import org.kwanta.model.NoConvergenceException;
@@ -213,7 +212,7 @@ public final class SolutionModel {
       st.at(pH);
       double next = st.ionicStrength(n, 0, 0);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
+        return new Solution(s, pH, next, st.kappa(pH, n, 0, 0), water.temperatureK());
       }
       ionic = secant.next(ionic, next);
     }
@@ -290,8 +289,8 @@ public final class SolutionModel {
       double x = Math.max(0, st.amountAt(pH, n, u));
       double next = st.ionicStrength(n, u, x);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        Solutes s = base.with(unknown, x);
-        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
+        return new Solution(
+            base.with(unknown, x), pH, next, st.kappa(pH, n, u, x), water.temperatureK());
       }
       double accelerated = secant.next(ionic, next);
       ionic = plain ? next : accelerated;
@@ -418,12 +417,6 @@ public final class SolutionModel {
     // species at the last pH
     double mH;
     double mOH;
-    final double[] alpha = new double[baseKa.length];
-    double fHco3;
-    double fCo3;
-    double fH2po4;
-    double fHpo4;
-    double fPo4;
 
     // water (H⁺, OH⁻): charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺) (suffix L)
     double qw;
@@ -448,8 +441,6 @@ public final class SolutionModel {
     // result of the last evaluation of a search function: value and d/dpH
     double f;
     double df;
-
-    final double[] m = new double[N_IONS];
 
     State() {
       // the fully dissociated groups do not depend on pH
@@ -518,7 +509,6 @@ public final class SolutionModel {
       double bL = 0;
       for (int i = 0; i < baseKa.length; i++) {
         double al = aH / (aH + baseKa[i] * g1);
-        alpha[i] = al;
         double fr = baseFraction[i];
         double p = fr * al;
         double pL = p * (1 - al);
@@ -553,8 +543,8 @@ public final class SolutionModel {
       double r1 = c1 * inverseAH;
       double r2 = c2 * inverseAH * inverseAH;
       double inverseD = 1 / (1 + r1 + r2);
-      fHco3 = r1 * inverseD;
-      fCo3 = r2 * inverseD;
+      double fHco3 = r1 * inverseD;
+      double fCo3 = r2 * inverseD;
       double nc = fHco3 + 2 * fCo3;
       double e1 = fHco3 * (nc - 1);
       double e2 = fCo3 * (nc - 2);
@@ -574,9 +564,9 @@ public final class SolutionModel {
       double r2 = p2 * inverseAH * inverseAH;
       double r3 = p3 * inverseAH * inverseAH * inverseAH;
       double inverseD = 1 / (1 + r1 + r2 + r3);
-      fH2po4 = r1 * inverseD;
-      fHpo4 = r2 * inverseD;
-      fPo4 = r3 * inverseD;
+      double fH2po4 = r1 * inverseD;
+      double fHpo4 = r2 * inverseD;
+      double fPo4 = r3 * inverseD;
       double np = fH2po4 + 2 * fHpo4 + 3 * fPo4;
       double h1 = fH2po4 * (np - 1);
       double h2 = fHpo4 * (np - 2);
@@ -775,25 +765,6 @@ public final class SolutionModel {
         x = next;
       }
       return Double.NaN;
-    }
-
-    /** κ of totals at the current pH, by {@link IonConductivities#kappa(double[])}. */
-    double kappaOf(Solutes s) {
-      Arrays.fill(m, 0);
-      m[H] = mH;
-      m[OH] = mOH;
-      for (int i = 0; i < alpha.length; i++) {
-        m[baseCation[i]] += s.alkalizer() * baseFraction[i] * alpha[i];
-      }
-      m[NA] += s.sodium();
-      m[CL] += s.chloride();
-      m[SO4] += s.sulfate();
-      m[HCO3] += s.carbonate() * fHco3;
-      m[CO3] += s.carbonate() * fCo3;
-      m[H2PO4] += s.phosphate() * fH2po4;
-      m[HPO4] += s.phosphate() * fHpo4;
-      m[PO4] += s.phosphate() * fPo4;
-      return ions.kappa(m);
     }
   }
 }
