@@ -52,6 +52,12 @@ public final class SolutionModel {
    */
   private static final double NEWTON_LAST_STEP = 1e-9;
 
+  /**
+   * A last Newton step this small is not taken: the point it starts from is within a tenth of
+   * {@link #PH_TOLERANCE} of the root, and the species there are already computed.
+   */
+  private static final double NEGLIGIBLE_STEP = 1e-14;
+
   private static final int NEWTON_ITERATIONS = 100;
 
   /** A Newton result this close to a bracket end is not trusted (Brent decides instead). */
@@ -745,8 +751,9 @@ public final class SolutionModel {
         }
         double next = x - f / df;
         if (Math.abs(f / df) <= NEWTON_LAST_STEP && (next - neg) * (next - pos) <= 0) {
-          // converged: the step is below the tolerance (possibly below one ulp of x)
-          return trusted(next, lo, hi);
+          // converged: the step is below the tolerance (possibly below one ulp of x); when it
+          // is far below, x itself is as good a root and the species are already computed there
+          return trusted(Math.abs(f / df) <= NEGLIGIBLE_STEP ? x : next, lo, hi);
         }
         boolean useNewton =
             df != 0
