@@ -206,19 +206,17 @@ public final class SolutionModel {
    * @param near a solution to start from, or null
    */
   public Solution solve(Solutes s, Solution near) {
-    State st = new State();
-    double[] n = amounts(s);
-    st.use(n, -1);
+    State st = new State(s, -1);
     double ionic = near == null ? 0 : near.ionicStrength();
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pH = st.chargeRoot(n, pH);
+      pH = st.chargeRoot(pH);
       st.at(pH);
-      double next = st.ionicStrength(n, 0, 0);
+      double next = st.ionicStrength(0);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(s, pH, next, st.kappa(pH, n, 0, 0), water.temperatureK());
+        return new Solution(s, pH, next, st.kappa(pH, 0), water.temperatureK());
       }
       ionic = secant.next(ionic, next);
     }
@@ -267,18 +265,15 @@ public final class SolutionModel {
     if (unknown == Solute.SODIUM_CHLORIDE) {
       return fitNeutralSalt(base, kappaTarget);
     }
-    int u = group(unknown);
-    double[] n = amounts(base);
-    State st = new State();
-    st.use(n, u);
+    State st = new State(base, group(unknown));
     double ionic = near == null ? 0 : near.ionicStrength();
     double pHbg = Double.NaN;
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pHbg = st.chargeRoot(n, pHbg);
-      double kappaBg = st.kappa(pHbg, n, u, 0);
+      pHbg = st.chargeRoot(pHbg);
+      double kappaBg = st.kappa(pHbg, 0);
       boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
       if (plain || (near == null && it <= 1)) {
         // the iterates so far are the original's: decide as it did
@@ -289,14 +284,13 @@ public final class SolutionModel {
       } else if (marginal) {
         return fit(known, unknown, kappaTarget, null, true);
       }
-      boolean raisesPh = st.z[u] > 0;
+      boolean raisesPh = st.zu > 0;
       double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
-      pH = st.kappaRoot(n, u, kappaTarget, pH, pHbg, end, raisesPh);
-      double x = Math.max(0, st.amountAt(pH, n, u));
-      double next = st.ionicStrength(n, u, x);
+      pH = st.kappaRoot(kappaTarget, pH, pHbg, end, raisesPh);
+      double x = Math.max(0, st.amountAt(pH));
+      double next = st.ionicStrength(x);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(
-            base.with(unknown, x), pH, next, st.kappa(pH, n, u, x), water.temperatureK());
+        return new Solution(base.with(unknown, x), pH, next, st.kappa(pH, x), water.temperatureK());
       }
       double accelerated = secant.next(ionic, next);
       ionic = plain ? next : accelerated;
@@ -311,12 +305,6 @@ public final class SolutionModel {
    */
   private double activityMargin(double ionicStrength) {
     return 2 * (1 - Davies.gamma(dhA, 3, 2 * ionicStrength));
-  }
-
-  private static double[] amounts(Solutes s) {
-    return new double[] {
-      s.alkalizer(), s.sodium(), s.chloride(), s.sulfate(), s.carbonate(), s.phosphate()
-    };
   }
 
   private static int group(Solute u) {
@@ -400,13 +388,28 @@ public final class SolutionModel {
   }
 
   /**
-   * Working state of one solve or fit: activity coefficients, and at one trial pH the per-unit
-   * charge and conductivity sums of each solute group with their derivatives in ln a(H⁺).
+   * Working state of one solve or fit, for fixed amounts n (a fit's background) and an unknown
+   * group u: activity coefficients, and at one trial pH the charge and conductivity sums of water
+   * and n, and of a unit amount of u, with their derivatives in ln a(H⁺). The fully dissociated
+   * solutes of n add the same to these sums at every pH, so that part is summed once.
    */
   private final class State {
+    // the weak-electrolyte amounts of n, and whether a group enters (in n or as the unknown)
+    private final double nAlk;
+    private final double nCar;
+    private final double nPho;
+    private final int u;
+    private final boolean alkalizer;
+    private final boolean carbonic;
+    private final boolean phosphoric;
+
+    // the fully dissociated solutes of n: charge, Σ m·wa, Σ m·wb, Σ m·z² (independent of pH)
+    private final double strongQ;
+    private final double strongA;
+    private final double strongB;
+    private final double strongC;
+
     double g1 = 1;
-    double g2 = 1;
-    double g3 = 1;
     double lastPh = Double.NaN;
 
     // at the current activity coefficients: Kw/γ₁, and the cumulative acid constants over the
@@ -417,59 +420,77 @@ public final class SolutionModel {
     double p1 = k1p;
     double p2 = k1p * k2p;
     double p3 = k1p * k2p * k3p;
-    boolean carbonic = true;
-    boolean phosphoric = true;
 
     // species at the last pH
     double mH;
     double mOH;
 
-    // water (H⁺, OH⁻): charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺) (suffix L)
-    double qw;
-    double qwL;
-    double aw;
-    double awL;
-    double bw;
-    double bwL;
-    double cw;
-    double cwL;
+    // water and n at the last pH: charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺)
+    // (suffix L)
+    double q;
+    double qL;
+    double a;
+    double aL;
+    double b;
+    double bL;
+    double c;
+    double cL;
 
-    // per unit amount of each group: the same sums and derivatives
-    final double[] z = new double[GROUPS];
-    final double[] zL = new double[GROUPS];
-    final double[] ua = new double[GROUPS];
-    final double[] uaL = new double[GROUPS];
-    final double[] ub = new double[GROUPS];
-    final double[] ubL = new double[GROUPS];
-    final double[] uc = new double[GROUPS];
-    final double[] ucL = new double[GROUPS];
+    // the same for a unit amount of the unknown group
+    double zu;
+    double zuL;
+    double au;
+    double auL;
+    double bu;
+    double buL;
+    double cu;
+    double cuL;
 
     // result of the last evaluation of a search function: value and d/dpH
     double f;
     double df;
 
-    State() {
-      // the fully dissociated groups do not depend on pH
-      z[SOD] = 1;
-      ua[SOD] = wa[NA];
-      ub[SOD] = wb[NA];
-      uc[SOD] = 1;
-      z[CHL] = -1;
-      ua[CHL] = wa[CL];
-      ub[CHL] = wb[CL];
-      uc[CHL] = 1;
-      z[SUL] = -2;
-      ua[SUL] = wa[SO4];
-      ub[SUL] = wb[SO4];
-      uc[SUL] = 4;
+    /**
+     * @param n the fixed amounts
+     * @param u the unknown group, or −1 for a plain solve
+     */
+    State(Solutes n, int u) {
+      this.u = u;
+      nAlk = n.alkalizer();
+      nCar = n.carbonate();
+      nPho = n.phosphate();
+      alkalizer = nAlk != 0 || u == ALK;
+      carbonic = nCar != 0 || u == CAR;
+      phosphoric = nPho != 0 || u == PHO;
+      double na = n.sodium();
+      double cl = n.chloride();
+      double so4 = n.sulfate();
+      strongQ = na - cl - 2 * so4;
+      strongA = na * wa[NA] + cl * wa[CL] + so4 * wa[SO4];
+      strongB = na * wb[NA] + cl * wb[CL] + so4 * wb[SO4];
+      strongC = na + cl + 4 * so4;
+      // a fully dissociated unknown: its unit sums do not depend on pH
+      switch (u) {
+        case SOD -> unit(1, wa[NA], wb[NA], 1);
+        case CHL -> unit(-1, wa[CL], wb[CL], 1);
+        case SUL -> unit(-2, wa[SO4], wb[SO4], 4);
+        default -> {}
+      }
+    }
+
+    private void unit(double z, double ua, double ub, double uc) {
+      zu = z;
+      au = ua;
+      bu = ub;
+      cu = uc;
     }
 
     void activity(double ionicStrength) {
       // Davies: log10 γ is z² times that of a monovalent ion, so γ₂ = γ₁⁴ and γ₃ = γ₁⁹
       g1 = Davies.gamma(dhA, 1, ionicStrength);
       double g1Squared = g1 * g1;
-      g2 = g1Squared * g1Squared;
-      g3 = g2 * g2 * g1;
+      double g2 = g1Squared * g1Squared;
+      double g3 = g2 * g2 * g1;
       double inverseG1 = 1 / g1;
       kwPerG1 = kw * inverseG1;
       c1 = k1c * inverseG1;
@@ -480,16 +501,6 @@ public final class SolutionModel {
       lastPh = Double.NaN;
     }
 
-    /**
-     * Leaves out the carbonic and phosphoric acid fractions from {@link #at} when the amounts n and
-     * the unknown group u (−1: none) hold none of them; their per-unit sums then stay zero and are
-     * only ever multiplied by a zero amount.
-     */
-    void use(double[] n, int u) {
-      carbonic = n[CAR] != 0 || u == CAR;
-      phosphoric = n[PHO] != 0 || u == PHO;
-    }
-
     void at(double pH) {
       if (pH == lastPh) {
         return;
@@ -498,42 +509,17 @@ public final class SolutionModel {
       double inverseAH = 1 / aH;
       mH = aH / g1;
       mOH = kwPerG1 * inverseAH;
-      qw = mH - mOH;
-      qwL = mH + mOH;
-      aw = mH * wa[H] + mOH * wa[OH];
-      awL = mH * wa[H] - mOH * wa[OH];
-      bw = mH * wb[H] + mOH * wb[OH];
-      bwL = mH * wb[H] - mOH * wb[OH];
-      cw = mH + mOH;
-      cwL = mH - mOH;
-
-      double q = 0;
-      double qL = 0;
-      double a = 0;
-      double aL = 0;
-      double b = 0;
-      double bL = 0;
-      for (int i = 0; i < baseKa.length; i++) {
-        double al = aH / (aH + baseKa[i] * g1);
-        double fr = baseFraction[i];
-        double p = fr * al;
-        double pL = p * (1 - al);
-        q += p;
-        qL += pL;
-        a += p * baseA[i];
-        aL += pL * baseA[i];
-        b += p * baseB[i];
-        bL += pL * baseB[i];
+      q = mH - mOH + strongQ;
+      qL = mH + mOH;
+      a = mH * wa[H] + mOH * wa[OH] + strongA;
+      aL = mH * wa[H] - mOH * wa[OH];
+      b = mH * wb[H] + mOH * wb[OH] + strongB;
+      bL = mH * wb[H] - mOH * wb[OH];
+      c = mH + mOH + strongC;
+      cL = mH - mOH;
+      if (alkalizer) {
+        alkalizer(aH);
       }
-      z[ALK] = q;
-      zL[ALK] = qL;
-      ua[ALK] = a;
-      uaL[ALK] = aL;
-      ub[ALK] = b;
-      ubL[ALK] = bL;
-      uc[ALK] = q;
-      ucL[ALK] = qL;
-
       if (carbonic) {
         carbonic(inverseAH);
       }
@@ -541,6 +527,60 @@ public final class SolutionModel {
         phosphoric(inverseAH);
       }
       lastPh = pH;
+    }
+
+    /** Adds the unit sums of weak group k times its amount; keeps them when k is the unknown. */
+    private void add(
+        int k,
+        double amount,
+        double z,
+        double zL,
+        double ua,
+        double uaL,
+        double ub,
+        double ubL,
+        double uc,
+        double ucL) {
+      q += amount * z;
+      qL += amount * zL;
+      a += amount * ua;
+      aL += amount * uaL;
+      b += amount * ub;
+      bL += amount * ubL;
+      c += amount * uc;
+      cL += amount * ucL;
+      if (k == u) {
+        zu = z;
+        zuL = zL;
+        au = ua;
+        auL = uaL;
+        bu = ub;
+        buL = ubL;
+        cu = uc;
+        cuL = ucL;
+      }
+    }
+
+    /** The alkalizer mix at a(H⁺): BH⁺ fraction α of each base, d α/d ln a(H⁺) = α(1 − α). */
+    private void alkalizer(double aH) {
+      double z = 0;
+      double zL = 0;
+      double ua = 0;
+      double uaL = 0;
+      double ub = 0;
+      double ubL = 0;
+      for (int i = 0; i < baseKa.length; i++) {
+        double al = aH / (aH + baseKa[i] * g1);
+        double p = baseFraction[i] * al;
+        double pL = p * (1 - al);
+        z += p;
+        zL += pL;
+        ua += p * baseA[i];
+        uaL += pL * baseA[i];
+        ub += p * baseB[i];
+        ubL += pL * baseB[i];
+      }
+      add(ALK, nAlk, z, zL, ua, uaL, ub, ubL, z, zL);
     }
 
     /** Carbonic acid at 1/a(H⁺). */
@@ -554,14 +594,17 @@ public final class SolutionModel {
       double nc = fHco3 + 2 * fCo3;
       double e1 = fHco3 * (nc - 1);
       double e2 = fCo3 * (nc - 2);
-      z[CAR] = -nc;
-      zL[CAR] = -(e1 + 2 * e2);
-      ua[CAR] = fHco3 * wa[HCO3] + fCo3 * wa[CO3];
-      uaL[CAR] = e1 * wa[HCO3] + e2 * wa[CO3];
-      ub[CAR] = fHco3 * wb[HCO3] + fCo3 * wb[CO3];
-      ubL[CAR] = e1 * wb[HCO3] + e2 * wb[CO3];
-      uc[CAR] = fHco3 + 4 * fCo3;
-      ucL[CAR] = e1 + 4 * e2;
+      add(
+          CAR,
+          nCar,
+          -nc,
+          -(e1 + 2 * e2),
+          fHco3 * wa[HCO3] + fCo3 * wa[CO3],
+          e1 * wa[HCO3] + e2 * wa[CO3],
+          fHco3 * wb[HCO3] + fCo3 * wb[CO3],
+          e1 * wb[HCO3] + e2 * wb[CO3],
+          fHco3 + 4 * fCo3,
+          e1 + 4 * e2);
     }
 
     /** Phosphoric acid at 1/a(H⁺): H2PO4-, HPO4-2, PO4-3. */
@@ -577,125 +620,88 @@ public final class SolutionModel {
       double h1 = fH2po4 * (np - 1);
       double h2 = fHpo4 * (np - 2);
       double h3 = fPo4 * (np - 3);
-      z[PHO] = -np;
-      zL[PHO] = -(h1 + 2 * h2 + 3 * h3);
-      ua[PHO] = fH2po4 * wa[H2PO4] + fHpo4 * wa[HPO4] + fPo4 * wa[PO4];
-      uaL[PHO] = h1 * wa[H2PO4] + h2 * wa[HPO4] + h3 * wa[PO4];
-      ub[PHO] = fH2po4 * wb[H2PO4] + fHpo4 * wb[HPO4] + fPo4 * wb[PO4];
-      ubL[PHO] = h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4];
-      uc[PHO] = fH2po4 + 4 * fHpo4 + 9 * fPo4;
-      ucL[PHO] = h1 + 4 * h2 + 9 * h3;
+      add(
+          PHO,
+          nPho,
+          -np,
+          -(h1 + 2 * h2 + 3 * h3),
+          fH2po4 * wa[H2PO4] + fHpo4 * wa[HPO4] + fPo4 * wa[PO4],
+          h1 * wa[H2PO4] + h2 * wa[HPO4] + h3 * wa[PO4],
+          fH2po4 * wb[H2PO4] + fHpo4 * wb[HPO4] + fPo4 * wb[PO4],
+          h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4],
+          fH2po4 + 4 * fHpo4 + 9 * fPo4,
+          h1 + 4 * h2 + 9 * h3);
     }
 
-    /** Net charge of amounts n at the current pH, mol/kg (decreasing in pH). */
-    double charge(double[] n) {
-      double q = qw;
-      for (int k = 0; k < GROUPS; k++) {
-        q += n[k] * z[k];
-      }
-      return q;
-    }
-
-    private double chargeL(double[] n) {
-      double q = qwL;
-      for (int k = 0; k < GROUPS; k++) {
-        q += n[k] * zL[k];
-      }
-      return q;
-    }
-
-    /** Amount of group u that balances the charge of n at a trial pH. */
-    double amountAt(double pH, double[] n, int u) {
+    /** Amount of the unknown that balances the charge of n at a trial pH. */
+    double amountAt(double pH) {
       at(pH);
-      return -charge(n) / z[u];
+      return -q / zu;
     }
 
-    /** Molal ionic strength of n plus x of group u at the current pH, mol/kg. */
-    double ionicStrength(double[] n, int u, double x) {
-      double c = cw + x * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        c += n[k] * uc[k];
-      }
-      return 0.5 * c;
+    /** Molal ionic strength of n plus x of the unknown at the current pH, mol/kg. */
+    double ionicStrength(double x) {
+      return 0.5 * (c + x * cu);
     }
 
-    /** κ of n plus x of group u at a trial pH, µS/cm. */
-    double kappa(double pH, double[] n, int u, double x) {
+    /** κ of n plus x of the unknown at a trial pH, µS/cm. */
+    double kappa(double pH, double x) {
       at(pH);
-      double a = aw + x * ua[u];
-      double b = bw + x * ub[u];
-      double c = cw + x * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        a += n[k] * ua[k];
-        b += n[k] * ub[k];
-        c += n[k] * uc[k];
-      }
-      return rho * (a - Math.sqrt(halfRhoPerLiter * c) * b);
+      double sqrtI = Math.sqrt(halfRhoPerLiter * (c + x * cu));
+      return rho * (a + x * au - sqrtI * (b + x * bu));
     }
 
     /** Sets f and df to the charge balance of n and its pH derivative. */
-    void evalCharge(double pH, double[] n) {
+    void evalCharge(double pH) {
       at(pH);
-      f = charge(n);
-      df = -LN10 * chargeL(n);
+      f = q;
+      df = -LN10 * qL;
     }
 
     /**
-     * Sets f and df to κ − target along the charge balance (the amount of group u that balances n
-     * at pH) and its pH derivative.
+     * Sets f and df to κ − target along the charge balance (the amount of the unknown that balances
+     * n at pH) and its pH derivative.
      */
-    void evalKappa(double pH, double[] n, int u, double target) {
+    void evalKappa(double pH, double target) {
       at(pH);
-      double qb = charge(n);
-      double qbL = chargeL(n);
-      double zu = z[u];
-      double x = -qb / zu;
-      double xL = -(qbL * zu - qb * zL[u]) / (zu * zu);
-      double a = aw + x * ua[u];
-      double aL = awL + x * uaL[u] + xL * ua[u];
-      double b = bw + x * ub[u];
-      double bL = bwL + x * ubL[u] + xL * ub[u];
-      double c = cw + x * uc[u];
-      double cL = cwL + x * ucL[u] + xL * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        double nk = n[k];
-        a += nk * ua[k];
-        aL += nk * uaL[k];
-        b += nk * ub[k];
-        bL += nk * ubL[k];
-        c += nk * uc[k];
-        cL += nk * ucL[k];
-      }
-      double sqrtI = Math.sqrt(halfRhoPerLiter * c);
-      f = rho * (a - sqrtI * b) - target;
-      double kappaL = rho * (aL - sqrtI * bL - b * halfRhoPerLiter * cL / (2 * sqrtI));
+      double x = -q / zu;
+      double xL = -(qL * zu - q * zuL) / (zu * zu);
+      double sa = a + x * au;
+      double saL = aL + x * auL + xL * au;
+      double sb = b + x * bu;
+      double sbL = bL + x * buL + xL * bu;
+      double sc = c + x * cu;
+      double scL = cL + x * cuL + xL * cu;
+      double sqrtI = Math.sqrt(halfRhoPerLiter * sc);
+      f = rho * (sa - sqrtI * sb) - target;
+      double kappaL = rho * (saL - sqrtI * sbL - sb * halfRhoPerLiter * scL / (2 * sqrtI));
       df = -LN10 * kappaL;
     }
 
     /** The pH of the charge balance of n, started from a guess (NaN: an estimate). */
-    double chargeRoot(double[] n, double guess) {
+    double chargeRoot(double guess) {
       double lo = PH_MIN;
       double hi = water.pKw() - 1;
       double start = guess;
       if (Double.isNaN(start)) {
         // strong-electrolyte estimate: mH − mOH + R = 0 with R the solutes' charge at neutrality
         at(water.pKw() / 2);
-        double r = charge(n) - qw;
+        double r = q - (mH - mOH);
         double k = kw / (g1 * g1);
         double root = Math.sqrt(r * r + 4 * k);
         double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
         start = -Math.log10(mh * g1);
       }
-      double pH = newton(false, n, 0, 0, start, hi, lo);
+      double pH = newton(false, 0, start, hi, lo);
       if (Double.isNaN(pH)) {
-        pH = warmBrent(p -> charge(p, n), guess, lo, hi);
+        pH = warmBrent(this::charge, guess, lo, hi);
       }
       return pH;
     }
 
-    private double charge(double pH, double[] n) {
+    private double charge(double pH) {
       at(pH);
-      return charge(n);
+      return q;
     }
 
     /**
@@ -703,19 +709,17 @@ public final class SolutionModel {
      * and end, started from a guess (NaN or outside that bracket: an estimate from the ion pair the
      * unknown forms).
      */
-    double kappaRoot(
-        double[] n, int u, double target, double guess, double pHbg, double end, boolean raises) {
+    double kappaRoot(double target, double guess, double pHbg, double end, boolean raises) {
       double start = guess;
       if (!(start > Math.min(pHbg, end) && start < Math.max(pHbg, end))) {
-        at(pHbg);
-        double extra = (target - kappa(pHbg, n, u, 0)) / (rho * pairA[u]);
+        double extra = (target - kappa(pHbg, 0)) / (rho * pairA[u]);
         start = raises ? -Math.log10(kw / (g1 * (mOH + extra))) : -Math.log10(g1 * (mH + extra));
       }
-      double pH = newton(true, n, u, target, start, pHbg, end);
+      double pH = newton(true, target, start, pHbg, end);
       if (Double.isNaN(pH)) {
         pH =
             warmBrent(
-                p -> kappa(p, n, u, -charge(p, n) / z[u]) - target,
+                p -> kappa(p, -charge(p) / zu) - target,
                 guess,
                 Math.min(pHbg, end),
                 Math.max(pHbg, end));
@@ -728,8 +732,7 @@ public final class SolutionModel {
      * balance or of the κ function, on the bracket where f(neg) < 0 < f(pos). Returns NaN when it
      * does not converge or ends at a bracket end (the caller then runs Brent).
      */
-    private double newton(
-        boolean kappa, double[] n, int u, double target, double start, double neg, double pos) {
+    private double newton(boolean kappa, double target, double start, double neg, double pos) {
       double lo = Math.min(neg, pos);
       double hi = Math.max(neg, pos);
       double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
@@ -737,9 +740,9 @@ public final class SolutionModel {
       double step = stepBefore;
       for (int i = 0; i < NEWTON_ITERATIONS; i++) {
         if (kappa) {
-          evalKappa(x, n, u, target);
+          evalKappa(x, target);
         } else {
-          evalCharge(x, n);
+          evalCharge(x);
         }
         if (f == 0) {
           return x;
