@@ -403,6 +403,9 @@ public final class SolutionModel {
     private final boolean carbonic;
     private final boolean phosphoric;
 
+    /** Whether n holds fully dissociated solutes only (its charge balance is a quadratic). */
+    private final boolean strongOnly;
+
     // the fully dissociated solutes of n: charge, Σ m·wa, Σ m·wb, Σ m·z² (independent of pH)
     private final double strongQ;
     private final double strongA;
@@ -462,6 +465,7 @@ public final class SolutionModel {
       alkalizer = nAlk != 0 || u == ALK;
       carbonic = nCar != 0 || u == CAR;
       phosphoric = nPho != 0 || u == PHO;
+      strongOnly = nAlk == 0 && nCar == 0 && nPho == 0;
       double na = n.sodium();
       double cl = n.chloride();
       double so4 = n.sulfate();
@@ -678,19 +682,24 @@ public final class SolutionModel {
       df = -LN10 * kappaL;
     }
 
-    /** The pH of the charge balance of n, started from a guess (NaN: an estimate). */
+    /**
+     * The pH of the charge balance of n, started from a guess (NaN: an estimate). With fully
+     * dissociated solutes only, the balance is a quadratic in m(H⁺), solved in closed form.
+     */
     double chargeRoot(double guess) {
       double lo = PH_MIN;
       double hi = water.pKw() - 1;
+      if (strongOnly) {
+        double pH = strongRoot(strongQ);
+        if (pH > lo && pH < hi) {
+          return pH;
+        }
+      }
       double start = guess;
       if (Double.isNaN(start)) {
         // strong-electrolyte estimate: mH − mOH + R = 0 with R the solutes' charge at neutrality
         at(water.pKw() / 2);
-        double r = q - (mH - mOH);
-        double k = kw / (g1 * g1);
-        double root = Math.sqrt(r * r + 4 * k);
-        double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
-        start = -Math.log10(mh * g1);
+        start = strongRoot(q - (mH - mOH));
       }
       double pH = newton(false, 0, start, hi, lo);
       if (Double.isNaN(pH)) {
@@ -702,6 +711,17 @@ public final class SolutionModel {
     private double charge(double pH) {
       at(pH);
       return q;
+    }
+
+    /**
+     * The pH at which m(H⁺) − m(OH⁻) + r = 0 at the current activity coefficients: m(H⁺)·m(OH⁻) =
+     * Kw/γ₁², each root of the quadratic in the form free of cancellation.
+     */
+    private double strongRoot(double r) {
+      double k = kw / (g1 * g1);
+      double root = Math.sqrt(r * r + 4 * k);
+      double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
+      return -Math.log10(mh * g1);
     }
 
     /**
