@@ -123,10 +123,9 @@ final class ChargeBalanceSolver {
     double cations = 0;
     double anions = 0;
     int k = 0;
-    for (Map.Entry<Component, Double> e : composition.entrySet()) {
-      Component c = e.getKey();
+    for (Component c : composition.keySet()) {
       components[k] = c;
-      totals[k] = e.getValue();
+      totals[k] = composition.get(c);
       charges[k] = CHAIN_CHARGES[c.ordinal()];
       int[] steps = CHAIN_STEPS[c.ordinal()];
       ka[k] = new double[steps.length];
