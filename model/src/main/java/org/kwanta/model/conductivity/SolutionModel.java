@@ -265,27 +265,35 @@ public final class SolutionModel {
     if (unknown == Solute.SODIUM_CHLORIDE) {
       return fitNeutralSalt(base, kappaTarget);
     }
-    State st = new State(base, group(unknown));
+    int u = group(unknown);
+    State st = new State(base, u);
+    // adding the alkalizer or sodium hydroxide raises the pH, an acid lowers it
+    boolean raisesPh = u == ALK || u == SOD;
+    double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
     double ionic = near == null ? 0 : near.ionicStrength();
     double pHbg = Double.NaN;
+    double kappaBg = Double.NaN;
+    double kappaBgIonic = 0;
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pHbg = st.chargeRoot(pHbg);
-      double kappaBg = st.kappa(pHbg, 0);
-      boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
-      if (plain || (near == null && it <= 1)) {
-        // the iterates so far are the original's: decide as it did
-        if (kappaTarget <= kappaBg) {
-          return solve(base);
+      boolean originals = plain || (near == null && it <= 1);
+      if (originals || !farAbove(kappaTarget, kappaBg, Math.max(ionic, kappaBgIonic))) {
+        pHbg = st.chargeRoot(pHbg);
+        kappaBg = st.kappa(pHbg, 0);
+        kappaBgIonic = ionic;
+        boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+        if (originals) {
+          // the iterates so far are the original's: decide as it did
+          if (kappaTarget <= kappaBg) {
+            return solve(base);
+          }
+          plain |= marginal;
+        } else if (marginal) {
+          return fit(known, unknown, kappaTarget, null, true);
         }
-        plain |= marginal;
-      } else if (marginal) {
-        return fit(known, unknown, kappaTarget, null, true);
       }
-      boolean raisesPh = st.zu > 0;
-      double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
       pH = st.kappaRoot(kappaTarget, pH, pHbg, end, raisesPh);
       double x = Math.max(0, st.amountAt(pH));
       double next = st.ionicStrength(x);
@@ -296,6 +304,21 @@ public final class SolutionModel {
       ionic = plain ? next : accelerated;
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
+  }
+
+  /**
+   * Whether a target lies so far above a background conductivity, computed at an earlier iterate,
+   * that the background at the current iterate can be neither at or above the target nor within
+   * {@link #activityMargin} of it: the background moves by less than one margin of the larger of
+   * the two ionic strengths, so four margins leave room for both. The earlier background's pH then
+   * still bounds the search for the unknown's amount (the amount there is zero up to that move),
+   * and the background need not be solved again.
+   *
+   * @param kappaBackground the background conductivity at the earlier iterate (NaN: none yet)
+   * @param ionicStrength the larger of the two iterates' ionic strengths, mol/kg
+   */
+  private boolean farAbove(double kappaTarget, double kappaBackground, double ionicStrength) {
+    return kappaTarget > kappaBackground * (1 + 4 * activityMargin(ionicStrength));
   }
 
   /**
@@ -663,8 +686,8 @@ public final class SolutionModel {
     }
 
     /**
-     * Sets f and df to κ − target along the charge balance (the amount of the unknown that balances
-     * n at pH) and its pH derivative.
+     * Sets f to 2(κ − target)/(κ + target), with κ along the charge balance (the amount of the
+     * unknown that balances n at pH), and df to its pH derivative.
      */
     void evalKappa(double pH, double target) {
       at(pH);
@@ -677,9 +700,14 @@ public final class SolutionModel {
       double sc = c + x * cu;
       double scL = cL + x * cuL + xL * cu;
       double sqrtI = Math.sqrt(halfRhoPerLiter * sc);
-      f = rho * (sa - sqrtI * sb) - target;
+      double kappa = rho * (sa - sqrtI * sb);
       double kappaL = rho * (saL - sqrtI * sbL - sb * halfRhoPerLiter * scL / (2 * sqrtI));
-      df = -LN10 * kappaL;
+      // The search runs on h = 2(κ − target)/(κ + target), which has the sign and the root of
+      // κ − target but follows ln(κ/target) to third order: κ of an acid or a base changes about
+      // tenfold per pH unit, nearly linear in ln κ, so Newton steps on h land closer than on κ.
+      double sum = kappa + target;
+      f = 2 * (kappa - target) / sum;
+      df = -LN10 * 4 * target * kappaL / (sum * sum);
     }
 
     /**
