@@ -90,7 +90,13 @@ final class ChargeBalanceSolver {
   private final Component[] components;
   private final double[] totals;
   private final int[][] charges;
-  private final double[][] ka;
+
+  /** Equilibrium ordinals of each component's steps (shared, do not modify). */
+  private final int[][] steps;
+
+  /** Ka by equilibrium ordinal (shared, do not modify). */
+  private final double[] ka;
+
   private final double cationCapacity;
   private final double anionCapacity;
 
@@ -118,7 +124,8 @@ final class ChargeBalanceSolver {
     components = new Component[n];
     totals = new double[n];
     charges = new int[n][];
-    ka = new double[n][];
+    steps = new int[n][];
+    ka = kaByEquilibrium;
     conditional = new double[n][];
     double cations = 0;
     double anions = 0;
@@ -127,12 +134,8 @@ final class ChargeBalanceSolver {
       components[k] = c;
       totals[k] = composition.get(c);
       charges[k] = CHAIN_CHARGES[c.ordinal()];
-      int[] steps = CHAIN_STEPS[c.ordinal()];
-      ka[k] = new double[steps.length];
-      conditional[k] = new double[steps.length];
-      for (int i = 0; i < steps.length; i++) {
-        ka[k][i] = kaByEquilibrium[steps[i]];
-      }
+      steps[k] = CHAIN_STEPS[c.ordinal()];
+      conditional[k] = new double[steps[k].length];
       // Chains run from the highest charge (first) to the lowest (last).
       cations += totals[k] * Math.max(charges[k][0], 0);
       anions += totals[k] * Math.max(-charges[k][charges[k].length - 1], 0);
@@ -241,8 +244,9 @@ final class ChargeBalanceSolver {
     }
     for (int k = 0; k < components.length; k++) {
       int[] z = charges[k];
-      for (int i = 0; i < ka[k].length; i++) {
-        conditional[k][i] = ka[k][i] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
+      int[] step = steps[k];
+      for (int i = 0; i < step.length; i++) {
+        conditional[k][i] = ka[step[i]] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
       }
     }
     return shift;
@@ -329,8 +333,6 @@ final class ChargeBalanceSolver {
       double root = 2 * Math.sqrt(kw);
       hi = Math.log10(anionCapacity + root) + 1;
       lo = -water.pKw() - Math.log10(cationCapacity + root) - 1;
-      fLo = evaluate(lo);
-      fHi = Double.NaN;
       previous = Math.max(lo, Math.min(hi, -water.pKw() / 2));
     } else {
       // Warm: the previous root is one end of the bracket (its sign says which), the other end
