@@ -105,8 +105,7 @@ public final class Evaluator {
         Reading r = usable.get(p);
         Solution fit = fitted.channelSolutions().get(p);
         // a channel fitted at 25 °C is its own 25 °C solution
-        Solution s25 =
-            models.get(p) == model25 ? fit : model25.solve(fitted.channelSolutes().get(p), fit);
+        Solution s25 = models.get(p) == model25 ? fit : model25.solve(fit.solutes(), fit);
         solutions25.put(p, s25);
         double k25;
         if (below.get(p)) {
