@@ -436,6 +436,7 @@ public final class SolutionModel {
     private final double strongC;
 
     double g1 = 1;
+    double inverseG1 = 1;
     double lastPh = Double.NaN;
 
     // at the current activity coefficients: Kw/γ₁, and the cumulative acid constants over the
@@ -518,7 +519,7 @@ public final class SolutionModel {
       double g1Squared = g1 * g1;
       double g2 = g1Squared * g1Squared;
       double g3 = g2 * g2 * g1;
-      double inverseG1 = 1 / g1;
+      inverseG1 = 1 / g1;
       kwPerG1 = kw * inverseG1;
       c1 = k1c * inverseG1;
       c2 = k1c * k2c / g2;
@@ -534,7 +535,7 @@ public final class SolutionModel {
       }
       double aH = Math.exp(-LN10 * pH);
       double inverseAH = 1 / aH;
-      mH = aH / g1;
+      mH = aH * inverseG1;
       mOH = kwPerG1 * inverseAH;
       q = mH - mOH + strongQ;
       qL = mH + mOH;
@@ -691,8 +692,9 @@ public final class SolutionModel {
      */
     void evalKappa(double pH, double target) {
       at(pH);
-      double x = -q / zu;
-      double xL = -(qL * zu - q * zuL) / (zu * zu);
+      double inverseZu = 1 / zu;
+      double x = -q * inverseZu;
+      double xL = -(qL + x * zuL) * inverseZu;
       double sa = a + x * au;
       double saL = aL + x * auL + xL * au;
       double sb = b + x * bu;
@@ -701,13 +703,14 @@ public final class SolutionModel {
       double scL = cL + x * cuL + xL * cu;
       double sqrtI = Math.sqrt(halfRhoPerLiter * sc);
       double kappa = rho * (sa - sqrtI * sb);
-      double kappaL = rho * (saL - sqrtI * sbL - sb * halfRhoPerLiter * scL / (2 * sqrtI));
+      // d√I/dL = ½·(ρ/2000)·Σ z²m_L/√I, written with ρ/2000·Σ z²m = √I²
+      double kappaL = rho * (saL - sqrtI * sbL - 0.5 * sb * sqrtI * scL / sc);
       // The search runs on h = 2(κ − target)/(κ + target), which has the sign and the root of
       // κ − target but follows ln(κ/target) to third order: κ of an acid or a base changes about
       // tenfold per pH unit, nearly linear in ln κ, so Newton steps on h land closer than on κ.
-      double sum = kappa + target;
-      f = 2 * (kappa - target) / sum;
-      df = -LN10 * 4 * target * kappaL / (sum * sum);
+      double inverseSum = 1 / (kappa + target);
+      f = 2 * (kappa - target) * inverseSum;
+      df = -LN10 * 4 * target * kappaL * inverseSum * inverseSum;
     }
 
     /**
