@@ -22,11 +22,15 @@ import org.kwanta.model.water.WaterState;
  * a(H⁺) whose derivative is closed-form too (d ln αᵢ/d ln a(H⁺) from the mean charge of each acid
  * chain), so both searches on pH use a safeguarded Newton method (Newton steps kept inside a
  * bracket with a known sign change, bisection when a step leaves it or does not halve the
- * residual), started from the previous iterate or from the strong-electrolyte estimate. The fixed
- * point of the ionic strength I ↦ I(species at pH(γ(I))) is accelerated by secant steps on I(…) −
- * I. The stopping rules are those of the original nested Brent searches (pH to 1e-13, I to 1e-10
- * relative), so results agree with them to numerical noise; where a Newton search does not
- * converge, the original Brent search is run instead.
+ * residual), started from the previous iterate or from the strong-electrolyte estimate. When only
+ * fully dissociated solutes are present the charge balance is a quadratic in m(H⁺) and is solved in
+ * closed form. The conductivity search runs on 2(κ − target)/(κ + target), which has the root and
+ * sign of κ − target but follows ln κ, nearly linear in pH. The fixed point of the ionic strength I
+ * ↦ I(species at pH(γ(I))) is accelerated by secant steps on I(…) − I; while the target lies far
+ * above the background (the other solutes alone), the background of an earlier iterate is kept
+ * rather than solved again. The stopping rules are those of the original nested Brent searches (pH
+ * to 1e-13, I to 1e-10 relative), so results agree with them to numerical noise; where a Newton
+ * search does not converge, the original Brent search is run instead.
  */
 public final class SolutionModel {
 
