@@ -17,9 +17,12 @@ import org.kwanta.model.water.WaterState;
  * has exactly one root. The root is found inside a bracket whose sign change is verified, by Newton
  * steps safeguarded by bisection (W. H. Press et al., <i>Numerical Recipes</i>, 3rd ed. 2007, §9.4
  * "rtsafe"): a Newton step that would leave the bracket or shrink it too slowly is replaced by a
- * bisection, so convergence is guaranteed like bisection and quadratic near the root. I is then
- * recomputed from the species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12
- * mol/kg and the change in every log10 γ it implies is below 1e-11.
+ * bisection, so convergence is guaranteed like bisection and quadratic near the root. From a warm
+ * start (the previous root, or a nearby solution's) one Newton step is tried first: when the step
+ * from its end is already below the tolerance, that root is taken as the bracketed search would
+ * take it, and otherwise the bracket is built from the nearer point. I is then recomputed from the
+ * species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12 mol/kg and the
+ * change in every log10 γ it implies is below 1e-11.
  *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
@@ -87,7 +90,13 @@ final class ChargeBalanceSolver {
   private final Component[] components;
   private final double[] totals;
   private final int[][] charges;
-  private final double[][] ka;
+
+  /** Equilibrium ordinals of each component's steps (shared, do not modify). */
+  private final int[][] steps;
+
+  /** Ka by equilibrium ordinal (shared, do not modify). */
+  private final double[] ka;
+
   private final double cationCapacity;
   private final double anionCapacity;
 
@@ -115,22 +124,18 @@ final class ChargeBalanceSolver {
     components = new Component[n];
     totals = new double[n];
     charges = new int[n][];
-    ka = new double[n][];
+    steps = new int[n][];
+    ka = kaByEquilibrium;
     conditional = new double[n][];
     double cations = 0;
     double anions = 0;
     int k = 0;
-    for (Map.Entry<Component, Double> e : composition.entrySet()) {
-      Component c = e.getKey();
+    for (Component c : composition.keySet()) {
       components[k] = c;
-      totals[k] = e.getValue();
+      totals[k] = composition.get(c);
       charges[k] = CHAIN_CHARGES[c.ordinal()];
-      int[] steps = CHAIN_STEPS[c.ordinal()];
-      ka[k] = new double[steps.length];
-      conditional[k] = new double[steps.length];
-      for (int i = 0; i < steps.length; i++) {
-        ka[k][i] = kaByEquilibrium[steps[i]];
-      }
+      steps[k] = CHAIN_STEPS[c.ordinal()];
+      conditional[k] = new double[steps[k].length];
       // Chains run from the highest charge (first) to the lowest (last).
       cations += totals[k] * Math.max(charges[k][0], 0);
       anions += totals[k] * Math.max(-charges[k][charges[k].length - 1], 0);
@@ -224,12 +229,24 @@ final class ChargeBalanceSolver {
       double lg = activityModel.log10Gamma(z, ionicStrength, a, b, temperatureK);
       shift = Math.max(shift, Math.abs(lg - logGamma[z]));
       logGamma[z] = lg;
-      gamma[z] = Math.exp(LN10 * lg);
+    }
+    if (activityModel == ActivityModel.DAVIES) {
+      // log10 γ is z² times that of a monovalent ion, so γ₂ = γ₁⁴ and γ₃ = γ₁⁹
+      double g1 = Math.exp(LN10 * logGamma[1]);
+      double g1Squared = g1 * g1;
+      gamma[1] = g1;
+      gamma[2] = g1Squared * g1Squared;
+      gamma[3] = gamma[2] * gamma[2] * g1;
+    } else {
+      for (int z = 1; z <= 3; z++) {
+        gamma[z] = Math.exp(LN10 * logGamma[z]);
+      }
     }
     for (int k = 0; k < components.length; k++) {
       int[] z = charges[k];
-      for (int i = 0; i < ka[k].length; i++) {
-        conditional[k][i] = ka[k][i] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
+      int[] step = steps[k];
+      for (int i = 0; i < step.length; i++) {
+        conditional[k][i] = ka[step[i]] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
       }
     }
     return shift;
@@ -316,8 +333,6 @@ final class ChargeBalanceSolver {
       double root = 2 * Math.sqrt(kw);
       hi = Math.log10(anionCapacity + root) + 1;
       lo = -water.pKw() - Math.log10(cationCapacity + root) - 1;
-      fLo = evaluate(lo);
-      fHi = Double.NaN;
       previous = Math.max(lo, Math.min(hi, -water.pKw() / 2));
     } else {
       // Warm: the previous root is one end of the bracket (its sign says which), the other end
@@ -327,6 +342,28 @@ final class ChargeBalanceSolver {
         return previous;
       }
       double df = derivative;
+      // Near the previous root, the Newton point from it is usually so close to the new root
+      // that the next Newton step is below the tolerance: then no bracket end is needed.
+      double newton = previous - f / df;
+      if (df > 0 && Math.abs(newton - previous) <= halfWidth) {
+        double fNewton = evaluate(newton);
+        double dfNewton = derivative;
+        if (fNewton == 0) {
+          return newton;
+        }
+        double step = fNewton / dfNewton;
+        if (dfNewton > 0 && Math.abs(step) < LOG_ACTIVITY_TOLERANCE) {
+          return newton - step;
+        }
+        if (fNewton > 0 != f > 0) {
+          return safeguardedNewton(
+              Math.min(previous, newton), Math.max(previous, newton), newton, fNewton, dfNewton);
+        }
+        // the same sign: the Newton point is the nearer start
+        previous = newton;
+        f = fNewton;
+        df = dfNewton;
+      }
       if (f < 0) {
         lo = previous;
         fLo = f;

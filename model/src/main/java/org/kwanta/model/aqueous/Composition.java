@@ -38,13 +38,14 @@ public record Composition(Map<Component, Double> totals) {
 
   public Composition {
     EnumMap<Component, Double> copy = new EnumMap<>(Component.class);
-    for (Map.Entry<Component, Double> e : totals.entrySet()) {
-      if (e.getKey() == null) {
+    // by key and get, which on an enum map walks its array without an entry object per total
+    for (Component c : totals.keySet()) {
+      if (c == null) {
         throw new IllegalArgumentException("null component");
       }
-      double m = TOTAL_MOLALITY_RANGE.check(e.getValue());
+      double m = TOTAL_MOLALITY_RANGE.check(totals.get(c));
       if (m > 0) {
-        copy.put(e.getKey(), m);
+        copy.put(c, m);
       }
     }
     totals = Collections.unmodifiableMap(copy);

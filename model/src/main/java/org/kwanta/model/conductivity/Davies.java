@@ -5,6 +5,8 @@ import org.kwanta.model.aqueous.ActivityModel;
 /** Davies activity coefficients, as the speciation engine computes them ({@link ActivityModel}). */
 final class Davies {
 
+  private static final double LN10 = Math.log(10);
+
   private Davies() {}
 
   /**
@@ -14,6 +16,6 @@ final class Davies {
    * @return activity coefficient γ
    */
   static double gamma(double a, int z, double ionicStrength) {
-    return Math.pow(10, ActivityModel.DAVIES.log10Gamma(z, ionicStrength, a, 0, 298.15));
+    return Math.exp(LN10 * ActivityModel.DAVIES.log10Gamma(z, ionicStrength, a, 0, 298.15));
   }
 }

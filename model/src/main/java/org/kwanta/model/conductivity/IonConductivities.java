@@ -17,6 +17,9 @@ public final class IonConductivities {
   private final double b1;
   private final double b2;
 
+  /** κ of pure water at this state, µS/cm, computed once (see {@link #pureWater()}). */
+  private final double pureWater;
+
   IonConductivities(WaterState water, double viscosityPaS, double viscosityRatio) {
     this.water = water;
     this.viscosityPaS = viscosityPaS;
@@ -27,6 +30,7 @@ public final class IonConductivities {
     this.b1 = OnsagerCorrection.b1(water.relativePermittivity(), water.temperatureK());
     this.b2 =
         OnsagerCorrection.b2(water.relativePermittivity(), water.temperatureK(), viscosityPaS);
+    this.pureWater = pureWaterKappa();
   }
 
   /** The water state these conductivities belong to. */
@@ -99,6 +103,10 @@ public final class IonConductivities {
 
   /** Conductivity of pure water at this state, µS/cm (Kw from the water state, Davies γ). */
   public double pureWater() {
+    return pureWater;
+  }
+
+  private double pureWaterKappa() {
     double kw = Math.pow(10, -water.pKw());
     double m = Math.sqrt(kw);
     for (int i = 0; i < 4; i++) {

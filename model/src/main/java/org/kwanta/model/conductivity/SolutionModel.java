@@ -1,6 +1,5 @@
 package org.kwanta.model.conductivity;
 
-import java.util.Arrays;
 import java.util.Map;
 import java.util.function.DoubleUnaryOperator;
 import org.kwanta.model.NoConvergenceException;
@@ -23,11 +22,15 @@ import org.kwanta.model.water.WaterState;
  * a(H⁺) whose derivative is closed-form too (d ln αᵢ/d ln a(H⁺) from the mean charge of each acid
  * chain), so both searches on pH use a safeguarded Newton method (Newton steps kept inside a
  * bracket with a known sign change, bisection when a step leaves it or does not halve the
- * residual), started from the previous iterate or from the strong-electrolyte estimate. The fixed
- * point of the ionic strength I ↦ I(species at pH(γ(I))) is accelerated by secant steps on I(…) −
- * I. The stopping rules are those of the original nested Brent searches (pH to 1e-13, I to 1e-10
- * relative), so results agree with them to numerical noise; where a Newton search does not
- * converge, the original Brent search is run instead.
+ * residual), started from the previous iterate or from the strong-electrolyte estimate. When only
+ * fully dissociated solutes are present the charge balance is a quadratic in m(H⁺) and is solved in
+ * closed form. The conductivity search runs on 2(κ − target)/(κ + target), which has the root and
+ * sign of κ − target but follows ln κ, nearly linear in pH. The fixed point of the ionic strength I
+ * ↦ I(species at pH(γ(I))) is accelerated by secant steps on I(…) − I; while the target lies far
+ * above the background (the other solutes alone), the background of an earlier iterate is kept
+ * rather than solved again. The stopping rules are those of the original nested Brent searches (pH
+ * to 1e-13, I to 1e-10 relative), so results agree with them to numerical noise; where a Newton
+ * search does not converge, the original Brent search is run instead.
  */
 public final class SolutionModel {
 
@@ -52,6 +55,12 @@ public final class SolutionModel {
    * times |f″/f′| (a few per pH unit), far below {@link #PH_TOLERANCE}.
    */
   private static final double NEWTON_LAST_STEP = 1e-9;
+
+  /**
+   * A last Newton step this small is not taken: the point it starts from is within a tenth of
+   * {@link #PH_TOLERANCE} of the root, and the species there are already computed.
+   */
+  private static final double NEGLIGIBLE_STEP = 1e-14;
 
   private static final int NEWTON_ITERATIONS = 100;
 
@@ -201,18 +210,17 @@ public final class SolutionModel {
    * @param near a solution to start from, or null
    */
   public Solution solve(Solutes s, Solution near) {
-    State st = new State();
-    double[] n = amounts(s);
+    State st = new State(s, -1);
     double ionic = near == null ? 0 : near.ionicStrength();
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pH = st.chargeRoot(n, pH);
+      pH = st.chargeRoot(pH);
       st.at(pH);
-      double next = st.ionicStrength(n, 0, 0);
+      double next = st.ionicStrength(0);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
+        return new Solution(s, pH, next, st.kappa(pH, 0), water.temperatureK());
       }
       ionic = secant.next(ionic, next);
     }
@@ -262,39 +270,59 @@ public final class SolutionModel {
       return fitNeutralSalt(base, kappaTarget);
     }
     int u = group(unknown);
-    double[] n = amounts(base);
-    State st = new State();
+    State st = new State(base, u);
+    // adding the alkalizer or sodium hydroxide raises the pH, an acid lowers it
+    boolean raisesPh = u == ALK || u == SOD;
+    double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
     double ionic = near == null ? 0 : near.ionicStrength();
     double pHbg = Double.NaN;
+    double kappaBg = Double.NaN;
+    double kappaBgIonic = 0;
     double pH = near == null ? Double.NaN : near.pH();
     Secant secant = new Secant();
     for (int it = 0; it < MAX_ACTIVITY_ITERATIONS; it++) {
       st.activity(ionic);
-      pHbg = st.chargeRoot(n, pHbg);
-      double kappaBg = st.kappa(pHbg, n, u, 0);
-      boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
-      if (plain || (near == null && it <= 1)) {
-        // the iterates so far are the original's: decide as it did
-        if (kappaTarget <= kappaBg) {
-          return solve(base);
+      boolean originals = plain || (near == null && it <= 1);
+      if (originals || !farAbove(kappaTarget, kappaBg, Math.max(ionic, kappaBgIonic))) {
+        pHbg = st.chargeRoot(pHbg);
+        kappaBg = st.kappa(pHbg, 0);
+        kappaBgIonic = ionic;
+        boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+        if (originals) {
+          // the iterates so far are the original's: decide as it did
+          if (kappaTarget <= kappaBg) {
+            return solve(base);
+          }
+          plain |= marginal;
+        } else if (marginal) {
+          return fit(known, unknown, kappaTarget, null, true);
         }
-        plain |= marginal;
-      } else if (marginal) {
-        return fit(known, unknown, kappaTarget, null, true);
       }
-      boolean raisesPh = st.z[u] > 0;
-      double end = raisesPh ? water.pKw() - PH_MAX_BELOW_PKW : PH_MIN;
-      pH = st.kappaRoot(n, u, kappaTarget, pH, pHbg, end, raisesPh);
-      double x = Math.max(0, st.amountAt(pH, n, u));
-      double next = st.ionicStrength(n, u, x);
+      pH = st.kappaRoot(kappaTarget, pH, pHbg, end, raisesPh);
+      double x = Math.max(0, st.amountAt(pH));
+      double next = st.ionicStrength(x);
       if (Math.abs(next - ionic) <= IONIC_STRENGTH_TOLERANCE * next) {
-        Solutes s = base.with(unknown, x);
-        return new Solution(s, pH, next, st.kappaOf(s), water.temperatureK());
+        return new Solution(base.with(unknown, x), pH, next, st.kappa(pH, x), water.temperatureK());
       }
       double accelerated = secant.next(ionic, next);
       ionic = plain ? next : accelerated;
     }
     throw new NoConvergenceException("activity iteration in fit", MAX_ACTIVITY_ITERATIONS, ionic);
+  }
+
+  /**
+   * Whether a target lies so far above a background conductivity, computed at an earlier iterate,
+   * that the background at the current iterate can be neither at or above the target nor within
+   * {@link #activityMargin} of it: the background moves by less than one margin of the larger of
+   * the two ionic strengths, so four margins leave room for both. The earlier background's pH then
+   * still bounds the search for the unknown's amount (the amount there is zero up to that move),
+   * and the background need not be solved again.
+   *
+   * @param kappaBackground the background conductivity at the earlier iterate (NaN: none yet)
+   * @param ionicStrength the larger of the two iterates' ionic strengths, mol/kg
+   */
+  private boolean farAbove(double kappaTarget, double kappaBackground, double ionicStrength) {
+    return kappaTarget > kappaBackground * (1 + 4 * activityMargin(ionicStrength));
   }
 
   /**
@@ -304,12 +332,6 @@ public final class SolutionModel {
    */
   private double activityMargin(double ionicStrength) {
     return 2 * (1 - Davies.gamma(dhA, 3, 2 * ionicStrength));
-  }
-
-  private static double[] amounts(Solutes s) {
-    return new double[] {
-      s.alkalizer(), s.sodium(), s.chloride(), s.sulfate(), s.carbonate(), s.phosphate()
-    };
   }
 
   private static int group(Solute u) {
@@ -393,71 +415,121 @@ public final class SolutionModel {
   }
 
   /**
-   * Working state of one solve or fit: activity coefficients, and at one trial pH the per-unit
-   * charge and conductivity sums of each solute group with their derivatives in ln a(H⁺).
+   * Working state of one solve or fit, for fixed amounts n (a fit's background) and an unknown
+   * group u: activity coefficients, and at one trial pH the charge and conductivity sums of water
+   * and n, and of a unit amount of u, with their derivatives in ln a(H⁺). The fully dissociated
+   * solutes of n add the same to these sums at every pH, so that part is summed once.
    */
   private final class State {
+    // the weak-electrolyte amounts of n, and whether a group enters (in n or as the unknown)
+    private final double nAlk;
+    private final double nCar;
+    private final double nPho;
+    private final int u;
+    private final boolean alkalizer;
+    private final boolean carbonic;
+    private final boolean phosphoric;
+
+    /** Whether n holds fully dissociated solutes only (its charge balance is a quadratic). */
+    private final boolean strongOnly;
+
+    // the fully dissociated solutes of n: charge, Σ m·wa, Σ m·wb, Σ m·z² (independent of pH)
+    private final double strongQ;
+    private final double strongA;
+    private final double strongB;
+    private final double strongC;
+
     double g1 = 1;
-    double g2 = 1;
-    double g3 = 1;
+    double inverseG1 = 1;
     double lastPh = Double.NaN;
+
+    // at the current activity coefficients: Kw/γ₁, and the cumulative acid constants over the
+    // activity coefficients of their anions (carbonic K1/γ₁, K1K2/γ₂; phosphoric up to K1K2K3/γ₃)
+    double kwPerG1 = kw;
+    double c1 = k1c;
+    double c2 = k1c * k2c;
+    double p1 = k1p;
+    double p2 = k1p * k2p;
+    double p3 = k1p * k2p * k3p;
 
     // species at the last pH
     double mH;
     double mOH;
-    final double[] alpha = new double[baseKa.length];
-    double fHco3;
-    double fCo3;
-    double fH2po4;
-    double fHpo4;
-    double fPo4;
 
-    // water (H⁺, OH⁻): charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺) (suffix L)
-    double qw;
-    double qwL;
-    double aw;
-    double awL;
-    double bw;
-    double bwL;
-    double cw;
-    double cwL;
+    // water and n at the last pH: charge, Σ m·wa, Σ m·wb, Σ m·z², each with d/d ln a(H⁺)
+    // (suffix L)
+    double q;
+    double qL;
+    double a;
+    double aL;
+    double b;
+    double bL;
+    double c;
+    double cL;
 
-    // per unit amount of each group: the same sums and derivatives
-    final double[] z = new double[GROUPS];
-    final double[] zL = new double[GROUPS];
-    final double[] ua = new double[GROUPS];
-    final double[] uaL = new double[GROUPS];
-    final double[] ub = new double[GROUPS];
-    final double[] ubL = new double[GROUPS];
-    final double[] uc = new double[GROUPS];
-    final double[] ucL = new double[GROUPS];
+    // the same for a unit amount of the unknown group
+    double zu;
+    double zuL;
+    double au;
+    double auL;
+    double bu;
+    double buL;
+    double cu;
+    double cuL;
 
     // result of the last evaluation of a search function: value and d/dpH
     double f;
     double df;
 
-    final double[] m = new double[N_IONS];
+    /**
+     * @param n the fixed amounts
+     * @param u the unknown group, or −1 for a plain solve
+     */
+    State(Solutes n, int u) {
+      this.u = u;
+      nAlk = n.alkalizer();
+      nCar = n.carbonate();
+      nPho = n.phosphate();
+      alkalizer = nAlk != 0 || u == ALK;
+      carbonic = nCar != 0 || u == CAR;
+      phosphoric = nPho != 0 || u == PHO;
+      strongOnly = nAlk == 0 && nCar == 0 && nPho == 0;
+      double na = n.sodium();
+      double cl = n.chloride();
+      double so4 = n.sulfate();
+      strongQ = na - cl - 2 * so4;
+      strongA = na * wa[NA] + cl * wa[CL] + so4 * wa[SO4];
+      strongB = na * wb[NA] + cl * wb[CL] + so4 * wb[SO4];
+      strongC = na + cl + 4 * so4;
+      // a fully dissociated unknown: its unit sums do not depend on pH
+      switch (u) {
+        case SOD -> unit(1, wa[NA], wb[NA], 1);
+        case CHL -> unit(-1, wa[CL], wb[CL], 1);
+        case SUL -> unit(-2, wa[SO4], wb[SO4], 4);
+        default -> {}
+      }
+    }
 
-    State() {
-      // the fully dissociated groups do not depend on pH
-      z[SOD] = 1;
-      ua[SOD] = wa[NA];
-      ub[SOD] = wb[NA];
-      uc[SOD] = 1;
-      z[CHL] = -1;
-      ua[CHL] = wa[CL];
-      ub[CHL] = wb[CL];
-      uc[CHL] = 1;
-      z[SUL] = -2;
-      ua[SUL] = wa[SO4];
-      ub[SUL] = wb[SO4];
-      uc[SUL] = 4;
+    private void unit(double z, double ua, double ub, double uc) {
+      zu = z;
+      au = ua;
+      bu = ub;
+      cu = uc;
     }
 
     void activity(double ionicStrength) {
+      // Davies: log10 γ is z² times that of a monovalent ion, so γ₂ = γ₁⁴ and γ₃ = γ₁⁹
       g1 = Davies.gamma(dhA, 1, ionicStrength);
-      g2 = Davies.gamma(dhA, 2, ionicStrength);
-      g3 = Davies.gamma(dhA, 3, ionicStrength);
+      double g1Squared = g1 * g1;
+      double g2 = g1Squared * g1Squared;
+      double g3 = g2 * g2 * g1;
+      inverseG1 = 1 / g1;
+      kwPerG1 = kw * inverseG1;
+      c1 = k1c * inverseG1;
+      c2 = k1c * k2c / g2;
+      p1 = k1p * inverseG1;
+      p2 = k1p * k2p / g2;
+      p3 = k1p * k2p * k3p / g3;
       lastPh = Double.NaN;
     }
 
@@ -465,196 +537,226 @@ public final class SolutionModel {
       if (pH == lastPh) {
         return;
       }
-      double aH = Math.pow(10, -pH);
-      mH = aH / g1;
-      mOH = kw / (aH * g1);
-      qw = mH - mOH;
-      qwL = mH + mOH;
-      aw = mH * wa[H] + mOH * wa[OH];
-      awL = mH * wa[H] - mOH * wa[OH];
-      bw = mH * wb[H] + mOH * wb[OH];
-      bwL = mH * wb[H] - mOH * wb[OH];
-      cw = mH + mOH;
-      cwL = mH - mOH;
+      double aH = Math.exp(-LN10 * pH);
+      double inverseAH = 1 / aH;
+      mH = aH * inverseG1;
+      mOH = kwPerG1 * inverseAH;
+      q = mH - mOH + strongQ;
+      qL = mH + mOH;
+      a = mH * wa[H] + mOH * wa[OH] + strongA;
+      aL = mH * wa[H] - mOH * wa[OH];
+      b = mH * wb[H] + mOH * wb[OH] + strongB;
+      bL = mH * wb[H] - mOH * wb[OH];
+      c = mH + mOH + strongC;
+      cL = mH - mOH;
+      if (alkalizer) {
+        alkalizer(aH);
+      }
+      if (carbonic) {
+        carbonic(inverseAH);
+      }
+      if (phosphoric) {
+        phosphoric(inverseAH);
+      }
+      lastPh = pH;
+    }
 
-      double q = 0;
-      double qL = 0;
-      double a = 0;
-      double aL = 0;
-      double b = 0;
-      double bL = 0;
+    /** Adds the unit sums of weak group k times its amount; keeps them when k is the unknown. */
+    private void add(
+        int k,
+        double amount,
+        double z,
+        double zL,
+        double ua,
+        double uaL,
+        double ub,
+        double ubL,
+        double uc,
+        double ucL) {
+      q += amount * z;
+      qL += amount * zL;
+      a += amount * ua;
+      aL += amount * uaL;
+      b += amount * ub;
+      bL += amount * ubL;
+      c += amount * uc;
+      cL += amount * ucL;
+      if (k == u) {
+        zu = z;
+        zuL = zL;
+        au = ua;
+        auL = uaL;
+        bu = ub;
+        buL = ubL;
+        cu = uc;
+        cuL = ucL;
+      }
+    }
+
+    /** The alkalizer mix at a(H⁺): BH⁺ fraction α of each base, d α/d ln a(H⁺) = α(1 − α). */
+    private void alkalizer(double aH) {
+      double z = 0;
+      double zL = 0;
+      double ua = 0;
+      double uaL = 0;
+      double ub = 0;
+      double ubL = 0;
       for (int i = 0; i < baseKa.length; i++) {
         double al = aH / (aH + baseKa[i] * g1);
-        alpha[i] = al;
-        double fr = baseFraction[i];
-        double p = fr * al;
+        double p = baseFraction[i] * al;
         double pL = p * (1 - al);
-        q += p;
-        qL += pL;
-        a += p * baseA[i];
-        aL += pL * baseA[i];
-        b += p * baseB[i];
-        bL += pL * baseB[i];
+        z += p;
+        zL += pL;
+        ua += p * baseA[i];
+        uaL += pL * baseA[i];
+        ub += p * baseB[i];
+        ubL += pL * baseB[i];
       }
-      z[ALK] = q;
-      zL[ALK] = qL;
-      ua[ALK] = a;
-      uaL[ALK] = aL;
-      ub[ALK] = b;
-      ubL[ALK] = bL;
-      uc[ALK] = q;
-      ucL[ALK] = qL;
+      add(ALK, nAlk, z, zL, ua, uaL, ub, ubL, z, zL);
+    }
 
-      // carbonic acid: fractions f1 (HCO3-), f2 (CO3-2); mean charge nc; df_j/dL = f_j (nc − j)
-      double r1 = k1c / (aH * g1);
-      double r2 = k1c * k2c / (aH * aH * g2);
-      double d = 1 + r1 + r2;
-      fHco3 = r1 / d;
-      fCo3 = r2 / d;
+    /** Carbonic acid at 1/a(H⁺). */
+    private void carbonic(double inverseAH) {
+      // fractions f1 (HCO3-), f2 (CO3-2); mean charge nc; df_j/dL = f_j (nc − j)
+      double r1 = c1 * inverseAH;
+      double r2 = c2 * inverseAH * inverseAH;
+      double inverseD = 1 / (1 + r1 + r2);
+      double fHco3 = r1 * inverseD;
+      double fCo3 = r2 * inverseD;
       double nc = fHco3 + 2 * fCo3;
       double e1 = fHco3 * (nc - 1);
       double e2 = fCo3 * (nc - 2);
-      z[CAR] = -nc;
-      zL[CAR] = -(e1 + 2 * e2);
-      ua[CAR] = fHco3 * wa[HCO3] + fCo3 * wa[CO3];
-      uaL[CAR] = e1 * wa[HCO3] + e2 * wa[CO3];
-      ub[CAR] = fHco3 * wb[HCO3] + fCo3 * wb[CO3];
-      ubL[CAR] = e1 * wb[HCO3] + e2 * wb[CO3];
-      uc[CAR] = fHco3 + 4 * fCo3;
-      ucL[CAR] = e1 + 4 * e2;
+      add(
+          CAR,
+          nCar,
+          -nc,
+          -(e1 + 2 * e2),
+          fHco3 * wa[HCO3] + fCo3 * wa[CO3],
+          e1 * wa[HCO3] + e2 * wa[CO3],
+          fHco3 * wb[HCO3] + fCo3 * wb[CO3],
+          e1 * wb[HCO3] + e2 * wb[CO3],
+          fHco3 + 4 * fCo3,
+          e1 + 4 * e2);
+    }
 
-      // phosphoric acid: H2PO4-, HPO4-2, PO4-3
-      double p1 = k1p / (aH * g1);
-      double p2 = k1p * k2p / (aH * aH * g2);
-      double p3 = k1p * k2p * k3p / (aH * aH * aH * g3);
-      double dp = 1 + p1 + p2 + p3;
-      fH2po4 = p1 / dp;
-      fHpo4 = p2 / dp;
-      fPo4 = p3 / dp;
+    /** Phosphoric acid at 1/a(H⁺): H2PO4-, HPO4-2, PO4-3. */
+    private void phosphoric(double inverseAH) {
+      double r1 = p1 * inverseAH;
+      double r2 = p2 * inverseAH * inverseAH;
+      double r3 = p3 * inverseAH * inverseAH * inverseAH;
+      double inverseD = 1 / (1 + r1 + r2 + r3);
+      double fH2po4 = r1 * inverseD;
+      double fHpo4 = r2 * inverseD;
+      double fPo4 = r3 * inverseD;
       double np = fH2po4 + 2 * fHpo4 + 3 * fPo4;
       double h1 = fH2po4 * (np - 1);
       double h2 = fHpo4 * (np - 2);
       double h3 = fPo4 * (np - 3);
-      z[PHO] = -np;
-      zL[PHO] = -(h1 + 2 * h2 + 3 * h3);
-      ua[PHO] = fH2po4 * wa[H2PO4] + fHpo4 * wa[HPO4] + fPo4 * wa[PO4];
-      uaL[PHO] = h1 * wa[H2PO4] + h2 * wa[HPO4] + h3 * wa[PO4];
-      ub[PHO] = fH2po4 * wb[H2PO4] + fHpo4 * wb[HPO4] + fPo4 * wb[PO4];
-      ubL[PHO] = h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4];
-      uc[PHO] = fH2po4 + 4 * fHpo4 + 9 * fPo4;
-      ucL[PHO] = h1 + 4 * h2 + 9 * h3;
-      lastPh = pH;
+      add(
+          PHO,
+          nPho,
+          -np,
+          -(h1 + 2 * h2 + 3 * h3),
+          fH2po4 * wa[H2PO4] + fHpo4 * wa[HPO4] + fPo4 * wa[PO4],
+          h1 * wa[H2PO4] + h2 * wa[HPO4] + h3 * wa[PO4],
+          fH2po4 * wb[H2PO4] + fHpo4 * wb[HPO4] + fPo4 * wb[PO4],
+          h1 * wb[H2PO4] + h2 * wb[HPO4] + h3 * wb[PO4],
+          fH2po4 + 4 * fHpo4 + 9 * fPo4,
+          h1 + 4 * h2 + 9 * h3);
     }
 
-    /** Net charge of amounts n at the current pH, mol/kg (decreasing in pH). */
-    double charge(double[] n) {
-      double q = qw;
-      for (int k = 0; k < GROUPS; k++) {
-        q += n[k] * z[k];
-      }
-      return q;
-    }
-
-    private double chargeL(double[] n) {
-      double q = qwL;
-      for (int k = 0; k < GROUPS; k++) {
-        q += n[k] * zL[k];
-      }
-      return q;
-    }
-
-    /** Amount of group u that balances the charge of n at a trial pH. */
-    double amountAt(double pH, double[] n, int u) {
+    /** Amount of the unknown that balances the charge of n at a trial pH. */
+    double amountAt(double pH) {
       at(pH);
-      return -charge(n) / z[u];
+      return -q / zu;
     }
 
-    /** Molal ionic strength of n plus x of group u at the current pH, mol/kg. */
-    double ionicStrength(double[] n, int u, double x) {
-      double c = cw + x * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        c += n[k] * uc[k];
-      }
-      return 0.5 * c;
+    /** Molal ionic strength of n plus x of the unknown at the current pH, mol/kg. */
+    double ionicStrength(double x) {
+      return 0.5 * (c + x * cu);
     }
 
-    /** κ of n plus x of group u at a trial pH, µS/cm. */
-    double kappa(double pH, double[] n, int u, double x) {
+    /** κ of n plus x of the unknown at a trial pH, µS/cm. */
+    double kappa(double pH, double x) {
       at(pH);
-      double a = aw + x * ua[u];
-      double b = bw + x * ub[u];
-      double c = cw + x * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        a += n[k] * ua[k];
-        b += n[k] * ub[k];
-        c += n[k] * uc[k];
-      }
-      return rho * (a - Math.sqrt(halfRhoPerLiter * c) * b);
+      double sqrtI = Math.sqrt(halfRhoPerLiter * (c + x * cu));
+      return rho * (a + x * au - sqrtI * (b + x * bu));
     }
 
     /** Sets f and df to the charge balance of n and its pH derivative. */
-    void evalCharge(double pH, double[] n) {
+    void evalCharge(double pH) {
       at(pH);
-      f = charge(n);
-      df = -LN10 * chargeL(n);
+      f = q;
+      df = -LN10 * qL;
     }
 
     /**
-     * Sets f and df to κ − target along the charge balance (the amount of group u that balances n
-     * at pH) and its pH derivative.
+     * Sets f to 2(κ − target)/(κ + target), with κ along the charge balance (the amount of the
+     * unknown that balances n at pH), and df to its pH derivative.
      */
-    void evalKappa(double pH, double[] n, int u, double target) {
+    void evalKappa(double pH, double target) {
       at(pH);
-      double qb = charge(n);
-      double qbL = chargeL(n);
-      double zu = z[u];
-      double x = -qb / zu;
-      double xL = -(qbL * zu - qb * zL[u]) / (zu * zu);
-      double a = aw + x * ua[u];
-      double aL = awL + x * uaL[u] + xL * ua[u];
-      double b = bw + x * ub[u];
-      double bL = bwL + x * ubL[u] + xL * ub[u];
-      double c = cw + x * uc[u];
-      double cL = cwL + x * ucL[u] + xL * uc[u];
-      for (int k = 0; k < GROUPS; k++) {
-        double nk = n[k];
-        a += nk * ua[k];
-        aL += nk * uaL[k];
-        b += nk * ub[k];
-        bL += nk * ubL[k];
-        c += nk * uc[k];
-        cL += nk * ucL[k];
-      }
-      double sqrtI = Math.sqrt(halfRhoPerLiter * c);
-      f = rho * (a - sqrtI * b) - target;
-      double kappaL = rho * (aL - sqrtI * bL - b * halfRhoPerLiter * cL / (2 * sqrtI));
-      df = -LN10 * kappaL;
+      double inverseZu = 1 / zu;
+      double x = -q * inverseZu;
+      double xL = -(qL + x * zuL) * inverseZu;
+      double sa = a + x * au;
+      double saL = aL + x * auL + xL * au;
+      double sb = b + x * bu;
+      double sbL = bL + x * buL + xL * bu;
+      double sc = c + x * cu;
+      double scL = cL + x * cuL + xL * cu;
+      double sqrtI = Math.sqrt(halfRhoPerLiter * sc);
+      double kappa = rho * (sa - sqrtI * sb);
+      // d√I/dL = ½·(ρ/2000)·Σ z²m_L/√I, written with ρ/2000·Σ z²m = √I²
+      double kappaL = rho * (saL - sqrtI * sbL - 0.5 * sb * sqrtI * scL / sc);
+      // The search runs on h = 2(κ − target)/(κ + target), which has the sign and the root of
+      // κ − target but follows ln(κ/target) to third order: κ of an acid or a base changes about
+      // tenfold per pH unit, nearly linear in ln κ, so Newton steps on h land closer than on κ.
+      double inverseSum = 1 / (kappa + target);
+      f = 2 * (kappa - target) * inverseSum;
+      df = -LN10 * 4 * target * kappaL * inverseSum * inverseSum;
     }
 
-    /** The pH of the charge balance of n, started from a guess (NaN: an estimate). */
-    double chargeRoot(double[] n, double guess) {
+    /**
+     * The pH of the charge balance of n, started from a guess (NaN: an estimate). With fully
+     * dissociated solutes only, the balance is a quadratic in m(H⁺), solved in closed form.
+     */
+    double chargeRoot(double guess) {
       double lo = PH_MIN;
       double hi = water.pKw() - 1;
+      if (strongOnly) {
+        double pH = strongRoot(strongQ);
+        if (pH > lo && pH < hi) {
+          return pH;
+        }
+      }
       double start = guess;
       if (Double.isNaN(start)) {
         // strong-electrolyte estimate: mH − mOH + R = 0 with R the solutes' charge at neutrality
         at(water.pKw() / 2);
-        double r = charge(n) - qw;
-        double k = kw / (g1 * g1);
-        double root = Math.sqrt(r * r + 4 * k);
-        double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
-        start = -Math.log10(mh * g1);
+        start = strongRoot(q - (mH - mOH));
       }
-      double pH = newton(false, n, 0, 0, start, hi, lo);
+      double pH = newton(false, 0, start, hi, lo);
       if (Double.isNaN(pH)) {
-        pH = warmBrent(p -> charge(p, n), guess, lo, hi);
+        pH = warmBrent(this::charge, guess, lo, hi);
       }
       return pH;
     }
 
-    private double charge(double pH, double[] n) {
+    private double charge(double pH) {
       at(pH);
-      return charge(n);
+      return q;
+    }
+
+    /**
+     * The pH at which m(H⁺) − m(OH⁻) + r = 0 at the current activity coefficients: m(H⁺)·m(OH⁻) =
+     * Kw/γ₁², each root of the quadratic in the form free of cancellation.
+     */
+    private double strongRoot(double r) {
+      double k = kw / (g1 * g1);
+      double root = Math.sqrt(r * r + 4 * k);
+      double mh = r > 0 ? 2 * k / (r + root) : (root - r) / 2;
+      return -Math.log10(mh * g1);
     }
 
     /**
@@ -662,19 +764,17 @@ public final class SolutionModel {
      * and end, started from a guess (NaN or outside that bracket: an estimate from the ion pair the
      * unknown forms).
      */
-    double kappaRoot(
-        double[] n, int u, double target, double guess, double pHbg, double end, boolean raises) {
+    double kappaRoot(double target, double guess, double pHbg, double end, boolean raises) {
       double start = guess;
       if (!(start > Math.min(pHbg, end) && start < Math.max(pHbg, end))) {
-        at(pHbg);
-        double extra = (target - kappa(pHbg, n, u, 0)) / (rho * pairA[u]);
+        double extra = (target - kappa(pHbg, 0)) / (rho * pairA[u]);
         start = raises ? -Math.log10(kw / (g1 * (mOH + extra))) : -Math.log10(g1 * (mH + extra));
       }
-      double pH = newton(true, n, u, target, start, pHbg, end);
+      double pH = newton(true, target, start, pHbg, end);
       if (Double.isNaN(pH)) {
         pH =
             warmBrent(
-                p -> kappa(p, n, u, -charge(p, n) / z[u]) - target,
+                p -> kappa(p, -charge(p) / zu) - target,
                 guess,
                 Math.min(pHbg, end),
                 Math.max(pHbg, end));
@@ -687,8 +787,7 @@ public final class SolutionModel {
      * balance or of the κ function, on the bracket where f(neg) < 0 < f(pos). Returns NaN when it
      * does not converge or ends at a bracket end (the caller then runs Brent).
      */
-    private double newton(
-        boolean kappa, double[] n, int u, double target, double start, double neg, double pos) {
+    private double newton(boolean kappa, double target, double start, double neg, double pos) {
       double lo = Math.min(neg, pos);
       double hi = Math.max(neg, pos);
       double x = start > lo && start < hi ? start : 0.5 * (lo + hi);
@@ -696,9 +795,9 @@ public final class SolutionModel {
       double step = stepBefore;
       for (int i = 0; i < NEWTON_ITERATIONS; i++) {
         if (kappa) {
-          evalKappa(x, n, u, target);
+          evalKappa(x, target);
         } else {
-          evalCharge(x, n);
+          evalCharge(x);
         }
         if (f == 0) {
           return x;
@@ -710,8 +809,9 @@ public final class SolutionModel {
         }
         double next = x - f / df;
         if (Math.abs(f / df) <= NEWTON_LAST_STEP && (next - neg) * (next - pos) <= 0) {
-          // converged: the step is below the tolerance (possibly below one ulp of x)
-          return trusted(next, lo, hi);
+          // converged: the step is below the tolerance (possibly below one ulp of x); when it
+          // is far below, x itself is as good a root and the species are already computed there
+          return trusted(Math.abs(f / df) <= NEGLIGIBLE_STEP ? x : next, lo, hi);
         }
         boolean useNewton =
             df != 0
@@ -730,25 +830,6 @@ public final class SolutionModel {
         x = next;
       }
       return Double.NaN;
-    }
-
-    /** κ of totals at the current pH, by {@link IonConductivities#kappa(double[])}. */
-    double kappaOf(Solutes s) {
-      Arrays.fill(m, 0);
-      m[H] = mH;
-      m[OH] = mOH;
-      for (int i = 0; i < alpha.length; i++) {
-        m[baseCation[i]] += s.alkalizer() * baseFraction[i] * alpha[i];
-      }
-      m[NA] += s.sodium();
-      m[CL] += s.chloride();
-      m[SO4] += s.sulfate();
-      m[HCO3] += s.carbonate() * fHco3;
-      m[CO3] += s.carbonate() * fCo3;
-      m[H2PO4] += s.phosphate() * fH2po4;
-      m[HPO4] += s.phosphate() * fHpo4;
-      m[PO4] += s.phosphate() * fPo4;
-      return ions.kappa(m);
     }
   }
 }

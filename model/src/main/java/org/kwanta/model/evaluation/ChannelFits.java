@@ -20,11 +20,11 @@ final class ChannelFits {
 
   private ChannelFits() {}
 
-  /** The fitted amounts and the per-channel solutions. */
-  record Result(
-      Solutes all,
-      Map<Parameter, Solution> channelSolutions,
-      Map<Parameter, Solutes> channelSolutes) {}
+  /**
+   * The fitted amounts and the per-channel solutions (each channel's fitted amounts are its
+   * solution's solutes).
+   */
+  record Result(Solutes all, Map<Parameter, Solution> channelSolutions) {}
 
   /**
    * @param regime the treatment
@@ -75,7 +75,6 @@ final class ChannelFits {
       Parameter changed,
       Map<Parameter, Solution> near) {
     Map<Parameter, Solution> solutions = new EnumMap<>(Parameter.class);
-    Map<Parameter, Solutes> channelSolutes = new EnumMap<>(Parameter.class);
     // with a central fit, the channels before the changed one keep their results
     boolean reuseDegassed = central != null && changed != Parameter.DEGASSED_CATION_CONDUCTIVITY;
     boolean reuseCation = reuseDegassed && changed != Parameter.CATION_CONDUCTIVITY;
@@ -96,7 +95,6 @@ final class ChannelFits {
                       near.get(Parameter.DEGASSED_CATION_CONDUCTIVITY));
       acid = s.solutes().chloride();
       solutions.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, s);
-      channelSolutes.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, s.solutes());
     }
     Double c = values.get(Parameter.CATION_CONDUCTIVITY);
     if (c != null) {
@@ -127,7 +125,6 @@ final class ChannelFits {
         acid = s.solutes().chloride();
       }
       solutions.put(Parameter.CATION_CONDUCTIVITY, s);
-      channelSolutes.put(Parameter.CATION_CONDUCTIVITY, s.solutes());
     }
     double na = regime.isVolatile() && sodiumMolal > 0 ? sodiumMolal : 0;
     Solutes all = new Solutes(0, na, acid, 0, co2, phosphate);
@@ -143,8 +140,7 @@ final class ChannelFits {
           };
       all = s.solutes();
       solutions.put(Parameter.SPECIFIC_CONDUCTIVITY, s);
-      channelSolutes.put(Parameter.SPECIFIC_CONDUCTIVITY, s.solutes());
     }
-    return new Result(all, solutions, channelSolutes);
+    return new Result(all, solutions);
   }
 }

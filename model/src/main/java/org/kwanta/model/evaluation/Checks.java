@@ -293,10 +293,10 @@ final class Checks {
     if (h.isEmpty() || h.get(0).time().isAfter(start)) {
       return; // history does not cover the persistence time
     }
-    List<Reading> scHistory = snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY);
-    List<Reading> cHistory = snapshot.readings(Parameter.CATION_CONDUCTIVITY);
-    boolean scSorted = isSorted(scHistory);
-    boolean cSorted = isSorted(cHistory);
+    NearestReadings scHistory =
+        new NearestReadings(snapshot.readings(Parameter.SPECIFIC_CONDUCTIVITY));
+    NearestReadings cHistory =
+        new NearestReadings(snapshot.readings(Parameter.CATION_CONDUCTIVITY));
     int sign = 0;
     double lastResidual = Double.NaN;
     for (Reading r : h) {
@@ -306,8 +306,8 @@ final class Checks {
       // calculated pH at the time of r: anchored at the present rigorous value, shifted as
       // log10(SC − CACE/3) moved (alkaline samples); exact when the conductivities were steady
       double shift = 0;
-      Reading scThen = nearest(scHistory, r.time(), scSorted);
-      Reading cThen = nearest(cHistory, r.time(), cSorted);
+      Reading scThen = scHistory.at(r.time());
+      Reading cThen = cHistory.at(r.time());
       if (scThen != null && argNow > 0) {
         double arg = scThen.value() - (cThen == null ? 0 : cThen.value() / 3);
         if (arg > 0) {
@@ -344,6 +344,47 @@ final class Checks {
   }
 
   /**
+   * The index of the reading nearest in time (the first of equally near ones) in time-ordered
+   * readings, searched from a start index, or −1 when there are none. On time-ordered readings the
+   * gap to a time falls and then rises along the list (truncation to whole milliseconds keeps that
+   * shape, with flat stretches), and the first nearest reading is the first at the bottom. From any
+   * start the search walks back while the gap does not rise, so it stands at or before that first
+   * nearest reading with every earlier gap larger, then scans forward as {@link #nearest}: the same
+   * reading as the full scan whatever the start, found in a few steps when the start is the answer
+   * for a slightly earlier time (successive times of another series).
+   *
+   * @param sortedHistory readings in non-decreasing time order
+   * @param from where to start, e.g. the answer for the previous, earlier time
+   */
+  static int nearestIndex(List<Reading> sortedHistory, Instant time, int from) {
+    int n = sortedHistory.size();
+    if (n == 0) {
+      return -1;
+    }
+    int i = Math.max(0, Math.min(n - 1, from));
+    long gap = gapMillis(sortedHistory.get(i).time(), time);
+    while (i > 0) {
+      long before = gapMillis(sortedHistory.get(i - 1).time(), time);
+      if (before > gap) {
+        break;
+      }
+      i--;
+      gap = before;
+    }
+    int best = i;
+    for (int k = i + 1; k < n; k++) {
+      long g = gapMillis(sortedHistory.get(k).time(), time);
+      if (g < gap) {
+        gap = g;
+        best = k;
+      } else if (g > gap) {
+        break;
+      }
+    }
+    return best;
+  }
+
+  /**
    * The reading nearest in time (the first of equally near ones).
    *
    * @param sorted true when the readings are in non-decreasing time order: the gaps then fall and
@@ -362,6 +403,35 @@ final class Checks {
       }
     }
     return best;
+  }
+
+  /**
+   * The reading of one history nearest to each of a series of times (the first of equally near
+   * ones, as {@link #nearest}); on a time-ordered history each search starts where the previous one
+   * ended, so a series of increasing times costs about one pass over the history.
+   */
+  static final class NearestReadings {
+    private final List<Reading> history;
+    private final boolean sorted;
+    private int last;
+
+    NearestReadings(List<Reading> history) {
+      this.history = history;
+      this.sorted = isSorted(history);
+    }
+
+    /** The reading nearest to a time, or null when the history is empty. */
+    Reading at(Instant time) {
+      if (!sorted) {
+        return nearest(history, time, false);
+      }
+      int i = nearestIndex(history, time, last);
+      if (i < 0) {
+        return null;
+      }
+      last = i;
+      return history.get(i);
+    }
   }
 
   /** True when the readings are in non-decreasing time order. */
@@ -455,9 +525,9 @@ final class Checks {
       double sx = 0;
       double sy = 0;
       double[] ys = new double[n];
-      boolean ySorted = isSorted(y);
+      NearestReadings yNear = new NearestReadings(y);
       for (int i = 0; i < n; i++) {
-        ys[i] = nearest(y, x.get(i).time(), ySorted).value();
+        ys[i] = yNear.at(x.get(i).time()).value();
         sx += x.get(i).value();
         sy += ys[i];
       }

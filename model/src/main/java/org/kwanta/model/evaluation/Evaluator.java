@@ -105,8 +105,7 @@ public final class Evaluator {
         Reading r = usable.get(p);
         Solution fit = fitted.channelSolutions().get(p);
         // a channel fitted at 25 °C is its own 25 °C solution
-        Solution s25 =
-            models.get(p) == model25 ? fit : model25.solve(fitted.channelSolutes().get(p), fit);
+        Solution s25 = models.get(p) == model25 ? fit : model25.solve(fit.solutes(), fit);
         solutions25.put(p, s25);
         double k25;
         if (below.get(p)) {
@@ -305,15 +304,22 @@ public final class Evaluator {
 
   static Composition toComposition(Solutes s, AlkalizerMix mix) {
     Map<Component, Double> totals = new EnumMap<>(Component.class);
-    for (Map.Entry<Alkalizer, Double> e : mix.molarFractions().entrySet()) {
-      totals.put(component(e.getKey()), s.alkalizer() * e.getValue());
+    for (Alkalizer a : mix.molarFractions().keySet()) {
+      totals.put(component(a), s.alkalizer() * mix.molarFractions().get(a));
     }
-    totals.put(Component.SODIUM, s.sodium());
-    totals.put(Component.CHLORIDE, s.chloride());
-    totals.put(Component.SULFATE, s.sulfate());
-    totals.put(Component.CARBON_DIOXIDE, s.carbonate());
-    totals.put(Component.PHOSPHATE, s.phosphate());
+    // zero totals are left out (a composition keeps only the non-zero ones)
+    putNonZero(totals, Component.SODIUM, s.sodium());
+    putNonZero(totals, Component.CHLORIDE, s.chloride());
+    putNonZero(totals, Component.SULFATE, s.sulfate());
+    putNonZero(totals, Component.CARBON_DIOXIDE, s.carbonate());
+    putNonZero(totals, Component.PHOSPHATE, s.phosphate());
     return new Composition(totals);
+  }
+
+  private static void putNonZero(Map<Component, Double> totals, Component c, double total) {
+    if (total != 0) {
+      totals.put(c, total);
+    }
   }
 
   private static Component component(Alkalizer a) {

@@ -16,6 +16,9 @@ class ConductivityTest {
     return new SolutionModel(Conductivity.at(W25), TestEquilibria.at25(W25), mix);
   }
 
+  /** Molar mass of HCl, g/mol (IUPAC standard atomic weights: H 1.008, Cl 35.453). */
+  private static final double HCL_G_PER_MOL = 36.461;
+
   private static double molalFromMgPerL(double mgPerL, double molarMass) {
     return mgPerL / molarMass / 1000 / (W25.densityKgPerM3() / 1000);
   }
@@ -63,24 +66,27 @@ class ConductivityTest {
 
   /**
    * ASTM D4519 Table 1: chloride as HCl, 1 / 5 / 10 / 20 / 40 µg/L → 0.0595 / 0.0872 / 0.1344 /
-   * 0.2427 / 0.4709 µS/cm at 25 °C. The model reads high by +0.5 % rising to +3.05 % at 40 µg/L
-   * (the table seems to carry a slightly stronger concentration term); the issue asks for ±3 %, met
-   * to 20 µg/L, and the 40 µg/L point is held to ±3.5 %.
+   * 0.2427 / 0.4709 µS/cm at 25 °C, within ±3 %.
+   *
+   * <p>The concentrations are read as µg/L of HCl (M = 36.461 g/mol, IUPAC atomic weights), as "as
+   * HCl" says; the model then reads +0.25 % to +0.5 % high at every point (its pure water is
+   * 0.05496 against the table's 0.0548, +0.3 %). Where the acid dominates (20 and 40 µg/L), the
+   * table so read implies Λ(HCl) = 424.7 S cm² mol⁻¹ once the water ions are taken off: the
+   * limiting value λ°(H⁺) + λ°(Cl⁻) = 425.96 (CRC) within 0.3 %. Read as µg/L of chloride (M =
+   * 35.453 g/mol), it would imply 413.1–413.4 S cm² mol⁻¹, 3 % below the limiting value, where the
+   * Onsager limiting law at about 1 µmol/L takes off only 0.17 S cm² mol⁻¹ (0.04 %); no limiting
+   * conductivity, concentration law, water share or ion product of the model can close such a gap.
+   * That reading put the 40 µg/L point at +3.05 %: the molar-mass ratio 36.461/35.453 = 1.028 on
+   * top of the same +0.26 %.
    */
   @Test
   void hydrochloricAcidMatchesAstmD4519Table1() {
     SolutionModel model = model25(AlkalizerMix.AMMONIA);
-    double[][] rows = {
-      {1, 0.0595, 0.03},
-      {5, 0.0872, 0.03},
-      {10, 0.1344, 0.03},
-      {20, 0.2427, 0.03},
-      {40, 0.4709, 0.035}
-    };
+    double[][] rows = {{1, 0.0595}, {5, 0.0872}, {10, 0.1344}, {20, 0.2427}, {40, 0.4709}};
     for (double[] r : rows) {
-      double m = molalFromMgPerL(r[0] / 1000, 35.453);
+      double m = molalFromMgPerL(r[0] / 1000, HCL_G_PER_MOL);
       Solution s = model.solve(Solutes.NONE.with(Solute.HYDROCHLORIC_ACID, m));
-      assertThat(s.kappa()).as("%s µg/L Cl", r[0]).isCloseTo(r[1], within(r[1] * r[2]));
+      assertThat(s.kappa()).as("%s µg/L as HCl", r[0]).isCloseTo(r[1], within(r[1] * 0.03));
     }
   }
 

@@ -61,4 +61,51 @@ class ChecksGapTest {
       }
     }
   }
+
+  /**
+   * The search from a start index picks what the full scan picks, from every start, on time-ordered
+   * readings with repeated, sub-millisecond and equidistant times; and the cursor over a series of
+   * times, increasing or not, picks what the full scan picks at each.
+   */
+  @Test
+  void searchFromAnyStartPicksTheSameReadingAsTheFullScan() {
+    Random r = new Random(13L);
+    Instant t0 = Instant.parse("2025-03-14T08:00:00Z");
+    for (int round = 0; round < 500; round++) {
+      java.util.List<Reading> h = new java.util.ArrayList<>();
+      Instant t = t0;
+      for (int i = 0; i < 1 + r.nextInt(30); i++) {
+        long nanos =
+            switch (r.nextInt(4)) {
+              case 0 -> 0;
+              case 1 -> r.nextInt(2_000_000);
+              default -> 1_000_000L * (1 + r.nextInt(600_000));
+            };
+        t = t.plusNanos(nanos);
+        h.add(Reading.raw(t, i, 298.15));
+      }
+      java.util.List<Instant> queries = new java.util.ArrayList<>();
+      for (int k = 0; k < 20; k++) {
+        queries.add(t0.plusNanos(r.nextLong(20_000_000_000_000L) - 1_000_000_000_000L));
+      }
+      for (Reading x : h) {
+        queries.add(x.time().plusNanos(r.nextInt(3_000_000) - 1_500_000));
+      }
+      for (Instant q : queries) {
+        Reading full = Checks.nearest(h, q, false);
+        for (int from = -1; from <= h.size(); from++) {
+          assertThat(h.get(Checks.nearestIndex(h, q, from))).isSameAs(full);
+        }
+      }
+      Checks.NearestReadings cursor = new Checks.NearestReadings(h);
+      for (Instant q : queries) {
+        assertThat(cursor.at(q)).isSameAs(Checks.nearest(h, q, false));
+      }
+      queries.sort(null);
+      Checks.NearestReadings increasing = new Checks.NearestReadings(h);
+      for (Instant q : queries) {
+        assertThat(increasing.at(q)).isSameAs(Checks.nearest(h, q, false));
+      }
+    }
+  }
 }
