@@ -106,6 +106,7 @@ def main():
     ap.add_argument("--batch", type=int, default=1000)
     ap.add_argument("--concurrency", type=int, default=4)
     ap.add_argument("--seconds", type=float, default=60, help="measured seconds")
+    ap.add_argument("--days-back", type=int, default=20, help="the data starts this many days ago")
     ap.add_argument("--warmup", type=float, default=30, help="seconds of the same load sent first, not counted")
     ap.add_argument("--db", help="libpq connection string of the service's database, for the COPY baseline")
     args = ap.parse_args()
@@ -125,7 +126,9 @@ def main():
     if status != 201:
         sys.exit(f"plant creation failed: {status} {body[:300]}")
 
-    start = (datetime.now(timezone.utc) - timedelta(days=3)).replace(hour=0, minute=0, second=0, microsecond=0)
+    # far enough back that the run never reaches "now" (10 s steps of 120 readings: a day is 1.04 M readings)
+    start = (datetime.now(timezone.utc) - timedelta(days=args.days_back)).replace(
+        hour=0, minute=0, second=0, microsecond=0)
     per_step = len(points) * len(PARAMS)
     steps_per_batch = max(1, args.batch // per_step)
     lock = threading.Lock()

@@ -206,7 +206,7 @@ public class EvaluationStore {
           .textArray(
               v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList())
           .textArray(suspects(v))
-          .text(json.writeValueAsString(v));
+          .text(json.writeValueAsBytes(v));
     }
     return rows;
   }
@@ -217,7 +217,7 @@ public class EvaluationStore {
    * with {@link #upsert}).
    */
   public void copyNew(List<BinaryCopy> encoded) {
-    BinaryCopy all = new BinaryCopy(0, 0);
+    BinaryCopy all = new BinaryCopy(1, encoded.stream().mapToInt(BinaryCopy::size).sum() + 2);
     encoded.forEach(all::append);
     if (all.rows() > 0) {
       jdbc.execute((Connection c) -> all.send(c, COPY_TARGET));

@@ -28,7 +28,18 @@ public final class BinaryCopy {
 
   private static final int TEXT_OID = 25;
 
-  private final ByteArrayOutputStream bytes;
+  /** A byte buffer whose content can be read without copying it. */
+  private static final class Buffer extends ByteArrayOutputStream {
+    Buffer(int size) {
+      super(size);
+    }
+
+    ByteArrayInputStream reader() {
+      return new ByteArrayInputStream(buf, 0, count);
+    }
+  }
+
+  private final Buffer bytes;
   private final DataOutputStream out;
   private int rows;
 
@@ -40,7 +51,7 @@ public final class BinaryCopy {
 
   private BinaryCopy(int expectedRows, int bytesPerRow, boolean fragment) {
     this.fragment = fragment;
-    bytes = new ByteArrayOutputStream(19 + expectedRows * bytesPerRow);
+    bytes = new Buffer(19 + expectedRows * bytesPerRow);
     out = new DataOutputStream(bytes);
     if (!fragment) {
       try {
@@ -93,6 +104,17 @@ public final class BinaryCopy {
         out.writeInt(b.length);
         out.write(b);
       }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return this;
+  }
+
+  /** A text value given as UTF-8 bytes. */
+  public BinaryCopy text(byte[] utf8) {
+    try {
+      out.writeInt(utf8.length);
+      out.write(utf8);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
@@ -189,6 +211,11 @@ public final class BinaryCopy {
     return this;
   }
 
+  /** Bytes written so far. */
+  public int size() {
+    return bytes.size();
+  }
+
   public int rows() {
     return rows;
   }
@@ -207,9 +234,7 @@ public final class BinaryCopy {
       return connection
           .unwrap(PGConnection.class)
           .getCopyAPI()
-          .copyIn(
-              "COPY " + target + " FROM STDIN (FORMAT binary)",
-              new ByteArrayInputStream(bytes.toByteArray()));
+          .copyIn("COPY " + target + " FROM STDIN (FORMAT binary)", bytes.reader());
     } catch (IOException e) {
       throw new SQLException("COPY to " + target + " failed", e);
     }
