@@ -15,13 +15,19 @@ CREATE TABLE reading_head (
 INSERT INTO reading_head (sample_point_id, generation)
 SELECT id, nextval('reading_generation') FROM sample_point;
 
--- Readings written by anything other than the ingest (SQL by hand, bulk loads) make every in-memory copy stale.
--- The ingest marks its own statements with the transaction-local setting kwanta.writer = 'ingest'.
-CREATE FUNCTION reading_written_outside_ingest() RETURNS trigger LANGUAGE plpgsql AS $$
-BEGIN
+-- Makes every in-memory copy stale (rows locked in id order, as the ingest locks them: no deadlock).
+CREATE FUNCTION invalidate_reading_heads() RETURNS void LANGUAGE sql AS $$
     UPDATE reading_head h SET generation = nextval('reading_generation'), latest_time = NULL
     FROM (SELECT sample_point_id FROM reading_head ORDER BY sample_point_id FOR UPDATE) l
     WHERE h.sample_point_id = l.sample_point_id;
+$$;
+
+-- Readings written by anything other than the ingest (SQL by hand, bulk loads) make every in-memory copy stale;
+-- so does dropping a partition (the service calls invalidate_reading_heads() after retention). The ingest marks
+-- its own statements with the transaction-local setting kwanta.writer = 'ingest'.
+CREATE FUNCTION reading_written_outside_ingest() RETURNS trigger LANGUAGE plpgsql AS $$
+BEGIN
+    PERFORM invalidate_reading_heads();
     RETURN NULL;
 END
 $$;

@@ -132,26 +132,22 @@ public class EvaluationStore {
     String[] details = new String[n];
     for (int i = 0; i < n; i++) {
       EvaluationRunner.Result r = results.get(i);
-      EvaluationView v = r.view();
+      Columns col = Columns.of(r.view());
       points[i] = r.samplePointId();
       times[i] = r.time().toString();
-      versions[i] = v.configVersion();
-      sc[i] = v.at25("specific_conductivity");
-      cc[i] = v.at25("cation_conductivity");
-      dcc[i] = v.at25("degassed_cation_conductivity");
-      ph25[i] = v.calculatedPh() == null ? null : finite(v.calculatedPh().rigorous());
-      if (v.phAtTemperature() != null) {
-        pht[i] = finite(v.phAtTemperature().ph());
-        low[i] = finite(v.phAtTemperature().low());
-        high[i] = finite(v.phAtTemperature().high());
-        neutral[i] = finite(v.phAtTemperature().neutralPh());
-      }
-      suspect[i] = v.suspect();
-      codes[i] =
-          String.join(
-              ",", v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList());
-      suspects[i] = String.join(",", suspects(v));
-      details[i] = json.writeValueAsString(v);
+      versions[i] = r.view().configVersion();
+      sc[i] = nullIfNaN(col.sc25());
+      cc[i] = nullIfNaN(col.cc25());
+      dcc[i] = nullIfNaN(col.dcc25());
+      ph25[i] = nullIfNaN(col.ph25());
+      pht[i] = nullIfNaN(col.phAtTemperature());
+      low[i] = nullIfNaN(col.low());
+      high[i] = nullIfNaN(col.high());
+      neutral[i] = nullIfNaN(col.neutral());
+      suspect[i] = r.view().suspect();
+      codes[i] = String.join(",", col.codes());
+      suspects[i] = String.join(",", col.suspects());
+      details[i] = json.writeValueAsString(r.view());
     }
     jdbc.execute(
         (Connection c) -> {
@@ -182,31 +178,23 @@ public class EvaluationStore {
   public BinaryCopy encode(List<EvaluationRunner.Result> results) {
     BinaryCopy rows = BinaryCopy.fragment(results.size(), 1800);
     for (EvaluationRunner.Result r : results) {
-      EvaluationView v = r.view();
+      Columns col = Columns.of(r.view());
       rows.row(15)
           .text(r.samplePointId())
           .timestamp(r.time())
-          .int4(v.configVersion())
-          .float8(v.at25("specific_conductivity"))
-          .float8(v.at25("cation_conductivity"))
-          .float8(v.at25("degassed_cation_conductivity"))
-          .float8(v.calculatedPh() == null ? null : finite(v.calculatedPh().rigorous()));
-      if (v.phAtTemperature() == null) {
-        rows.float8((Double) null)
-            .float8((Double) null)
-            .float8((Double) null)
-            .float8((Double) null);
-      } else {
-        rows.float8(finite(v.phAtTemperature().ph()))
-            .float8(finite(v.phAtTemperature().low()))
-            .float8(finite(v.phAtTemperature().high()))
-            .float8(finite(v.phAtTemperature().neutralPh()));
-      }
-      rows.bool(v.suspect())
-          .textArray(
-              v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList())
-          .textArray(suspects(v))
-          .text(json.writeValueAsBytes(v));
+          .int4(r.view().configVersion())
+          .float8(col.sc25())
+          .float8(col.cc25())
+          .float8(col.dcc25())
+          .float8(col.ph25())
+          .float8(col.phAtTemperature())
+          .float8(col.low())
+          .float8(col.high())
+          .float8(col.neutral())
+          .bool(r.view().suspect())
+          .textArray(col.codes())
+          .textArray(col.suspects())
+          .text(json.writeValueAsBytes(r.view()));
     }
     return rows;
   }
@@ -230,6 +218,47 @@ public class EvaluationStore {
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
           ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes, suspects, details)""";
 
+  /** An evaluation's indexed columns; NaN where there is no value (SQL NULL). */
+  private record Columns(
+      double sc25,
+      double cc25,
+      double dcc25,
+      double ph25,
+      double phAtTemperature,
+      double low,
+      double high,
+      double neutral,
+      List<String> codes,
+      List<String> suspects) {
+
+    static Columns of(EvaluationView v) {
+      EvaluationView.PhAtTemperature t = v.phAtTemperature();
+      return new Columns(
+          nanIfNull(v.at25("specific_conductivity")),
+          nanIfNull(v.at25("cation_conductivity")),
+          nanIfNull(v.at25("degassed_cation_conductivity")),
+          v.calculatedPh() == null ? Double.NaN : finiteOrNaN(v.calculatedPh().rigorous()),
+          t == null ? Double.NaN : finiteOrNaN(t.ph()),
+          t == null ? Double.NaN : finiteOrNaN(t.low()),
+          t == null ? Double.NaN : finiteOrNaN(t.high()),
+          t == null ? Double.NaN : finiteOrNaN(t.neutralPh()),
+          v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList(),
+          EvaluationStore.suspects(v));
+    }
+  }
+
+  private static double nanIfNull(Double v) {
+    return v == null ? Double.NaN : v;
+  }
+
+  private static double finiteOrNaN(double v) {
+    return Double.isFinite(v) ? v : Double.NaN;
+  }
+
+  private static Double nullIfNaN(double v) {
+    return Double.isNaN(v) ? null : v;
+  }
+
   /** The instruments the findings suspect, distinct, sorted. */
   static List<String> suspects(EvaluationView v) {
     return v.findings().stream()
@@ -237,9 +266,5 @@ public class EvaluationStore {
         .distinct()
         .sorted()
         .toList();
-  }
-
-  private static Double finite(double v) {
-    return Double.isFinite(v) ? v : null;
   }
 }

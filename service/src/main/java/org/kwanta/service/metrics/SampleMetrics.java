@@ -75,9 +75,7 @@ class SampleMetrics {
   private record Latest(Instant time, double value) {}
 
   private static final String[] PARAMETER_CODES =
-      java.util.Arrays.stream(org.kwanta.service.readings.MeasuredParameter.values())
-          .map(org.kwanta.service.readings.MeasuredParameter::code)
-          .toArray(String[]::new);
+      org.kwanta.service.readings.MeasuredParameter.codeArray();
 
   @Scheduled(
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",

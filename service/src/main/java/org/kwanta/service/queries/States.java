@@ -75,7 +75,7 @@ class States {
                   sampleTemperature,
                   p.isConductivity() ? rs.getBoolean(6) : null);
             },
-            (Object) codes(),
+            (Object) MeasuredParameter.codeArray(),
             samplePointId);
     List<LatestEvaluation> evaluation =
         jdbc.query(
@@ -97,11 +97,5 @@ class States {
         now,
         latest,
         evaluation.isEmpty() ? null : evaluation.get(0));
-  }
-
-  private static String[] codes() {
-    return java.util.Arrays.stream(MeasuredParameter.values())
-        .map(MeasuredParameter::code)
-        .toArray(String[]::new);
   }
 }

@@ -126,6 +126,11 @@ public enum MeasuredParameter {
   }
 
   /** Parameter codes, for messages. */
+  /** Every parameter's code, in declaration order (a new array each call). */
+  public static String[] codeArray() {
+    return Arrays.stream(values()).map(MeasuredParameter::code).toArray(String[]::new);
+  }
+
   public static String codes() {
     return Arrays.stream(values()).map(MeasuredParameter::code).collect(Collectors.joining(", "));
   }

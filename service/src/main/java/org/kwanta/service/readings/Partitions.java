@@ -99,11 +99,7 @@ public class Partitions {
     }
     if (!dropped.isEmpty()) {
       // dropping a partition fires no trigger: mark every in-memory copy of readings stale
-      jdbc.update(
-          """
-          UPDATE reading_head h SET generation = nextval('reading_generation'), latest_time = NULL
-          FROM (SELECT sample_point_id FROM reading_head ORDER BY sample_point_id FOR UPDATE) l
-          WHERE h.sample_point_id = l.sample_point_id""");
+      jdbc.queryForObject("SELECT invalidate_reading_heads()", Object.class);
     }
     return dropped;
   }

@@ -73,10 +73,7 @@ class ReadingStore {
       "reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
           + " compensated)";
 
-  private static final String[] PARAMETER_CODES =
-      java.util.Arrays.stream(MeasuredParameter.values())
-          .map(MeasuredParameter::code)
-          .toArray(String[]::new);
+  private static final String[] PARAMETER_CODES = MeasuredParameter.codeArray();
 
   private final JdbcTemplate jdbc;
 

@@ -117,6 +117,11 @@ final class RecentReadings {
     return points.size();
   }
 
+  /** A key for searching the ordered readings (parameter "" sorts first, "\uffff" last). */
+  private static StoredReading probe(String parameter, Instant time) {
+    return new StoredReading(parameter, time, 0, (short) 0, 0, false);
+  }
+
   /** The copy of one sample point. */
   static final class PointHistory {
     private long generation = Long.MIN_VALUE;
@@ -148,7 +153,7 @@ final class RecentReadings {
 
     /** The held reading with the same parameter and time, or null. */
     StoredReading find(String parameter, Instant time) {
-      StoredReading probe = new StoredReading(parameter, time, 0, (short) 0, 0, false);
+      StoredReading probe = probe(parameter, time);
       StoredReading found = readings.ceiling(probe);
       return found != null && found.time().equals(time) && found.parameter().equals(parameter)
           ? found
@@ -157,12 +162,7 @@ final class RecentReadings {
 
     /** Whether a held reading at exactly this time has a parameter the filter accepts. */
     boolean anyAt(Instant time, java.util.function.Predicate<String> parameter) {
-      for (StoredReading r :
-          readings.subSet(
-              new StoredReading("", time, 0, (short) 0, 0, false),
-              true,
-              new StoredReading("\uffff", time, 0, (short) 0, 0, false),
-              true)) {
+      for (StoredReading r : readings.subSet(probe("", time), true, probe("\uffff", time), true)) {
         if (parameter.test(r.parameter())) {
           return true;
         }
@@ -190,12 +190,7 @@ final class RecentReadings {
         buckets.remove(b);
         for (StoredReading x :
             readings
-                .subSet(
-                    new StoredReading(
-                        "", Instant.ofEpochMilli(b * bucketMillis), 0, (short) 0, 0, false),
-                    true,
-                    r,
-                    false)
+                .subSet(probe("", Instant.ofEpochMilli(b * bucketMillis)), true, r, false)
                 .descendingSet()) {
           if (x.parameter().equals(r.parameter()) && x.quality() < 2) {
             buckets.put(b, x);
@@ -207,7 +202,7 @@ final class RecentReadings {
 
     private void trim(Instant keepFrom) {
       if (keepFrom.isAfter(coveredFrom)) {
-        readings.headSet(new StoredReading("", keepFrom, 0, (short) 0, 0, false), false).clear();
+        readings.headSet(probe("", keepFrom), false).clear();
         long first = EvaluationRunner.bucketOf(keepFrom, bucketMillis);
         for (java.util.TreeMap<Long, StoredReading> buckets : latestGood.values()) {
           buckets.headMap(first, false).clear();
@@ -246,12 +241,7 @@ final class RecentReadings {
         }
         out.sort(ORDER);
       }
-      out.addAll(
-          readings.subSet(
-              new StoredReading("", rawFrom, 0, (short) 0, 0, false),
-              true,
-              new StoredReading("\uffff", to, 0, (short) 0, 0, false),
-              true));
+      out.addAll(readings.subSet(probe("", rawFrom), true, probe("\uffff", to), true));
       return out;
     }
   }

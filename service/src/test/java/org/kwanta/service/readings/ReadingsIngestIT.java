@@ -332,6 +332,31 @@ class ReadingsIngestIT {
     assertThat(evaluations(points.get(1))).hasSize(30).isEqualTo(evaluations(points.get(0)));
   }
 
+  @Test
+  void droppingAPartitionMakesTheInMemoryHistoryStale() {
+    // retention drops whole partitions, which fires no trigger; it must still invalidate the
+    // ingest's in-memory history (invalidate_reading_heads)
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    Instant old = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(300, ChronoUnit.DAYS);
+    assertThat(post(feedwaterReadings(point, old, 3, 20)).statusCode()).isEqualTo(200);
+    long before = generation(point);
+    assertThat(
+            partitions.dropBefore(
+                java.time.LocalDate.ofInstant(old, java.time.ZoneOffset.UTC).plusDays(1)))
+        .isNotEmpty();
+    assertThat(generation(point)).isNotEqualTo(before);
+    assertThat(count(point)).isZero();
+    JsonNode again = JSON.readTree(post(feedwaterReadings(point, old, 3, 20)).body());
+    assertThat(again.get("inserted").asInt()).isEqualTo(15);
+  }
+
+  @Autowired Partitions partitions;
+
+  private long generation(String point) {
+    return jdbc.queryForObject(
+        "SELECT generation FROM reading_head WHERE sample_point_id = ?", Long.class, point);
+  }
+
   private double retried() {
     String scrape = http.get("/actuator/prometheus").body();
     return scrape
