@@ -165,7 +165,7 @@ public class IngestService {
     int unchanged;
     int evaluations;
     Outcome outcome;
-    RuntimeException failure;
+    Throwable failure;
 
     Pending(List<ValidReading> readings, int received, int duplicates) {
       this.readings = readings;
@@ -205,13 +205,24 @@ public class IngestService {
     combining.lock();
     try {
       while (!pending.done()) {
-        write(drain());
+        List<Pending> group = drain();
+        if (group.isEmpty()) {
+          // cannot happen (every drained batch gets a result); never wait for it forever
+          pending.failure = new IllegalStateException("the batch was lost before it was written");
+        }
+        write(group);
       }
     } finally {
       combining.unlock();
     }
+    if (pending.failure instanceof RuntimeException e) {
+      throw e;
+    }
+    if (pending.failure instanceof Error e) {
+      throw e;
+    }
     if (pending.failure != null) {
-      throw pending.failure;
+      throw new IllegalStateException(pending.failure);
     }
     return pending.outcome;
   }
@@ -261,9 +272,10 @@ public class IngestService {
   static final int MAX_GROUP_READINGS = 20_000;
 
   /**
-   * Writes a group in one transaction. If that fails because the database is unreachable, every
-   * batch of the group fails with it; otherwise each batch is retried alone (once more if it failed
-   * alone: the in-memory copy is dropped first, so a copy out of step cannot fail a batch).
+   * Writes a group in one transaction. If that fails because the database is unreachable (or with
+   * an {@link Error}), every batch of the group fails with it; otherwise each batch is retried
+   * alone on the plain path (no in-memory copy, upserts only), so a copy out of step cannot fail a
+   * batch. Every batch of the group ends with an outcome or a failure.
    */
   private void write(List<Pending> group) {
     write(group, true);
@@ -278,9 +290,10 @@ public class IngestService {
       // a retried batch takes the plain path: no in-memory copy, upserts only
       boolean fast = retry;
       transaction.executeWithoutResult(status -> store(group, kept, fast));
-    } catch (RuntimeException e) {
+    } catch (Throwable e) {
+      // nothing of the group is committed; the copies may hold its readings: drop them
       group.forEach(p -> p.ranges.keySet().forEach(recent::forget));
-      if (!retry || DatabaseOutage.isCause(e)) {
+      if (!retry || e instanceof Error || DatabaseOutage.isCause(e)) {
         group.forEach(p -> p.failure = e);
       } else {
         log.warn(
@@ -290,24 +303,30 @@ public class IngestService {
         metrics.retried(group.size());
         for (Pending p : group) {
           p.reset();
-          write(List.of(p), group.size() > 1);
+          write(List.of(p), false);
         }
       }
       return;
     }
-    kept.forEach(
-        (point, k) -> {
-          if (k.generation() == null) {
-            recent.forget(point);
-          } else {
-            recent.committed(point, k.generation(), k.keepFrom());
-          }
-        });
-    recent.evict();
     for (Pending p : group) {
       p.outcome =
           new Outcome(
               p.received, p.inserted, p.corrected, p.unchanged, p.duplicates, p.evaluations);
+    }
+    try {
+      kept.forEach(
+          (point, k) -> {
+            if (k.generation() == null) {
+              recent.forget(point);
+            } else {
+              recent.committed(point, k.generation(), k.keepFrom());
+            }
+          });
+      recent.evict();
+    } catch (Throwable e) {
+      // committed; only the copies are in doubt
+      recent.clear();
+      log.error("Dropped the in-memory reading histories after an error", e);
     }
   }
 

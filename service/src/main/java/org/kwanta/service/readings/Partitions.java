@@ -93,13 +93,18 @@ public class Partitions {
                 n -> LocalDate.parse(n.substring(n.length() - 8), SUFFIX).isBefore(firstKeptDay))
             .sorted()
             .toList();
-    for (String name : dropped) {
-      jdbc.execute("DROP TABLE IF EXISTS " + name);
-      known.remove(LocalDate.parse(name.substring(name.length() - 8), SUFFIX));
-    }
     if (!dropped.isEmpty()) {
-      // dropping a partition fires no trigger: mark every in-memory copy of readings stale
-      jdbc.queryForObject("SELECT invalidate_reading_heads()", Object.class);
+      ownTransaction.executeWithoutResult(
+          status -> {
+            // dropping a partition fires no trigger: mark every in-memory copy of readings stale,
+            // first, in the same transaction (heads before readings, the ingest's lock order)
+            jdbc.queryForObject("SELECT invalidate_reading_heads()", Object.class);
+            for (String name : dropped) {
+              jdbc.execute("DROP TABLE IF EXISTS " + name);
+            }
+          });
+      dropped.forEach(
+          name -> known.remove(LocalDate.parse(name.substring(name.length() - 8), SUFFIX)));
     }
     return dropped;
   }

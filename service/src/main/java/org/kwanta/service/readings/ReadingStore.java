@@ -147,11 +147,15 @@ class ReadingStore {
     jdbc.queryForObject("SELECT set_config('kwanta.writer', 'ingest', true)", String.class);
     Map<String, Head> heads = lockOnce(maxTimes);
     if (heads.size() < maxTimes.size()) {
+      // first batch of new points: create their heads, then lock those (not the others again,
+      // which would return this transaction's own generations as the previous ones)
+      Map<String, Instant> missing = new TreeMap<>(maxTimes);
+      missing.keySet().removeAll(heads.keySet());
       jdbc.update(
           "INSERT INTO reading_head (sample_point_id, generation) SELECT unnest(?::text[]), 0"
               + " ON CONFLICT DO NOTHING",
-          (Object) maxTimes.keySet().toArray(String[]::new));
-      heads = lockOnce(maxTimes);
+          (Object) missing.keySet().toArray(String[]::new));
+      heads.putAll(lockOnce(missing));
     }
     return heads;
   }
