@@ -172,10 +172,7 @@ public class IngestService {
       this.received = received;
       this.duplicates = duplicates;
       for (ValidReading r : readings) {
-        ranges.merge(
-            r.samplePointId(),
-            new Instant[] {r.time(), r.time()},
-            (a, b) -> new Instant[] {min(a[0], b[0]), max(a[1], b[1])});
+        widen(ranges, r.samplePointId(), r.time(), r.time());
       }
     }
 
@@ -342,10 +339,7 @@ public class IngestService {
     // transactions for the same point (from this or another instance) run one after the other
     Map<String, Instant[]> groupRanges = new TreeMap<>();
     for (Pending p : group) {
-      p.ranges.forEach(
-          (point, r) ->
-              groupRanges.merge(
-                  point, r.clone(), (a, b) -> new Instant[] {min(a[0], b[0]), max(a[1], b[1])}));
+      p.ranges.forEach((point, r) -> widen(groupRanges, point, r[0], r[1]));
     }
     Map<String, Instant> maxTimes = new TreeMap<>();
     groupRanges.forEach((point, r) -> maxTimes.put(point, r[1]));

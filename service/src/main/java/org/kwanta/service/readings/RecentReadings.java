@@ -107,16 +107,6 @@ final class RecentReadings {
     }
   }
 
-  /** Readings held, over all points (for tests and metrics). */
-  long size() {
-    return total;
-  }
-
-  /** Points held. */
-  int points() {
-    return points.size();
-  }
-
   /** A key for searching the ordered readings (parameter "" sorts first, "\uffff" last). */
   private static StoredReading probe(String parameter, Instant time) {
     return new StoredReading(parameter, time, 0, (short) 0, 0, false);
