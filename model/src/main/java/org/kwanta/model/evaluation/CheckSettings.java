@@ -40,11 +40,11 @@ public record CheckSettings(
     double conductivityRangeMaximum,
     double sodiumRangeMaximum) {
 
-  /** Defaults: ±0.2 pH for 30 min; 25 ± 2 °C; 1 % below pure water; 10 min age; 60 min flat. */
+  /** Defaults: ±0.2 pH for 10 min; 25 ± 2 °C; 1 % below pure water; 10 min age; 60 min flat. */
   public static CheckSettings defaults() {
     return new CheckSettings(
         0.2,
-        Duration.ofMinutes(30),
+        Duration.ofMinutes(10),
         2.0,
         0.01,
         0.01,

@@ -226,35 +226,9 @@ final class Checks {
               num(c),
               num(sc)));
     }
+    // Rises over time (ingress, an exhausted column, a sodium analyser step) are judged by the
+    // diagnosis over a day of history (org.kwanta.model.diagnosis), not from this hour's window.
     boolean exhausted = t.cationRising && t.sodiumFlat && t.tracking;
-    if (exhausted) {
-      out.add(
-          finding(
-              ReasonCode.CATION_COLUMN_EXHAUSTED,
-              Instrument.CATION_CONDUCTIVITY,
-              "CACE rose by %s µS/cm tracking SC (correlation %s) while sodium stayed flat:"
-                  + " replace the cation exchanger.",
-              num(t.cationRise),
-              num(t.correlation)));
-    } else if (t.cationRising && (t.sodiumRising || (t.degassedRising && !t.tracking))) {
-      out.add(
-          finding(
-              ReasonCode.INGRESS_SUSPECTED,
-              Instrument.PROCESS,
-              "CACE rose by %s µS/cm together with %s: contamination entering the cycle.",
-              num(t.cationRise),
-              t.sodiumRising
-                  ? "sodium (+" + num(t.sodiumRise) + " µg/kg)"
-                  : "DCACE (+" + num(t.degassedRise) + " µS/cm)"));
-    }
-    if (t.sodiumRising && !t.cationRising && t.hasCationTrend) {
-      out.add(
-          finding(
-              ReasonCode.SODIUM_WITHOUT_CATION_RISE,
-              Instrument.SODIUM,
-              "Sodium rose by %s µg/kg with no matching CACE rise.",
-              num(t.sodiumRise)));
-    }
     if (c != null && d != null && !exhausted) {
       double co2 = c - d;
       if (co2 > cs.carbonDioxideDifference() && d < 0.5 * c) {

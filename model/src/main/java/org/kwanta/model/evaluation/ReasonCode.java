@@ -25,22 +25,50 @@ public enum ReasonCode {
       "A conductivity reads below the theoretical conductivity of pure water at its sample"
           + " temperature.",
       Instrument.SPECIFIC_CONDUCTIVITY),
-  CATION_COLUMN_EXHAUSTED(
-      "Cation conductivity rises while tracking specific conductivity and sodium stays flat: the"
-          + " cation exchanger is exhausted, not the water contaminated.",
-      Instrument.CATION_CONDUCTIVITY),
-  INGRESS_SUSPECTED(
-      "Cation conductivity rises together with sodium or degassed cation conductivity,"
-          + " independent of the alkalizer: contamination is entering the cycle.",
-      Instrument.PROCESS),
   CARBON_DIOXIDE_INGRESS(
-      "Cation conductivity is well above degassed cation conductivity while the latter is low:"
-          + " carbon dioxide (air in-leakage), not salts.",
+      "Cation conductivity is well above degassed cation conductivity, or rose over its baseline"
+          + " while the degassed channel did not follow: carbon dioxide (air in-leakage), not"
+          + " salts.",
       Instrument.PROCESS),
+  COOLING_WATER_INGRESS(
+      "Sodium and cation conductivity rose over their baselines together, in the proportions the"
+          + " plant's declared cooling water would give: a condenser leak.",
+      Instrument.PROCESS),
+  INGRESS_SUSPECTED(
+      "Cation conductivity (or the make-up water's conductivity) rose over its baseline with"
+          + " evidence of a process cause (neighbouring points followed, or sodium came with it):"
+          + " contamination entering the cycle.",
+      Instrument.PROCESS),
+  CATION_COLUMN_EXHAUSTED(
+      "Cation conductivity rose over its baseline while sodium, the neighbouring points and the"
+          + " degassed channel's carbon dioxide signature do not explain it: the cation exchanger"
+          + " is letting the alkalizer through.",
+      Instrument.CATION_CONDUCTIVITY),
   SODIUM_WITHOUT_CATION_RISE(
-      "Sodium rises without a matching cation conductivity rise: check the sodium analyser, or"
-          + " caustic or phosphate carry-over.",
+      "Sodium rose over its baseline by so much that cooling water would have raised cation"
+          + " conductivity clearly, but cation conductivity stayed put and no neighbour followed:"
+          + " check the sodium analyser.",
       Instrument.SODIUM),
+  PH_ELECTRODE_DRIFT(
+      "Measured minus calculated pH drifts away from its baseline (a cumulative-sum test) while"
+          + " specific conductivity stayed steady: the pH electrode is drifting.",
+      Instrument.PH),
+  PH_ELECTRODE_STEP(
+      "Measured minus calculated pH jumped away from its baseline within minutes while specific"
+          + " conductivity stayed steady: the pH electrode or its reference junction shifted.",
+      Instrument.PH),
+  SPECIFIC_CONDUCTIVITY_DRIFT(
+      "Specific conductivity drifts away from what the measured pH and cation conductivity"
+          + " predict, while the pH stayed steady: cell fouling or a cell-constant change.",
+      Instrument.SPECIFIC_CONDUCTIVITY),
+  SPECIFIC_CONDUCTIVITY_STEP(
+      "Specific conductivity jumped away from what the measured pH and cation conductivity"
+          + " predict, while the pH stayed steady: the conductivity cell or its cable.",
+      Instrument.SPECIFIC_CONDUCTIVITY),
+  DOSING_CHANGE(
+      "Specific conductivity and measured pH moved together, consistently with each other, well"
+          + " away from their baselines: the alkalizer dose changed (no instrument fault).",
+      Instrument.PROCESS),
   STALE(
       "The latest reading is older than the maximum age and was not used.",
       Instrument.SPECIFIC_CONDUCTIVITY),

@@ -29,20 +29,23 @@ class BrackenmoorStoriesTest {
     assertThat(op.ph()).isGreaterThan(op.neutralPh());
   }
 
-  /** Story 2: condenser leak, Unit 2: sodium and cation conductivity climb at U2-CPD. */
+  /**
+   * Story 2: condenser leak, Unit 2: sodium and cation conductivity climb at U2-CPD. The rise is
+   * judged over a day of history by the diagnosis (StoryBenchTest); the instant checks blame no
+   * instrument.
+   */
   @Test
-  void condenserLeakIsIngressOfTheProcess() {
+  void condenserLeakBlamesNoInstrumentInTheInstantChecks() {
     Evaluation e = Evaluator.evaluate(Demo.u2Cpd(), Demo.snapshot(Demo.condenserLeak()));
-    assertThat(codes(e)).containsExactly(ReasonCode.INGRESS_SUSPECTED);
-    assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.PROCESS);
+    assertThat(e.findings()).isEmpty();
   }
 
   /** Story 3: exhausted cation column, Unit 1 main steam: CACE creeps up tracking SC, Na flat. */
   @Test
-  void exhaustedColumnPointsAtTheCationInstrument() {
+  void exhaustedColumnIsLeftToTheDiagnosisOverTime() {
+    // judged over a day of history with the neighbouring points (StoryBenchTest)
     Evaluation e = Evaluator.evaluate(Demo.u1MainSteam(), Demo.snapshot(Demo.exhaustedColumn()));
-    assertThat(codes(e)).containsExactly(ReasonCode.CATION_COLUMN_EXHAUSTED);
-    assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.CATION_CONDUCTIVITY);
+    assertThat(codes(e)).doesNotContain(ReasonCode.CATION_ABOVE_SPECIFIC);
   }
 
   /** Story 4: drifting pH electrode, Unit 1 feedwater: measured pH wanders from calculated. */

@@ -19,8 +19,8 @@ import org.springframework.stereotype.Component;
 
 /**
  * Opt-in demo feed ({@code --kwanta.demo.feed=true}): replays invented readings of the Brackenmoor
- * stories in real time through the normal ingest path. At start it fills the last hour, so trends
- * and checks have history at once.
+ * stories in real time through the normal ingest path. At start it fills the last 26 hours, so
+ * every point has the day-long baseline the diagnosis needs at once.
  */
 @Component
 @ConditionalOnBooleanProperty(name = "kwanta.demo.feed")
@@ -88,10 +88,10 @@ class DemoFeed {
         interval = Duration.ofSeconds(10);
       }
       if (storyPeriod == null) {
-        storyPeriod = Duration.ofHours(1);
+        storyPeriod = Duration.ofHours(8);
       }
       if (backfill == null) {
-        backfill = Duration.ofHours(1);
+        backfill = Duration.ofHours(26);
       }
     }
   }

@@ -22,17 +22,19 @@ import org.kwanta.service.readings.ReadingInput;
  * Invented readings for the fictional Brackenmoor plant (demo only, no real plant's data).
  * Compositions are invented; the conductivities and pH that an analyser would show for them come
  * from the engine's own solution model at the sample temperature, so the instruments agree with
- * each other unless a story says otherwise. The stories repeat every {@code period}:
+ * each other unless a story says otherwise. The stories repeat every {@code period} (default 8 h;
+ * times below for that period, with a day of back-fill at start so every point has its baseline):
  *
  * <ol>
  *   <li>normal day: Unit 1 feedwater on ammonia at pH25 ≈ 9.7;
- *   <li>condenser leak, Unit 2: sodium and chloride climb at U2-CPD, then at the economizer inlet
- *       and drums;
- *   <li>exhausted cation column on Unit 1 main steam: cation conductivity tracks specific, sodium
- *       flat;
- *   <li>drifting pH electrode on Unit 1 feedwater: measured pH falls away from the calculated one;
- *   <li>start-up with air in-leakage on Unit 1 condensate: carbon dioxide, degassed cation
- *       conductivity normal.
+ *   <li>condenser leak, Unit 2, 1–3.5 h: sodium, chloride and sulfate in brackish-water proportions
+ *       climb at U2-CPD, the economizer inlet and drums;
+ *   <li>exhausted cation column on Unit 1 main steam, 2.5–5 h: cation conductivity creeps up while
+ *       sodium and the neighbouring steam points stay put;
+ *   <li>drifting pH electrode on Unit 1 feedwater, 4.5–7.5 h: measured pH falls away from the
+ *       calculated one at 0.06 pH/h, then is recalibrated;
+ *   <li>start-up with air in-leakage, 0–1.5 h: carbon dioxide at U1-CPD (which has a degassed
+ *       channel) and the economizer inlet, degassed cation conductivity normal.
  * </ol>
  */
 final class DemoStories {
@@ -42,6 +44,7 @@ final class DemoStories {
   static final double UG_NA = 1.0 / 22.98977 / 1e6;
   static final double UG_CO2 = 1.0 / 44.009 / 1e6;
   static final double MG_PO4 = 1.0 / 94.971 / 1000;
+  static final double UG_SO4 = 1.0 / 96.06 / 1e6;
 
   private final Duration period;
   private final Map<Long, SolutionModel> models = new ConcurrentHashMap<>();
@@ -70,11 +73,12 @@ final class DemoStories {
     double ph = phase(t);
     double noise =
         Math.sin(t.getEpochSecond() / 37.0) * 0.5 + Math.sin(t.getEpochSecond() / 11.0) * 0.5;
-    double leak = bump(ph, 0.10, 0.50); // story 2
-    double column =
-        ph < 0.5 ? ph * 2 : 0; // story 3: creeps up over half a cycle, then a fresh column
-    double drift = ph > 0.5 ? (ph - 0.5) * 2 : 0; // story 4
-    double air = bump(ph, 0.0, 0.25); // story 5
+    // hours into the story cycle, scaled so that the default 8 h period gives the times below
+    double h = ph * 8;
+    double air = bump(h, 0.0, 1.5); // story 5: start-up with air in-leakage, 0–1.5 h
+    double leak = bump(h, 1.0, 2.5); // story 2: condenser leak, 1–3.5 h
+    double column = h > 2.5 && h < 5.0 ? (h - 2.5) / 2.5 : 0; // story 3: creeps 2.5–5 h, then fresh
+    double drift = h > 4.5 && h < 7.5 ? -0.06 * (h - 4.5) : 0; // story 4: −0.06 pH/h, 4.5–7.5 h
     List<ReadingInput> out = new ArrayList<>();
     double sampleT = 25.0 + 0.4 * noise;
     // Unit 1
@@ -85,7 +89,7 @@ final class DemoStories {
         sampleT,
         new Solutes(2.8 * MG_NH3, 0.3 * UG_NA, 2 * UG_CL, 0, (8 + 350 * air) * UG_CO2, 0),
         true,
-        false,
+        true,
         true,
         false,
         noise,
@@ -95,13 +99,13 @@ final class DemoStories {
         "U1-ECO-IN",
         t,
         sampleT,
-        new Solutes(3.0 * MG_NH3, 0.3 * UG_NA, 2 * UG_CL, 0, 6 * UG_CO2, 0),
+        new Solutes(3.0 * MG_NH3, 0.3 * UG_NA, 2 * UG_CL, 0, (6 + 200 * air) * UG_CO2, 0),
         true,
         true,
         false,
         true,
         noise,
-        -0.45 * drift);
+        drift);
     volatilePoint(
         out,
         "U1-LP-DRUM",
@@ -164,15 +168,17 @@ final class DemoStories {
         noise,
         0);
     // Unit 2: the condenser leak enters at the condensate pump and travels on, diluted by nothing
+    // brackish estuary water: sea-salt proportions (Millero et al. 2008: per µg/kg sodium 1.795
+    // µg/kg chloride and 0.2516 µg/kg sulfate)
     double na = 0.4 + 14 * leak;
-    double cl =
-        2 + 14 * leak * 35.453 / 22.98977 * 0.85; // brackish water: chloride with the sodium
+    double cl = 2 + 14 * leak * 1.795;
+    double so4 = 14 * leak * 0.2516 * UG_SO4;
     volatilePoint(
         out,
         "U2-CPD",
         t,
         sampleT,
-        new Solutes(2.8 * MG_NH3, na * UG_NA, cl * UG_CL, 0, 8 * UG_CO2, 0),
+        new Solutes(2.8 * MG_NH3, na * UG_NA, cl * UG_CL, so4, 8 * UG_CO2, 0),
         true,
         false,
         true,
@@ -184,7 +190,7 @@ final class DemoStories {
         "U2-ECO-IN",
         t,
         sampleT,
-        new Solutes(3.0 * MG_NH3, na * UG_NA, cl * UG_CL, 0, 6 * UG_CO2, 0),
+        new Solutes(3.0 * MG_NH3, na * UG_NA, cl * UG_CL, so4, 6 * UG_CO2, 0),
         true,
         true,
         false,
@@ -196,7 +202,7 @@ final class DemoStories {
         "U2-LP-DRUM",
         t,
         sampleT,
-        new Solutes(1.2 * MG_NH3, 4 * na * UG_NA, 4 * cl * UG_CL, 0, 3 * UG_CO2, 0),
+        new Solutes(1.2 * MG_NH3, 4 * na * UG_NA, 4 * cl * UG_CL, 4 * so4, 3 * UG_CO2, 0),
         true,
         false,
         false,
@@ -208,7 +214,7 @@ final class DemoStories {
         "U2-IP-DRUM",
         t,
         sampleT,
-        new Solutes(0.9 * MG_NH3, 6 * na * UG_NA, 6 * cl * UG_CL, 0, 2 * UG_CO2, 0),
+        new Solutes(0.9 * MG_NH3, 6 * na * UG_NA, 6 * cl * UG_CL, 6 * so4, 2 * UG_CO2, 0),
         true,
         false,
         false,
@@ -322,7 +328,7 @@ final class DemoStories {
     Solutes s = new Solutes(2.9 * MG_NH3, 0.3 * UG_NA, 1 * UG_CL, 0, 5 * UG_CO2, 0);
     double sc = model(sampleT).solve(s).kappa() * (1 + 0.004 * noise + 0.12 * column);
     double sc25 = model(25.0).solve(s).kappa() * (1 + 0.12 * column);
-    double leak = 0.004 + 0.03 * column;
+    double leak = 0.002 + 0.03 * column;
     double cation = model(25.0).solve(new Solutes(0, 0, s.chloride(), 0, s.carbonate(), 0)).kappa();
     double dcc = model(25.0).solve(new Solutes(0, 0, s.chloride(), 0, 0, 0)).kappa();
     out.add(reading(id, "specific_conductivity", t, sc, "uS/cm", sampleT, false));

@@ -14,12 +14,24 @@ import java.util.List;
  * @param name display name
  * @param units the plant's units
  * @param samplePoints the sample points, each in one unit
+ * @param coolingWater the condensers' cooling water ({@code SEA}, {@code BRACKISH}, {@code FRESH},
+ *     {@code HARD_FRESH}); optional. The diagnosis names a condenser leak only when it is declared.
  */
 public record PlantDeclaration(
     @NotBlank @Size(max = 64) @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
     @NotBlank @Size(max = 200) String name,
     @NotNull @Size(max = 100) List<@Valid UnitDeclaration> units,
-    @NotNull @Size(max = 2000) List<@Valid SamplePointDeclaration> samplePoints) {
+    @NotNull @Size(max = 2000) List<@Valid SamplePointDeclaration> samplePoints,
+    @Size(max = 32) String coolingWater) {
+
+  /** A declaration without a cooling water. */
+  public PlantDeclaration(
+      String id,
+      String name,
+      List<UnitDeclaration> units,
+      List<SamplePointDeclaration> samplePoints) {
+    this(id, name, units, samplePoints, null);
+  }
 
   /**
    * Ids: letters, digits, '-', '_' and '.', starting with a letter or digit; at most 64 characters.
@@ -38,6 +50,8 @@ public record PlantDeclaration(
    * @param operatingPressureMPa pressure for it, MPa; null means saturation
    * @param alkalizer the alkalizer (AMMONIA when absent; MORPHOLINE, ETHANOLAMINE, ...)
    * @param parameters the parameters measured there (codes as in the readings API); informative
+   * @param upstream ids of the sample points whose water reaches this one (make-up → condensate →
+   *     feedwater → drum → steam); optional, used by the diagnosis to tell process from instrument
    */
   public record SamplePointDeclaration(
       @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
@@ -48,5 +62,32 @@ public record PlantDeclaration(
       Double operatingTemperatureCel,
       Double operatingPressureMPa,
       @Size(max = 64) String alkalizer,
-      @Size(max = 30) List<@NotBlank @Size(max = 64) String> parameters) {}
+      @Size(max = 30) List<@NotBlank @Size(max = 64) String> parameters,
+      @Size(max = 20)
+          List<@NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String> upstream) {
+
+    /** A sample point without a declared place on the cycle. */
+    public SamplePointDeclaration(
+        String id,
+        String unit,
+        String name,
+        String cycleLocation,
+        String treatmentRegime,
+        Double operatingTemperatureCel,
+        Double operatingPressureMPa,
+        String alkalizer,
+        List<String> parameters) {
+      this(
+          id,
+          unit,
+          name,
+          cycleLocation,
+          treatmentRegime,
+          operatingTemperatureCel,
+          operatingPressureMPa,
+          alkalizer,
+          parameters,
+          null);
+    }
+  }
 }

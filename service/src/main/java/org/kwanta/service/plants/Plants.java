@@ -5,6 +5,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.diagnosis.CoolingWater;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
@@ -35,7 +36,21 @@ public class Plants {
         plant.units().stream()
             .map(PlantDeclaration.UnitDeclaration::id)
             .collect(Collectors.toSet());
+    if (plant.coolingWater() != null) {
+      try {
+        CoolingWater.valueOf(coolingWater(plant));
+      } catch (IllegalArgumentException e) {
+        problems.add(
+            "unknown coolingWater '"
+                + plant.coolingWater()
+                + "'; known: "
+                + java.util.Arrays.toString(CoolingWater.values()));
+      }
+    }
     for (PlantDeclaration.SamplePointDeclaration p : plant.samplePoints()) {
+      if (p.upstream() != null && p.upstream().contains(p.id())) {
+        problems.add("sample point " + p.id() + ": cannot be upstream of itself");
+      }
       if (!units.contains(p.unit())) {
         problems.add("sample point " + p.id() + ": unknown unit '" + p.unit() + "'");
       }
@@ -97,13 +112,16 @@ public class Plants {
   public Applied apply(PlantDeclaration plant, String changedBy) {
     boolean created = false;
     if (!exists(plant.id())) {
-      jdbc.sql("INSERT INTO plant (id, name) VALUES (?, ?)")
-          .params(plant.id(), plant.name())
+      jdbc.sql("INSERT INTO plant (id, name, cooling_water) VALUES (?, ?, ?)")
+          .params(plant.id(), plant.name(), coolingWater(plant))
           .update();
       created = true;
     } else {
-      jdbc.sql("UPDATE plant SET name = ? WHERE id = ? AND name <> ?")
-          .params(plant.name(), plant.id(), plant.name())
+      jdbc.sql(
+              """
+              UPDATE plant SET name = ?, cooling_water = ?
+              WHERE id = ? AND (name <> ? OR cooling_water IS DISTINCT FROM ?)""")
+          .params(plant.name(), coolingWater(plant), plant.id(), plant.name(), coolingWater(plant))
           .update();
     }
     for (PlantDeclaration.UnitDeclaration unit : plant.units()) {
@@ -141,6 +159,12 @@ public class Plants {
     return new Applied(created, inserted, changed);
   }
 
+  private static String coolingWater(PlantDeclaration plant) {
+    return plant.coolingWater() == null
+        ? null
+        : plant.coolingWater().trim().toUpperCase(java.util.Locale.ROOT);
+  }
+
   /** Replaces a sample point's configuration with a new version. Returns the new version number. */
   @Transactional
   public int updateSamplePoint(PlantDeclaration.SamplePointDeclaration declared, String changedBy) {
@@ -150,7 +174,8 @@ public class Plants {
                 """
                 UPDATE sample_point SET unit_id = ?, name = ?, cycle_location = ?, treatment_regime = ?,
                     operating_temperature_cel = ?, operating_pressure_mpa = ?, alkalizer = ?,
-                    parameters = ?::text[], version = version + 1, updated_at = now(), updated_by = ?
+                    parameters = ?::text[], upstream = ?::text[], version = version + 1,
+                    updated_at = now(), updated_by = ?
                 WHERE id = ? RETURNING version""")
             .params(
                 p.unit(),
@@ -161,6 +186,7 @@ public class Plants {
                 p.operatingPressureMPa(),
                 p.alkalizer(),
                 p.parameters().toArray(String[]::new),
+                p.upstream().toArray(String[]::new),
                 changedBy,
                 p.id())
             .query(Integer.class)
@@ -180,8 +206,8 @@ public class Plants {
             """
             INSERT INTO sample_point (id, plant_id, unit_id, name, cycle_location, treatment_regime,
                                       operating_temperature_cel, operating_pressure_mpa, alkalizer,
-                                      parameters, version, updated_by)
-            VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?::text[], 1, ?)""")
+                                      parameters, upstream, version, updated_by)
+            VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?::text[], ?::text[], 1, ?)""")
         .params(
             p.id(),
             plantId,
@@ -193,6 +219,7 @@ public class Plants {
             p.operatingPressureMPa(),
             p.alkalizer(),
             p.parameters().toArray(String[]::new),
+            p.upstream().toArray(String[]::new),
             changedBy)
         .update();
     jdbc.sql(
@@ -238,7 +265,8 @@ public class Plants {
         p.operatingTemperatureCel(),
         p.operatingPressureMPa(),
         alkalizer(p),
-        p.parameters() == null ? List.of() : List.copyOf(p.parameters()));
+        p.parameters() == null ? List.of() : List.copyOf(p.parameters()),
+        p.upstream() == null ? List.of() : List.copyOf(p.upstream()));
   }
 
   /** The plant a sample point belongs to. */
@@ -254,7 +282,7 @@ public class Plants {
     return jdbc.sql(
             """
             SELECT id, unit_id, name, cycle_location, treatment_regime, operating_temperature_cel,
-                   operating_pressure_mpa, alkalizer, parameters
+                   operating_pressure_mpa, alkalizer, parameters, upstream
             FROM sample_point WHERE id = ?""")
         .param(id)
         .query(Plants::samplePoint)
@@ -272,7 +300,8 @@ public class Plants {
         rs.getObject(6, Double.class),
         rs.getObject(7, Double.class),
         rs.getString(8),
-        List.of((String[]) rs.getArray(9).getArray()));
+        List.of((String[]) rs.getArray(9).getArray()),
+        List.of((String[]) rs.getArray(10).getArray()));
   }
 
   public List<PlantSummary> list() {
@@ -304,11 +333,22 @@ public class Plants {
                 jdbc.sql(
                         """
                         SELECT id, unit_id, name, cycle_location, treatment_regime,
-                               operating_temperature_cel, operating_pressure_mpa, alkalizer, parameters
+                               operating_temperature_cel, operating_pressure_mpa, alkalizer, parameters,
+                               upstream
                         FROM sample_point WHERE plant_id = ? ORDER BY id""")
                     .param(plantId)
                     .query(Plants::samplePoint)
-                    .list()));
+                    .list(),
+                coolingWater(plantId)));
+  }
+
+  /** The plant's declared cooling water, or null. */
+  public String coolingWater(String plantId) {
+    return jdbc.sql("SELECT cooling_water FROM plant WHERE id = ?")
+        .param(plantId)
+        .query(String.class)
+        .optional()
+        .orElse(null);
   }
 
   /** One line of the plant list. */

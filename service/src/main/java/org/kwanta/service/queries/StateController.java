@@ -6,6 +6,8 @@ import io.swagger.v3.oas.annotations.tags.Tag;
 import java.time.Clock;
 import java.time.Instant;
 import java.util.List;
+import java.util.Map;
+import org.kwanta.service.diagnosis.DiagnosisService;
 import org.kwanta.service.plants.PlantDeclaration;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.BadRequestException;
@@ -20,11 +22,13 @@ class StateController {
   private final Plants plants;
   private final States states;
   private final Clock clock;
+  private final DiagnosisService diagnosis;
 
-  StateController(Plants plants, States states, Clock clock) {
+  StateController(Plants plants, States states, Clock clock, DiagnosisService diagnosis) {
     this.plants = plants;
     this.states = states;
     this.clock = clock;
+    this.diagnosis = diagnosis;
   }
 
   /** A plant's latest state, sample point by sample point. */
@@ -36,14 +40,19 @@ class StateController {
       description =
           "Each parameter's latest reading with its age, and the latest evaluation: compensated"
               + " conductivities, composition, calculated pH, pH at operating temperature with its band,"
-              + " and the instrument checks. Advisory.")
+              + " the instrument checks, and the diagnosis over time at the latest minute. Advisory.")
   States.State state(@Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {
     return plants
         .findSamplePoint(samplePointId)
         .map(
             p ->
                 states.of(
-                    p.id(), p.name(), p.cycleLocation(), p.treatmentRegime(), clock.instant()))
+                    p.id(),
+                    p.name(),
+                    p.cycleLocation(),
+                    p.treatmentRegime(),
+                    clock.instant(),
+                    diagnosis.currentOf(plants.plantOf(p.id()), p.id()).orElse(null)))
         .orElseThrow(() -> notFound("sample point", samplePointId));
   }
 
@@ -52,12 +61,21 @@ class StateController {
   Overview overview(@Parameter(example = "brackenmoor") @PathVariable String plantId) {
     PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
     Instant now = clock.instant();
+    Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(plant.id());
     return new Overview(
         plant.id(),
         plant.name(),
         now,
         plant.samplePoints().stream()
-            .map(p -> states.of(p.id(), p.name(), p.cycleLocation(), p.treatmentRegime(), now))
+            .map(
+                p ->
+                    states.of(
+                        p.id(),
+                        p.name(),
+                        p.cycleLocation(),
+                        p.treatmentRegime(),
+                        now,
+                        current.get(p.id())))
             .toList());
   }
 

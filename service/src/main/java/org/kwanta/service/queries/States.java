@@ -48,9 +48,22 @@ class States {
       String treatmentRegime,
       Instant asOf,
       List<Latest> readings,
-      LatestEvaluation evaluation) {}
+      LatestEvaluation evaluation,
+      Diagnosis diagnosis) {}
 
-  State of(String samplePointId, String name, String cycleLocation, String regime, Instant now) {
+  /**
+   * The diagnosis over time at the point's latest minute (see docs/diagnosis.md): findings with
+   * what was expected, what was read, residual and tolerance. Null without recent data.
+   */
+  record Diagnosis(Instant time, List<org.kwanta.service.diagnosis.FindingOut> findings) {}
+
+  State of(
+      String samplePointId,
+      String name,
+      String cycleLocation,
+      String regime,
+      Instant now,
+      org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
     List<Latest> latest =
         jdbc.query(
             """
@@ -96,6 +109,11 @@ class States {
         regime,
         now,
         latest,
-        evaluation.isEmpty() ? null : evaluation.get(0));
+        evaluation.isEmpty() ? null : evaluation.get(0),
+        diagnosis == null
+            ? null
+            : new Diagnosis(
+                diagnosis.time(),
+                org.kwanta.service.diagnosis.FindingOut.of(diagnosis.findings())));
   }
 }

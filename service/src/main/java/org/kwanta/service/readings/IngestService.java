@@ -568,6 +568,38 @@ public class IngestService {
     }
   }
 
+  /**
+   * Validates readings exactly as the ingest would (units converted, every problem listed), and
+   * stores nothing: for what-if calculations.
+   *
+   * @throws InvalidBatchException when any reading is invalid
+   */
+  public List<ValidReading> validateOnly(List<ReadingInput> inputs) {
+    if (inputs == null || inputs.isEmpty()) {
+      throw new InvalidBatchException(
+          List.of(new RejectedReading(0, null, "batch has no readings")));
+    }
+    if (inputs.size() > limits.maxBatchSize()) {
+      throw new BatchTooLargeException(inputs.size(), limits.maxBatchSize());
+    }
+    Set<String> named = new TreeSet<>();
+    for (ReadingInput in : inputs) {
+      if (in != null && in.samplePoint() != null && in.samplePoint().length() <= 64) {
+        named.add(in.samplePoint());
+      }
+    }
+    ReadingValidator.Outcome checked = validator.validate(inputs, configs.existing(named));
+    if (!checked.rejected().isEmpty()) {
+      throw new InvalidBatchException(checked.rejected());
+    }
+    return checked.valid();
+  }
+
+  /** A validated reading as the evaluation reads it. */
+  public static EvaluationRunner.StoredReading asStored(ValidReading r) {
+    return stored(r);
+  }
+
   /** Stops the evaluation threads (after the web server has finished its requests). */
   @jakarta.annotation.PreDestroy
   void stop() {

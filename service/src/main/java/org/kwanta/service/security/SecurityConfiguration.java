@@ -86,6 +86,9 @@ class SecurityConfiguration {
                     .hasRole(READ)
                     .requestMatchers(HttpMethod.POST, "/api/v1/chemistry", "/api/v1/chemistry/**")
                     .hasRole(READ)
+                    // what-if diagnosis: a calculation on posted readings, stores nothing
+                    .requestMatchers(HttpMethod.POST, "/api/v1/sample-points/*/diagnosis")
+                    .hasRole(READ)
                     .anyRequest()
                     .hasRole(ADMIN));
     return http.build();

@@ -60,6 +60,7 @@ class EndpointRoleMatrixIT {
           row("GET", "/api/**", Access.READ),
           row("HEAD", "/api/**", Access.READ),
           row("POST", "/api/v1/chemistry/**", Access.READ),
+          row("POST", "/api/v1/sample-points/*/diagnosis", Access.READ),
           row("*", "/api/**", Access.ADMIN),
           row("*", "/v3/api-docs/**", Access.OPEN),
           row("*", "/v3/api-docs.yaml", Access.OPEN),
