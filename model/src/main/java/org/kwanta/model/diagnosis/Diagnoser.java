@@ -187,7 +187,7 @@ public final class Diagnoser {
             f.suspect() == Instrument.PROCESS
                 ? settings.processPersistence()
                 : isCusum(f.code()) ? 1 : settings.instrumentPersistence();
-        if (held(raw, k, f.code(), persistence)) {
+        if (held(raw, t, first, k, f.code(), persistence)) {
           findings.add(f);
         }
       }
@@ -200,11 +200,19 @@ public final class Diagnoser {
     return c == ReasonCode.PH_ELECTRODE_DRIFT || c == ReasonCode.SPECIFIC_CONDUCTIVITY_DRIFT;
   }
 
-  private static boolean held(List<List<Finding>> raw, int k, ReasonCode code, int minutes) {
-    if (k - minutes + 1 < 0) {
-      return false;
-    }
-    for (int j = k - minutes + 1; j <= k; j++) {
+  /**
+   * True when the finding's condition held at the last {@code minutes} minutes that have data,
+   * ending at k; minutes without any data (a gap in the feed) neither count nor break the run, up
+   * to twice the persistence back.
+   */
+  private static boolean held(
+      List<List<Finding>> raw, Track t, long first, int k, ReasonCode code, int minutes) {
+    int counted = 0;
+    for (int j = k; j >= 0 && k - j < 2 * minutes + 1; j--) {
+      int i = (int) (first + j - t.gridStart);
+      if (!t.hasAny(i)) {
+        continue;
+      }
       boolean found = false;
       for (Finding f : raw.get(j)) {
         if (f.code() == code || sameFamily(f.code(), code)) {
@@ -215,8 +223,11 @@ public final class Diagnoser {
       if (!found) {
         return false;
       }
+      if (++counted >= minutes) {
+        return true;
+      }
     }
-    return true;
+    return false;
   }
 
   /** Step and drift of one channel hold each other's persistence (one deviation, two shapes). */
