@@ -3,6 +3,7 @@ package org.kwanta.service.queries;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.List;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.service.limits.ExcursionFinder;
@@ -80,7 +81,7 @@ class CurrentLevels {
                 effective.origin().name()));
       }
     }
-    out.sort(java.util.Comparator.comparing(LevelState::parameter));
+    out.sort(Comparator.comparing(LevelState::parameter));
     return out;
   }
 }
