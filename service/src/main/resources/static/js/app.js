@@ -22,6 +22,18 @@ function latest(state, parameter) {
   return (state.readings || []).find((r) => r.parameter === parameter);
 }
 
+// A level as a badge: colour by level (legend under the table); "?" when the instrument is in doubt.
+const LEVEL_CLASS = { NORMAL: 'lvl-normal', OUTSIDE_NORMAL: 'lvl-outside', AL1: 'lvl-al1', AL2: 'lvl-al2', AL3: 'lvl-al3', SHUTDOWN: 'lvl-shutdown' };
+function levels(state) {
+  const ls = state.levels || [];
+  if (ls.length === 0) return '–';
+  const shown = ls.filter((l) => l.level !== 'NORMAL' || l.instrumentInDoubt);
+  if (shown.length === 0) return '<span class="lvl lvl-normal">normal</span>';
+  return shown.map((l) => '<span class="lvl ' + LEVEL_CLASS[l.level] + '" title="' + l.parameter + ' ' + fmt(l.value, 3) + ' ' + l.valueUnit
+    + ' since ' + new Date(l.since).toLocaleString() + (l.instrumentInDoubt ? '; instrument in doubt' : '') + (l.calculatedValue ? '; calculated value' : '') + '">'
+    + (l.level === 'OUTSIDE_NORMAL' ? 'outside normal' : l.level) + ' ' + l.parameter + (l.instrumentInDoubt ? ' ?' : '') + '</span>').join('<br>');
+}
+
 function row(state) {
   const ev = state.evaluation && state.evaluation.evaluation;
   const at25 = (p) => {
@@ -48,8 +60,9 @@ function row(state) {
       : findings.map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + f.explanation + '">'
         + f.code + (f.suspect === 'PROCESS' ? '' : ' (' + f.suspect.toLowerCase() + ')') + '</span>').join('<br>'),
     state.evaluation ? age(state.evaluation.ageSeconds) : '–',
+    levels(state),
   ];
-  tr.innerHTML = cells.map((c, i) => '<td' + (i === 10 ? ' class="checks"' : '') + '>' + c + '</td>').join('');
+  tr.innerHTML = cells.map((c, i) => '<td' + (i === 10 ? ' class="checks"' : i === 12 ? ' class="levels"' : '') + '>' + c + '</td>').join('');
   if (state.evaluation && state.evaluation.ageSeconds > 900) tr.classList.add('stale');
   tr.addEventListener('click', () => detail(state));
   return tr;

@@ -6,19 +6,19 @@ import java.time.Instant;
  * The classifier's answer for one sample.
  *
  * @param time the sample's time
- * @param value the sample's value (canonical unit)
- * @param level what to show for this sample: SUSPECT for a suspect value, otherwise {@code
- *     actionLevel}
- * @param actionLevel the confirmed level in force at this time (never SUSPECT; a suspect value
- *     leaves it unchanged)
- * @param actionLevelSince when the condition behind {@code actionLevel} began (its onset, before
- *     the persistence delay confirmed it); the first sample's time at the start of a series
+ * @param value the value classified (canonical unit); the calculated one when {@code
+ *     calculatedValue}
+ * @param level the confirmed level in force at this time, whatever the doubt about the instrument
+ * @param levelSince when the condition behind {@code level} began (its onset, before the
+ *     persistence delay confirmed it); the first sample's time at the start of a series
+ * @param instrumentInDoubt whether the instrument behind this sample was in doubt; it does not
+ *     change {@code level}
+ * @param calculatedValue whether {@code value} is a calculated stand-in for the measured value
  */
 public record Classification(
-    Instant time, double value, Level level, Level actionLevel, Instant actionLevelSince) {
-
-  /** True when the sample was suspect. */
-  public boolean suspect() {
-    return level == Level.SUSPECT;
-  }
-}
+    Instant time,
+    double value,
+    Level level,
+    Instant levelSince,
+    boolean instrumentInDoubt,
+    boolean calculatedValue) {}

@@ -3,33 +3,36 @@ package org.kwanta.model.limits;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Objects;
 
 /**
  * Classifies a time-ordered series of one parameter at one sample point against a {@link
- * LimitProfile}: normal, AL1, AL2, AL3, shutdown, or suspect.
+ * LimitProfile}: normal, outside the normal range, AL1, AL2, AL3 or shutdown.
  *
- * <p>A state machine, pure and deterministic (the same series always gives the same answer):
+ * <p>A state machine, pure and deterministic (the same series always gives the same answer). The
+ * states are ordered as {@link Level} lists them; OUTSIDE_NORMAL is entered and left like a level
+ * whose threshold is the normal range's bound.
  *
  * <ul>
- *   <li><b>Entering</b> a higher level L needs the value beyond L's threshold (strictly) at every
- *       non-suspect sample for at least the persistence delay; the highest such level wins, so a
- *       fast rise does not climb one step per delay.
- *   <li><b>Leaving</b> the current level needs the value back inside its threshold by more than the
- *       deadband, at every sample for the persistence delay; the new level is the highest lower
- *       level still held with the deadband applied.
- *   <li>A <b>suspect</b> sample never changes the level either way and breaks both timers: it is
- *       reported as SUSPECT with the level in force.
+ *   <li><b>Entering</b> a higher state S needs the value beyond S's threshold (strictly) at every
+ *       sample for at least the persistence delay; the highest such state wins, so a fast rise does
+ *       not climb one step per delay.
+ *   <li><b>Leaving</b> the current state needs the value back inside its threshold by more than the
+ *       deadband, at every sample for the persistence delay; the new state is the highest lower
+ *       state still held with the deadband applied.
+ *   <li>A sample whose instrument is in doubt counts like any other: doubt never holds back, raises
+ *       or lowers a level. It is reported beside the level ({@link
+ *       Classification#instrumentInDoubt()}).
  * </ul>
  *
  * Deadband and persistence are engineering practice (common practice, no source); their values come
- * from the profile.
+ * from the profile and apply to the normal range as to the action levels.
  */
 public final class Classifier {
 
-  private static final Level[] ACTION = {Level.AL1, Level.AL2, Level.AL3, Level.SHUTDOWN};
+  /** Every state, in increasing order of concern; index = ordinal. */
+  private static final Level[] STATES = Level.values();
 
   private final LimitProfile profile;
 
@@ -47,8 +50,8 @@ public final class Classifier {
   public List<Classification> classify(List<Sample> samples) {
     List<Classification> out = new ArrayList<>(samples.size());
     Duration persistence = profile.persistence();
-    Instant[] enterSince = new Instant[ACTION.length + 1];
-    Instant[] releaseSince = new Instant[ACTION.length + 1];
+    Instant[] enterSince = new Instant[STATES.length];
+    Instant[] releaseSince = new Instant[STATES.length];
     Level current = Level.NORMAL;
     Instant currentSince = null;
     Instant previous = null;
@@ -62,35 +65,28 @@ public final class Classifier {
       if (currentSince == null) {
         currentSince = t;
       }
-      if (s.suspect()) {
-        Arrays.fill(enterSince, null);
-        Arrays.fill(releaseSince, null);
-        out.add(new Classification(t, s.value(), Level.SUSPECT, current, currentSince));
-        continue;
-      }
       double x = s.value();
-      for (Level level : ACTION) {
-        int i = level.severity();
-        enterSince[i] = profile.enters(level, x) ? first(enterSince[i], t) : null;
-        releaseSince[i] = profile.holds(level, x) ? null : first(releaseSince[i], t);
+      for (int i = 1; i < STATES.length; i++) {
+        enterSince[i] = profile.enters(STATES[i], x) ? first(enterSince[i], t) : null;
+        releaseSince[i] = profile.holds(STATES[i], x) ? null : first(releaseSince[i], t);
       }
       Level raised = null;
-      for (int i = ACTION.length; i > current.severity(); i--) {
+      for (int i = STATES.length - 1; i > current.ordinal(); i--) {
         if (enterSince[i] != null && held(enterSince[i], t, persistence)) {
-          raised = Level.ofSeverity(i);
+          raised = STATES[i];
           currentSince = enterSince[i];
           break;
         }
       }
       if (raised != null) {
         current = raised;
-      } else if (current.isAction()) {
-        Instant release = releaseSince[current.severity()];
+      } else if (current != Level.NORMAL) {
+        Instant release = releaseSince[current.ordinal()];
         if (release != null && held(release, t, persistence)) {
           Level lower = Level.NORMAL;
-          for (int i = current.severity() - 1; i >= 1; i--) {
-            if (releaseSince[i] == null && profile.holds(Level.ofSeverity(i), x)) {
-              lower = Level.ofSeverity(i);
+          for (int i = current.ordinal() - 1; i >= 1; i--) {
+            if (releaseSince[i] == null && profile.holds(STATES[i], x)) {
+              lower = STATES[i];
               break;
             }
           }
@@ -98,7 +94,9 @@ public final class Classifier {
           currentSince = release;
         }
       }
-      out.add(new Classification(t, x, current, current, currentSince));
+      out.add(
+          new Classification(
+              t, x, current, currentSince, s.instrumentInDoubt(), s.calculatedValue()));
     }
     return List.copyOf(out);
   }

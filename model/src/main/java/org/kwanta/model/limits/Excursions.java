@@ -14,17 +14,22 @@ import java.util.TreeMap;
 /**
  * Builds excursions and monthly hours per level from a classified series.
  *
+ * <p>An excursion is a continuous stretch at AL1 or above; time OUTSIDE_NORMAL is never an
+ * excursion. Samples whose instrument was in doubt count like any other, and each excursion says
+ * how many of its samples were in doubt.
+ *
  * <p>The level timeline is back-dated to the onset of each level ({@link
- * Classification#actionLevelSince()}), so an excursion starts when the value first crossed AL1, not
- * when the persistence delay confirmed it. The customary allowances (AL1 one week, AL2 24 hours,
- * AL3 four hours) are the IAPWS technical guidance usage, recalled from memory — verify.
+ * Classification#levelSince()}), so an excursion starts when the value first crossed AL1, not when
+ * the persistence delay confirmed it. The customary allowances (AL1 one week, AL2 24 hours, AL3
+ * four hours) are the IAPWS technical guidance usage, recalled from memory — verify.
  */
 public final class Excursions {
 
   private Excursions() {}
 
   /**
-   * The level timeline: spans of constant confirmed level from the first sample to {@code asOf}.
+   * The level timeline: spans of constant confirmed level (OUTSIDE_NORMAL included) from the first
+   * sample to {@code asOf}.
    *
    * @param classified a classified series (from {@link Classifier#classify})
    * @param asOf the evaluation time; not before the last sample
@@ -38,13 +43,13 @@ public final class Excursions {
     if (asOf.isBefore(last)) {
       throw new IllegalArgumentException("asOf " + asOf + " is before the last sample " + last);
     }
-    Level level = classified.get(0).actionLevel();
-    Instant start = classified.get(0).actionLevelSince();
+    Level level = classified.get(0).level();
+    Instant start = classified.get(0).levelSince();
     for (Classification c : classified) {
-      if (c.actionLevel() != level) {
-        spans.add(new LevelSpan(level, start, c.actionLevelSince()));
-        level = c.actionLevel();
-        start = c.actionLevelSince();
+      if (c.level() != level) {
+        spans.add(new LevelSpan(level, start, c.levelSince()));
+        level = c.level();
+        start = c.levelSince();
       }
     }
     spans.add(new LevelSpan(level, start, asOf));
@@ -89,10 +94,16 @@ public final class Excursions {
     Instant stop = spans.get(spans.size() - 1).end();
     Side side = null;
     Classification peak = null;
+    int samples = 0;
+    int inDoubt = 0;
+    int calculated = 0;
     for (Classification c : classified) {
-      if (c.suspect() || c.time().isBefore(start) || !c.time().isBefore(stop) && !running) {
+      if (c.time().isBefore(start) || !c.time().isBefore(stop) && !running) {
         continue;
       }
+      samples++;
+      inDoubt += c.instrumentInDoubt() ? 1 : 0;
+      calculated += c.calculatedValue() ? 1 : 0;
       if (side == null) {
         side = profile.sideOf(c.value()).orElse(null);
         if (side == null) {
@@ -105,9 +116,9 @@ public final class Excursions {
       }
     }
     if (peak == null) {
-      // The onset sample is never suspect and lies beyond a threshold, so this cannot happen for a
-      // series from the Classifier; guard against hand-made input.
-      throw new IllegalArgumentException("No non-suspect sample beyond a threshold in " + spans);
+      // The onset sample lies beyond a threshold, so this cannot happen for a series from the
+      // Classifier; guard against hand-made input.
+      throw new IllegalArgumentException("No sample beyond a threshold in " + spans);
     }
     Level highest = Level.NORMAL;
     for (LevelSpan s : spans) {
@@ -154,12 +165,16 @@ public final class Excursions {
         Optional.ofNullable(deadline),
         Optional.ofNullable(deadline).map(d -> Duration.between(asOf, d)),
         exceeded,
-        spans);
+        spans,
+        samples,
+        inDoubt,
+        calculated);
   }
 
   /**
-   * Time per level per calendar month (UTC), from the level timeline, split at month boundaries.
-   * Months and levels with no time are left out.
+   * Time per action level per calendar month (UTC), from the level timeline, split at month
+   * boundaries. Time OUTSIDE_NORMAL counts as NORMAL here: it is not excursion time. Months and
+   * levels with no time are left out.
    */
   public static List<MonthlyHours> monthlyHours(List<Classification> classified, Instant asOf) {
     Map<YearMonth, Map<Level, Duration>> sums = new TreeMap<>();
@@ -170,7 +185,7 @@ public final class Excursions {
         Instant monthEnd = month.plusMonths(1).atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
         Instant to = monthEnd.isBefore(span.end()) ? monthEnd : span.end();
         sums.computeIfAbsent(month, m -> new EnumMap<>(Level.class))
-            .merge(span.level(), Duration.between(from, to), Duration::plus);
+            .merge(span.level().actionLevel(), Duration.between(from, to), Duration::plus);
         from = to;
       }
     }

@@ -4,17 +4,24 @@ import java.time.Duration;
 import java.util.Optional;
 
 /**
- * Classification of a value: normal, one of the three action levels, immediate shutdown, or suspect
- * (the instrument check failed, so the value is shown but never raises a level).
+ * The state of a parameter at a sample point, in increasing order of concern: normal, outside the
+ * normal range (below every action level), the three action levels, immediate shutdown.
+ *
+ * <p>Whether the instrument behind a value was in doubt is not a level: it is reported beside the
+ * level ({@link Classification#instrumentInDoubt()}), so that doubt never hides a level.
  *
  * <p>Allowances: AL1 one week, AL2 24 hours, AL3 four hours (IAPWS technical guidance usage, from
- * memory — verify).
+ * memory — verify). OUTSIDE_NORMAL has none: it is advisory, not an action level and not an
+ * excursion.
  */
 public enum Level {
-  /** The instrument check failed: the value is not trusted; the action level is unchanged. */
-  SUSPECT(-1, null),
-  /** Within the normal range or below every action level. */
+  /** Within the normal range and below every action level. */
   NORMAL(0, null),
+  /**
+   * Outside the normal (target) range but below every action level: advisory, shown and alerted
+   * apart from the action levels, never an excursion.
+   */
+  OUTSIDE_NORMAL(0, null),
   /** Action Level 1: return to normal within one week (from memory — verify). */
   AL1(1, Duration.ofHours(168)),
   /** Action Level 2: return to normal within 24 hours (from memory — verify). */
@@ -32,22 +39,32 @@ public enum Level {
     this.allowance = allowance;
   }
 
-  /** The level as a number for metrics: -1 suspect, 0 normal, 1 to 3 action levels, 4 shutdown. */
+  /**
+   * The action-level number, as the metrics show it: 0 for NORMAL and OUTSIDE_NORMAL, 1 to 3 for
+   * the action levels, 4 for immediate shutdown. The order of concern is the enum order.
+   */
   public int severity() {
     return severity;
   }
 
-  /** Customary time allowed to return to normal; empty for NORMAL and SUSPECT. */
+  /** Customary time allowed to return to normal; empty for NORMAL and OUTSIDE_NORMAL. */
   public Optional<Duration> allowance() {
     return Optional.ofNullable(allowance);
   }
 
-  /** True for AL1, AL2, AL3 and SHUTDOWN. */
+  /** True for AL1, AL2, AL3 and SHUTDOWN: the levels that make an excursion. */
   public boolean isAction() {
     return severity > 0;
   }
 
-  /** The non-suspect level with this severity (0 to 4). */
+  /**
+   * NORMAL for OUTSIDE_NORMAL, otherwise this level: the level as the action-level scheme sees it.
+   */
+  public Level actionLevel() {
+    return this == OUTSIDE_NORMAL ? NORMAL : this;
+  }
+
+  /** The action level with this number (0 NORMAL, 1 to 3 AL1 to AL3, 4 SHUTDOWN). */
   static Level ofSeverity(int severity) {
     return switch (severity) {
       case 0 -> NORMAL;

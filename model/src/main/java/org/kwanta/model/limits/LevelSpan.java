@@ -6,7 +6,7 @@ import java.time.Instant;
 /**
  * A stretch of time at one confirmed level, from its onset to the onset of the next level.
  *
- * @param level the level (never SUSPECT)
+ * @param level the level (OUTSIDE_NORMAL included)
  * @param start onset, inclusive
  * @param end onset of the next level, or the evaluation time for the running span; exclusive
  */

@@ -15,7 +15,8 @@ import java.util.Optional;
  * persistence is not negative; every value carries a source text.
  *
  * @param key regime, location and parameter
- * @param normal normal range (informative)
+ * @param normal normal (target) range: a value outside it, below every action level, is
+ *     OUTSIDE_NORMAL (advisory, never an excursion)
  * @param thresholds AL1/AL2/AL3/SHUTDOWN thresholds; may be empty (no action levels)
  * @param deadband hysteresis in the parameter's canonical unit: a level once entered is kept until
  *     the value comes back inside its threshold by more than this
@@ -85,7 +86,10 @@ public record LimitProfile(
     return high && low ? Direction.BOTH : low ? Direction.LOW : Direction.HIGH;
   }
 
-  /** The highest level whose threshold {@code x} exceeds (NORMAL when none). */
+  /**
+   * The highest action level whose threshold {@code x} exceeds (NORMAL when none; the normal range
+   * is not considered).
+   */
   public Level levelOf(double x) {
     Level worst = Level.NORMAL;
     for (Threshold t : thresholds) {
@@ -96,8 +100,15 @@ public record LimitProfile(
     return worst;
   }
 
-  /** True when {@code x} holds {@code level} with the deadband applied (some threshold held). */
+  /**
+   * True when {@code x} holds {@code level} with the deadband applied: some threshold of that level
+   * held, or for OUTSIDE_NORMAL a bound of the normal range.
+   */
   boolean holds(Level level, double x) {
+    if (level == Level.OUTSIDE_NORMAL) {
+      return normal.high().isPresent() && x > normal.high().getAsDouble() - deadband
+          || normal.low().isPresent() && x < normal.low().getAsDouble() + deadband;
+    }
     for (Threshold t : thresholds) {
       if (t.level() == level && t.heldBy(x, deadband)) {
         return true;
@@ -106,8 +117,14 @@ public record LimitProfile(
     return false;
   }
 
-  /** True when {@code x} enters {@code level} (some threshold of that level exceeded). */
+  /**
+   * True when {@code x} enters {@code level}: some threshold of that level exceeded, or for
+   * OUTSIDE_NORMAL the value strictly outside the normal range.
+   */
   boolean enters(Level level, double x) {
+    if (level == Level.OUTSIDE_NORMAL) {
+      return !normal.contains(x);
+    }
     for (Threshold t : thresholds) {
       if (t.level() == level && t.exceededBy(x)) {
         return true;

@@ -7,7 +7,7 @@ import java.time.YearMonth;
  * Time spent at one level in one calendar month (UTC).
  *
  * @param month the calendar month, UTC
- * @param level the level (never SUSPECT)
+ * @param level NORMAL (which here includes time OUTSIDE_NORMAL) or an action level
  * @param time total time at that level within the month
  */
 public record MonthlyHours(YearMonth month, Level level, Duration time) {

@@ -4,8 +4,9 @@ import java.util.Objects;
 import java.util.OptionalDouble;
 
 /**
- * The normal (target) range of a parameter. Either bound may be open. Informative: the level comes
- * from the thresholds; a value outside the normal range but inside every threshold is NORMAL.
+ * The normal (target) range of a parameter. Either bound may be open. A value strictly outside it
+ * but inside every action-level threshold is OUTSIDE_NORMAL (with the profile's deadband and
+ * persistence), an advisory state that is not an excursion.
  *
  * @param low lower bound, canonical unit, or empty
  * @param high upper bound, canonical unit, or empty

@@ -91,10 +91,10 @@ class ExcursionsTest {
   void theLevelIsReportedOnceThePersistenceDelayHasPassed() {
     List<Classification> classified = new Classifier(CPD_CACE).classify(condenserLeakUntil(1080));
     // Onset 06:25, persistence 5 min: confirmed AL1 at the 06:30 sample, back-dated to 06:25.
-    assertThat(classified.get(389).actionLevel()).isEqualTo(Level.NORMAL);
-    assertThat(classified.get(390).actionLevel()).isEqualTo(Level.AL1);
-    assertThat(classified.get(390).actionLevelSince()).isEqualTo(at("06:25"));
-    assertThat(classified.get(1080).actionLevel()).isEqualTo(Level.NORMAL);
+    assertThat(classified.get(389).level()).isEqualTo(Level.NORMAL);
+    assertThat(classified.get(390).level()).isEqualTo(Level.AL1);
+    assertThat(classified.get(390).levelSince()).isEqualTo(at("06:25"));
+    assertThat(classified.get(1080).level()).isEqualTo(Level.NORMAL);
   }
 
   @Test

@@ -12,9 +12,11 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Classifier;
+import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.Excursion;
 import org.kwanta.model.limits.Excursions;
 import org.kwanta.model.limits.Level;
+import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.Sample;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -25,8 +27,14 @@ import org.springframework.stereotype.Service;
  * from the readings (values in canonical units) and the stored evaluations' instrument findings, so
  * the answer is the same whatever order the readings arrived in.
  *
- * <p>A value is suspect when its reading has quality "bad", or when the evaluation at that time
- * suspects the parameter's own instrument or the sample conditioning.
+ * <p>Every value is classified at its level. Its instrument is in doubt when its reading has
+ * quality "bad", or when the evaluation at that time suspects the parameter's own instrument or the
+ * sample conditioning; the doubt is carried beside the level and never changes it.
+ *
+ * <p>Drum water pH fallback: for pH at a DRUM_WATER sample point, when the evaluation at that time
+ * suspects the pH electrode and has a pH at 25 °C calculated from the conductivities, that
+ * calculated pH is classified in place of the measured one (marked as calculated, and in doubt).
+ * Without a calculated pH the measured value is classified, in doubt.
  */
 @Service
 public class ExcursionFinder {
@@ -64,12 +72,15 @@ public class ExcursionFinder {
   /** The classified series of one point and parameter over [from, to]. */
   public List<Classification> classify(Limits.Effective effective, Instant from, Instant to) {
     Parameter parameter = effective.profile().key().parameter();
+    boolean phFallback = usesCalculatedPhFallback(effective.profile().key());
     List<Sample> samples =
         jdbc.sql(
                 """
                 SELECT r.time, r.value,
                        r.quality = 2
-                         OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false)
+                         OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
+                       e.calculated_ph_25,
+                       coalesce('PH' = ANY(e.suspects), false)
                 FROM reading r
                 LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
                 WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
@@ -81,10 +92,24 @@ public class ExcursionFinder {
                 Timestamp.from(from),
                 Timestamp.from(to))
             .query(
-                (rs, i) ->
-                    new Sample(rs.getTimestamp(1).toInstant(), rs.getDouble(2), rs.getBoolean(3)))
+                (rs, i) -> {
+                  Instant time = rs.getTimestamp(1).toInstant();
+                  double measured = rs.getDouble(2);
+                  boolean inDoubt = rs.getBoolean(3);
+                  double calculated = rs.getDouble(4);
+                  boolean hasCalculated = !rs.wasNull() && Double.isFinite(calculated);
+                  if (phFallback && rs.getBoolean(5) && hasCalculated) {
+                    return new Sample(time, calculated, true, true);
+                  }
+                  return new Sample(time, measured, inDoubt, false);
+                })
             .list();
     return new Classifier(effective.profile()).classify(samples);
+  }
+
+  /** True for drum water pH: classified on the calculated pH while the electrode is in doubt. */
+  static boolean usesCalculatedPhFallback(LimitKey key) {
+    return key.location() == CycleLocation.DRUM_WATER && key.parameter() == Parameter.PH;
   }
 
   /** Excursions overlapping [from, to], oldest first. */

@@ -6,6 +6,11 @@ import java.util.Locale;
 /**
  * One excursion in the API. Values are in {@code valueUnit} (UCUM), durations in seconds.
  * Allowances are the customary AL1 one week, AL2 24 h, AL3 4 h (from memory — verify).
+ *
+ * <p>{@code sampleCount} samples lie within the excursion; {@code inDoubtSampleCount} of them had
+ * their instrument in doubt ({@code inDoubtFraction}, 0 to 1), and {@code calculatedSampleCount}
+ * were classified on a calculated value (drum water pH while the electrode was in doubt). Doubt
+ * never removes an excursion: it is reported with it.
  */
 public record ExcursionResponse(
     String plant,
@@ -27,6 +32,10 @@ public record ExcursionResponse(
     Instant deadline,
     Long timeRemainingSeconds,
     boolean allowanceExceeded,
+    int sampleCount,
+    int inDoubtSampleCount,
+    double inDoubtFraction,
+    int calculatedSampleCount,
     Instant acknowledgedAt,
     String acknowledgedBy,
     String acknowledgementNote) {
@@ -56,6 +65,10 @@ public record ExcursionResponse(
         e.deadline().orElse(null),
         e.timeRemaining().map(d -> d.toSeconds()).orElse(null),
         e.allowanceExceeded(),
+        e.samples(),
+        e.inDoubtSamples(),
+        e.inDoubtFraction(),
+        e.calculatedSamples(),
         ack.map(ExcursionFinder.Acknowledgement::at).orElse(null),
         ack.map(ExcursionFinder.Acknowledgement::by).orElse(null),
         ack.map(ExcursionFinder.Acknowledgement::note).orElse(null));
@@ -64,7 +77,8 @@ public record ExcursionResponse(
   static final String CSV_HEADER =
       "plant,unit,sample_point,parameter,value_unit,limits_origin,start,end,open,side,peak_value,"
           + "peak_time,highest_level,current_level,duration_s,allowance_s,deadline,"
-          + "time_remaining_s,allowance_exceeded,acknowledged_at,acknowledged_by,"
+          + "time_remaining_s,allowance_exceeded,samples,in_doubt_samples,in_doubt_fraction,"
+          + "calculated_samples,acknowledged_at,acknowledged_by,"
           + "acknowledgement_note\r\n";
 
   String csvRow() {
@@ -89,6 +103,10 @@ public record ExcursionResponse(
             deadline == null ? "" : deadline.toString(),
             timeRemainingSeconds == null ? "" : timeRemainingSeconds.toString(),
             String.valueOf(allowanceExceeded),
+            String.valueOf(sampleCount),
+            String.valueOf(inDoubtSampleCount),
+            String.format(Locale.ROOT, "%.3f", inDoubtFraction),
+            String.valueOf(calculatedSampleCount),
             acknowledgedAt == null ? "" : acknowledgedAt.toString(),
             csv(acknowledgedBy),
             csv(acknowledgementNote))

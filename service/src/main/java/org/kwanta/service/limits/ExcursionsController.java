@@ -33,7 +33,9 @@ import org.springframework.web.bind.annotation.RestController;
 @Tag(
     name = "Excursions",
     description =
-        "Stretches at Action Level 1 or above, classified against the limits in force. The shipped"
+        "Stretches at Action Level 1 or above, classified against the limits in force, with the"
+            + " share of their samples whose instrument was in doubt (doubt never hides a level;"
+            + " time outside the normal range alone is not an excursion). The shipped"
             + " default limits are examples recalled from IAPWS guidance (from memory — verify),"
             + " not the plant's limits; set the plant's own per sample point.")
 class ExcursionsController {
@@ -86,13 +88,19 @@ class ExcursionsController {
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(rows);
   }
 
-  /** Hours per level per calendar month (UTC) at one sample point and parameter. */
+  /**
+   * Hours per action level per calendar month (UTC) at one sample point and parameter; time
+   * OUTSIDE_NORMAL counts as NORMAL.
+   */
   record MonthlyHoursResponse(String month, String level, double hours) {}
 
   @GetMapping(value = "/monthly-hours", produces = MediaType.APPLICATION_JSON_VALUE)
   @Operation(
-      summary = "Cumulative hours per level per calendar month (UTC)",
-      description = "Example: ?samplePoint=U2-CPD&parameter=cation_conductivity")
+      summary = "Cumulative hours per action level per calendar month (UTC)",
+      description =
+          "NORMAL, AL1, AL2, AL3, SHUTDOWN; time outside the normal range but below AL1 counts as"
+              + " NORMAL here (it is not excursion time). Example:"
+              + " ?samplePoint=U2-CPD&parameter=cation_conductivity")
   List<MonthlyHoursResponse> monthlyHours(
       @RequestParam String samplePoint,
       @RequestParam String parameter,

@@ -47,15 +47,26 @@ public final class MetricNames {
   /** pH at the sample point's operating temperature (and pressure). */
   public static final String SAMPLE_PH_AT_TEMPERATURE = "kwanta.sample.ph.at.temperature";
 
-  /** Current level: -1 suspect, 0 normal, 1 to 3 action level, 4 immediate shutdown. */
+  /**
+   * Current action level: 0 normal (also when outside the normal range), 1 to 3 action level, 4
+   * immediate shutdown. Always the level of the values, whatever the doubt about the instrument.
+   */
   public static final String SAMPLE_LEVEL = "kwanta.sample.level";
 
-  /** Seconds since the onset of the current level. */
+  /**
+   * 1 when the value is outside its normal range but below every action level (OUTSIDE_NORMAL,
+   * advisory), else 0.
+   */
+  public static final String SAMPLE_OUTSIDE_NORMAL = "kwanta.sample.outside.normal";
+
+  /** Seconds since the onset of the current level (OUTSIDE_NORMAL counts as a level of its own). */
   public static final String SAMPLE_LEVEL_HELD = "kwanta.sample.level.held";
 
-  /** Instrument check state of the latest value: 1 when a check failed (suspect), 0 otherwise. */
-  public static final String SAMPLE_INSTRUMENT_CHECK_FAILED =
-      "kwanta.sample.instrument.check.failed";
+  /**
+   * 1 when the instrument behind the latest value is in doubt (an instrument check failed or the
+   * reading's quality is bad), else 0. Independent of the level.
+   */
+  public static final String SAMPLE_INSTRUMENT_IN_DOUBT = "kwanta.sample.instrument.in.doubt";
 
   /** Age of the latest reading, seconds. */
   public static final String SAMPLE_READING_AGE = "kwanta.sample.reading.age";
@@ -137,7 +148,14 @@ public final class MetricNames {
               "kwanta_sample_level",
               Type.GAUGE,
               POINT_PARAMETER,
-              "Current level: -1 suspect, 0 normal, 1-3 action level, 4 immediate shutdown"),
+              "Current action level: 0 normal (or outside the normal range), 1-3 action level,"
+                  + " 4 immediate shutdown; whatever the doubt about the instrument"),
+          new Metric(
+              SAMPLE_OUTSIDE_NORMAL,
+              "kwanta_sample_outside_normal",
+              Type.GAUGE,
+              POINT_PARAMETER,
+              "1 when outside the normal range but below every action level (advisory), else 0"),
           new Metric(
               SAMPLE_LEVEL_HELD,
               "kwanta_sample_level_held_seconds",
@@ -145,11 +163,11 @@ public final class MetricNames {
               POINT_PARAMETER,
               "Seconds since the onset of the current level"),
           new Metric(
-              SAMPLE_INSTRUMENT_CHECK_FAILED,
-              "kwanta_sample_instrument_check_failed",
+              SAMPLE_INSTRUMENT_IN_DOUBT,
+              "kwanta_sample_instrument_in_doubt",
               Type.GAUGE,
               POINT_PARAMETER,
-              "1 when an instrument check failed for the latest value (suspect), else 0"),
+              "1 when the instrument behind the latest value is in doubt, else 0"),
           new Metric(
               SAMPLE_READING_AGE,
               "kwanta_sample_reading_age_seconds",

@@ -21,11 +21,11 @@ import org.springframework.scheduling.annotation.Scheduled;
 import org.springframework.stereotype.Component;
 
 /**
- * Per sample point and parameter gauges (latest value, level, time in level, instrument check,
- * reading age) and the pH at temperature per sample point, refreshed on a schedule from the stored
- * readings and evaluations ({@code kwanta.metrics.refresh}, default 30 s). The level looks back
- * {@code kwanta.metrics.level-window} (default 8 days, longer than the AL1 allowance), so time in
- * level is capped at that window.
+ * Per sample point and parameter gauges (latest value, action level, outside the normal range, time
+ * in level, instrument in doubt, reading age) and the pH at temperature per sample point, refreshed
+ * on a schedule from the stored readings and evaluations ({@code kwanta.metrics.refresh}, default
+ * 30 s). The level looks back {@code kwanta.metrics.level-window} (default 8 days, longer than the
+ * AL1 allowance), so time in level is capped at that window.
  */
 @Component
 class SampleMetrics {
@@ -39,7 +39,8 @@ class SampleMetrics {
   private final MultiGauge phAtTemperature;
   private final MultiGauge level;
   private final MultiGauge held;
-  private final MultiGauge checkFailed;
+  private final MultiGauge outsideNormal;
+  private final MultiGauge inDoubt;
   private final MultiGauge age;
 
   SampleMetrics(
@@ -58,7 +59,8 @@ class SampleMetrics {
     this.phAtTemperature = gauge(registry, MetricNames.SAMPLE_PH_AT_TEMPERATURE, null);
     this.level = gauge(registry, MetricNames.SAMPLE_LEVEL, null);
     this.held = gauge(registry, MetricNames.SAMPLE_LEVEL_HELD, "seconds");
-    this.checkFailed = gauge(registry, MetricNames.SAMPLE_INSTRUMENT_CHECK_FAILED, null);
+    this.outsideNormal = gauge(registry, MetricNames.SAMPLE_OUTSIDE_NORMAL, null);
+    this.inDoubt = gauge(registry, MetricNames.SAMPLE_INSTRUMENT_IN_DOUBT, null);
     this.age = gauge(registry, MetricNames.SAMPLE_READING_AGE, "seconds");
   }
 
@@ -118,7 +120,8 @@ class SampleMetrics {
     List<MultiGauge.Row<?>> ages = new ArrayList<>();
     List<MultiGauge.Row<?>> levels = new ArrayList<>();
     List<MultiGauge.Row<?>> helds = new ArrayList<>();
-    List<MultiGauge.Row<?>> checks = new ArrayList<>();
+    List<MultiGauge.Row<?>> outsides = new ArrayList<>();
+    List<MultiGauge.Row<?>> doubts = new ArrayList<>();
     List<MultiGauge.Row<?>> phs = new ArrayList<>();
     for (Limits.Point point : limits.points(null, null)) {
       Tags pointTags =
@@ -152,16 +155,17 @@ class SampleMetrics {
         Tags tags = pointTags.and(MetricNames.PARAMETER, parameter);
         levels.add(MultiGauge.Row.of(tags, last.level().severity()));
         helds.add(
-            MultiGauge.Row.of(
-                tags, Duration.between(last.actionLevelSince(), now).toMillis() / 1000.0));
-        checks.add(MultiGauge.Row.of(tags, last.level() == Level.SUSPECT ? 1 : 0));
+            MultiGauge.Row.of(tags, Duration.between(last.levelSince(), now).toMillis() / 1000.0));
+        outsides.add(MultiGauge.Row.of(tags, last.level() == Level.OUTSIDE_NORMAL ? 1 : 0));
+        doubts.add(MultiGauge.Row.of(tags, last.instrumentInDoubt() ? 1 : 0));
       }
     }
     value.register(values, true);
     age.register(ages, true);
     level.register(levels, true);
     held.register(helds, true);
-    checkFailed.register(checks, true);
+    outsideNormal.register(outsides, true);
+    inDoubt.register(doubts, true);
     phAtTemperature.register(phs, true);
   }
 }

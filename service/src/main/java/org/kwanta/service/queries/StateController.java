@@ -38,7 +38,10 @@ class StateController {
   @Operation(
       summary = "Latest state of a sample point",
       description =
-          "Each parameter's latest reading with its age, and the latest evaluation: compensated"
+          "Each parameter's latest reading with its age; the current level of each parameter with"
+              + " limits (NORMAL, OUTSIDE_NORMAL: outside the normal range, advisory, not an"
+              + " action level; AL1-AL3; SHUTDOWN), with whether its instrument is in doubt; and"
+              + " the latest evaluation: compensated"
               + " conductivities, composition, calculated pH, pH at operating temperature with its band,"
               + " the instrument checks, and the diagnosis over time at the latest minute. Advisory.")
   States.State state(@Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {

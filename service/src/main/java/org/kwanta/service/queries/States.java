@@ -12,18 +12,20 @@ import org.springframework.stereotype.Repository;
 import tools.jackson.databind.json.JsonMapper;
 
 /**
- * The latest state of sample points: each parameter's latest reading with its age, the latest
- * evaluation.
+ * The latest state of sample points: each parameter's latest reading with its age, the current
+ * level of each parameter with limits, the latest evaluation.
  */
 @Repository
 class States {
 
   private final JdbcTemplate jdbc;
   private final JsonMapper json;
+  private final CurrentLevels levels;
 
-  States(JdbcTemplate jdbc, JsonMapper json) {
+  States(JdbcTemplate jdbc, JsonMapper json, CurrentLevels levels) {
     this.jdbc = jdbc;
     this.json = json;
+    this.levels = levels;
   }
 
   /** A parameter's latest reading. */
@@ -48,6 +50,7 @@ class States {
       String treatmentRegime,
       Instant asOf,
       List<Latest> readings,
+      List<CurrentLevels.LevelState> levels,
       LatestEvaluation evaluation,
       Diagnosis diagnosis) {}
 
@@ -109,6 +112,7 @@ class States {
         regime,
         now,
         latest,
+        levels.of(samplePointId, now),
         evaluation.isEmpty() ? null : evaluation.get(0),
         diagnosis == null
             ? null

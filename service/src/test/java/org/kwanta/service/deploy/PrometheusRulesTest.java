@@ -37,13 +37,15 @@ class PrometheusRulesTest {
     assertThat(used)
         .contains(
             "kwanta_sample_level",
-            "kwanta_sample_instrument_check_failed",
+            "kwanta_sample_instrument_in_doubt",
+            "kwanta_sample_outside_normal",
             "kwanta_sample_reading_age_seconds",
             "kwanta_readings_ingested_total");
     assertThat(alerts)
         .contains(
             "KwantaActionLevel1",
-            "KwantaInstrumentSuspect",
+            "KwantaInstrumentInDoubt",
+            "KwantaOutsideNormalRange",
             "KwantaStaleData",
             "KwantaIngestStopped");
   }
