@@ -44,6 +44,7 @@ function row(state) {
   const na = latest(state, 'sodium');
   const t = ev && ev.phAtTemperature;
   const findings = ev ? ev.findings : [];
+  const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
   const tr = document.createElement('tr');
   const cells = [
     state.samplePoint + ' <small>' + state.name + '</small>',
@@ -56,9 +57,12 @@ function row(state) {
     t ? fmt(t.ph, 2) + ' <small>[' + fmt(t.low, 2) + '–' + fmt(t.high, 2) + '] at ' + fmt(t.temperatureCel, 0) + ' °C</small>' : '–',
     t ? fmt(t.neutralPh, 2) : '–',
     na ? fmt(na.value, 2) : '–',
-    findings.length === 0 ? (ev ? '<span class="ok">consistent</span>' : '–')
-      : findings.map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + f.explanation + '">'
-        + f.code + (f.suspect === 'PROCESS' ? '' : ' (' + f.suspect.toLowerCase() + ')') + '</span>').join('<br>'),
+    findings.length === 0 && diagnosis.length === 0 ? (ev ? '<span class="ok">consistent</span>' : '–')
+      : diagnosis.map((f) => '<span class="' + (f.pointsAt === 'process' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
+        + f.code + ' → ' + f.pointsAt.replace(/_/g, ' ') + '</span>')
+        .concat(findings.filter((f) => !diagnosis.some((d) => d.code === f.code))
+          .map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
+            + f.code + ' → ' + f.suspect.toLowerCase().replace(/_/g, ' ') + '</span>')).join('<br>'),
     state.evaluation ? age(state.evaluation.ageSeconds) : '–',
     levels(state),
   ];
@@ -114,13 +118,41 @@ async function series(point, parameter) {
   return { points: r.buckets.map((b) => ({ x: Date.parse(b.start), y: b.mean })) };
 }
 
+function esc(text) {
+  return String(text).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' }[c]));
+}
+
+function evidence(e) {
+  return e ? ' <small>(' + esc(e.quantity) + ': expected ' + fmt(e.expected, 3) + ', read ' + fmt(e.read, 3)
+    + ', residual ' + fmt(e.residual, 3) + ', tolerance ±' + fmt(e.tolerance, 3) + ' ' + esc(e.unit) + ')</small>' : '';
+}
+
 async function detail(state) {
   $('detail').hidden = false;
   $('detail-title').textContent = state.samplePoint + ' – ' + state.name;
   const ev = state.evaluation && state.evaluation.evaluation;
-  $('findings').innerHTML = ev && ev.findings.length
-    ? ev.findings.map((f) => '<li><strong>' + f.code + '</strong> (suspect: ' + f.suspect.toLowerCase() + '): ' + f.explanation + '</li>').join('')
-    : '<li>No instrument check failed in the latest evaluation.</li>';
+  const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
+  $('findings').innerHTML = diagnosis.map((f) => '<li><strong>' + f.code + '</strong> → ' + f.pointsAt.replace(/_/g, ' ')
+      + ': ' + esc(f.explanation) + evidence(f.evidence) + '</li>').join('')
+    + (ev && ev.findings.length
+      ? ev.findings.map((f) => '<li><strong>' + f.code + '</strong> → ' + f.suspect.toLowerCase().replace(/_/g, ' ') + ' (instant check): ' + esc(f.explanation) + '</li>').join('')
+      : '')
+    || '<li>No finding now: the channels agree with each other, their baselines and the neighbouring points.</li>';
+  try {
+    const r = await api('api/v1/sample-points/' + encodeURIComponent(state.samplePoint) + '/findings');
+    const spans = [];
+    for (const m of r.minutes) {
+      const key = m.findings.map((f) => f.code + ' → ' + f.pointsAt.replace(/_/g, ' ')).join(', ');
+      const last = spans[spans.length - 1];
+      if (last && last.key === key && Date.parse(m.time) - Date.parse(last.to) <= 5 * 60000) last.to = m.time;
+      else spans.push({ key, from: m.time, to: m.time });
+    }
+    $('history').innerHTML = spans.length
+      ? spans.reverse().map((s) => '<li>' + s.from.substring(5, 16).replace('T', ' ') + ' – ' + s.to.substring(11, 16) + ' UTC: ' + esc(s.key) + '</li>').join('')
+      : '<li>No finding in the last 24 h.</li>';
+  } catch (e) {
+    $('history').innerHTML = '<li>Could not load the findings (' + esc(e.message) + ').</li>';
+  }
   $('provenance').textContent = ev && ev.phAtTemperature
     ? 'pH at ' + fmt(ev.phAtTemperature.temperatureCel, 0) + ' °C and ' + fmt(ev.phAtTemperature.pressureMPa, 2) + ' MPa: ' + ev.phAtTemperature.formulation + '. Configuration version ' + ev.configVersion + '.'
     : '';

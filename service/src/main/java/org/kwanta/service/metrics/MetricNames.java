@@ -95,6 +95,15 @@ public final class MetricNames {
   public static final String INGEST_RETRIED = "kwanta.ingest.retried";
 
   /** Kind of meter, for the exposed suffixes. */
+  /** 1 per active finding of the diagnosis over time. */
+  public static final String DIAGNOSIS_FINDING = "kwanta.diagnosis.finding";
+
+  /** Label: a finding's reason code. */
+  public static final String CODE = "code";
+
+  /** Label: what a finding points at (an instrument, sample conditioning, or the process). */
+  public static final String POINTS_AT = "points_at";
+
   public enum Type {
     GAUGE,
     COUNTER,
@@ -168,6 +177,12 @@ public final class MetricNames {
               Type.GAUGE,
               POINT_PARAMETER,
               "1 when the instrument behind the latest value is in doubt, else 0"),
+          new Metric(
+              DIAGNOSIS_FINDING,
+              "kwanta_diagnosis_finding",
+              Type.GAUGE,
+              List.of(PLANT, UNIT, SAMPLE_POINT, CODE, POINTS_AT),
+              "1 for each finding of the diagnosis over time at the point's latest minute"),
           new Metric(
               SAMPLE_READING_AGE,
               "kwanta_sample_reading_age_seconds",
