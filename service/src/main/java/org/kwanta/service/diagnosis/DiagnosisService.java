@@ -67,7 +67,8 @@ public class DiagnosisService {
   /** The findings of a point at one minute. */
   public record PointDiagnosis(Instant time, List<Finding> findings) {}
 
-  private record Current(Instant computedAt, Map<String, PointDiagnosis> byPoint) {}
+  private record Current(
+      Instant computedAt, long generations, Map<String, PointDiagnosis> byPoint) {}
 
   /** The points of a plant as the diagnosis sees them. */
   Map<String, Diagnoser.Point> points(String plantId) {
@@ -144,12 +145,24 @@ public class DiagnosisService {
   /**
    * The current diagnosis of every point of a plant: the findings at each point's latest minute
    * with data in the last hour. Computed for the whole plant at once and reused for {@link
-   * #CURRENT_TTL}.
+   * #CURRENT_TTL} while no new readings of the plant arrive.
    */
   public Map<String, PointDiagnosis> current(String plantId) {
     Instant now = clock.instant();
+    // every ingest transaction gives the points it wrote a new generation (migration V31): a
+    // cached answer is reused only while no new data came in
+    long generations =
+        jdbc.sql(
+                """
+                SELECT coalesce(sum(h.generation), 0) FROM reading_head h
+                JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""")
+            .param(plantId)
+            .query(Long.class)
+            .single();
     Current c = current.get(plantId);
-    if (c != null && Duration.between(c.computedAt(), now).compareTo(CURRENT_TTL) < 0) {
+    if (c != null
+        && c.generations() == generations
+        && Duration.between(c.computedAt(), now).compareTo(CURRENT_TTL) < 0) {
       return c.byPoint();
     }
     Map<String, Diagnoser.Point> points = points(plantId);
@@ -176,7 +189,7 @@ public class DiagnosisService {
       }
     }
     Map<String, PointDiagnosis> result = Map.copyOf(out);
-    current.put(plantId, new Current(now, result));
+    current.put(plantId, new Current(now, generations, result));
     return result;
   }
 

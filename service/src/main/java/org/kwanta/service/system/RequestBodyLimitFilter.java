@@ -16,9 +16,10 @@ import org.springframework.http.HttpStatus;
 import org.springframework.web.filter.OncePerRequestFilter;
 
 /**
- * Caps request bodies: {@code max-ingest-body-size} on ingest, {@code max-body-size} elsewhere. A
- * declared Content-Length over the cap is refused before reading (413); a chunked body is counted
- * as it is read and the read fails past the cap, which {@link ProblemHandler} answers with 413.
+ * Caps request bodies: {@code max-ingest-body-size} on ingest and the what-if diagnosis, {@code
+ * max-body-size} elsewhere. A declared Content-Length over the cap is refused before reading (413);
+ * a chunked body is counted as it is read and the read fails past the cap, which {@link
+ * ProblemHandler} answers with 413.
  */
 final class RequestBodyLimitFilter extends OncePerRequestFilter {
 
@@ -36,7 +37,7 @@ final class RequestBodyLimitFilter extends OncePerRequestFilter {
   protected void doFilterInternal(
       HttpServletRequest request, HttpServletResponse response, FilterChain chain)
       throws ServletException, IOException {
-    long limit = IngestRequests.matches(request) ? maxIngestBody : maxBody;
+    long limit = IngestRequests.carriesReadings(request) ? maxIngestBody : maxBody;
     if (request.getContentLengthLong() > limit) {
       problems.write(
           response,
