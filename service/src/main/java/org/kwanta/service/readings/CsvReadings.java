@@ -158,7 +158,7 @@ final class CsvReadings {
           new RejectedReading(
               index,
               column,
-              "not a decimal number (digits, optional sign, point and exponent): '"
+              "not a number (a plain decimal: digits, optional sign, point, exponent): '"
                   + abbreviate(v)
                   + "'"));
       return Double.NaN;
