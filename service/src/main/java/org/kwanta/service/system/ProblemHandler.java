@@ -250,6 +250,12 @@ class ProblemHandler extends ResponseEntityExceptionHandler {
         && (problem.getType() == null || "about:blank".equals(problem.getType().toString()))) {
       problem.setType(ProblemTypes.forStatus(statusCode.value()));
     }
+    HttpStatus known = HttpStatus.resolve(statusCode.value());
+    if (body instanceof ProblemDetail problem
+        && known != null
+        && known.getReasonPhrase().equals(problem.getTitle())) {
+      problem.setTitle(ProblemResponses.title(statusCode)); // Spring's titles are title case
+    }
     HttpHeaders out = new HttpHeaders();
     out.putAll(headers);
     out.setContentType(MediaType.APPLICATION_PROBLEM_JSON);
