@@ -1,6 +1,7 @@
 package org.kwanta.service.readings;
 
 import java.io.IOException;
+import java.io.PushbackReader;
 import java.io.Reader;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
@@ -15,7 +16,10 @@ import org.kwanta.service.system.BadRequestException;
 
 /**
  * Reads a CSV batch (RFC 4180 with a header row). Columns: {@code sample_point, parameter, time,
- * value, unit} and optionally {@code quality, sample_temperature_cel, compensated}, in any order.
+ * value, unit} and optionally {@code quality, sample_temperature_cel, compensated}, in any order. A
+ * UTF-8 byte-order mark before the header is skipped; blank lines are ignored. Numbers are plain
+ * decimals ({@code 9.6}, {@code -1.5e-3}): Java's hexadecimal and type-suffixed forms ({@code
+ * 0x1p3}, {@code 9.6d}) are refused. Every rejection carries the file line where its row starts.
  */
 final class CsvReadings {
 
@@ -24,20 +28,27 @@ final class CsvReadings {
 
   private CsvReadings() {}
 
-  record Parsed(List<ReadingInput> readings, List<RejectedReading> rejected) {}
+  /**
+   * The rows read.
+   *
+   * @param lines the file line (from 1; the header is line 1) where each data row starts, by index
+   */
+  record Parsed(List<ReadingInput> readings, List<RejectedReading> rejected, int[] lines) {}
 
   static Parsed parse(Reader body, int maxRows) {
+    // empty lines are kept as records (and skipped below) so that line numbers can be counted
     CSVFormat format =
         CSVFormat.RFC4180
             .builder()
             .setHeader()
             .setSkipHeaderRecord(true)
-            .setIgnoreEmptyLines(true)
+            .setIgnoreEmptyLines(false)
             .setTrim(true)
             .get();
     List<ReadingInput> readings = new ArrayList<>();
     List<RejectedReading> rejected = new ArrayList<>();
-    try (CSVParser parser = CSVParser.parse(body, format)) {
+    int[] lines = new int[16];
+    try (CSVParser parser = CSVParser.parse(withoutByteOrderMark(body), format)) {
       Map<String, Integer> header = parser.getHeaderMap();
       List<String> missing =
           REQUIRED.stream().filter(c -> !header.containsKey(c)).sorted().toList();
@@ -48,7 +59,7 @@ final class CsvReadings {
               .toList();
       if (!missing.isEmpty() || !unknown.isEmpty()) {
         throw BadRequestException.of(
-            "CSV header: "
+            "CSV header (line 1): "
                 + (missing.isEmpty() ? "" : "missing columns " + missing + " ")
                 + (unknown.isEmpty() ? "" : "unknown columns " + unknown + " ")
                 + "(required "
@@ -58,16 +69,28 @@ final class CsvReadings {
                 + ")");
       }
       int index = 0;
+      // a record starts on the line after the previous record's end (line ends consumed so far)
+      long start = parser.getCurrentLineNumber() + 1;
       for (CSVRecord record : parser) {
+        int line = (int) Math.min(Integer.MAX_VALUE, start);
+        start = parser.getCurrentLineNumber() + 1;
+        if (record.size() == 1 && record.get(0).isEmpty()) {
+          continue; // a blank line
+        }
         if (index >= maxRows) {
           throw new BatchTooLargeException(index + 1, maxRows);
         }
+        if (index == lines.length) {
+          lines = java.util.Arrays.copyOf(lines, lines.length * 2);
+        }
+        lines[index] = line;
         if (!record.isConsistent()) {
           rejected.add(
               new RejectedReading(
                   index,
                   null,
-                  "row has " + record.size() + " fields, header has " + header.size()));
+                  "row has " + record.size() + " fields, header has " + header.size(),
+                  line));
           readings.add(null);
           index++;
           continue;
@@ -97,7 +120,23 @@ final class CsvReadings {
       }
       throw BadRequestException.of("malformed CSV: " + e.getMessage());
     }
-    return new Parsed(readings, rejected);
+    int[] rowLines = java.util.Arrays.copyOf(lines, readings.size());
+    return new Parsed(
+        readings, rejected.stream().map(r -> r.atLine(rowLines[r.index()])).toList(), rowLines);
+  }
+
+  /** The body without a leading UTF-8 byte-order mark (U+FEFF), which spreadsheets write. */
+  private static Reader withoutByteOrderMark(Reader body) {
+    PushbackReader in = new PushbackReader(body, 1);
+    try {
+      int first = in.read();
+      if (first != -1 && first != '\uFEFF') {
+        in.unread(first);
+      }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return in;
   }
 
   private static String text(CSVRecord record, String column) {
@@ -114,12 +153,60 @@ final class CsvReadings {
     if (v == null) {
       return null;
     }
-    try {
-      return Double.valueOf(v);
-    } catch (NumberFormatException e) {
-      rejected.add(new RejectedReading(index, column, "not a number: '" + abbreviate(v) + "'"));
+    if (!isDecimal(v)) {
+      rejected.add(
+          new RejectedReading(
+              index,
+              column,
+              "not a number (a plain decimal: digits, optional sign, point, exponent): '"
+                  + abbreviate(v)
+                  + "'"));
       return Double.NaN;
     }
+    return Double.valueOf(v);
+  }
+
+  /**
+   * Whether the text is a plain decimal: {@code [+-]digits[.digits][(e|E)[+-]digits]}, with digits
+   * on at least one side of the point. Refuses what {@link Double#valueOf} would also take: hex
+   * ({@code 0x1p3}), type suffixes ({@code 9.6d}, {@code 2f}), {@code NaN}, {@code Infinity}.
+   */
+  static boolean isDecimal(String v) {
+    int i = 0;
+    int n = v.length();
+    if (i < n && (v.charAt(i) == '+' || v.charAt(i) == '-')) {
+      i++;
+    }
+    int digits = 0;
+    while (i < n && v.charAt(i) >= '0' && v.charAt(i) <= '9') {
+      i++;
+      digits++;
+    }
+    if (i < n && v.charAt(i) == '.') {
+      i++;
+      while (i < n && v.charAt(i) >= '0' && v.charAt(i) <= '9') {
+        i++;
+        digits++;
+      }
+    }
+    if (digits == 0) {
+      return false;
+    }
+    if (i < n && (v.charAt(i) == 'e' || v.charAt(i) == 'E')) {
+      i++;
+      if (i < n && (v.charAt(i) == '+' || v.charAt(i) == '-')) {
+        i++;
+      }
+      int exponent = 0;
+      while (i < n && v.charAt(i) >= '0' && v.charAt(i) <= '9') {
+        i++;
+        exponent++;
+      }
+      if (exponent == 0) {
+        return false;
+      }
+    }
+    return i == n;
   }
 
   private static Boolean bool(

@@ -66,10 +66,15 @@ class ReadingsController {
       summary = "Ingest a CSV batch (RFC 4180 with a header row)",
       description =
           "Columns sample_point, parameter, time, value, unit; optional quality, sample_temperature_cel,"
-              + " compensated. Same rules as the JSON batch; the index of a rejected reading is its data row"
-              + " from 0.")
+              + " compensated. Same rules as the JSON batch; a rejected reading gives its data row from 0"
+              + " (index) and the line of the file where the row starts (line; the header is line 1)."
+              + " A UTF-8 byte-order mark is skipped; numbers are plain decimals.")
   IngestService.Outcome csv(@RequestBody String body) {
     CsvReadings.Parsed parsed = CsvReadings.parse(new StringReader(body), limits.maxBatchSize());
-    return ingest.ingest(parsed.readings(), parsed.rejected());
+    try {
+      return ingest.ingest(parsed.readings(), parsed.rejected());
+    } catch (InvalidBatchException e) {
+      throw e.withLines(parsed.lines()); // a CSV rejection names the line of the file
+    }
   }
 }

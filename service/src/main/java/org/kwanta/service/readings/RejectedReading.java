@@ -1,5 +1,7 @@
 package org.kwanta.service.readings;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
+
 /**
  * Why one reading of a batch was refused.
  *
@@ -7,5 +9,18 @@ package org.kwanta.service.readings;
  *     header)
  * @param field the offending field, or null for the reading as a whole
  * @param reason one sentence
+ * @param line for CSV: the line of the file where the row starts, from 1 (the header is line 1);
+ *     absent for JSON
  */
-public record RejectedReading(int index, String field, String reason) {}
+@JsonInclude(JsonInclude.Include.NON_NULL)
+public record RejectedReading(int index, String field, String reason, Integer line) {
+
+  public RejectedReading(int index, String field, String reason) {
+    this(index, field, reason, null);
+  }
+
+  /** This rejection with the CSV line of its row. */
+  RejectedReading atLine(int fileLine) {
+    return new RejectedReading(index, field, reason, fileLine);
+  }
+}

@@ -20,7 +20,8 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  * <table>
  *   <caption>Rules, first match wins</caption>
  *   <tr><th>request</th><th>needs</th></tr>
- *   <tr><td>health, info, OpenAPI, Swagger UI, {@code /}, static assets</td><td>nothing</td></tr>
+ *   <tr><td>health, info, OpenAPI, Swagger UI, {@code GET}/{@code HEAD /}, static assets</td>
+ *       <td>nothing</td></tr>
  *   <tr><td>{@code GET /actuator/prometheus}</td><td>read</td></tr>
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
  *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
@@ -73,6 +74,9 @@ class SecurityConfiguration {
                     .permitAll()
                     .requestMatchers(
                         HttpMethod.GET, "/", "/index.html", "/favicon.ico", "/assets/**")
+                    .permitAll()
+                    .requestMatchers(
+                        HttpMethod.HEAD, "/", "/index.html", "/favicon.ico", "/assets/**")
                     .permitAll()
                     .requestMatchers(PathRequest.toStaticResources().atCommonLocations())
                     .permitAll()

@@ -11,6 +11,7 @@ import org.springframework.http.HttpStatus;
 import org.springframework.http.ProblemDetail;
 import org.springframework.stereotype.Component;
 import org.springframework.transaction.CannotCreateTransactionException;
+import org.springframework.transaction.TransactionSystemException;
 
 /**
  * Recognises "PostgreSQL is unreachable" in an exception chain, and the 503 answer for it: the
@@ -26,9 +27,24 @@ public class DatabaseOutage {
     this.retryAfter = limits.retryAfter();
   }
 
-  /** Whether this exception, or one of its causes, says the database cannot be reached. */
+  /**
+   * Whether this exception, or one of its causes, says the database cannot be reached. A failed
+   * rollback hides the exception that made the transaction roll back: Spring throws the rollback's
+   * {@link TransactionSystemException} (for a connection the pool has already closed, a bare
+   * "Connection is closed" without SQLSTATE) and keeps the original as its application exception,
+   * which is examined too, as are suppressed exceptions.
+   */
   public static boolean isCause(Throwable e) {
-    for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
+    return isCause(e, 0);
+  }
+
+  private static boolean isCause(Throwable e, int depth) {
+    if (depth > 4) {
+      return false;
+    }
+    int links = 0;
+    for (Throwable t = e; t != null && links < 100; t = t.getCause() == t ? null : t.getCause()) {
+      links++;
       if (t instanceof DataAccessResourceFailureException
           || t instanceof TransientDataAccessResourceException
           || t instanceof CannotCreateTransactionException
@@ -40,6 +56,16 @@ public class DatabaseOutage {
       if (t instanceof SQLException sql && sql.getSQLState() != null) {
         String state = sql.getSQLState();
         if (state.startsWith("08") || state.startsWith("57P")) {
+          return true;
+        }
+      }
+      if (t instanceof TransactionSystemException tx
+          && tx.getApplicationException() != null
+          && isCause(tx.getApplicationException(), depth + 1)) {
+        return true;
+      }
+      for (Throwable suppressed : t.getSuppressed()) {
+        if (isCause(suppressed, depth + 1)) {
           return true;
         }
       }

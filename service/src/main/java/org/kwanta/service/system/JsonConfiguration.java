@@ -6,15 +6,19 @@ import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 import org.springframework.context.annotation.Scope;
 import tools.jackson.core.StreamReadConstraints;
+import tools.jackson.core.StreamReadFeature;
 import tools.jackson.core.json.JsonFactory;
+import tools.jackson.databind.cfg.CoercionAction;
+import tools.jackson.databind.cfg.CoercionInputShape;
 import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.type.LogicalType;
 
 /**
  * The application's JSON mapper with tighter parser limits than Jackson's defaults (strings of 20
  * million characters, nesting 500 deep): {@code kwanta.limits.max-json-string-length} and {@code
  * max-json-nesting-depth}, numbers of at most 100 digits. Spring Boot's customizers ({@code
  * spring.jackson.*}, e.g. unknown fields rejected) still apply. Parsing fails with 400 past a
- * limit.
+ * limit. Strict about types and repeated fields: {@link #strict}.
  */
 @Configuration(proxyBeanMethods = false)
 class JsonConfiguration {
@@ -27,7 +31,29 @@ class JsonConfiguration {
         JsonMapper.builder(
             JsonFactory.builder().streamReadConstraints(streamReadConstraints(limits)).build());
     customizers.forEach(c -> c.customize(builder));
-    return builder;
+    return strict(builder);
+  }
+
+  /**
+   * No lenient input: a repeated field is refused (it would silently replace the first), and a
+   * number or boolean must be one in the JSON ({@code "value":"9.6"} and {@code "compensated":1}
+   * are refused, not coerced). Each failure is a 400 naming the field.
+   */
+  static JsonMapper.Builder strict(JsonMapper.Builder builder) {
+    return builder
+        .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+        .withCoercionConfig(
+            LogicalType.Float, c -> c.setCoercion(CoercionInputShape.String, CoercionAction.Fail))
+        .withCoercionConfig(
+            LogicalType.Integer,
+            c ->
+                c.setCoercion(CoercionInputShape.String, CoercionAction.Fail)
+                    .setCoercion(CoercionInputShape.Float, CoercionAction.Fail))
+        .withCoercionConfig(
+            LogicalType.Boolean,
+            c ->
+                c.setCoercion(CoercionInputShape.String, CoercionAction.Fail)
+                    .setCoercion(CoercionInputShape.Integer, CoercionAction.Fail));
   }
 
   static StreamReadConstraints streamReadConstraints(LimitsProperties limits) {

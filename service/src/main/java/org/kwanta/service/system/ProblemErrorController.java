@@ -21,7 +21,8 @@ class ProblemErrorController implements ErrorController {
   @RequestMapping("${server.error.path:/error}")
   ResponseEntity<ProblemDetail> error(HttpServletRequest request) {
     Object code = request.getAttribute(RequestDispatcher.ERROR_STATUS_CODE);
-    int status = code instanceof Integer i ? i : 500;
+    // requested directly (GET /error), nothing failed: the path is not a resource
+    int status = code instanceof Integer i ? i : 404;
     HttpStatus httpStatus = HttpStatus.resolve(status);
     if (httpStatus == null) {
       httpStatus = HttpStatus.INTERNAL_SERVER_ERROR;
@@ -33,8 +34,11 @@ class ProblemErrorController implements ErrorController {
                 ? "An internal error occurred; it has been logged."
                 : httpStatus.getReasonPhrase());
     problem.setType(ProblemTypes.forStatus(status));
-    problem.setTitle(httpStatus.getReasonPhrase());
-    Object uri = request.getAttribute(RequestDispatcher.ERROR_REQUEST_URI);
+    problem.setTitle(ProblemResponses.title(httpStatus));
+    Object uri =
+        code == null
+            ? request.getRequestURI()
+            : request.getAttribute(RequestDispatcher.ERROR_REQUEST_URI);
     if (uri != null) {
       problem.setInstance(java.net.URI.create(String.valueOf(uri).replace(" ", "%20")));
     }

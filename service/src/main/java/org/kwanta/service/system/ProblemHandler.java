@@ -27,6 +27,7 @@ import org.springframework.web.servlet.mvc.method.annotation.ResponseEntityExcep
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.exc.StreamConstraintsException;
 import tools.jackson.core.exc.StreamReadException;
+import tools.jackson.databind.exc.MismatchedInputException;
 import tools.jackson.databind.exc.UnrecognizedPropertyException;
 
 /**
@@ -175,8 +176,27 @@ class ProblemHandler extends ResponseEntityExceptionHandler {
     if (cause instanceof StreamConstraintsException) {
       return "The JSON exceeds a parser limit (string length, nesting depth or number length).";
     }
+    if (cause instanceof StreamReadException r
+        && r.getOriginalMessage() != null
+        && r.getOriginalMessage().startsWith("Duplicate Object property")) {
+      return "Field "
+          + r.getOriginalMessage().substring("Duplicate Object property ".length())
+          + " appears twice"
+          + at(r)
+          + "; each field may appear once.";
+    }
     if (cause instanceof StreamReadException) {
       return "The body is not well-formed JSON.";
+    }
+    if (cause instanceof MismatchedInputException m && m.getTargetType() != null) {
+      Class<?> type = m.getTargetType();
+      if (Number.class.isAssignableFrom(type)
+          || (type.isPrimitive() && type != boolean.class && type != char.class)) {
+        return "Expected a JSON number" + at(m) + ", not text or another type.";
+      }
+      if (type == Boolean.class || type == boolean.class) {
+        return "Expected true or false" + at(m) + ", not text or a number.";
+      }
     }
     if (cause instanceof JacksonException j) {
       return "The body does not match the expected shape" + at(j) + ".";
@@ -229,6 +249,12 @@ class ProblemHandler extends ResponseEntityExceptionHandler {
     if (body instanceof ProblemDetail problem
         && (problem.getType() == null || "about:blank".equals(problem.getType().toString()))) {
       problem.setType(ProblemTypes.forStatus(statusCode.value()));
+    }
+    HttpStatus known = HttpStatus.resolve(statusCode.value());
+    if (body instanceof ProblemDetail problem
+        && known != null
+        && known.getReasonPhrase().equals(problem.getTitle())) {
+      problem.setTitle(ProblemResponses.title(statusCode)); // Spring's titles are title case
     }
     HttpHeaders out = new HttpHeaders();
     out.putAll(headers);

@@ -7,6 +7,7 @@ import java.net.URI;
 import java.time.Duration;
 import org.springframework.http.HttpHeaders;
 import org.springframework.http.HttpStatus;
+import org.springframework.http.HttpStatusCode;
 import org.springframework.http.MediaType;
 import org.springframework.http.ProblemDetail;
 import org.springframework.stereotype.Component;
@@ -54,6 +55,19 @@ public class ProblemResponses {
       response.setHeader(HttpHeaders.RETRY_AFTER, Long.toString(retryAfterSeconds(retryAfter)));
     }
     json.writeValue(response.getOutputStream(), problem);
+  }
+
+  /**
+   * The title for a status in the house style, sentence case: "Not found", "Method not allowed"
+   * (Spring's reason phrases are title case).
+   */
+  public static String title(HttpStatusCode status) {
+    HttpStatus known = HttpStatus.resolve(status.value());
+    if (known == null) {
+      return "Error " + status.value();
+    }
+    String phrase = known.getReasonPhrase();
+    return phrase.charAt(0) + phrase.substring(1).toLowerCase(java.util.Locale.ROOT);
   }
 
   static long retryAfterSeconds(Duration retryAfter) {

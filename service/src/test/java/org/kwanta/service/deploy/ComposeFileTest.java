@@ -34,10 +34,9 @@ class ComposeFileTest {
 
   @Test
   void composeFileRunsPrometheusWithTheRulesAndGrafanaWithTheDashboards() throws Exception {
-    JsonNode services =
-        new YAMLMapper()
-            .readTree(Files.readString(ROOT.resolve("docker-compose.yml")))
-            .get("services");
+    JsonNode compose =
+        new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode services = compose.get("services");
     String prometheusVolumes = services.get("prometheus").get("volumes").toString();
     assertThat(prometheusVolumes)
         .contains("./deploy/prometheus/prometheus.yml:/etc/prometheus/prometheus.yml")
@@ -46,8 +45,12 @@ class ComposeFileTest {
         .contains("./deploy/grafana/provisioning:/etc/grafana/provisioning");
     for (JsonNode service : List.of(services.get("prometheus"), services.get("grafana"))) {
       for (JsonNode volume : service.get("volumes")) {
-        Path source = ROOT.resolve(volume.asString().split(":")[0]);
-        assertThat(source).as(volume.asString()).exists();
+        String source = volume.asString().split(":")[0];
+        if (source.startsWith("./")) { // a bind mount; others are named volumes
+          assertThat(ROOT.resolve(source)).as(volume.asString()).exists();
+        } else {
+          assertThat(compose.get("volumes").has(source)).as(volume.asString()).isTrue();
+        }
       }
     }
     // The scrape target is the compose service name and the port the service listens on.
@@ -105,5 +108,58 @@ class ComposeFileTest {
     assertThat(yaml.get("server").get("port").asInt())
         .isEqualTo(Integer.parseInt(kwanta.get("SERVER_PORT").asString()));
     assertThat(application).containsKey("SPRING_DATASOURCE_URL");
+  }
+
+  @Test
+  void prometheusScrapesWithTheKeyFileTheServiceWrites() throws Exception {
+    JsonNode compose =
+        new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+    JsonNode services = compose.get("services");
+    // the service writes its scrape key into KWANTA_SCRAPE_KEY_FILE
+    // (kwanta.security.scrape-key-file)
+    String keyFile =
+        services.get("kwanta").get("environment").get("KWANTA_SCRAPE_KEY_FILE").asString();
+    JsonNode yaml =
+        new YAMLMapper()
+            .readTree(
+                Files.readString(ROOT.resolve("service/src/main/resources/application.yaml")));
+    assertThat(yaml.get("kwanta").get("security").get("scrape-key-file").asString())
+        .isEqualTo("${KWANTA_SCRAPE_KEY_FILE:}");
+    Path keyDir = Path.of(keyFile).getParent();
+    String volume = mountOf(services.get("kwanta"), keyDir.toString());
+    assertThat(compose.get("volumes").has(volume)).isTrue();
+    // Prometheus mounts the same volume read-only and reads the key from there
+    String prometheusDir = null;
+    for (JsonNode v : services.get("prometheus").get("volumes")) {
+      String[] parts = v.asString().split(":");
+      if (parts[0].equals(volume)) {
+        assertThat(parts).hasSize(3);
+        assertThat(parts[2]).isEqualTo("ro");
+        prometheusDir = parts[1];
+      }
+    }
+    assertThat(prometheusDir).as("prometheus mounts volume " + volume).isNotNull();
+    JsonNode job =
+        new YAMLMapper()
+            .readTree(Files.readString(ROOT.resolve("deploy/prometheus/prometheus.yml")))
+            .get("scrape_configs")
+            .get(0);
+    assertThat(job.get("authorization").get("type").asString()).isEqualTo("Bearer");
+    assertThat(job.get("authorization").get("credentials_file").asString())
+        .isEqualTo(prometheusDir + "/" + Path.of(keyFile).getFileName());
+    // the image creates the mount point owned by the service's user, so it can write the file
+    assertThat(Files.readString(ROOT.resolve("Dockerfile")))
+        .contains("mkdir -p " + keyDir + " && chown kwanta " + keyDir);
+  }
+
+  /** The named volume a service mounts at this path. */
+  private static String mountOf(JsonNode service, String path) {
+    for (JsonNode v : service.get("volumes")) {
+      String[] parts = v.asString().split(":");
+      if (parts[1].equals(path)) {
+        return parts[0];
+      }
+    }
+    throw new AssertionError("nothing mounted at " + path);
   }
 }

@@ -83,8 +83,46 @@ class KubernetesManifestsTest {
     assertThat(port.get("containerPort").asInt()).isEqualTo(serverPort);
     JsonNode config = BY_KIND.get("ConfigMap").get("data");
     assertThat(Integer.parseInt(config.get("SERVER_PORT").asString())).isEqualTo(serverPort);
-    assertThat(service.get("metadata").get("annotations").get("prometheus.io/path").asString())
-        .isEqualTo("/actuator/prometheus");
+    // prometheus.io/* annotations cannot carry the scrape key: a target found by them would be down
+    assertThat(service.get("metadata").has("annotations")).isFalse();
+  }
+
+  @Test
+  void scrapeKeyComesFromASecretMountedAsTheFileTheServiceReads() throws Exception {
+    JsonNode podSpec = BY_KIND.get("Deployment").get("spec").get("template").get("spec");
+    JsonNode volume = null;
+    for (JsonNode v : podSpec.get("volumes")) {
+      if (v.has("secret")) {
+        volume = v;
+      }
+    }
+    assertThat(volume).isNotNull();
+    String secret = volume.get("secret").get("secretName").asString();
+    assertThat(secret).isEqualTo("kwanta-scrape-key");
+    String mountPath = null;
+    for (JsonNode m : container().get("volumeMounts")) {
+      if (m.get("name").asString().equals(volume.get("name").asString())) {
+        assertThat(m.get("readOnly").asBoolean()).isTrue();
+        mountPath = m.get("mountPath").asString();
+      }
+    }
+    assertThat(mountPath).isNotNull();
+    // the file is readable by the pod's user through its group
+    assertThat(podSpec.get("securityContext").get("fsGroup").asInt())
+        .isEqualTo(podSpec.get("securityContext").get("runAsUser").asInt());
+    String keyFile = BY_KIND.get("ConfigMap").get("data").get("KWANTA_SCRAPE_KEY_FILE").asString();
+    assertThat(keyFile).isEqualTo(mountPath + "/key");
+    // Prometheus reads the same Secret key through the documented mount
+    JsonNode job =
+        new YAMLMapper()
+            .readTree(Files.readString(ROOT.resolve("deploy/prometheus/kubernetes.yml")))
+            .get("scrape_configs")
+            .get(0);
+    assertThat(job.get("metrics_path").asString()).isEqualTo("/actuator/prometheus");
+    assertThat(job.get("authorization").get("credentials_file").asString())
+        .isEqualTo("/etc/prometheus/secrets/" + secret + "/key");
+    assertThat(Files.readString(K8S.resolve("configmap.yaml")))
+        .contains("kubectl create secret generic " + secret + " --from-literal=key=");
   }
 
   @Test
