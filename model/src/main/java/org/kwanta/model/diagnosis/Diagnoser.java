@@ -96,6 +96,18 @@ public final class Diagnoser {
       int processPersistence,
       int instrumentPersistence) {
 
+    public Settings {
+      if (baselinePeriod.toMinutes() < 2L * MINIMUM_BASELINE_MINUTES
+          || baselineGap.toMinutes() < 15
+          || cusumWindow.toMinutes() < 60
+          || processPersistence < 1
+          || instrumentPersistence < 1) {
+        throw new IllegalArgumentException(
+            "diagnosis settings out of range: baseline period ≥ 2 h, gap ≥ 15 min, drift window ≥ 1 h,"
+                + " persistences ≥ 1 min");
+      }
+    }
+
     public static Settings defaults() {
       return new Settings(Duration.ofHours(24), Duration.ofMinutes(60), Duration.ofHours(8), 3, 10);
     }
@@ -155,7 +167,7 @@ public final class Diagnoser {
     long gridStart = first - settings.lookback().toMinutes();
     Map<String, Track> tracks = new HashMap<>();
     for (Series s : series.values()) {
-      tracks.put(s.point().id(), new Track(s, gridStart, last));
+      tracks.put(s.point().id(), new Track(s, gridStart, last, settings));
     }
     Track t = tracks.get(pointId);
     List<Track> upstream = neighbours(tracks, target.point(), true);
@@ -700,7 +712,12 @@ public final class Diagnoser {
     private final boolean[] any;
     private final Map<Channel, byte[]> sigCache = new EnumMap<>(Channel.class);
 
-    Track(Series s, long gridStart, long last) {
+    private final int baselineMinutes;
+    private final int baselineGapMinutes;
+
+    Track(Series s, long gridStart, long last, Settings settings) {
+      this.baselineMinutes = (int) settings.baselinePeriod().toMinutes();
+      this.baselineGapMinutes = (int) settings.baselineGap().toMinutes();
       this.point = s.point();
       this.gridStart = gridStart;
       this.size = (int) (last - gridStart + 1);
@@ -749,10 +766,10 @@ public final class Diagnoser {
       }
       long minute = gridStart + i;
       long quarter = Math.floorDiv(minute, 15) * 15;
-      int end = (int) (quarter - gridStart - 60); // exclusive; baselineGap fixed at 60 min
+      int end = (int) (quarter - gridStart - baselineGapMinutes); // exclusive
       return baselines
           .computeIfAbsent(c, k -> new HashMap<>())
-          .computeIfAbsent(end, e -> stat(values.get(c), e - 24 * 60, e));
+          .computeIfAbsent(end, e -> stat(values.get(c), e - baselineMinutes, e));
     }
 
     private static Stat stat(double[] v, int from, int to) {

@@ -48,7 +48,7 @@ public class DiagnosisService {
   private final SamplePointConfigs configs;
   private final IngestService ingest;
   private final Clock clock;
-  private final Diagnoser diagnoser = new Diagnoser(Diagnoser.Settings.defaults());
+  private final Diagnoser diagnoser;
   private final Map<String, Current> current = new ConcurrentHashMap<>();
 
   DiagnosisService(
@@ -56,7 +56,9 @@ public class DiagnosisService {
       MinuteSeries minutes,
       SamplePointConfigs configs,
       IngestService ingest,
-      Clock clock) {
+      Clock clock,
+      DiagnosisProperties properties) {
+    this.diagnoser = new Diagnoser(properties.settings());
     this.jdbc = jdbc;
     this.minutes = minutes;
     this.configs = configs;
