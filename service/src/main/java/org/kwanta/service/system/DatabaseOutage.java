@@ -64,6 +64,14 @@ public class DatabaseOutage {
           && isCause(tx.getApplicationException(), depth + 1)) {
         return true;
       }
+      // a rollback that fails after a failed commit: Spring logs the commit's exception ("Commit
+      // exception overridden by rollback exception") and throws only this one, with no
+      // application exception; the connection is gone
+      if (t instanceof TransactionSystemException tx
+          && tx.getApplicationException() == null
+          && t.getCause() instanceof SQLException) {
+        return true;
+      }
       for (Throwable suppressed : t.getSuppressed()) {
         if (isCause(suppressed, depth + 1)) {
           return true;
