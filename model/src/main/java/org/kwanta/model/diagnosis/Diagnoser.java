@@ -124,6 +124,9 @@ public final class Diagnoser {
   /** The recent median spans this many minutes. */
   static final int RECENT_MINUTES = 3;
 
+  /** Minutes of the medians that decide whether the pH or the conductivity moved. */
+  static final int ATTRIBUTION_MINUTES = 9;
+
   /** The drift test's reference value k (pH) and decision interval h (pH·min). */
   static final double CUSUM_K = 0.05;
 
@@ -553,8 +556,12 @@ public final class Diagnoser {
     if (!step && Math.abs(dRes) <= CUSUM_K) {
       return; // the sum still remembers an earlier excursion that has ended
     }
-    // which channel moved: the one that left its own baseline
-    boolean scMoved = Math.abs(dCalc) > 2 * Math.abs(dMeas) && Math.abs(dCalc) > CUSUM_K;
+    // which channel moved: the one that left its own baseline, judged on 9-minute medians so
+    // that the noise of either does not decide; while neither clearly moved more, blame nobody
+    double mMeas = Math.abs(t.devOver(Channel.PH, i, ATTRIBUTION_MINUTES));
+    double mCalc = Math.abs(t.devOver(Channel.PH_CALCULATED, i, ATTRIBUTION_MINUTES));
+    boolean scMoved = mCalc > 2 * mMeas && mCalc > CUSUM_K;
+    boolean phMoved = mMeas > 2 * mCalc && mMeas > CUSUM_K;
     boolean neighboursAgree = false;
     for (Track nb : around) {
       double nbCalc = nb.dev(Channel.PH_CALCULATED, i);
@@ -564,6 +571,9 @@ public final class Diagnoser {
       if (!Double.isNaN(nbShift) && !Double.isNaN(here) && Math.abs(nbShift - here) < 0.03) {
         neighboursAgree = true; // the conductivity change is real: the neighbours saw it too
       }
+    }
+    if (!scMoved && !phMoved && !neighboursAgree) {
+      return; // the evidence does not say which; the instant check still compares the two
     }
     Instrument suspect =
         scMoved && !neighboursAgree ? Instrument.SPECIFIC_CONDUCTIVITY : Instrument.PH;
@@ -843,6 +853,23 @@ public final class Diagnoser {
       return recent(c, i) - b.median();
     }
 
+    /** Median of the last n minutes' values minus the baseline (NaN without both). */
+    double devOver(Channel c, int i, int n) {
+      Stat b = baseline(c, i);
+      if (!b.valid() || i < 0 || i >= size) {
+        return Double.NaN;
+      }
+      double[] v = values.get(c);
+      double[] xs = new double[n];
+      int k = 0;
+      for (int j = Math.max(0, i - n + 1); j <= i; j++) {
+        if (!Double.isNaN(v[j])) {
+          xs[k++] = v[j];
+        }
+      }
+      return k == 0 ? Double.NaN : median(xs, k) - b.median();
+    }
+
     /** log10(recent / baseline) of a positive channel. */
     double logDev(Channel c, int i) {
       Stat b = baseline(c, i);
@@ -866,7 +893,8 @@ public final class Diagnoser {
                     : Math.max(0.02, 0.03 * base); // SC tolerance ±2 %
             case CATION, DEGASSED -> Math.max(0.02, 0.1 * base); // ±0.01 µS/cm tolerance
             case SODIUM -> Math.max(0.5, 0.2 * base); // ±10 % tolerance, analyser resolution
-            case PH, PH_CALCULATED, PH_RESIDUAL -> 0.1; // ±0.05 pH tolerance
+            // measured ±0.05 pH and calculated ±0.01 (SC ±2 %) with a margin
+            case PH, PH_CALCULATED, PH_RESIDUAL -> 0.08;
           };
       return Math.max(spread, floor);
     }

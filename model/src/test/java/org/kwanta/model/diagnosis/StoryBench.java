@@ -57,7 +57,9 @@ final class StoryBench {
     PH_DRIFT,
     SC_FOULING,
     SODIUM_STEP,
-    COLUMN
+    COLUMN,
+    PH_STEP,
+    SC_STEP
   }
 
   /** One point of a story: its composition over time (hours after the fault start) and faults. */
@@ -90,6 +92,13 @@ final class StoryBench {
 
   /** The generated minutes of every point of a story. */
   static Map<String, Diagnoser.Series> generate(Story story, long seed) {
+    return generate(story, seed, 1.0);
+  }
+
+  /**
+   * As {@link #generate(Story, long)} with every instrument's noise multiplied by {@code noise}.
+   */
+  static Map<String, Diagnoser.Series> generate(Story story, long seed, double noise) {
     Random random = new Random(seed);
     Map<String, Diagnoser.Series> out = new LinkedHashMap<>();
     int minutes = (int) (BASELINE.toMinutes() + story.duration().toMinutes());
@@ -107,18 +116,20 @@ final class StoryBench {
         double hours = (m - BASELINE.toMinutes()) / 60.0;
         double swing = Math.sin(2 * Math.PI * m / 1440.0);
         Solutes s = p.composition().at(hours, swing);
-        double sc = M25.solve(s).kappa() * (1 + 0.004 * random.nextGaussian());
+        double sc = M25.solve(s).kappa() * (1 + noise * 0.004 * random.nextGaussian());
         double cation =
             M25.solve(new Solutes(0, 0, s.chloride(), s.sulfate(), s.carbonate(), 0)).kappa()
-                + 0.002 * random.nextGaussian();
+                + noise * 0.002 * random.nextGaussian();
         double degassed =
             M25.solve(new Solutes(0, 0, s.chloride(), s.sulfate(), 0, 0)).kappa()
-                + 0.002 * random.nextGaussian();
-        double ph = M25.solve(s).pH() + 0.01 * random.nextGaussian();
-        double sodium = s.sodium() / UG_NA * (1 + 0.03 * random.nextGaussian()) + 0.02;
+                + noise * 0.002 * random.nextGaussian();
+        double ph = M25.solve(s).pH() + noise * 0.01 * random.nextGaussian();
+        double sodium = s.sodium() / UG_NA * (1 + noise * 0.03 * random.nextGaussian()) + 0.02;
         double after = Math.max(0, hours);
         switch (p.fault()) {
           case PH_DRIFT -> ph -= p.faultRate() * after;
+          case PH_STEP -> ph += hours >= 0 ? p.faultRate() : 0;
+          case SC_STEP -> sc *= hours >= 0 ? 1 + p.faultRate() : 1;
           case SC_FOULING -> sc *= Math.max(0.2, 1 - p.faultRate() * after);
           case SODIUM_STEP -> sodium += hours >= 0 ? p.faultRate() : 0;
           case COLUMN -> {
@@ -473,14 +484,64 @@ final class StoryBench {
         Duration.ofMinutes(15));
   }
 
+  static Story electrodeStep() {
+    Story d = electrodeDrift();
+    PointSpec eco = d.points().get(1);
+    return new Story(
+        "pH electrode step −0.3",
+        List.of(
+            d.points().get(0),
+            new PointSpec(
+                eco.point(),
+                true,
+                true,
+                true,
+                true,
+                false,
+                eco.composition(),
+                Fault.PH_STEP,
+                -0.3)),
+        "ECO",
+        "PH_ELECTRODE_STEP",
+        "PH",
+        Duration.ofHours(2),
+        Duration.ofMinutes(15));
+  }
+
+  static Story cellStep() {
+    Story d = electrodeDrift();
+    PointSpec eco = d.points().get(1);
+    return new Story(
+        "specific conductivity cell step −20 %",
+        List.of(
+            d.points().get(0),
+            new PointSpec(
+                eco.point(),
+                true,
+                true,
+                true,
+                true,
+                false,
+                eco.composition(),
+                Fault.SC_STEP,
+                -0.2)),
+        "ECO",
+        "SPECIFIC_CONDUCTIVITY_STEP",
+        "SPECIFIC_CONDUCTIVITY",
+        Duration.ofHours(2),
+        Duration.ofMinutes(15));
+  }
+
   static List<Story> faults() {
     return List.of(
         condenserLeak(CoolingWater.BRACKISH),
         condenserLeak(CoolingWater.FRESH),
         columnExhaustion(),
         electrodeDrift(),
+        electrodeStep(),
         sodiumStep(),
         cellFouling(),
+        cellStep(),
         airInLeakage(),
         alkalizerOverdose(),
         makeUpUpset());
