@@ -458,7 +458,12 @@ public final class Diagnoser {
           new Finding(
               ReasonCode.INGRESS_SUSPECTED,
               Instrument.PROCESS,
-              format("Cation conductivity +%s µS/cm over its baseline without sodium", dCat)
+              format(
+                      "Cation conductivity +%s µS/cm over its baseline %s",
+                      dCat,
+                      t.has(Channel.SODIUM, i)
+                          ? "without a sodium rise"
+                          : "(no sodium analyser here)")
                   + (neighbourRising
                       ? ", and neighbouring points changed too"
                       : makeUp ? ", after a make-up water upset" : "")
