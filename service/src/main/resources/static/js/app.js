@@ -15,6 +15,11 @@ async function api(path) {
   return r.json();
 }
 
+// Every value from the API is escaped before it goes into HTML.
+function esc(text) {
+  return String(text).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' }[c]));
+}
+
 const fmt = (v, digits) => (v === null || v === undefined || Number.isNaN(v)) ? '–' : Number(v).toFixed(digits);
 const age = (s) => s === undefined ? '–' : s < 120 ? Math.round(s) + ' s' : s < 7200 ? Math.round(s / 60) + ' min' : Math.round(s / 3600) + ' h';
 
@@ -29,9 +34,9 @@ function levels(state) {
   if (ls.length === 0) return '–';
   const shown = ls.filter((l) => l.level !== 'NORMAL' || l.instrumentInDoubt);
   if (shown.length === 0) return '<span class="lvl lvl-normal">normal</span>';
-  return shown.map((l) => '<span class="lvl ' + LEVEL_CLASS[l.level] + '" title="' + l.parameter + ' ' + fmt(l.value, 3) + ' ' + l.valueUnit
+  return shown.map((l) => '<span class="lvl ' + LEVEL_CLASS[l.level] + '" title="' + esc(l.parameter) + ' ' + fmt(l.value, 3) + ' ' + esc(l.valueUnit)
     + ' since ' + new Date(l.since).toLocaleString() + (l.instrumentInDoubt ? '; instrument in doubt' : '') + (l.calculatedValue ? '; calculated value' : '') + '">'
-    + (l.level === 'OUTSIDE_NORMAL' ? 'outside normal' : l.level) + ' ' + l.parameter + (l.instrumentInDoubt ? ' ?' : '') + '</span>').join('<br>');
+    + (l.level === 'OUTSIDE_NORMAL' ? 'outside normal' : esc(l.level)) + ' ' + esc(l.parameter) + (l.instrumentInDoubt ? ' ?' : '') + '</span>').join('<br>');
 }
 
 function row(state) {
@@ -47,8 +52,8 @@ function row(state) {
   const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
   const tr = document.createElement('tr');
   const cells = [
-    state.samplePoint + ' <small>' + state.name + '</small>',
-    state.treatmentRegime,
+    esc(state.samplePoint) + ' <small>' + esc(state.name) + '</small>',
+    esc(state.treatmentRegime),
     fmt(at25('specific_conductivity'), 3),
     fmt(at25('cation_conductivity'), 3),
     fmt(at25('degassed_cation_conductivity'), 3),
@@ -59,10 +64,10 @@ function row(state) {
     na ? fmt(na.value, 2) : '–',
     findings.length === 0 && diagnosis.length === 0 ? (ev ? '<span class="ok">consistent</span>' : '–')
       : diagnosis.map((f) => '<span class="' + (f.pointsAt === 'process' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
-        + f.code + ' → ' + f.pointsAt.replace(/_/g, ' ') + '</span>')
+        + esc(f.code) + ' → ' + esc(f.pointsAt.replace(/_/g, ' ')) + '</span>')
         .concat(findings.filter((f) => !diagnosis.some((d) => d.code === f.code))
           .map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
-            + f.code + ' → ' + f.suspect.toLowerCase().replace(/_/g, ' ') + '</span>')).join('<br>'),
+            + esc(f.code) + ' → ' + esc(f.suspect.toLowerCase().replace(/_/g, ' ')) + '</span>')).join('<br>'),
     state.evaluation ? age(state.evaluation.ageSeconds) : '–',
     levels(state),
   ];
@@ -75,7 +80,7 @@ function row(state) {
 async function loadPlants() {
   const plants = await api('api/v1/plants');
   const select = $('plant');
-  select.innerHTML = plants.map((p) => '<option value="' + p.id + '">' + p.name + '</option>').join('');
+  select.innerHTML = plants.map((p) => '<option value="' + esc(p.id) + '">' + esc(p.name) + '</option>').join('');
 }
 
 async function refresh() {
@@ -118,10 +123,6 @@ async function series(point, parameter) {
   return { points: r.buckets.map((b) => ({ x: Date.parse(b.start), y: b.mean })) };
 }
 
-function esc(text) {
-  return String(text).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' }[c]));
-}
-
 function evidence(e) {
   return e ? ' <small>(' + esc(e.quantity) + ': expected ' + fmt(e.expected, 3) + ', read ' + fmt(e.read, 3)
     + ', residual ' + fmt(e.residual, 3) + ', tolerance ±' + fmt(e.tolerance, 3) + ' ' + esc(e.unit) + ')</small>' : '';
@@ -132,10 +133,10 @@ async function detail(state) {
   $('detail-title').textContent = state.samplePoint + ' – ' + state.name;
   const ev = state.evaluation && state.evaluation.evaluation;
   const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
-  $('findings').innerHTML = diagnosis.map((f) => '<li><strong>' + f.code + '</strong> → ' + f.pointsAt.replace(/_/g, ' ')
+  $('findings').innerHTML = diagnosis.map((f) => '<li><strong>' + esc(f.code) + '</strong> → ' + esc(f.pointsAt.replace(/_/g, ' '))
       + ': ' + esc(f.explanation) + evidence(f.evidence) + '</li>').join('')
     + (ev && ev.findings.length
-      ? ev.findings.map((f) => '<li><strong>' + f.code + '</strong> → ' + f.suspect.toLowerCase().replace(/_/g, ' ') + ' (instant check): ' + esc(f.explanation) + '</li>').join('')
+      ? ev.findings.map((f) => '<li><strong>' + esc(f.code) + '</strong> → ' + esc(f.suspect.toLowerCase().replace(/_/g, ' ')) + ' (instant check): ' + esc(f.explanation) + '</li>').join('')
       : '')
     || '<li>No finding now: the channels agree with each other, their baselines and the neighbouring points.</li>';
   try {
