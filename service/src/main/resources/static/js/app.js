@@ -81,6 +81,9 @@ async function loadPlants() {
   const plants = await api('api/v1/plants');
   const select = $('plant');
   select.innerHTML = plants.map((p) => '<option value="' + esc(p.id) + '">' + esc(p.name) + '</option>').join('');
+  // the plant in the address (#plant=ID) is shown first, so a link can point at a plant
+  const wanted = new URLSearchParams(location.hash.slice(1)).get('plant');
+  if (wanted && plants.some((p) => p.id === wanted)) select.value = wanted;
 }
 
 async function refresh() {
@@ -88,6 +91,7 @@ async function refresh() {
   if (!plant) return;
   try {
     const overview = await api('api/v1/plants/' + encodeURIComponent(plant) + '/overview');
+    if ($('plant').value !== plant) return; // another plant was chosen meanwhile
     const body = $('overview').querySelector('tbody');
     body.replaceChildren(...overview.samplePoints.map(row));
     $('as-of').textContent = 'as of ' + new Date(overview.asOf).toLocaleString();
@@ -172,7 +176,10 @@ $('key-form').addEventListener('submit', (e) => {
   $('key').value = '';
   start();
 });
-$('plant').addEventListener('change', refresh);
+$('plant').addEventListener('change', () => {
+  history.replaceState(null, '', '#plant=' + encodeURIComponent($('plant').value));
+  refresh();
+});
 
 async function start() {
   try {

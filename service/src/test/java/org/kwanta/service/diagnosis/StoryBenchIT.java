@@ -204,7 +204,7 @@ class StoryBenchIT {
         Duration.ZERO);
   }
 
-  private String declaration(Story s) {
+  static String declaration(Story s) {
     StringBuilder b = new StringBuilder();
     b.append("{\"id\":\"")
         .append(s.plant())
@@ -226,7 +226,7 @@ class StoryBenchIT {
   }
 
   /** The readings of a story as JSON batches. */
-  private static List<String> batches(Story s, Instant start, long seed) {
+  static List<String> batches(Story s, Instant start, long seed) {
     Random random = new Random(seed);
     List<String> out = new ArrayList<>();
     StringBuilder batch = new StringBuilder();
