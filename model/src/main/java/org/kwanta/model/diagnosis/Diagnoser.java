@@ -124,6 +124,9 @@ public final class Diagnoser {
   /** The recent median spans this many minutes. */
   static final int RECENT_MINUTES = 3;
 
+  /** The longest gap between readings that a value still stands across, minutes. */
+  static final int MAX_GAP_MINUTES = 10;
+
   /** Minutes of the medians that decide whether the pH or the conductivity moved. */
   static final int ATTRIBUTION_MINUTES = 9;
 
@@ -216,14 +219,14 @@ public final class Diagnoser {
   }
 
   /**
-   * True when the finding's condition held at the last {@code minutes} minutes that have data,
-   * ending at k; minutes without any data (a gap in the feed) neither count nor break the run, up
-   * to twice the persistence back.
+   * True when the finding's condition held at every minute with data over the last {@code minutes}
+   * minutes, ending at k: the run of data minutes with the condition, walked back from k, spans at
+   * least minutes − 1. Minutes without any data (a gap in the feed, or a point read every few
+   * minutes) neither count nor break the run.
    */
   private static boolean held(
       List<List<Finding>> raw, Track t, long first, int k, ReasonCode code, int minutes) {
-    int counted = 0;
-    for (int j = k; j >= 0 && k - j < 2 * minutes + 1; j--) {
+    for (int j = k; j >= 0 && k - j <= minutes + MAX_GAP_MINUTES; j--) {
       int i = (int) (first + j - t.gridStart);
       if (!t.hasAny(i)) {
         continue;
@@ -238,7 +241,7 @@ public final class Diagnoser {
       if (!found) {
         return false;
       }
-      if (++counted >= minutes) {
+      if (k - j >= minutes - 1) {
         return true;
       }
     }
@@ -820,7 +823,10 @@ public final class Diagnoser {
       return !Double.isNaN(recent(c, i)) && baseline(c, i).valid();
     }
 
-    /** Median of the last three minutes' values (NaN when none). */
+    /**
+     * Median of the last three minutes' values; without any, the latest value of the last ten
+     * minutes; NaN when none.
+     */
     double recent(Channel c, int i) {
       if (i < 0 || i >= size) {
         return Double.NaN;
@@ -845,6 +851,15 @@ public final class Diagnoser {
         }
       }
       double r = n == 0 ? Double.NaN : median(xs, n);
+      if (n == 0) {
+        // a point read every few minutes: its latest value stands until the next one
+        for (int k = i - RECENT_MINUTES; k >= Math.max(0, i - MAX_GAP_MINUTES); k--) {
+          if (!Double.isNaN(v[k])) {
+            r = v[k];
+            break;
+          }
+        }
+      }
       cache[i] = r;
       return r;
     }
@@ -1021,14 +1036,19 @@ public final class Diagnoser {
       double[] v = values.get(Channel.PH_RESIDUAL);
       double hi = 0;
       double lo = 0;
+      int previous = -1;
       for (int j = Math.max(0, i - (int) window.toMinutes()); j <= i; j++) {
         double x = v[j];
         if (Double.isNaN(x)) {
           continue;
         }
+        // each value stands for the minutes since the previous one (at most 10), so readings every
+        // 5 min sum as fast as readings every minute
+        int minutes = previous < 0 ? 1 : Math.min(10, j - previous);
+        previous = j;
         x -= b.median();
-        hi = Math.min(2 * CUSUM_H, Math.max(0, hi + x - k));
-        lo = Math.min(2 * CUSUM_H, Math.max(0, lo - x - k));
+        hi = Math.min(2 * CUSUM_H, Math.max(0, hi + minutes * (x - k)));
+        lo = Math.min(2 * CUSUM_H, Math.max(0, lo + minutes * (-x - k)));
       }
       return Math.max(hi, lo);
     }

@@ -99,6 +99,11 @@ final class StoryBench {
    * As {@link #generate(Story, long)} with every instrument's noise multiplied by {@code noise}.
    */
   static Map<String, Diagnoser.Series> generate(Story story, long seed, double noise) {
+    return generate(story, seed, noise, 1);
+  }
+
+  /** As {@link #generate(Story, long, double)} with a reading every {@code every} minutes. */
+  static Map<String, Diagnoser.Series> generate(Story story, long seed, double noise, int every) {
     Random random = new Random(seed);
     Map<String, Diagnoser.Series> out = new LinkedHashMap<>();
     int minutes = (int) (BASELINE.toMinutes() + story.duration().toMinutes());
@@ -151,6 +156,9 @@ final class StoryBench {
         if (p.sc()) {
           Evaluation e = Evaluator.evaluate(config, new Snapshot(t, h));
           phCalc = e.calculatedPh().map(c -> c.rigorous()).orElse(Double.NaN);
+        }
+        if (m % every != 0) {
+          continue;
         }
         list.add(
             new Minute(
