@@ -16,6 +16,8 @@ import org.springframework.util.unit.DataSize;
  * @param retryAfter the Retry-After given with a 503 (busy, or database unreachable)
  * @param maxJsonStringLength longest JSON string value accepted anywhere, in characters
  * @param maxJsonNestingDepth deepest JSON nesting accepted anywhere
+ * @param ingestBodyReadTimeout the whole body of an ingest request must arrive within this time,
+ *     read before an ingest slot is taken; slower: 408
  */
 @ConfigurationProperties("kwanta.limits")
 public record LimitsProperties(
@@ -24,7 +26,8 @@ public record LimitsProperties(
     @DefaultValue("4") int maxConcurrentIngests,
     @DefaultValue("5s") Duration retryAfter,
     @DefaultValue("65536") int maxJsonStringLength,
-    @DefaultValue("64") int maxJsonNestingDepth) {
+    @DefaultValue("64") int maxJsonNestingDepth,
+    @DefaultValue("30s") Duration ingestBodyReadTimeout) {
 
   public LimitsProperties {
     require(maxBodySize.toBytes() > 0, "max-body-size must be positive");
@@ -33,6 +36,9 @@ public record LimitsProperties(
     require(!retryAfter.isNegative() && !retryAfter.isZero(), "retry-after must be positive");
     require(maxJsonStringLength > 0, "max-json-string-length must be positive");
     require(maxJsonNestingDepth > 0, "max-json-nesting-depth must be positive");
+    require(
+        !ingestBodyReadTimeout.isNegative() && !ingestBodyReadTimeout.isZero(),
+        "ingest-body-read-timeout must be positive");
   }
 
   private static void require(boolean condition, String message) {
