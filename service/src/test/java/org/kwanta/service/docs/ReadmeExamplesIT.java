@@ -73,15 +73,16 @@ class ReadmeExamplesIT {
     assertThat(run).as("curl examples run").isGreaterThanOrEqualTo(12);
   }
 
+  /**
+   * The project's README: beside the {@code service} module (the tests run in {@code service/}).
+   */
   private static Path readme() {
-    for (Path p : List.of(Path.of("README.md"), Path.of("..", "README.md"))) {
-      if (Files.exists(p) && !Files.exists(p.resolveSibling("pom.xml")) == false) {
-        if (Files.exists(p.resolveSibling("service"))) {
-          return p;
-        }
+    for (Path dir : List.of(Path.of(".."), Path.of("."))) {
+      if (Files.isDirectory(dir.resolve("service")) && Files.exists(dir.resolve("README.md"))) {
+        return dir.resolve("README.md");
       }
     }
-    return Path.of("..", "README.md");
+    throw new IllegalStateException("README.md not found beside the service module");
   }
 
   /**
