@@ -69,24 +69,35 @@ public class ExcursionFinder {
   /** A chemist's acknowledgement. */
   public record Acknowledgement(Instant at, String by, String note) {}
 
+  /**
+   * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
+   * Both sides carry the time range, so PostgreSQL prunes the daily partitions of both tables (a
+   * bound on the readings alone left every evaluation partition in the plan). Parameters: the
+   * parameter's instrument name, from, to, sample point, parameter code, from, to.
+   */
+  static final String CLASSIFY =
+      """
+      SELECT r.time, r.value,
+             r.quality = 2
+               OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
+             e.calculated_ph_25,
+             coalesce('PH' = ANY(e.suspects), false)
+      FROM reading r
+      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+                            AND e.time >= ? AND e.time <= ?
+      WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
+      ORDER BY r.time""";
+
   /** The classified series of one point and parameter over [from, to]. */
   public List<Classification> classify(Limits.Effective effective, Instant from, Instant to) {
     Parameter parameter = effective.profile().key().parameter();
     boolean phFallback = usesCalculatedPhFallback(effective.profile().key());
     List<Sample> samples =
-        jdbc.sql(
-                """
-                SELECT r.time, r.value,
-                       r.quality = 2
-                         OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
-                       e.calculated_ph_25,
-                       coalesce('PH' = ANY(e.suspects), false)
-                FROM reading r
-                LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
-                WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
-                ORDER BY r.time""")
+        jdbc.sql(CLASSIFY)
             .params(
                 parameter.name(),
+                Timestamp.from(from),
+                Timestamp.from(to),
                 effective.point().id(),
                 parameter.code(),
                 Timestamp.from(from),

@@ -14,6 +14,8 @@ import org.springframework.boot.context.properties.ConfigurationProperties;
  *     persistence checks)
  * @param recentReadings how many readings (over all sample points) the ingest keeps in memory to
  *     evaluate new batches without reading history back from the database; about 100 bytes each
+ * @param maxNewDaysPerRequest how many days without storage (daily partitions) one request may
+ *     reach; a longer backfill is refused (422) and must be sent in smaller pieces
  */
 @ConfigurationProperties("kwanta.ingest")
 public record IngestLimits(
@@ -22,7 +24,8 @@ public record IngestLimits(
     Duration pastHorizon,
     Duration maxAge,
     Duration historyWindow,
-    int recentReadings) {
+    int recentReadings,
+    int maxNewDaysPerRequest) {
 
   public IngestLimits {
     if (maxBatchSize <= 0) {
@@ -42,6 +45,9 @@ public record IngestLimits(
     }
     if (recentReadings <= 0) {
       recentReadings = 500_000;
+    }
+    if (maxNewDaysPerRequest <= 0) {
+      maxNewDaysPerRequest = 31;
     }
   }
 }

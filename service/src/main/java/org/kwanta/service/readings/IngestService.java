@@ -144,13 +144,28 @@ public class IngestService {
       days.add(Partitions.dayOf(r.time()));
       days.add(Partitions.dayOf(r.time().plus(limits.historyWindow())));
     }
-    partitions.ensure(days);
     int duplicates = inputs.size() - batch.size();
-    Pending pending = new Pending(batch, inputs.size(), duplicates);
-    Outcome outcome = metrics.timeBatch(() -> submit(pending));
-    pending.changedPerPlant.forEach(metrics::ingested);
-    return outcome;
+    for (int attempt = 1; ; attempt++) {
+      partitions.ensure(days, limits.maxNewDaysPerRequest());
+      Pending pending = new Pending(batch, inputs.size(), duplicates);
+      try {
+        Outcome outcome = metrics.timeBatch(() -> submit(pending));
+        pending.changedPerPlant.forEach(metrics::ingested);
+        return outcome;
+      } catch (RuntimeException e) {
+        if (attempt >= MAX_PARTITION_ATTEMPTS || !Partitions.isMissingPartition(e)) {
+          throw e;
+        }
+        // another instance dropped a day this one thought it had (retention): nothing was
+        // written; make the days again (or find them made) and write the batch again
+        log.info("A day's partition was missing (dropped by another instance?); retrying");
+        partitions.forget(days);
+      }
+    }
   }
+
+  /** How often a batch is tried when a day's partition turns out to be missing. */
+  private static final int MAX_PARTITION_ATTEMPTS = 3;
 
   /** A validated batch waiting to be written, and what writing it gave. */
   private static final class Pending {
@@ -290,7 +305,11 @@ public class IngestService {
     } catch (Throwable e) {
       // nothing of the group is committed; the copies may hold its readings: drop them
       group.forEach(p -> p.ranges.keySet().forEach(recent::forget));
-      if (!retry || e instanceof Error || DatabaseOutage.isCause(e)) {
+      if (!retry
+          || e instanceof Error
+          || DatabaseOutage.isCause(e)
+          || Partitions.isMissingPartition(e)) {
+        // a missing partition: every request of the group makes its days and resubmits
         group.forEach(p -> p.failure = e);
       } else {
         log.warn(

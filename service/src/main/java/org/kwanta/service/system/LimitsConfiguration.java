@@ -15,6 +15,18 @@ class LimitsConfiguration {
 
   private static final int AFTER_SECURITY = SecurityFilterProperties.DEFAULT_FILTER_ORDER + 10;
 
+  /**
+   * Before the access rules: they and the actuator see {@code /actuator/x/} as {@code /actuator/x}.
+   */
+  @Bean
+  FilterRegistrationBean<ActuatorTrailingSlashFilter> actuatorTrailingSlashFilter() {
+    FilterRegistrationBean<ActuatorTrailingSlashFilter> registration =
+        new FilterRegistrationBean<>(new ActuatorTrailingSlashFilter());
+    registration.setOrder(SecurityFilterProperties.DEFAULT_FILTER_ORDER - 10);
+    registration.addUrlPatterns("/actuator/*");
+    return registration;
+  }
+
   @Bean
   FilterRegistrationBean<RequestBodyLimitFilter> requestBodyLimitFilter(
       LimitsProperties limits, ProblemResponses problems) {

@@ -21,6 +21,7 @@ public final class ProblemTypes {
   public static final URI VALIDATION = of("validation");
   public static final URI INVALID_READINGS = of("invalid-readings");
   public static final URI CONFLICT = of("conflict");
+  public static final URI TOO_MANY_NEW_DAYS = of("too-many-new-days");
   public static final URI TOO_MANY_REQUESTS = of("too-many-requests");
   public static final URI REQUEST_TIMEOUT = of("request-timeout");
   public static final URI SERVICE_UNAVAILABLE = of("service-unavailable");
