@@ -26,6 +26,7 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
  *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
+ *   <tr><td>{@code /api/v1/audit/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
  *   <tr><td>anything else under {@code /api/**}, and any other path</td><td>admin</td></tr>
@@ -84,6 +85,9 @@ class SecurityConfiguration {
                     .hasRole(ADMIN)
                     .requestMatchers(HttpMethod.POST, "/api/v1/readings", "/api/v1/readings/**")
                     .hasRole(INGEST)
+                    // the audit log names keys and carries every configuration change
+                    .requestMatchers("/api/v1/audit", "/api/v1/audit/**")
+                    .hasRole(ADMIN)
                     .requestMatchers(HttpMethod.GET, "/api/**")
                     .hasRole(READ)
                     .requestMatchers(HttpMethod.HEAD, "/api/**")

@@ -57,6 +57,7 @@ class EndpointRoleMatrixIT {
       List.of(
           row("*", "/api/v1/keys/**", Access.ADMIN),
           row("POST", "/api/v1/readings/**", Access.INGEST),
+          row("*", "/api/v1/audit/**", Access.ADMIN),
           row("GET", "/api/**", Access.READ),
           row("HEAD", "/api/**", Access.READ),
           row("POST", "/api/v1/chemistry/**", Access.READ),
