@@ -156,7 +156,8 @@ class LimitsController {
               + " normal, thresholds, deadband, persistence), each value with its source text."
               + " The new version is in force from effectiveFrom (default now); earlier versions"
               + " stay in force before it. A past effectiveFrom (more than a minute ago) needs an"
-              + " admin key and a reason. Who set it is the API key of the request.")
+              + " admin key and a reason; a chemist key always gives a reason. Who set it is the"
+              + " API key of the request.")
   ProfileResponse override(
       @PathVariable String id,
       @PathVariable String parameter,
@@ -203,9 +204,16 @@ class LimitsController {
     return ResponseEntity.ok(body);
   }
 
-  /** Past effective times are a correction of the record: admin keys only, with a reason. */
+  /**
+   * Past effective times are a correction of the record: admin keys only, with a reason. A chemist
+   * key gives a reason for every change.
+   */
   private Instant effectiveFrom(String value, String reason) {
     Instant now = clock.instant();
+    if (Callers.role().orElse(null) == Role.CHEMIST && blankToNull(reason) == null) {
+      throw BadRequestException.of(
+          "A chemist key changes limits with a reason (query parameter reason)");
+    }
     if (value == null) {
       return now;
     }

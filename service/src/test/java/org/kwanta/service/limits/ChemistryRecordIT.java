@@ -362,6 +362,39 @@ class ChemistryRecordIT {
         .isEqualTo(403);
   }
 
+  @Test
+  void aChemistAcknowledgesAndSetsLimitsWithAReasonButManagesNoKeys() {
+    ingestLeak();
+    Http chemist =
+        http.withKey(
+            createKey("Day chemist " + tag + " (fictional)", "chemist").get("key").asString());
+    HttpResponse<String> noReason = putLimits(chemist, "");
+    assertThat(noReason.statusCode()).as(noReason.body()).isEqualTo(400);
+    assertThat(noReason.body()).contains("reason");
+    HttpResponse<String> past =
+        putLimits(chemist, "?effectiveFrom=" + enc(day.toString()) + "&reason=" + enc("rev. 4"));
+    assertThat(past.statusCode()).as(past.body()).isEqualTo(403);
+    HttpResponse<String> now = putLimits(chemist, "?reason=" + enc("Manual rev. 5 (fictional)"));
+    assertThat(now.statusCode()).as(now.body()).isEqualTo(200);
+
+    String start = JSON.readTree(excursions(point, null).body()).get(0).get("start").asString();
+    HttpResponse<String> ack =
+        chemist.post(
+            "/api/v1/excursions/acknowledgements",
+            "application/json",
+            ("{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\","
+                    + "\"note\":\"Seen by the day chemist.\"}")
+                .formatted(point, start));
+    assertThat(ack.statusCode()).as(ack.body()).isEqualTo(201);
+    assertThat(chemist.get("/api/v1/audit?entity=limits").statusCode()).isEqualTo(200);
+    assertThat(
+            chemist
+                .post("/api/v1/keys", "application/json", "{\"name\":\"x\",\"role\":\"admin\"}")
+                .statusCode())
+        .isEqualTo(403);
+    assertThat(chemist.get("/api/v1/keys").statusCode()).isEqualTo(403);
+  }
+
   private static JsonNode createKeyAs(Http as, String name, String role) {
     HttpResponse<String> r =
         as.post(
