@@ -7,6 +7,10 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.springframework.boot.context.event.ApplicationReadyEvent;
+import org.springframework.context.event.EventListener;
 import org.springframework.core.io.ClassPathResource;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Component;
@@ -25,6 +29,8 @@ class DefaultLimitVersions {
   /** From when a version of the defaults is in force. */
   record Activation(int version, Instant from) {}
 
+  private static final Logger LOG = LoggerFactory.getLogger(DefaultLimitVersions.class);
+
   private final JdbcClient jdbc;
   private final LimitCatalog current;
   private final Map<Integer, LimitCatalog> catalogs = new ConcurrentHashMap<>();
@@ -34,6 +40,19 @@ class DefaultLimitVersions {
     this.jdbc = jdbc;
     this.current = current;
     catalogs.put(current.version(), current);
+  }
+
+  /**
+   * Records the configured defaults' version at start, so that it is in force from the start of the
+   * release that brought it. If the database cannot be reached now, the first request does it.
+   */
+  @EventListener(ApplicationReadyEvent.class)
+  void registerAtStart() {
+    try {
+      register();
+    } catch (RuntimeException e) {
+      LOG.warn("Could not record the default limits' version at start; will on first use", e);
+    }
   }
 
   /** The activations, oldest first; never empty once the migrations ran. */

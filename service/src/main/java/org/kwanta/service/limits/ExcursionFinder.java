@@ -259,6 +259,19 @@ public class ExcursionFinder {
     return out;
   }
 
+  /** Whether an excursion (as reported) of this point and parameter starts at {@code start}. */
+  public boolean exists(Limits.Point point, Parameter parameter, Instant start) {
+    Optional<Limits.History> history = history(point, parameter, Basis.AS_REPORTED);
+    if (history.isEmpty()) {
+      return false;
+    }
+    Instant now = clock.instant();
+    LimitTimeline timeline = history.get().timeline();
+    List<Classification> classified =
+        classify(point, timeline, parameter, start.minus(LOOKBACK), now);
+    return Excursions.of(timeline, classified, now).stream().anyMatch(e -> e.start().equals(start));
+  }
+
   /**
    * Appends an acknowledgement of the excursion (as reported) that starts at {@code start}; earlier
    * acknowledgements stay.
@@ -272,17 +285,7 @@ public class ExcursionFinder {
       String keyId,
       String keyName,
       String note) {
-    Optional<Limits.History> history = history(point, parameter, Basis.AS_REPORTED);
-    if (history.isEmpty()) {
-      return Optional.empty();
-    }
-    Instant now = clock.instant();
-    LimitTimeline timeline = history.get().timeline();
-    List<Classification> classified =
-        classify(point, timeline, parameter, start.minus(LOOKBACK), now);
-    boolean exists =
-        Excursions.of(timeline, classified, now).stream().anyMatch(e -> e.start().equals(start));
-    if (!exists) {
+    if (!exists(point, parameter, start)) {
       return Optional.empty();
     }
     return Optional.of(

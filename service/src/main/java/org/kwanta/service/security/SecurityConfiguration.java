@@ -26,7 +26,8 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
  *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
- *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements};
+ *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements}, {@code
+ *       POST /api/v1/excursion-events/**};
  *       {@code PUT}/{@code DELETE /api/v1/sample-points/*}{@code /limits/*}</td><td>chemist</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
@@ -92,6 +93,9 @@ class SecurityConfiguration {
                     .requestMatchers("/api/v1/audit", "/api/v1/audit/**")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.POST, "/api/v1/excursions/acknowledgements")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(
+                        HttpMethod.POST, "/api/v1/excursion-events", "/api/v1/excursion-events/**")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.PUT, "/api/v1/sample-points/*/limits/*")
                     .hasRole(CHEMIST)

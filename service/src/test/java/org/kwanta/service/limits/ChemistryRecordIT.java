@@ -395,6 +395,74 @@ class ChemistryRecordIT {
     assertThat(chemist.get("/api/v1/keys").statusCode()).isEqualTo(403);
   }
 
+  @Test
+  void anExcursionEventGroupsExcursionsAndKeepsEveryEntry() {
+    ingestLeak();
+    String a = JSON.readTree(excursions(point, null).body()).get(0).get("start").asString();
+    String b = JSON.readTree(excursions(other, null).body()).get(0).get("start").asString();
+    Http chemist =
+        http.withKey(
+            createKey("Event chemist " + tag + " (fictional)", "chemist").get("key").asString());
+    String create =
+        ("{\"title\":\"Both units: cation conductivity up (fictional)\","
+                + "\"note\":\"Both condensate pumps at once.\",\"excursions\":["
+                + "{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\"}]}")
+            .formatted(point, a);
+    HttpResponse<String> created =
+        chemist.post("/api/v1/excursion-events", "application/json", create);
+    assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
+    JsonNode event = JSON.readTree(created.body());
+    long id = event.get("id").asLong();
+    assertThat(event.get("status").asString()).isEqualTo("OPEN");
+    assertThat(event.get("causeCategory").asString()).isEqualTo("UNDETERMINED");
+
+    HttpResponse<String> added =
+        chemist.post(
+            "/api/v1/excursion-events/" + id + "/excursions",
+            "application/json",
+            "{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\"}"
+                .formatted(other, b));
+    assertThat(added.statusCode()).as(added.body()).isEqualTo(201);
+    HttpResponse<String> investigating =
+        chemist.post(
+            "/api/v1/excursion-events/" + id + "/entries",
+            "application/json",
+            "{\"status\":\"UNDER_INVESTIGATION\",\"causeCategory\":\"CONDENSER_INGRESS\","
+                + "\"note\":\"Sodium followed: cooling water.\"}");
+    assertThat(investigating.statusCode()).as(investigating.body()).isEqualTo(201);
+    HttpResponse<String> closed =
+        http.post(
+            "/api/v1/excursion-events/" + id + "/entries",
+            "application/json",
+            "{\"status\":\"CLOSED\",\"note\":\"Half B plugged.\"}");
+    assertThat(closed.statusCode()).as(closed.body()).isEqualTo(201);
+
+    JsonNode e = JSON.readTree(http.get("/api/v1/excursion-events/" + id).body());
+    assertThat(e.get("status").asString()).isEqualTo("CLOSED");
+    assertThat(e.get("causeCategory").asString()).isEqualTo("CONDENSER_INGRESS");
+    assertThat(e.get("excursions")).hasSize(2);
+    JsonNode entries = e.get("entries");
+    assertThat(entries).hasSize(3);
+    assertThat(entries.get(0).get("status").asString()).isEqualTo("OPEN");
+    assertThat(entries.get(1).get("keyName").asString()).startsWith("Event chemist");
+    assertThat(entries.get(2).get("keyId").asString()).isEqualTo("testadmin");
+
+    HttpResponse<String> missing =
+        chemist.post(
+            "/api/v1/excursion-events/" + id + "/excursions",
+            "application/json",
+            "{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\"}"
+                .formatted(point, day));
+    assertThat(missing.statusCode()).isEqualTo(404);
+    JsonNode audit =
+        JSON.readTree(http.get("/api/v1/audit?entity=excursion-event&entityId=" + id).body());
+    assertThat(audit).hasSize(4);
+    assertThatThrownBy(() -> jdbc.execute("UPDATE excursion_event_entry SET note = 'x'"))
+        .isInstanceOf(DataAccessException.class)
+        .rootCause()
+        .hasMessageContaining("append-only");
+  }
+
   private static JsonNode createKeyAs(Http as, String name, String role) {
     HttpResponse<String> r =
         as.post(

@@ -60,6 +60,7 @@ class EndpointRoleMatrixIT {
           row("POST", "/api/v1/readings/**", Access.INGEST),
           row("*", "/api/v1/audit/**", Access.CHEMIST),
           row("POST", "/api/v1/excursions/acknowledgements", Access.CHEMIST),
+          row("POST", "/api/v1/excursion-events/**", Access.CHEMIST),
           row("PUT", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("DELETE", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("GET", "/api/**", Access.READ),
