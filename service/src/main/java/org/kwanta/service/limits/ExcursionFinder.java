@@ -23,9 +23,11 @@ import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
 
 /**
- * Classifies stored readings against the limits in force and builds excursions. Derived on request
- * from the readings (values in canonical units) and the stored evaluations' instrument findings, so
- * the answer is the same whatever order the readings arrived in.
+ * Classifies stored readings against the limits and builds excursions: as reported, each value
+ * against the limits in force at its time ({@link Limits#history}), or recomputed, today's limits
+ * applied to every time ({@link Basis}). Derived on request from the readings (values in canonical
+ * units) and the stored evaluations' instrument findings, so the answer is the same whatever order
+ * the readings arrived in.
  *
  * <p>Every value is classified at its level. Its instrument is in doubt when its reading has
  * quality "bad", or when the evaluation at that time suspects the parameter's own instrument or the
