@@ -34,22 +34,32 @@ public final class Classifier {
   /** Every state, in increasing order of concern; index = ordinal. */
   private static final Level[] STATES = Level.values();
 
-  private final LimitProfile profile;
+  private final LimitTimeline limits;
 
+  /** A classifier for one profile in force at every time. */
   public Classifier(LimitProfile profile) {
-    this.profile = Objects.requireNonNull(profile, "profile");
+    this(LimitTimeline.of(Objects.requireNonNull(profile, "profile")));
+  }
+
+  /**
+   * A classifier for limits that change over time: each sample is judged by the profile in force at
+   * its time (its thresholds, deadband and persistence). The state carries across a change of
+   * profile. A sample at a time without limits is left out of the answer, and the state starts
+   * again from NORMAL after such a gap.
+   */
+  public Classifier(LimitTimeline limits) {
+    this.limits = Objects.requireNonNull(limits, "limits");
   }
 
   /**
    * Classifies a series.
    *
    * @param samples samples in strictly increasing time order
-   * @return one classification per sample, in the same order
+   * @return one classification per sample with limits in force, in the same order
    * @throws IllegalArgumentException when the times are not strictly increasing
    */
   public List<Classification> classify(List<Sample> samples) {
     List<Classification> out = new ArrayList<>(samples.size());
-    Duration persistence = profile.persistence();
     Instant[] enterSince = new Instant[STATES.length];
     Instant[] releaseSince = new Instant[STATES.length];
     Level current = Level.NORMAL;
@@ -62,6 +72,15 @@ public final class Classifier {
             "Samples must be in strictly increasing time order: " + t + " after " + previous);
       }
       previous = t;
+      LimitProfile profile = limits.at(t).orElse(null);
+      if (profile == null) {
+        current = Level.NORMAL;
+        currentSince = null;
+        java.util.Arrays.fill(enterSince, null);
+        java.util.Arrays.fill(releaseSince, null);
+        continue;
+      }
+      Duration persistence = profile.persistence();
       if (currentSince == null) {
         currentSince = t;
       }

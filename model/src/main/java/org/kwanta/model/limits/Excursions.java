@@ -65,6 +65,19 @@ public final class Excursions {
    */
   public static List<Excursion> of(
       LimitProfile profile, List<Classification> classified, Instant asOf) {
+    return of(LimitTimeline.of(profile), classified, asOf);
+  }
+
+  /**
+   * The excursions of a series classified over changing limits, oldest first.
+   *
+   * @param limits the limits the series was classified with (each sample's side is read against the
+   *     profile in force at its time)
+   * @param classified the classified series
+   * @param asOf the evaluation time, for running excursions; not before the last sample
+   */
+  public static List<Excursion> of(
+      LimitTimeline limits, List<Classification> classified, Instant asOf) {
     List<LevelSpan> timeline = timeline(classified, asOf);
     List<Excursion> out = new ArrayList<>();
     int i = 0;
@@ -78,14 +91,14 @@ public final class Excursions {
         j++;
       }
       boolean running = j == timeline.size() - 1;
-      out.add(build(profile, classified, timeline.subList(i, j + 1), running, asOf));
+      out.add(build(limits, classified, timeline.subList(i, j + 1), running, asOf));
       i = j + 1;
     }
     return List.copyOf(out);
   }
 
   private static Excursion build(
-      LimitProfile profile,
+      LimitTimeline limits,
       List<Classification> classified,
       List<LevelSpan> spans,
       boolean running,
@@ -105,7 +118,7 @@ public final class Excursions {
       inDoubt += c.instrumentInDoubt() ? 1 : 0;
       calculated += c.calculatedValue() ? 1 : 0;
       if (side == null) {
-        side = profile.sideOf(c.value()).orElse(null);
+        side = limits.at(c.time()).flatMap(p -> p.sideOf(c.value())).orElse(null);
         if (side == null) {
           continue;
         }

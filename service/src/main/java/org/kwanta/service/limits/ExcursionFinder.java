@@ -9,7 +9,6 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.stream.Collectors;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Classifier;
 import org.kwanta.model.limits.CycleLocation;
@@ -17,15 +16,18 @@ import org.kwanta.model.limits.Excursion;
 import org.kwanta.model.limits.Excursions;
 import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.LimitKey;
+import org.kwanta.model.limits.LimitTimeline;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.Sample;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
 
 /**
- * Classifies stored readings against the limits in force and builds excursions. Derived on request
- * from the readings (values in canonical units) and the stored evaluations' instrument findings, so
- * the answer is the same whatever order the readings arrived in.
+ * Classifies stored readings against the limits and builds excursions: as reported, each value
+ * against the limits in force at its time ({@link Limits#history}), or recomputed, today's limits
+ * applied to every time ({@link Basis}). Derived on request from the readings (values in canonical
+ * units) and the stored evaluations' instrument findings, so the answer is the same whatever order
+ * the readings arrived in.
  *
  * <p>Every value is classified at its level. Its instrument is in doubt when its reading has
  * quality "bad", or when the evaluation at that time suspects the parameter's own instrument or the
@@ -52,6 +54,25 @@ public class ExcursionFinder {
     this.clock = clock;
   }
 
+  /** Which limits judge the past. */
+  public enum Basis {
+    /** The versions in force at the time of each value: the record as it was reported. */
+    AS_REPORTED("as-reported"),
+    /** Today's limits applied to every time: what the past would look like under them. */
+    RECOMPUTED("recomputed");
+
+    private final String code;
+
+    Basis(String code) {
+      this.code = code;
+    }
+
+    /** The name in the API. */
+    public String code() {
+      return code;
+    }
+  }
+
   /** Which excursions to list. Null fields do not filter. */
   public record Filter(
       String plant,
@@ -62,12 +83,24 @@ public class ExcursionFinder {
       Level minLevel,
       Boolean open) {}
 
-  /** An excursion at one sample point and parameter, with its acknowledgement if any. */
+  /**
+   * An excursion at one sample point and parameter, with its acknowledgements, oldest first.
+   *
+   * @param limits the limits in force at the excursion's start (on the basis asked for)
+   */
   public record Found(
-      Limits.Effective limits, Excursion excursion, Optional<Acknowledgement> acknowledgement) {}
+      Limits.Effective limits,
+      Excursion excursion,
+      List<Acknowledgement> acknowledgements,
+      Basis basis) {
 
-  /** A chemist's acknowledgement. */
-  public record Acknowledgement(Instant at, String by, String note) {}
+    /** The latest acknowledgement, if any. */
+    public Optional<Acknowledgement> acknowledgement() {
+      return acknowledgements.isEmpty()
+          ? Optional.empty()
+          : Optional.of(acknowledgements.get(acknowledgements.size() - 1));
+    }
+  }
 
   /**
    * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
@@ -88,17 +121,37 @@ public class ExcursionFinder {
       WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
       ORDER BY r.time""";
 
-  /** The classified series of one point and parameter over [from, to]. */
+  /** A chemist's acknowledgement, by the key that made it. */
+  public record Acknowledgement(Instant at, String byKeyId, String byKeyName, String note) {}
+
+  /** The classified series of one point and parameter over [from, to] against one profile. */
   public List<Classification> classify(Limits.Effective effective, Instant from, Instant to) {
-    Parameter parameter = effective.profile().key().parameter();
-    boolean phFallback = usesCalculatedPhFallback(effective.profile().key());
-    List<Sample> samples =
+    return classify(
+        effective.point(),
+        Limits.History.always(effective).timeline(),
+        effective.profile().key().parameter(),
+        from,
+        to);
+  }
+
+  /**
+   * The classified series of one point and parameter over [from, to], each value against the limits
+   * the history gives for its time.
+   */
+  public List<Classification> classify(
+      Limits.Point point, Limits.History history, Parameter parameter, Instant from, Instant to) {
+    return classify(point, history.timeline(), parameter, from, to);
+  }
+
+  private List<Classification> classify(
+      Limits.Point point, LimitTimeline limits, Parameter parameter, Instant from, Instant to) {
+    List<Row> rows =
         jdbc.sql(CLASSIFY)
             .params(
                 parameter.name(),
                 Timestamp.from(from),
                 Timestamp.from(to),
-                effective.point().id(),
+                point.id(),
                 parameter.code(),
                 Timestamp.from(from),
                 Timestamp.from(to))
@@ -109,47 +162,71 @@ public class ExcursionFinder {
                   boolean inDoubt = rs.getBoolean(3);
                   double calculated = rs.getDouble(4);
                   boolean hasCalculated = !rs.wasNull() && Double.isFinite(calculated);
-                  if (phFallback && rs.getBoolean(5) && hasCalculated) {
-                    return new Sample(time, calculated, true, true);
-                  }
-                  return new Sample(time, measured, inDoubt, false);
+                  return new Row(
+                      time, measured, inDoubt, hasCalculated ? calculated : null, rs.getBoolean(5));
                 })
             .list();
-    return new Classifier(effective.profile()).classify(samples);
+    List<Sample> samples = new ArrayList<>(rows.size());
+    for (Row r : rows) {
+      boolean phFallback =
+          limits.at(r.time()).map(p -> usesCalculatedPhFallback(p.key())).orElse(false);
+      samples.add(
+          phFallback && r.phSuspected() && r.calculated() != null
+              ? new Sample(r.time(), r.calculated(), true, true)
+              : new Sample(r.time(), r.measured(), r.inDoubt(), false));
+    }
+    return new Classifier(limits).classify(samples);
   }
+
+  /** One stored reading with what its evaluation says about it. */
+  private record Row(
+      Instant time, double measured, boolean inDoubt, Double calculated, boolean phSuspected) {}
 
   /** True for drum water pH: classified on the calculated pH while the electrode is in doubt. */
   static boolean usesCalculatedPhFallback(LimitKey key) {
     return key.location() == CycleLocation.DRUM_WATER && key.parameter() == Parameter.PH;
   }
 
-  /** Excursions overlapping [from, to], oldest first. */
+  /** Excursions overlapping [from, to], oldest first, as reported. */
   public List<Found> find(Filter filter) {
+    return find(filter, Basis.AS_REPORTED);
+  }
+
+  /** Excursions overlapping [from, to], oldest first, on the basis asked for. */
+  public List<Found> find(Filter filter, Basis basis) {
     Instant now = clock.instant();
     Instant to = filter.to() == null || filter.to().isAfter(now) ? now : filter.to();
     Instant from = filter.from() == null ? to.minus(Duration.ofDays(31)) : filter.from();
     List<Found> out = new ArrayList<>();
     for (Limits.Point point : limits.points(filter.plant(), filter.samplePoint())) {
-      Map<String, Acknowledgement> acks = acknowledgements(point.id());
-      for (Limits.Effective effective : limits.inForce(point)) {
-        Parameter parameter = effective.profile().key().parameter();
+      Map<String, List<Acknowledgement>> acks = acknowledgements(point.id());
+      for (Map.Entry<Parameter, Limits.History> entry : histories(point, basis, now).entrySet()) {
+        Parameter parameter = entry.getKey();
         if (filter.parameter() != null && filter.parameter() != parameter) {
           continue;
         }
-        List<Classification> classified = classify(effective, from.minus(LOOKBACK), to);
-        for (Excursion e : Excursions.of(effective.profile(), classified, to)) {
+        Limits.History history = entry.getValue();
+        if (!history.hasLimits(from.minus(LOOKBACK), to)) {
+          continue;
+        }
+        LimitTimeline timeline = history.timeline();
+        List<Classification> classified =
+            classify(point, timeline, parameter, from.minus(LOOKBACK), to);
+        for (Excursion e : Excursions.of(timeline, classified, to)) {
           Instant end = e.end().orElse(to);
           boolean overlaps = !end.isBefore(from) && !e.start().isAfter(to);
           boolean level =
               filter.minLevel() == null
                   || e.highestLevel().severity() >= filter.minLevel().severity();
           boolean open = filter.open() == null || filter.open() == e.open();
-          if (overlaps && level && open) {
+          Optional<Limits.Effective> in = history.at(e.start());
+          if (overlaps && level && open && in.isPresent()) {
             out.add(
                 new Found(
-                    effective,
+                    in.get(),
                     e,
-                    Optional.ofNullable(acks.get(parameter.code() + "|" + e.start()))));
+                    acks.getOrDefault(parameter.code() + "|" + e.start(), List.of()),
+                    basis));
           }
         }
       }
@@ -158,53 +235,87 @@ public class ExcursionFinder {
     return out;
   }
 
-  private Map<String, Acknowledgement> acknowledgements(String samplePoint) {
-    return jdbc
-        .sql(
+  /** Per parameter, the limits over time on a basis: as reported, or today's at every time. */
+  Map<Parameter, Limits.History> histories(Limits.Point point, Basis basis, Instant now) {
+    Map<Parameter, Limits.History> all = limits.histories(point);
+    if (basis == Basis.AS_REPORTED) {
+      return all;
+    }
+    Map<Parameter, Limits.History> out = new java.util.EnumMap<>(Parameter.class);
+    all.forEach((p, h) -> h.at(now).ifPresent(e -> out.put(p, Limits.History.always(e))));
+    return out;
+  }
+
+  /** The limits of one point and parameter over time on a basis, if it has any. */
+  public Optional<Limits.History> history(Limits.Point point, Parameter parameter, Basis basis) {
+    return Optional.ofNullable(histories(point, basis, clock.instant()).get(parameter));
+  }
+
+  private Map<String, List<Acknowledgement>> acknowledgements(String samplePoint) {
+    Map<String, List<Acknowledgement>> out = new java.util.HashMap<>();
+    jdbc.sql(
             """
-            SELECT parameter, excursion_start, acknowledged_at, acknowledged_by, note
-            FROM excursion_acknowledgement WHERE sample_point_id = ?""")
+            SELECT parameter, excursion_start, acknowledged_at, key_id, key_name, note
+            FROM excursion_acknowledgement WHERE sample_point_id = ? ORDER BY id""")
         .param(samplePoint)
         .query(
             (rs, i) ->
                 Map.entry(
                     rs.getString(1) + "|" + rs.getTimestamp(2).toInstant(),
                     new Acknowledgement(
-                        rs.getTimestamp(3).toInstant(), rs.getString(4), rs.getString(5))))
+                        rs.getTimestamp(3).toInstant(),
+                        rs.getString(4),
+                        rs.getString(5),
+                        rs.getString(6))))
         .list()
-        .stream()
-        .collect(Collectors.toMap(Map.Entry::getKey, Map.Entry::getValue));
+        .forEach(e -> out.computeIfAbsent(e.getKey(), k -> new ArrayList<>()).add(e.getValue()));
+    return out;
   }
 
-  /**
-   * Records an acknowledgement of the excursion that starts at {@code start}.
-   *
-   * @return false when no such excursion exists
-   */
-  public boolean acknowledge(
-      Limits.Point point, Parameter parameter, Instant start, String by, String note) {
-    Optional<Limits.Effective> effective = limits.find(point, parameter);
-    if (effective.isEmpty()) {
+  /** Whether an excursion (as reported) of this point and parameter starts at {@code start}. */
+  public boolean exists(Limits.Point point, Parameter parameter, Instant start) {
+    Optional<Limits.History> history = history(point, parameter, Basis.AS_REPORTED);
+    if (history.isEmpty()) {
       return false;
     }
     Instant now = clock.instant();
-    List<Classification> classified = classify(effective.get(), start.minus(LOOKBACK), now);
-    boolean exists =
-        Excursions.of(effective.get().profile(), classified, now).stream()
-            .anyMatch(e -> e.start().equals(start));
-    if (!exists) {
-      return false;
+    LimitTimeline timeline = history.get().timeline();
+    List<Classification> classified =
+        classify(point, timeline, parameter, start.minus(LOOKBACK), now);
+    return Excursions.of(timeline, classified, now).stream().anyMatch(e -> e.start().equals(start));
+  }
+
+  /**
+   * Appends an acknowledgement of the excursion (as reported) that starts at {@code start}; earlier
+   * acknowledgements stay.
+   *
+   * @return the acknowledgement, empty when no such excursion exists
+   */
+  public Optional<Acknowledgement> acknowledge(
+      Limits.Point point,
+      Parameter parameter,
+      Instant start,
+      String keyId,
+      String keyName,
+      String note) {
+    if (!exists(point, parameter, start)) {
+      return Optional.empty();
     }
-    jdbc.sql(
-            """
-            INSERT INTO excursion_acknowledgement
-                (sample_point_id, parameter, excursion_start, acknowledged_by, note)
-            VALUES (?, ?, ?, ?, ?)
-            ON CONFLICT (sample_point_id, parameter, excursion_start) DO UPDATE
-            SET acknowledged_by = EXCLUDED.acknowledged_by, note = EXCLUDED.note,
-                acknowledged_at = now()""")
-        .params(point.id(), parameter.code(), Timestamp.from(start), by, note)
-        .update();
-    return true;
+    return Optional.of(
+        jdbc.sql(
+                """
+                INSERT INTO excursion_acknowledgement
+                    (sample_point_id, parameter, excursion_start, key_id, key_name, note)
+                VALUES (?, ?, ?, ?, ?, ?)
+                RETURNING acknowledged_at, key_id, key_name, note""")
+            .params(point.id(), parameter.code(), Timestamp.from(start), keyId, keyName, note)
+            .query(
+                (rs, i) ->
+                    new Acknowledgement(
+                        rs.getTimestamp(1).toInstant(),
+                        rs.getString(2),
+                        rs.getString(3),
+                        rs.getString(4)))
+            .single());
   }
 }

@@ -1,6 +1,7 @@
 package org.kwanta.service.limits;
 
 import java.time.Instant;
+import java.util.List;
 import java.util.Locale;
 
 /**
@@ -11,6 +12,13 @@ import java.util.Locale;
  * their instrument in doubt ({@code inDoubtFraction}, 0 to 1), and {@code calculatedSampleCount}
  * were classified on a calculated value (drum water pH while the electrode was in doubt). Doubt
  * never removes an excursion: it is reported with it.
+ *
+ * <p>{@code basis} says which limits judged it: {@code as-reported} (the versions in force at the
+ * time) or {@code recomputed} (today's limits applied to the past); {@code limitsOrigin}, {@code
+ * limitsVersion} and {@code limitsEffectiveFrom} name the limits in force at its start on that
+ * basis. {@code acknowledgements} is the whole history, oldest first; {@code acknowledgedAt},
+ * {@code acknowledgedBy} (the key's name), {@code acknowledgedByKeyId} and {@code
+ * acknowledgementNote} repeat the latest.
  */
 public record ExcursionResponse(
     String plant,
@@ -19,6 +27,9 @@ public record ExcursionResponse(
     String parameter,
     String valueUnit,
     String limitsOrigin,
+    int limitsVersion,
+    Instant limitsEffectiveFrom,
+    String basis,
     Instant start,
     Instant end,
     boolean open,
@@ -38,7 +49,16 @@ public record ExcursionResponse(
     int calculatedSampleCount,
     Instant acknowledgedAt,
     String acknowledgedBy,
-    String acknowledgementNote) {
+    String acknowledgedByKeyId,
+    String acknowledgementNote,
+    List<AcknowledgementResponse> acknowledgements) {
+
+  /** One acknowledgement in the history, oldest first; by the key that made it. */
+  public record AcknowledgementResponse(Instant at, String keyId, String keyName, String note) {
+    static AcknowledgementResponse from(ExcursionFinder.Acknowledgement a) {
+      return new AcknowledgementResponse(a.at(), a.byKeyId(), a.byKeyName(), a.note());
+    }
+  }
 
   static ExcursionResponse from(ExcursionFinder.Found f) {
     var e = f.excursion();
@@ -52,6 +72,9 @@ public record ExcursionResponse(
         parameter.code(),
         parameter.unit(),
         f.limits().origin().name(),
+        f.limits().version(),
+        f.limits().effectiveFrom(),
+        f.basis().code(),
         e.start(),
         e.end().orElse(null),
         e.open(),
@@ -70,8 +93,10 @@ public record ExcursionResponse(
         e.inDoubtFraction(),
         e.calculatedSamples(),
         ack.map(ExcursionFinder.Acknowledgement::at).orElse(null),
-        ack.map(ExcursionFinder.Acknowledgement::by).orElse(null),
-        ack.map(ExcursionFinder.Acknowledgement::note).orElse(null));
+        ack.map(ExcursionFinder.Acknowledgement::byKeyName).orElse(null),
+        ack.map(ExcursionFinder.Acknowledgement::byKeyId).orElse(null),
+        ack.map(ExcursionFinder.Acknowledgement::note).orElse(null),
+        f.acknowledgements().stream().map(AcknowledgementResponse::from).toList());
   }
 
   static final String CSV_HEADER =
@@ -79,7 +104,8 @@ public record ExcursionResponse(
           + "peak_time,highest_level,current_level,duration_s,allowance_s,deadline,"
           + "time_remaining_s,allowance_exceeded,samples,in_doubt_samples,in_doubt_fraction,"
           + "calculated_samples,acknowledged_at,acknowledged_by,"
-          + "acknowledgement_note\r\n";
+          + "acknowledgement_note,limits_version,limits_effective_from,basis,acknowledged_by_key_id,"
+          + "acknowledgements\r\n";
 
   String csvRow() {
     return String.join(
@@ -109,7 +135,12 @@ public record ExcursionResponse(
             String.valueOf(calculatedSampleCount),
             acknowledgedAt == null ? "" : acknowledgedAt.toString(),
             csv(acknowledgedBy),
-            csv(acknowledgementNote))
+            csv(acknowledgementNote),
+            String.valueOf(limitsVersion),
+            limitsEffectiveFrom == null ? "" : limitsEffectiveFrom.toString(),
+            basis,
+            csv(acknowledgedByKeyId),
+            String.valueOf(acknowledgements.size()))
         + "\r\n";
   }
 

@@ -16,6 +16,7 @@ import org.kwanta.model.limits.Excursions;
 import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.MonthlyHours;
 import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.audit.Actor;
 import org.kwanta.service.system.BadRequestException;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
@@ -43,10 +44,12 @@ class ExcursionsController {
   private static final int MAX_ROWS = 10_000;
   private final ExcursionFinder finder;
   private final Limits limits;
+  private final Acknowledgements acknowledgements;
 
-  ExcursionsController(ExcursionFinder finder, Limits limits) {
+  ExcursionsController(ExcursionFinder finder, Limits limits, Acknowledgements acknowledgements) {
     this.finder = finder;
     this.limits = limits;
+    this.acknowledgements = acknowledgements;
   }
 
   @GetMapping(produces = {MediaType.APPLICATION_JSON_VALUE, "text/csv"})
@@ -54,7 +57,10 @@ class ExcursionsController {
       summary = "List excursions (JSON or CSV)",
       description =
           "Filter by plant, samplePoint, parameter, time window [from, to] (ISO 8601; default the"
-              + " last 31 days), minLevel (AL1, AL2, AL3, SHUTDOWN) and open. CSV with"
+              + " last 31 days), minLevel (AL1, AL2, AL3, SHUTDOWN) and open. basis=as-reported"
+              + " (default: each value against the limits in force at its time) or"
+              + " basis=recomputed (today's limits applied to the past); each row and the header"
+              + " Kwanta-Basis say which. CSV with"
               + " format=csv or Accept: text/csv. Example: ?plant=brackenmoor&samplePoint=U2-CPD")
   ResponseEntity<?> list(
       @RequestParam(required = false) String plant,
@@ -64,8 +70,10 @@ class ExcursionsController {
       @RequestParam(required = false) String to,
       @RequestParam(required = false) String minLevel,
       @RequestParam(required = false) Boolean open,
+      @RequestParam(required = false) String basis,
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
+    ExcursionFinder.Basis b = basis(basis);
     ExcursionFinder.Filter filter =
         new ExcursionFinder.Filter(
             plant,
@@ -76,23 +84,27 @@ class ExcursionsController {
             minLevel == null ? null : level(minLevel),
             open);
     List<ExcursionResponse> rows =
-        finder.find(filter).stream().limit(MAX_ROWS).map(ExcursionResponse::from).toList();
+        finder.find(filter, b).stream().limit(MAX_ROWS).map(ExcursionResponse::from).toList();
     if (csv(format, accept)) {
       StringBuilder sb = new StringBuilder(ExcursionResponse.CSV_HEADER);
       rows.forEach(r -> sb.append(r.csvRow()));
       return ResponseEntity.ok()
           .contentType(MediaType.parseMediaType("text/csv;charset=UTF-8"))
           .header("Content-Disposition", "attachment; filename=\"excursions.csv\"")
+          .header(BASIS_HEADER, b.code())
           .body(sb.toString());
     }
-    return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(rows);
+    return ResponseEntity.ok()
+        .contentType(MediaType.APPLICATION_JSON)
+        .header(BASIS_HEADER, b.code())
+        .body(rows);
   }
 
   /**
    * Hours per action level per calendar month (UTC) at one sample point and parameter; time
    * OUTSIDE_NORMAL counts as NORMAL.
    */
-  record MonthlyHoursResponse(String month, String level, double hours) {}
+  record MonthlyHoursResponse(String month, String level, double hours, String basis) {}
 
   @GetMapping(value = "/monthly-hours", produces = MediaType.APPLICATION_JSON_VALUE)
   @Operation(
@@ -101,55 +113,95 @@ class ExcursionsController {
           "NORMAL, AL1, AL2, AL3, SHUTDOWN; time outside the normal range but below AL1 counts as"
               + " NORMAL here (it is not excursion time). Example:"
               + " ?samplePoint=U2-CPD&parameter=cation_conductivity")
-  List<MonthlyHoursResponse> monthlyHours(
+  ResponseEntity<List<MonthlyHoursResponse>> monthlyHours(
       @RequestParam String samplePoint,
       @RequestParam String parameter,
       @RequestParam(required = false) String from,
-      @RequestParam(required = false) String to) {
-    Limits.Effective effective = effective(samplePoint, WebLookups.parameter(parameter));
+      @RequestParam(required = false) String to,
+      @RequestParam(required = false) String basis) {
+    ExcursionFinder.Basis b = basis(basis);
+    Parameter p = WebLookups.parameter(parameter);
+    Limits.Point point = WebLookups.point(limits, samplePoint);
+    Limits.History history =
+        finder
+            .history(point, p, b)
+            .orElseThrow(
+                () -> WebLookups.notFound("No limits for " + p.code() + " at " + samplePoint));
     Instant end = time("to", to) == null ? Instant.now() : time("to", to);
     Instant start =
         time("from", from) == null ? end.minus(java.time.Duration.ofDays(366)) : time("from", from);
-    List<Classification> classified = finder.classify(effective, start, end);
+    List<Classification> classified = finder.classify(point, history, p, start, end);
     List<MonthlyHours> hours = Excursions.monthlyHours(classified, end);
-    return hours.stream()
-        .map(h -> new MonthlyHoursResponse(h.month().toString(), h.level().name(), h.hours()))
-        .toList();
+    return ResponseEntity.ok()
+        .header(BASIS_HEADER, b.code())
+        .body(
+            hours.stream()
+                .map(
+                    h ->
+                        new MonthlyHoursResponse(
+                            h.month().toString(), h.level().name(), h.hours(), b.code()))
+                .toList());
   }
 
-  /** An acknowledgement by a chemist. */
+  /**
+   * An acknowledgement by a chemist. {@code by} is accepted for compatibility with earlier clients
+   * and ignored: who acknowledged is the API key of the request.
+   */
   record AcknowledgementRequest(
       @NotBlank @Size(max = 64) String samplePoint,
       @NotBlank @Size(max = 64) String parameter,
       @NotNull Instant start,
-      @NotBlank @Size(max = 200) String by,
+      @Size(max = 200) String by,
       @NotBlank @Size(max = 4000) String note) {}
 
   @PostMapping("/acknowledgements")
   @Operation(
-      summary = "Acknowledge an excursion with a note",
-      description = "The excursion is named by sample point, parameter and its start time.")
+      summary = "Acknowledge an excursion with a note (appended to its history)",
+      description =
+          "The excursion (as reported) is named by sample point, parameter and its start time."
+              + " Every acknowledgement is kept; who made it is the API key of the request (a"
+              + " 'by' in the body is ignored).")
   ResponseEntity<Map<String, Object>> acknowledge(@Valid @RequestBody AcknowledgementRequest r) {
     Parameter parameter = WebLookups.parameter(r.parameter());
     Limits.Point point = WebLookups.point(limits, r.samplePoint());
-    if (!finder.acknowledge(point, parameter, r.start(), r.by(), r.note())) {
-      throw WebLookups.notFound(
-          "No excursion of " + parameter.code() + " at " + point.id() + " starts at " + r.start());
-    }
+    Actor actor =
+        Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
+    ExcursionFinder.Acknowledgement ack =
+        acknowledgements
+            .acknowledge(point, parameter, r.start(), actor, r.note())
+            .orElseThrow(
+                () ->
+                    WebLookups.notFound(
+                        "No excursion of "
+                            + parameter.code()
+                            + " at "
+                            + point.id()
+                            + " starts at "
+                            + r.start()));
     return ResponseEntity.status(HttpStatus.CREATED)
         .body(
             Map.of(
                 "samplePoint", point.id(),
                 "parameter", parameter.code(),
                 "start", r.start().toString(),
-                "acknowledgedBy", r.by()));
+                "acknowledgedAt", ack.at().toString(),
+                "acknowledgedBy", ack.byKeyName(),
+                "acknowledgedByKeyId", ack.byKeyId()));
   }
 
-  private Limits.Effective effective(String samplePoint, Parameter parameter) {
-    return limits
-        .find(WebLookups.point(limits, samplePoint), parameter)
-        .orElseThrow(
-            () -> WebLookups.notFound("No limits for " + parameter.code() + " at " + samplePoint));
+  /** The header that says which limits judged the past. */
+  static final String BASIS_HEADER = "Kwanta-Basis";
+
+  private static ExcursionFinder.Basis basis(String value) {
+    if (value == null) {
+      return ExcursionFinder.Basis.AS_REPORTED;
+    }
+    for (ExcursionFinder.Basis b : ExcursionFinder.Basis.values()) {
+      if (b.code().equalsIgnoreCase(value)) {
+        return b;
+      }
+    }
+    throw BadRequestException.of("basis must be as-reported or recomputed");
   }
 
   private static Level level(String name) {

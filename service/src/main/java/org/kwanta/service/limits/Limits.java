@@ -1,20 +1,36 @@
 package org.kwanta.service.limits;
 
+import java.sql.Timestamp;
+import java.time.Clock;
+import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
 import java.util.Optional;
+import java.util.TreeSet;
 import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
+import org.kwanta.model.limits.LimitTimeline;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.TreatmentRegime;
+import org.kwanta.service.audit.AuditLog;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
+import org.springframework.transaction.annotation.Transactional;
 import tools.jackson.databind.json.JsonMapper;
 
 /**
- * The limits in force per sample point and parameter: the point's own override when there is one,
- * otherwise the shipped example default for its treatment regime and place in the cycle.
+ * The limits in force per sample point and parameter, at any time: the point's own limits when a
+ * version of them is in force then, otherwise the shipped example default (of the defaults version
+ * in force then) for the treatment regime and place in the cycle the point had then.
+ *
+ * <p>Nothing is overwritten: the plant's own limits are versions with the time they take effect
+ * from (table {@code limit_version}), the point's configuration has versions ({@code
+ * sample_point_version}), and so do the defaults ({@link DefaultLimitVersions}). The limits in
+ * force at a time are the newest version of each that took effect at or before it (a later-recorded
+ * version wins a tie); the first version of a point's configuration and of the defaults also covers
+ * every earlier time.
  */
 @Repository
 public class Limits {
@@ -32,31 +48,49 @@ public class Limits {
       String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
 
     Optional<LimitKey> key(Parameter parameter) {
+      return key(treatmentRegime, cycleLocation, parameter);
+    }
+
+    static Optional<LimitKey> key(String regime, String location, Parameter parameter) {
       try {
         return Optional.of(
             new LimitKey(
-                TreatmentRegime.valueOf(treatmentRegime),
-                CycleLocation.valueOf(cycleLocation),
-                parameter));
-      } catch (IllegalArgumentException e) {
+                TreatmentRegime.valueOf(regime), CycleLocation.valueOf(location), parameter));
+      } catch (IllegalArgumentException | NullPointerException e) {
         return Optional.empty();
       }
     }
-  }
 
-  /** A profile in force and where it comes from. */
-  public record Effective(Point point, LimitProfile profile, Origin origin) {}
+    /** The key used for a plant's own limits where the regime gives none (make-up water). */
+    LimitKey keyOrMakeUp(String regime, String location, Parameter parameter) {
+      return key(regime, location, parameter)
+          .orElse(new LimitKey(TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, parameter));
+    }
+  }
 
   private final JdbcClient jdbc;
   private final LimitCatalog defaults;
+  private final DefaultLimitVersions defaultVersions;
   private final JsonMapper json;
+  private final Clock clock;
+  private final AuditLog audit;
 
-  Limits(JdbcClient jdbc, LimitCatalog defaults, JsonMapper json) {
+  Limits(
+      JdbcClient jdbc,
+      LimitCatalog defaults,
+      DefaultLimitVersions defaultVersions,
+      JsonMapper json,
+      Clock clock,
+      AuditLog audit) {
     this.jdbc = jdbc;
     this.defaults = defaults;
+    this.defaultVersions = defaultVersions;
     this.json = json;
+    this.clock = clock;
+    this.audit = audit;
   }
 
+  /** The defaults in use now (the configured defaults file). */
   public LimitCatalog defaults() {
     return defaults;
   }
@@ -80,62 +114,362 @@ public class Limits {
         .list();
   }
 
-  /** Every profile in force at a point, override first, then default. */
+  /**
+   * A profile in force and where it comes from.
+   *
+   * @param version the version of the plant's own limits ({@code OVERRIDE}) or of the shipped
+   *     defaults ({@code DEFAULT})
+   * @param effectiveFrom from when this profile is in force; {@code null} when always (the first
+   *     version)
+   */
+  public record Effective(
+      Point point, LimitProfile profile, Origin origin, int version, Instant effectiveFrom) {
+
+    boolean sameAs(Effective o) {
+      return o != null
+          && origin == o.origin
+          && version == o.version
+          && profile.key().equals(o.profile.key());
+    }
+  }
+
+  /**
+   * The limits of one point and parameter over time.
+   *
+   * @param periods consecutive periods, oldest first; the first from {@link Instant#MIN}
+   */
+  public record History(List<Period> periods) {
+
+    /** A period: from its start until the next period's, these limits (or none). */
+    public record Period(Instant from, Optional<Effective> limits) {}
+
+    /** The limits in force at a time. */
+    public Optional<Effective> at(Instant t) {
+      Optional<Effective> found = Optional.empty();
+      for (Period p : periods) {
+        if (p.from().isAfter(t)) {
+          break;
+        }
+        found = p.limits();
+      }
+      return found;
+    }
+
+    /** Whether some period has limits. */
+    public boolean hasLimits() {
+      return periods.stream().anyMatch(p -> p.limits().isPresent());
+    }
+
+    /** Whether some period starting before {@code to} and ending after {@code from} has limits. */
+    public boolean hasLimits(Instant from, Instant to) {
+      for (int i = 0; i < periods.size(); i++) {
+        Instant start = periods.get(i).from();
+        Instant end = i + 1 < periods.size() ? periods.get(i + 1).from() : Instant.MAX;
+        if (periods.get(i).limits().isPresent() && start.isBefore(to) && end.isAfter(from)) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    /** The same periods for the classifier. */
+    public LimitTimeline timeline() {
+      return LimitTimeline.of(
+          periods.stream()
+              .map(p -> new LimitTimeline.Period(p.from(), p.limits().map(Effective::profile)))
+              .toList());
+    }
+
+    /** One set of limits applied at every time (today's limits applied to the past). */
+    public static History always(Effective e) {
+      return new History(List.of(new Period(Instant.MIN, Optional.of(e))));
+    }
+  }
+
+  /** One stored version of a plant's own limits ({@code limits} empty: withdrawn). */
+  public record OverrideVersion(
+      String parameter,
+      int version,
+      Instant effectiveFrom,
+      Optional<LimitDocument> limits,
+      String reason,
+      Instant recordedAt,
+      String recordedBy) {}
+
+  private record RegimeVersion(Instant from, String regime, String location) {}
+
+  /** Every profile in force at a point now, one per parameter that has limits. */
   public List<Effective> inForce(Point point) {
+    Instant now = clock.instant();
     List<Effective> out = new ArrayList<>();
-    for (Parameter parameter : Parameter.values()) {
-      find(point, parameter).ifPresent(out::add);
+    for (History h : histories(point).values()) {
+      h.at(now).ifPresent(out::add);
     }
     return out;
   }
 
-  /** The profile in force at a point for one parameter, if any. */
+  /** The profile in force at a point for one parameter now, if any. */
   public Optional<Effective> find(Point point, Parameter parameter) {
-    Optional<LimitKey> key = point.key(parameter);
-    Optional<String> override =
-        jdbc.sql(
-                "SELECT limits::text FROM limit_override WHERE sample_point_id = ? AND parameter = ?")
-            .params(point.id(), parameter.code())
-            .query(String.class)
-            .optional();
-    if (override.isPresent()) {
-      LimitKey k =
-          key.orElse(new LimitKey(TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, parameter));
-      LimitDocument doc = json.readValue(override.get(), LimitDocument.class);
-      return Optional.of(new Effective(point, doc.toProfile(k), Origin.OVERRIDE));
+    return history(point, parameter).at(clock.instant());
+  }
+
+  /** The limits of one point and parameter over time. */
+  public History history(Point point, Parameter parameter) {
+    return history(
+        point,
+        parameter,
+        overrideVersions(point.id()).stream()
+            .filter(v -> v.parameter().equals(parameter.code()))
+            .toList(),
+        regimeVersions(point),
+        defaultVersions.activations());
+  }
+
+  /** The limits of every parameter of a point over time, in parameter order. */
+  public java.util.Map<Parameter, History> histories(Point point) {
+    List<OverrideVersion> overrides = overrideVersions(point.id());
+    List<RegimeVersion> regimes = regimeVersions(point);
+    List<DefaultLimitVersions.Activation> activations = defaultVersions.activations();
+    java.util.Map<Parameter, History> out = new java.util.EnumMap<>(Parameter.class);
+    for (Parameter parameter : Parameter.values()) {
+      History h =
+          history(
+              point,
+              parameter,
+              overrides.stream().filter(v -> v.parameter().equals(parameter.code())).toList(),
+              regimes,
+              activations);
+      if (h.hasLimits()) {
+        out.put(parameter, h);
+      }
     }
-    return key.flatMap(defaults::find).map(p -> new Effective(point, p, Origin.DEFAULT));
+    return out;
+  }
+
+  private History history(
+      Point point,
+      Parameter parameter,
+      List<OverrideVersion> overrides,
+      List<RegimeVersion> regimes,
+      List<DefaultLimitVersions.Activation> activations) {
+    TreeSet<Instant> starts = new TreeSet<>();
+    starts.add(Instant.MIN);
+    overrides.forEach(v -> starts.add(v.effectiveFrom()));
+    regimes.stream().skip(1).forEach(r -> starts.add(r.from()));
+    activations.stream().skip(1).forEach(a -> starts.add(a.from()));
+    List<History.Period> periods = new ArrayList<>();
+    Effective previous = null;
+    boolean previousEmpty = false;
+    for (Instant s : starts) {
+      RegimeVersion regime = latest(regimes, RegimeVersion::from, s);
+      String regimeName = regime == null ? point.treatmentRegime() : regime.regime();
+      String location = regime == null ? point.cycleLocation() : regime.location();
+      OverrideVersion override = latestOverride(overrides, s);
+      Instant from = s.equals(Instant.MIN) ? null : s;
+      Optional<Effective> e;
+      if (override != null && override.limits().isPresent()) {
+        LimitKey key = point.keyOrMakeUp(regimeName, location, parameter);
+        e =
+            Optional.of(
+                new Effective(
+                    point,
+                    override.limits().get().toProfile(key),
+                    Origin.OVERRIDE,
+                    override.version(),
+                    from));
+      } else {
+        DefaultLimitVersions.Activation a =
+            latest(activations, DefaultLimitVersions.Activation::from, s);
+        int version = a == null ? defaults.version() : a.version();
+        e =
+            Point.key(regimeName, location, parameter)
+                .flatMap(k -> defaultVersions.catalog(version).find(k))
+                .map(p -> new Effective(point, p, Origin.DEFAULT, version, from));
+      }
+      if (e.isPresent() ? e.get().sameAs(previous) : previousEmpty) {
+        continue;
+      }
+      periods.add(new History.Period(s, e));
+      previous = e.orElse(null);
+      previousEmpty = e.isEmpty();
+    }
+    return new History(List.copyOf(periods));
+  }
+
+  /** The newest entry starting at or before {@code t}; the first one also covers earlier times. */
+  private static <T> T latest(
+      List<T> ordered, java.util.function.Function<T, Instant> from, Instant t) {
+    T found = ordered.isEmpty() ? null : ordered.get(0);
+    for (T x : ordered) {
+      if (!from.apply(x).isAfter(t)) {
+        found = x;
+      }
+    }
+    return found;
+  }
+
+  /** The override version in force at t (none before the first), a later-recorded one on a tie. */
+  private static OverrideVersion latestOverride(List<OverrideVersion> ordered, Instant t) {
+    OverrideVersion found = null;
+    for (OverrideVersion v : ordered) {
+      if (!v.effectiveFrom().isAfter(t)) {
+        found = v;
+      }
+    }
+    return found;
+  }
+
+  /** A point's own limit versions, every parameter, by effective time then version. */
+  public List<OverrideVersion> overrideVersions(String samplePointId) {
+    return jdbc.sql(
+            """
+            SELECT parameter, version, effective_from, limits::text, reason, recorded_at, recorded_by
+            FROM limit_version WHERE sample_point_id = ? ORDER BY effective_from, version""")
+        .param(samplePointId)
+        .query(
+            (rs, i) ->
+                new OverrideVersion(
+                    rs.getString(1),
+                    rs.getInt(2),
+                    rs.getTimestamp(3).toInstant(),
+                    Optional.ofNullable(rs.getString(4))
+                        .map(text -> json.readValue(text, LimitDocument.class)),
+                    rs.getString(5),
+                    rs.getTimestamp(6).toInstant(),
+                    rs.getString(7)))
+        .list();
+  }
+
+  private List<RegimeVersion> regimeVersions(Point point) {
+    return jdbc.sql(
+            """
+            SELECT valid_from, config->>'treatmentRegime', config->>'cycleLocation'
+            FROM sample_point_version WHERE sample_point_id = ? ORDER BY version""")
+        .param(point.id())
+        .query(
+            (rs, i) ->
+                new RegimeVersion(rs.getTimestamp(1).toInstant(), rs.getString(2), rs.getString(3)))
+        .list();
   }
 
   /**
-   * Sets a point's own limits for a parameter (replacing an earlier override).
+   * Adds a version of a point's own limits for a parameter, in force from {@code effectiveFrom}.
+   * Earlier versions stay, and stay in force before it.
    *
    * @throws IllegalArgumentException when the document is incomplete or inconsistent
    */
-  public LimitProfile override(Point point, Parameter parameter, LimitDocument doc, String by) {
+  @Transactional
+  public Effective override(
+      Point point,
+      Parameter parameter,
+      LimitDocument doc,
+      Instant effectiveFrom,
+      String reason,
+      String by) {
     LimitKey key =
         point
             .key(parameter)
             .orElse(new LimitKey(TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, parameter));
     LimitProfile profile = doc.toProfile(key);
-    jdbc.sql(
-            """
-            INSERT INTO limit_override (sample_point_id, parameter, limits, updated_by)
-            VALUES (?, ?, ?::jsonb, ?)
-            ON CONFLICT (sample_point_id, parameter)
-            DO UPDATE SET limits = EXCLUDED.limits, updated_by = EXCLUDED.updated_by,
-                          updated_at = now()""")
-        .params(
-            point.id(), parameter.code(), json.writeValueAsString(LimitDocument.of(profile)), by)
-        .update();
-    return profile;
+    lock(point, parameter);
+    Optional<Effective> before = history(point, parameter).at(effectiveFrom);
+    int version =
+        append(
+            point,
+            parameter,
+            json.writeValueAsString(LimitDocument.of(profile)),
+            effectiveFrom,
+            reason,
+            by);
+    Effective after = new Effective(point, profile, Origin.OVERRIDE, version, effectiveFrom);
+    audit.record(
+        "limits.set",
+        "limits",
+        point.id() + "/" + parameter.code(),
+        before.map(Limits::auditView).orElse(null),
+        auditView(after, reason));
+    return after;
   }
 
-  /** Removes a point's override; true when there was one. */
-  public boolean removeOverride(Point point, Parameter parameter) {
-    return jdbc.sql("DELETE FROM limit_override WHERE sample_point_id = ? AND parameter = ?")
-            .params(point.id(), parameter.code())
-            .update()
-        > 0;
+  /** The limits as the audit log shows them. */
+  static java.util.Map<String, Object> auditView(Effective e) {
+    return auditView(e, null);
+  }
+
+  private static java.util.Map<String, Object> auditView(Effective e, String reason) {
+    java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+    m.put("origin", e.origin().name());
+    m.put("version", e.version());
+    m.put("effectiveFrom", e.effectiveFrom() == null ? null : e.effectiveFrom().toString());
+    if (reason != null) {
+      m.put("reason", reason);
+    }
+    m.put("limits", LimitDocument.of(e.profile()));
+    return m;
+  }
+
+  /**
+   * Withdraws a point's own limits from {@code effectiveFrom} on (the default applies again); the
+   * versions stay.
+   *
+   * @return the new version, empty when no own limits were in force then
+   */
+  @Transactional
+  public Optional<Integer> removeOverride(
+      Point point, Parameter parameter, Instant effectiveFrom, String reason, String by) {
+    lock(point, parameter);
+    Optional<Effective> inForce = history(point, parameter).at(effectiveFrom);
+    if (inForce.isEmpty() || inForce.get().origin() != Origin.OVERRIDE) {
+      return Optional.empty();
+    }
+    int version = append(point, parameter, null, effectiveFrom, reason, by);
+    Optional<Effective> after = history(point, parameter).at(effectiveFrom);
+    java.util.Map<String, Object> withdrawn = new java.util.LinkedHashMap<>();
+    withdrawn.put("withdrawnVersion", version);
+    withdrawn.put("effectiveFrom", effectiveFrom.toString());
+    withdrawn.put("reason", reason);
+    withdrawn.put("inForce", after.map(Limits::auditView).orElse(null));
+    audit.record(
+        "limits.withdraw",
+        "limits",
+        point.id() + "/" + parameter.code(),
+        auditView(inForce.get()),
+        withdrawn);
+    return Optional.of(version);
+  }
+
+  private int append(
+      Point point,
+      Parameter parameter,
+      String limitsJson,
+      Instant effectiveFrom,
+      String reason,
+      String by) {
+    lock(point, parameter);
+    return jdbc.sql(
+            """
+            INSERT INTO limit_version (sample_point_id, parameter, version, effective_from, limits,
+                                       reason, recorded_by)
+            SELECT ?, ?, coalesce(max(version), 0) + 1, ?, ?::jsonb, ?, ?
+            FROM limit_version WHERE sample_point_id = ? AND parameter = ?
+            RETURNING version""")
+        .params(
+            point.id(),
+            parameter.code(),
+            Timestamp.from(Objects.requireNonNull(effectiveFrom)),
+            limitsJson,
+            reason,
+            by,
+            point.id(),
+            parameter.code())
+        .query(Integer.class)
+        .single();
+  }
+
+  private void lock(Point point, Parameter parameter) {
+    jdbc.sql("SELECT pg_advisory_xact_lock(hashtext('kwanta.limit_version.' || ? || '.' || ?))")
+        .params(point.id(), parameter.code())
+        .query()
+        .singleRow();
   }
 }

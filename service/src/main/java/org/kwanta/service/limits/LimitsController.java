@@ -2,11 +2,23 @@ package org.kwanta.service.limits;
 
 import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.tags.Tag;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.OffsetDateTime;
+import java.time.format.DateTimeParseException;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.audit.Actor;
+import org.kwanta.service.security.Callers;
+import org.kwanta.service.security.Role;
 import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemTypes;
+import org.springframework.http.HttpStatus;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.DeleteMapping;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -14,6 +26,7 @@ import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PutMapping;
 import org.springframework.web.bind.annotation.RequestBody;
 import org.springframework.web.bind.annotation.RequestMapping;
+import org.springframework.web.bind.annotation.RequestParam;
 import org.springframework.web.bind.annotation.RestController;
 
 @RestController
@@ -26,22 +39,39 @@ import org.springframework.web.bind.annotation.RestController;
             + " the plant's limits: set the plant's own per sample point with PUT.")
 class LimitsController {
 
-  private final Limits limits;
+  /** How far before now an effectiveFrom still counts as now (clock skew of the client). */
+  private static final Duration PAST_TOLERANCE = Duration.ofMinutes(1);
 
-  LimitsController(Limits limits) {
+  private final Limits limits;
+  private final Clock clock;
+
+  LimitsController(Limits limits, Clock clock) {
     this.limits = limits;
+    this.clock = clock;
   }
 
-  /** A profile as shown in the API, with where it comes from. */
+  /** A profile as shown in the API, with where it comes from and its version. */
   record ProfileResponse(
-      String regime, String location, String origin, String direction, LimitDocument limits) {
-    static ProfileResponse of(LimitProfile p, String origin) {
+      String regime,
+      String location,
+      String origin,
+      int version,
+      Instant effectiveFrom,
+      String direction,
+      LimitDocument limits) {
+    static ProfileResponse of(LimitProfile p, String origin, int version, Instant effectiveFrom) {
       return new ProfileResponse(
           p.key().regime().name(),
           p.key().location().name(),
           origin,
+          version,
+          effectiveFrom,
           p.direction().name(),
           LimitDocument.of(p));
+    }
+
+    static ProfileResponse of(Limits.Effective e) {
+      return of(e.profile(), e.origin().name(), e.version(), e.effectiveFrom());
     }
   }
 
@@ -56,52 +86,162 @@ class LimitsController {
         catalog.notice(),
         catalog.profiles().stream()
             .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-            .map(p -> ProfileResponse.of(p, "DEFAULT"))
+            .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
             .toList());
   }
 
   @GetMapping("/sample-points/{id}/limits")
-  @Operation(summary = "The limits in force at a sample point, per parameter (example: U2-CPD)")
+  @Operation(summary = "The limits in force now at a sample point, per parameter (example: U2-CPD)")
   List<ProfileResponse> inForce(@PathVariable String id) {
-    return limits.inForce(WebLookups.point(limits, id)).stream()
-        .map(e -> ProfileResponse.of(e.profile(), e.origin().name()))
-        .toList();
+    return limits.inForce(WebLookups.point(limits, id)).stream().map(ProfileResponse::of).toList();
+  }
+
+  /** One period of the limits' history: from its start until the next, these limits or none. */
+  record PeriodResponse(Instant from, ProfileResponse limits) {}
+
+  /** One stored version of the plant's own limits; {@code limits} null: withdrawn. */
+  record VersionResponse(
+      int version,
+      Instant effectiveFrom,
+      LimitDocument limits,
+      String reason,
+      Instant recordedAt,
+      String recordedBy) {}
+
+  record HistoryResponse(
+      String samplePoint,
+      String parameter,
+      List<PeriodResponse> periods,
+      List<VersionResponse> versions) {}
+
+  @GetMapping("/sample-points/{id}/limits/{parameter}/history")
+  @Operation(
+      summary = "The limits of a parameter at a sample point over time",
+      description =
+          "periods: which limits were in force from when (the plant's own version, or the"
+              + " shipped defaults' version for the regime the point had then; from null ="
+              + " always before); versions: every stored version of the plant's own limits.")
+  HistoryResponse history(@PathVariable String id, @PathVariable String parameter) {
+    Limits.Point point = WebLookups.point(limits, id);
+    Parameter p = WebLookups.parameter(parameter);
+    return new HistoryResponse(
+        point.id(),
+        p.code(),
+        limits.history(point, p).periods().stream()
+            .map(
+                x ->
+                    new PeriodResponse(
+                        x.from().equals(Instant.MIN) ? null : x.from(),
+                        x.limits().map(ProfileResponse::of).orElse(null)))
+            .toList(),
+        limits.overrideVersions(point.id()).stream()
+            .filter(v -> v.parameter().equals(p.code()))
+            .map(
+                v ->
+                    new VersionResponse(
+                        v.version(),
+                        v.effectiveFrom(),
+                        v.limits().orElse(null),
+                        v.reason(),
+                        v.recordedAt(),
+                        v.recordedBy()))
+            .toList());
   }
 
   @PutMapping("/sample-points/{id}/limits/{parameter}")
   @Operation(
-      summary = "Set the plant's own limits for a parameter at a sample point",
+      summary = "Set the plant's own limits for a parameter at a sample point (a new version)",
       description =
           "Body: the same form as a default entry (parameter, unit = the canonical unit,"
-              + " normal, thresholds, deadband, persistence), each value with its source text.")
+              + " normal, thresholds, deadband, persistence), each value with its source text."
+              + " The new version is in force from effectiveFrom (default now); earlier versions"
+              + " stay in force before it. A past effectiveFrom (more than a minute ago) needs an"
+              + " admin key and a reason; a chemist key always gives a reason. Who set it is the"
+              + " API key of the request.")
   ProfileResponse override(
       @PathVariable String id,
       @PathVariable String parameter,
       @RequestBody LimitDocument body,
-      @org.springframework.web.bind.annotation.RequestHeader(
-              value = "X-Changed-By",
-              required = false,
-              defaultValue = "api")
-          String by) {
+      @RequestParam(required = false) String effectiveFrom,
+      @RequestParam(required = false) String reason) {
     Parameter p = WebLookups.parameter(parameter);
     if (body.parameter() != null && !body.parameter().equals(p.code())) {
       throw BadRequestException.of(
           "Body parameter '" + body.parameter() + "' differs from the path's '" + p.code() + "'");
     }
+    Instant from = effectiveFrom(effectiveFrom, reason);
     try {
       return ProfileResponse.of(
-          limits.override(WebLookups.point(limits, id), p, body, by), "OVERRIDE");
+          limits.override(
+              WebLookups.point(limits, id), p, body, from, blankToNull(reason), Actor.currentId()));
     } catch (IllegalArgumentException e) {
       throw BadRequestException.of(e.getMessage());
     }
   }
 
   @DeleteMapping("/sample-points/{id}/limits/{parameter}")
-  @Operation(summary = "Remove the plant's own limits (the default applies again)")
+  @Operation(
+      summary = "Withdraw the plant's own limits (the default applies again from then on)",
+      description =
+          "Adds a version that withdraws them from effectiveFrom (default now; a past time needs"
+              + " an admin key and a reason); the earlier versions stay in force before it.")
   ResponseEntity<Map<String, Object>> remove(
-      @PathVariable String id, @PathVariable String parameter) {
-    boolean removed =
-        limits.removeOverride(WebLookups.point(limits, id), WebLookups.parameter(parameter));
-    return ResponseEntity.ok(Map.of("removed", removed));
+      @PathVariable String id,
+      @PathVariable String parameter,
+      @RequestParam(required = false) String effectiveFrom,
+      @RequestParam(required = false) String reason) {
+    Instant from = effectiveFrom(effectiveFrom, reason);
+    Optional<Integer> version =
+        limits.removeOverride(
+            WebLookups.point(limits, id),
+            WebLookups.parameter(parameter),
+            from,
+            blankToNull(reason),
+            Actor.currentId());
+    Map<String, Object> body = new LinkedHashMap<>();
+    body.put("removed", version.isPresent());
+    version.ifPresent(v -> body.put("version", v));
+    return ResponseEntity.ok(body);
+  }
+
+  /**
+   * Past effective times are a correction of the record: admin keys only, with a reason. A chemist
+   * key gives a reason for every change.
+   */
+  private Instant effectiveFrom(String value, String reason) {
+    Instant now = clock.instant();
+    if (Callers.role().orElse(null) == Role.CHEMIST && blankToNull(reason) == null) {
+      throw BadRequestException.of(
+          "A chemist key changes limits with a reason (query parameter reason)");
+    }
+    if (value == null) {
+      return now;
+    }
+    Instant t;
+    try {
+      t = OffsetDateTime.parse(value).toInstant();
+    } catch (DateTimeParseException e) {
+      throw BadRequestException.of(
+          "effectiveFrom must be an ISO 8601 time with offset, e.g. 2026-12-01T06:00:00Z");
+    }
+    if (t.isBefore(now.minus(PAST_TOLERANCE))) {
+      if (Callers.role().orElse(null) != Role.ADMIN) {
+        throw new BadRequestException(
+            HttpStatus.FORBIDDEN,
+            ProblemTypes.FORBIDDEN,
+            "Forbidden",
+            "Only an admin key may set limits in force from a past time (" + t + ")",
+            Map.of());
+      }
+      if (blankToNull(reason) == null) {
+        throw BadRequestException.of(
+            "A past effectiveFrom (" + t + ") changes the record: give a reason");
+      }
+    }
+    return t;
+  }
+
+  private static String blankToNull(String s) {
+    return s == null || s.isBlank() ? null : s.strip();
   }
 }

@@ -6,6 +6,7 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import org.kwanta.model.conductivity.Alkalizer;
 import org.kwanta.model.diagnosis.CoolingWater;
+import org.kwanta.service.audit.AuditLog;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
@@ -20,9 +21,12 @@ public class Plants {
 
   private final JsonMapper json;
 
-  Plants(JdbcClient jdbc, JsonMapper json) {
+  private final AuditLog audit;
+
+  Plants(JdbcClient jdbc, JsonMapper json, AuditLog audit) {
     this.jdbc = jdbc;
     this.json = json;
+    this.audit = audit;
   }
 
   static String alkalizer(PlantDeclaration.SamplePointDeclaration p) {
@@ -116,13 +120,39 @@ public class Plants {
           .params(plant.id(), plant.name(), coolingWater(plant))
           .update();
       created = true;
+      audit.record(
+          "plant.create",
+          "plant",
+          plant.id(),
+          null,
+          java.util.Map.of(
+              "name", plant.name(), "coolingWater", String.valueOf(coolingWater(plant))));
     } else {
-      jdbc.sql(
-              """
-              UPDATE plant SET name = ?, cooling_water = ?
-              WHERE id = ? AND (name <> ? OR cooling_water IS DISTINCT FROM ?)""")
-          .params(plant.name(), coolingWater(plant), plant.id(), plant.name(), coolingWater(plant))
-          .update();
+      java.util.Map<String, Object> before =
+          jdbc.sql("SELECT name, cooling_water FROM plant WHERE id = ?")
+              .param(plant.id())
+              .query(
+                  (rs, i) ->
+                      java.util.Map.<String, Object>of(
+                          "name", rs.getString(1), "coolingWater", String.valueOf(rs.getString(2))))
+              .single();
+      int updated =
+          jdbc.sql(
+                  """
+                  UPDATE plant SET name = ?, cooling_water = ?
+                  WHERE id = ? AND (name <> ? OR cooling_water IS DISTINCT FROM ?)""")
+              .params(
+                  plant.name(), coolingWater(plant), plant.id(), plant.name(), coolingWater(plant))
+              .update();
+      if (updated > 0) {
+        audit.record(
+            "plant.update",
+            "plant",
+            plant.id(),
+            before,
+            java.util.Map.of(
+                "name", plant.name(), "coolingWater", String.valueOf(coolingWater(plant))));
+      }
     }
     for (PlantDeclaration.UnitDeclaration unit : plant.units()) {
       jdbc.sql(
@@ -169,6 +199,7 @@ public class Plants {
   @Transactional
   public int updateSamplePoint(PlantDeclaration.SamplePointDeclaration declared, String changedBy) {
     PlantDeclaration.SamplePointDeclaration p = normalized(declared);
+    Optional<PlantDeclaration.SamplePointDeclaration> before = findSamplePoint(p.id());
     Integer version =
         jdbc.sql(
                 """
@@ -197,6 +228,12 @@ public class Plants {
             VALUES (?, ?, ?, ?::jsonb)""")
         .params(p.id(), version, changedBy, json.writeValueAsString(p))
         .update();
+    audit.record(
+        "sample-point.update",
+        "sample-point",
+        p.id(),
+        before.map(Plants::normalized).orElse(null),
+        p);
     return version;
   }
 
@@ -228,6 +265,7 @@ public class Plants {
             VALUES (?, 1, ?, ?::jsonb)""")
         .params(p.id(), changedBy, json.writeValueAsString(p))
         .update();
+    audit.record("sample-point.create", "sample-point", p.id(), null, p);
   }
 
   /** One version of a sample point's configuration. */

@@ -6,6 +6,7 @@ import jakarta.servlet.http.HttpServletRequest;
 import jakarta.servlet.http.HttpServletResponse;
 import java.io.IOException;
 import java.util.Optional;
+import org.kwanta.service.audit.Actor;
 import org.kwanta.service.system.DatabaseOutage;
 import org.springframework.http.HttpHeaders;
 import org.springframework.security.authentication.UsernamePasswordAuthenticationToken;
@@ -86,7 +87,17 @@ final class ApiKeyFilter extends OncePerRequestFilter {
   }
 
   /** The authenticated caller: a key, by id, name and role. */
-  record KeyPrincipal(String id, String name, Role role) {
+  record KeyPrincipal(String id, String name, Role role) implements Actor {
+    @Override
+    public String keyId() {
+      return id;
+    }
+
+    @Override
+    public String keyName() {
+      return name;
+    }
+
     @Override
     public String toString() {
       return "key " + id;

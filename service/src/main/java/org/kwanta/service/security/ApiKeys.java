@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
+import org.kwanta.service.audit.AuditLog;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
 import org.springframework.transaction.annotation.Transactional;
@@ -20,10 +21,12 @@ public class ApiKeys {
   private static final long LAST_USED_RESOLUTION_MILLIS = 60_000;
 
   private final JdbcClient jdbc;
+  private final AuditLog audit;
   private final Map<String, Long> lastUsedWritten = new ConcurrentHashMap<>();
 
-  ApiKeys(JdbcClient jdbc) {
+  ApiKeys(JdbcClient jdbc, AuditLog audit) {
     this.jdbc = jdbc;
+    this.audit = audit;
   }
 
   /** Stores a new key and returns it with its secret, which is not kept anywhere. */
@@ -38,13 +41,16 @@ public class ApiKeys {
 
   ApiKey insert(ApiKeyToken token, String name, Role role) {
     byte[] salt = ApiKeyToken.newSalt();
-    return jdbc.sql(
-            """
+    ApiKey created =
+        jdbc.sql(
+                """
             INSERT INTO api_key (id, name, role, secret_salt, secret_hash) VALUES (?, ?, ?, ?, ?)
             RETURNING id, name, role, created_at, revoked_at, last_used_at""")
-        .params(token.id(), name, role.code(), salt, token.hash(salt))
-        .query(ApiKeys::row)
-        .single();
+            .params(token.id(), name, role.code(), salt, token.hash(salt))
+            .query(ApiKeys::row)
+            .single();
+    audit.record("api-key.create", "api-key", created.id(), null, created);
+    return created;
   }
 
   boolean exists(String id) {
@@ -96,7 +102,9 @@ public class ApiKeys {
       throw new LastAdminKeyException(id);
     }
     jdbc.sql("UPDATE api_key SET revoked_at = now() WHERE id = ?").param(id).update();
-    return find(id);
+    Optional<ApiKey> revoked = find(id);
+    audit.record("api-key.revoke", "api-key", id, key.get(), revoked.orElse(null));
+    return revoked;
   }
 
   /** The active key this text names, or empty when it is malformed, unknown, wrong or revoked. */

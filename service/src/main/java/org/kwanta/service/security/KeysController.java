@@ -39,7 +39,8 @@ class KeysController {
       summary = "Create a key",
       description =
           "The response carries the key itself, once: only a salted hash is stored. Roles: ingest"
-              + " (post readings), read (queries, calculations, metrics), admin (everything).")
+              + " (post readings), read (queries, calculations, metrics), chemist (read, acknowledge"
+              + " excursions, set limits with a reason, read the audit log), admin (everything).")
   CreatedKeyResponse create(@Valid @RequestBody CreateKeyRequest request) {
     return CreatedKeyResponse.from(keys.create(request.name(), request.role()));
   }
@@ -71,7 +72,7 @@ class KeysController {
 
   /**
    * @param name what the key is for, e.g. "unit 1 historian"
-   * @param role ingest, read or admin
+   * @param role ingest, read, chemist or admin
    */
   record CreateKeyRequest(
       @NotBlank @Size(max = 200) @Pattern(regexp = "[^\\p{Cntrl}]*") String name,

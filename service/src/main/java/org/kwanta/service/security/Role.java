@@ -17,6 +17,12 @@ public enum Role {
   /** Queries, state, excursions, calculations, the Prometheus scrape: chemists, dashboards. */
   @JsonProperty("read")
   READ,
+  /**
+   * What read may, and the chemistry record: acknowledge excursions, set and withdraw limits (with
+   * a reason, in force from now or later), read the audit log. Not keys, not the plant registry.
+   */
+  @JsonProperty("chemist")
+  CHEMIST,
   /** Everything: configuration, limits, keys, acknowledgements; also reads and ingests. */
   @JsonProperty("admin")
   ADMIN;
@@ -30,9 +36,17 @@ public enum Role {
     return valueOf(code.toUpperCase(Locale.ROOT));
   }
 
-  /** The Spring Security authorities a key of this role holds: admin holds all three. */
+  /**
+   * The Spring Security authorities a key of this role holds: admin holds all four, chemist holds
+   * read too.
+   */
   List<GrantedAuthority> authorities() {
-    List<Role> held = this == ADMIN ? List.of(ADMIN, READ, INGEST) : List.of(this);
+    List<Role> held =
+        switch (this) {
+          case ADMIN -> List.of(ADMIN, CHEMIST, READ, INGEST);
+          case CHEMIST -> List.of(CHEMIST, READ);
+          default -> List.of(this);
+        };
     return held.stream()
         .<GrantedAuthority>map(r -> new SimpleGrantedAuthority("ROLE_" + r.name()))
         .toList();

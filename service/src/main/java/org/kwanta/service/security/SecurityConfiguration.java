@@ -26,19 +26,24 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
  *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
+ *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements}, {@code
+ *       POST /api/v1/excursion-events/**};
+ *       {@code PUT}/{@code DELETE /api/v1/sample-points/*}{@code /limits/*}</td><td>chemist</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
  *   <tr><td>anything else under {@code /api/**}, and any other path</td><td>admin</td></tr>
  * </table>
  *
- * Admin keys hold the read and ingest roles too ({@link Role#authorities()}). Stateless: no
- * session, no cookie, no CSRF token (a key in a header cannot be sent by a foreign page).
+ * Admin keys hold the chemist, read and ingest roles too, chemist keys the read role ({@link
+ * Role#authorities()}). Stateless: no session, no cookie, no CSRF token (a key in a header cannot
+ * be sent by a foreign page).
  */
 @Configuration(proxyBeanMethods = false)
 class SecurityConfiguration {
 
   static final String INGEST = Role.INGEST.name();
   static final String READ = Role.READ.name();
+  static final String CHEMIST = Role.CHEMIST.name();
   static final String ADMIN = Role.ADMIN.name();
 
   @Bean
@@ -84,6 +89,18 @@ class SecurityConfiguration {
                     .hasRole(ADMIN)
                     .requestMatchers(HttpMethod.POST, "/api/v1/readings", "/api/v1/readings/**")
                     .hasRole(INGEST)
+                    // the chemistry record: the audit log, acknowledgements, limits
+                    .requestMatchers("/api/v1/audit", "/api/v1/audit/**")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(HttpMethod.POST, "/api/v1/excursions/acknowledgements")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(
+                        HttpMethod.POST, "/api/v1/excursion-events", "/api/v1/excursion-events/**")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(HttpMethod.PUT, "/api/v1/sample-points/*/limits/*")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(HttpMethod.DELETE, "/api/v1/sample-points/*/limits/*")
+                    .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.GET, "/api/**")
                     .hasRole(READ)
                     .requestMatchers(HttpMethod.HEAD, "/api/**")

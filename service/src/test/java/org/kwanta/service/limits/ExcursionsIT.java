@@ -151,7 +151,9 @@ class ExcursionsIT {
         http.post("/api/v1/excursions/acknowledgements", "application/json", ack);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
     JsonNode e = excursions().get(0);
-    assertThat(e.get("acknowledgedBy").asString()).isEqualTo("J. Marsh (chemist)");
+    // Who acknowledged is the key of the request; the body's "by" is ignored.
+    assertThat(e.get("acknowledgedByKeyId").asString()).isEqualTo("testadmin");
+    assertThat(e.toString()).doesNotContain("J. Marsh");
     assertThat(e.get("acknowledgementNote").asString()).contains("half isolated");
 
     String wrong = ack.replace(start, day.toString());
@@ -179,9 +181,20 @@ class ExcursionsIT {
             "application/json",
             override);
     assertThat(put.statusCode()).as(put.body()).isEqualTo(200);
+    // Set today, the plant's limits do not rewrite yesterday's record (as reported); applied to
+    // the past (recomputed) they replace the example default.
     JsonNode e = excursions().get(0);
-    assertThat(e.get("limitsOrigin").asString()).isEqualTo("OVERRIDE");
-    assertThat(e.get("highestLevel").asString()).isEqualTo("AL1");
+    assertThat(e.get("limitsOrigin").asString()).isEqualTo("DEFAULT");
+    assertThat(e.get("highestLevel").asString()).isEqualTo("AL3");
+    HttpResponse<String> recomputed =
+        http.get(
+            "/api/v1/excursions?basis=recomputed&samplePoint="
+                + point
+                + "&parameter=cation_conductivity"
+                + window());
+    JsonNode r = JSON.readTree(recomputed.body()).get(0);
+    assertThat(r.get("limitsOrigin").asString()).isEqualTo("OVERRIDE");
+    assertThat(r.get("highestLevel").asString()).isEqualTo("AL1");
 
     String badUnit = override.replace("\"unit\":\"uS/cm\"", "\"unit\":\"mS/cm\"");
     HttpResponse<String> bad =

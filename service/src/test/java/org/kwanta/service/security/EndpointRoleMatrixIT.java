@@ -40,6 +40,7 @@ class EndpointRoleMatrixIT {
     OPEN,
     INGEST,
     READ,
+    CHEMIST,
     ADMIN
   }
 
@@ -57,6 +58,11 @@ class EndpointRoleMatrixIT {
       List.of(
           row("*", "/api/v1/keys/**", Access.ADMIN),
           row("POST", "/api/v1/readings/**", Access.INGEST),
+          row("*", "/api/v1/audit/**", Access.CHEMIST),
+          row("POST", "/api/v1/excursions/acknowledgements", Access.CHEMIST),
+          row("POST", "/api/v1/excursion-events/**", Access.CHEMIST),
+          row("PUT", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
+          row("DELETE", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("GET", "/api/**", Access.READ),
           row("HEAD", "/api/**", Access.READ),
           row("POST", "/api/v1/chemistry/**", Access.READ),
@@ -96,6 +102,7 @@ class EndpointRoleMatrixIT {
         Map.of(
             Access.INGEST, Keys.createKey(port, "matrix ingest", "ingest"),
             Access.READ, Keys.createKey(port, "matrix read", "read"),
+            Access.CHEMIST, Keys.createKey(port, "matrix chemist", "chemist"),
             Access.ADMIN, org.kwanta.service.support.TestKeys.ADMIN);
     Set<String> endpoints = new LinkedHashSet<>();
     List<String> unmapped = new ArrayList<>();
@@ -135,7 +142,7 @@ class EndpointRoleMatrixIT {
       tested.add("GET " + e.getKey() + " -> " + e.getValue());
     }
     log.info(
-        "Role matrix: {} endpoints x 5 callers = {} checks:\n  {}",
+        "Role matrix: {} endpoints x 6 callers = {} checks:\n  {}",
         tested.size(),
         checks,
         String.join("\n  ", tested));
@@ -148,7 +155,7 @@ class EndpointRoleMatrixIT {
         .anyMatch(s -> s.startsWith("DELETE /api/v1/keys/"));
   }
 
-  /** Five callers on one endpoint; returns the number of checks. */
+  /** Six callers on one endpoint; returns the number of checks. */
   private int check(
       String method, String path, Access access, Map<Access, String> keys, List<String> failures) {
     Http anonymous = new Http(port);
@@ -166,8 +173,12 @@ class EndpointRoleMatrixIT {
         "malformed key",
         call(anonymous.withKey("kw_bad"), method, path),
         access == Access.OPEN ? null : 401);
-    for (Access role : List.of(Access.INGEST, Access.READ, Access.ADMIN)) {
-      boolean allowed = access == Access.OPEN || role == Access.ADMIN || role == access;
+    for (Access role : List.of(Access.INGEST, Access.READ, Access.CHEMIST, Access.ADMIN)) {
+      boolean allowed =
+          access == Access.OPEN
+              || role == Access.ADMIN
+              || role == access
+              || role == Access.CHEMIST && access == Access.READ;
       expect(
           failures,
           method,
@@ -176,7 +187,7 @@ class EndpointRoleMatrixIT {
           call(anonymous.withKey(keys.get(role)), method, path),
           allowed ? null : 403);
     }
-    return 5;
+    return 6;
   }
 
   /** expected null: allowed, so anything but 401 and 403 (400, 404 and 415 are fine). */
