@@ -184,10 +184,15 @@ class KubernetesManifestsTest {
     assertThat(service.get("ingress")).hasSize(1);
     List<String> peers = new ArrayList<>();
     for (JsonNode from : service.get("ingress").get(0).get("from")) {
-      // each peer is a pod in a named namespace, never a whole namespace or an address block
+      // each peer is a kind of pod (in a named namespace, or this one), never a whole namespace or
+      // an address block
       assertThat(from.has("ipBlock")).isFalse();
       assertThat(from.has("podSelector")).isTrue();
-      assertThat(from.has("namespaceSelector")).isTrue();
+      if (from.has("namespaceSelector")) {
+        assertThat(
+                from.get("namespaceSelector").get("matchLabels").has("kubernetes.io/metadata.name"))
+            .isTrue();
+      }
       peers.add(
           from.get("podSelector").get("matchLabels").get("app.kubernetes.io/name").asString());
     }
