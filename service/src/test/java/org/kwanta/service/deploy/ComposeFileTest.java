@@ -6,6 +6,10 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
@@ -150,6 +154,102 @@ class ComposeFileTest {
     // the image creates the mount point owned by the service's user, so it can write the file
     assertThat(Files.readString(ROOT.resolve("Dockerfile")))
         .contains("mkdir -p " + keyDir + " && chown kwanta " + keyDir);
+  }
+
+  private static JsonNode compose() throws Exception {
+    return new YAMLMapper().readTree(Files.readString(ROOT.resolve("docker-compose.yml")));
+  }
+
+  /** A value as compose would interpolate it with the defaults of ${VAR:-default}. */
+  private static String withDefaults(String value) {
+    return value.replaceAll("\\$\\{[A-Z_]+:-([^}]*)}", "$1");
+  }
+
+  @Test
+  void everyPublishedPortIsBoundToLoopbackByDefault() throws Exception {
+    int published = 0;
+    for (var service : compose().get("services").properties()) {
+      JsonNode ports = service.getValue().get("ports");
+      if (ports == null) {
+        continue;
+      }
+      for (JsonNode port : ports) {
+        assertThat(withDefaults(port.asString()))
+            .as(service.getKey() + " " + port.asString())
+            .matches("127\\.0\\.0\\.1:\\d+:\\d+");
+        published++;
+      }
+    }
+    assertThat(published).isGreaterThanOrEqualTo(4);
+  }
+
+  @Test
+  void noPasswordIsWrittenInTheComposeFileAndAMissingEnvFileStopsCompose() throws Exception {
+    String example = Files.readString(ROOT.resolve("deploy/compose.env.example"));
+    Set<String> required = new TreeSet<>();
+    for (var service : compose().get("services").properties()) {
+      JsonNode environment = service.getValue().get("environment");
+      if (environment == null) {
+        continue;
+      }
+      for (var variable : environment.properties()) {
+        String name = variable.getKey();
+        String value = variable.getValue().asString();
+        if (name.matches(".*(PASSWORD|SECRET|_KEY)$")) {
+          // ${VAR:?message} fails with the message when VAR is unset or empty; ${VAR:-} is optional
+          Matcher m = Pattern.compile("^\\$\\{([A-Z_]+)(:\\?.+|:-)}$").matcher(value);
+          assertThat(m.matches()).as(service.getKey() + " " + name + ": " + value).isTrue();
+          assertThat(example).as(m.group(1)).containsPattern("(?m)^" + m.group(1) + "=$");
+          if (m.group(2).startsWith(":?")) {
+            assertThat(m.group(2)).contains(".env", "deploy/compose.env.example");
+            required.add(m.group(1));
+          }
+        }
+      }
+    }
+    assertThat(required).contains("POSTGRES_PASSWORD", "GRAFANA_ADMIN_PASSWORD");
+    assertThat(Files.readAllLines(ROOT.resolve(".gitignore"))).contains(".env");
+  }
+
+  @Test
+  void grafanaHasNoAnonymousAccess() throws Exception {
+    JsonNode grafana = compose().get("services").get("grafana").get("environment");
+    assertThat(grafana.get("GF_AUTH_ANONYMOUS_ENABLED").asString()).isEqualTo("false");
+    assertThat(grafana.get("GF_SECURITY_ADMIN_PASSWORD").asString())
+        .startsWith("${GRAFANA_ADMIN_PASSWORD:?");
+  }
+
+  @Test
+  void serviceHealthCheckUsesOnlyWhatTheImageHas() throws Exception {
+    String dockerfile = Files.readString(ROOT.resolve("Dockerfile"));
+    // eclipse-temurin is Ubuntu: bash is there, curl and wget are not promised
+    assertThat(dockerfile).containsPattern("(?m)^FROM eclipse-temurin:17-jre");
+    String test = compose().get("services").get("kwanta").get("healthcheck").get("test").toString();
+    assertThat(test).contains("bash", "/dev/tcp/127.0.0.1/8080", "/actuator/health/readiness");
+    assertThat(test).doesNotContain("curl", "wget");
+  }
+
+  @Test
+  void alertmanagerSendsToTheDemoReceiverOnAnInternalNetworkOnly() throws Exception {
+    JsonNode compose = compose();
+    JsonNode services = compose.get("services");
+    assertThat(services.get("alertmanager").get("volumes").toString())
+        .contains("./deploy/alertmanager/alertmanager.yml:/etc/alertmanager/alertmanager.yml");
+    JsonNode receiver = services.get("webhook-log");
+    assertThat(receiver.has("ports")).isFalse();
+    assertThat(receiver.get("networks").toString()).isEqualTo("[\"alerting\"]");
+    assertThat(compose.get("networks").get("alerting").get("internal").asBoolean()).isTrue();
+    assertThat(services.get("alertmanager").get("networks").toString()).contains("alerting");
+    assertThat(receiver.get("volumes").get(0).asString().split(":")[0])
+        .satisfies(source -> assertThat(ROOT.resolve(source)).exists());
+    JsonNode alertmanager =
+        new YAMLMapper()
+            .readTree(Files.readString(ROOT.resolve("deploy/alertmanager/alertmanager.yml")));
+    String url =
+        alertmanager.get("receivers").get(0).get("webhook_configs").get(0).get("url").asString();
+    assertThat(url)
+        .startsWith(
+            "http://webhook-log:" + receiver.get("environment").get("WEBHOOK_LOG_PORT").asString());
   }
 
   /** The named volume a service mounts at this path. */

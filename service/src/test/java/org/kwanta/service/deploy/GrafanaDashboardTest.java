@@ -6,10 +6,15 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
+import java.util.TreeMap;
 import java.util.TreeSet;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.kwanta.model.limits.Parameter;
 import org.kwanta.service.metrics.MetricNames;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
@@ -41,9 +46,75 @@ class GrafanaDashboardTest {
       }
     }
     for (JsonNode variable : dashboard.get("templating").get("list")) {
-      queries.add(variable.get("query").get("query").asString());
+      if (variable.get("type").asString().equals("query")) {
+        queries.add(variable.get("query").get("query").asString());
+      }
     }
     return queries;
+  }
+
+  private static List<JsonNode> panels(JsonNode dashboard, String type) {
+    List<JsonNode> panels = new ArrayList<>();
+    dashboard
+        .get("panels")
+        .forEach(
+            p -> {
+              if (p.get("type").asString().equals(type)) {
+                panels.add(p);
+              }
+            });
+    return panels;
+  }
+
+  private static JsonNode panel(JsonNode dashboard, String title) {
+    for (JsonNode p : dashboard.get("panels")) {
+      if (p.get("title").asString().equals(title)) {
+        return p;
+      }
+    }
+    throw new AssertionError("no panel " + title);
+  }
+
+  /** The level legend of the chemist page: level text to colour, from its style sheet. */
+  private static Map<String, String> pageLevelColours() throws Exception {
+    String css = Files.readString(ROOT.resolve("service/src/main/resources/static/css/style.css"));
+    Map<String, String> classes =
+        Map.of(
+            "normal", "lvl-normal",
+            "outside normal", "lvl-outside",
+            "AL1", "lvl-al1",
+            "AL2", "lvl-al2",
+            "AL3", "lvl-al3",
+            "SHUTDOWN", "lvl-shutdown");
+    Map<String, String> colours = new TreeMap<>();
+    classes.forEach(
+        (text, cls) -> {
+          Matcher rule = Pattern.compile("\\." + cls + "\\s*\\{([^}]*)}").matcher(css);
+          assertThat(rule.find()).as(cls).isTrue();
+          // the badge colour: its background, or its text colour where it has none (normal)
+          Matcher background =
+              Pattern.compile("background:\\s*(#[0-9a-f]{6})").matcher(rule.group(1));
+          Matcher color = Pattern.compile("(?<!-)color:\\s*(#[0-9a-f]{6})").matcher(rule.group(1));
+          colours.put(
+              text, background.find() ? background.group(1) : color.find() ? color.group(1) : null);
+        });
+    return colours;
+  }
+
+  /** The value mappings of a level panel (its defaults, or its override of the level column). */
+  private static JsonNode levelMappings(JsonNode panel) {
+    JsonNode defaults = panel.get("fieldConfig").get("defaults").get("mappings");
+    if (defaults != null) {
+      return defaults.get(0).get("options");
+    }
+    for (JsonNode override : panel.get("fieldConfig").get("overrides")) {
+      for (JsonNode property : override.get("properties")) {
+        if (property.get("id").asString().equals("mappings")) {
+          return property.get("value").get(0).get("options");
+        }
+      }
+    }
+    throw new AssertionError("no level mappings in " + panel.get("title"));
   }
 
   @Test
@@ -56,6 +127,8 @@ class GrafanaDashboardTest {
             "kwanta_sample_level",
             "kwanta_sample_value",
             "kwanta_sample_ph_at_temperature",
+            "kwanta_sample_instrument_in_doubt",
+            "kwanta_diagnosis_finding",
             "kwanta_readings_ingested_total");
   }
 
@@ -75,18 +148,208 @@ class GrafanaDashboardTest {
   }
 
   @Test
-  void panelsUseTheProvisionedDatasource() throws Exception {
+  void panelsUseTheDatasourceOfATemplateVariableDefaultingToTheProvisionedOne() throws Exception {
     JsonNode datasources =
         new YAMLMapper()
             .readTree(Files.readString(GRAFANA.resolve("provisioning/datasources/prometheus.yml")));
     String uid = datasources.get("datasources").get(0).get("uid").asString();
-    for (JsonNode panel : dashboard().get("panels")) {
-      if (!panel.get("type").asString().equals("row")) {
+    JsonNode dashboard = dashboard();
+    JsonNode variable = dashboard.get("templating").get("list").get(0);
+    assertThat(variable.get("type").asString()).isEqualTo("datasource");
+    assertThat(variable.get("query").asString()).isEqualTo("prometheus");
+    assertThat(variable.get("current").get("value").asString()).isEqualTo(uid);
+    String chosen = "${" + variable.get("name").asString() + "}";
+    for (JsonNode panel : dashboard.get("panels")) {
+      String type = panel.get("type").asString();
+      if (!type.equals("row") && !type.equals("text")) {
         assertThat(panel.get("datasource").get("uid").asString())
             .as(panel.get("title").asString())
-            .isEqualTo(uid);
+            .isEqualTo(chosen);
+        panel
+            .get("targets")
+            .forEach(
+                t ->
+                    assertThat(t.get("datasource").get("uid").asString())
+                        .as(panel.get("title").asString())
+                        .isEqualTo(chosen));
       }
     }
+    for (JsonNode v : dashboard.get("templating").get("list")) {
+      if (v.get("type").asString().equals("query")) {
+        assertThat(v.get("datasource").get("uid").asString()).isEqualTo(chosen);
+      }
+    }
+  }
+
+  @Test
+  void countsAreOfSamplePointsNotOfSeries() throws Exception {
+    int counts = 0;
+    for (JsonNode stat : panels(dashboard(), "stat")) {
+      for (JsonNode target : stat.get("targets")) {
+        String expr = target.get("expr").asString();
+        if (expr.startsWith("count(")) {
+          assertThat(expr)
+              .as(stat.get("title").asString())
+              .startsWith("count(count by (plant, sample_point) (");
+          assertThat(stat.get("title").asString()).startsWith("Sample points");
+          counts++;
+        }
+      }
+    }
+    assertThat(counts).isGreaterThanOrEqualTo(4);
+  }
+
+  @Test
+  void levelPanelsUseThePageLegendAndNeverShowAnInstrumentInDoubtAsPlainNormal() throws Exception {
+    JsonNode dashboard = dashboard();
+    Map<String, String> page = pageLevelColours();
+    List<String> levels = List.of("normal", "outside normal", "AL1", "AL2", "AL3", "SHUTDOWN");
+    for (String title : List.of("Worst level per sample point", "Current state", "Level history")) {
+      JsonNode panel = panel(dashboard, title);
+      assertThat(panel.get("targets").get(0).get("expr").asString())
+          .as(title)
+          .contains(
+              "kwanta_sample_level",
+              "0.5 * kwanta_sample_outside_normal",
+              "0.25 * kwanta_sample_instrument_in_doubt");
+      JsonNode mappings = levelMappings(panel);
+      for (int i = 0; i < levels.size(); i++) {
+        String level = levels.get(i);
+        double code = i == 0 ? 0 : i == 1 ? 0.5 : i - 1;
+        JsonNode plain = mappings.get(number(code));
+        JsonNode doubt = mappings.get(number(code + 0.25));
+        assertThat(plain.get("text").asString()).as(title).isEqualTo(level);
+        assertThat(plain.get("color").asString())
+            .as(title + " " + level)
+            .isEqualTo(page.get(level));
+        assertThat(doubt.get("text").asString()).as(title).startsWith(level + " ?");
+      }
+      // a normal value from a doubtful instrument is not painted like a normal one
+      assertThat(mappings.get("0.25").get("color").asString())
+          .isNotEqualTo(mappings.get("0").get("color").asString());
+    }
+    String legend = panel(dashboard, "Levels").get("options").get("content").asString();
+    levels.forEach(l -> assertThat(legend).contains(">" + l + "<", page.get(l)));
+  }
+
+  private static String number(double code) {
+    return code == Math.rint(code) ? Long.toString((long) code) : Double.toString(code);
+  }
+
+  @Test
+  void levelCodeOfTheDashboardRanksDoubtAboveNormal(@TempDir Path dir) throws Exception {
+    // promtool evaluates the dashboard's own level expression on invented Brackenmoor series
+    String expr =
+        panel(dashboard(), "Level history")
+            .get("targets")
+            .get(0)
+            .get("expr")
+            .asString()
+            .replace("$plant", "brackenmoor") // plant="$plant": an equality matcher
+            .replaceAll("\\$[a-zA-Z_]+", ".*");
+    Files.writeString(
+        dir.resolve("level.yml"),
+        "groups:\n  - name: level\n    rules:\n      - record: level_code\n        expr: '"
+            + expr.replace("'", "''")
+            + "'\n");
+    String series =
+        """
+        rule_files: [level.yml]
+        evaluation_interval: 1m
+        tests:
+          - interval: 1m
+            input_series:
+        """;
+    String[][] points = {
+      // sample point, level, outside normal, in doubt, expected code
+      {"U1-CPD", "0", "0", "0", "0"},
+      {"U1-ECO-IN", "0", "0", "1", "0.25"},
+      {"U1-MS", "0", "1", "0", "0.5"},
+      {"U2-CPD", "2", "0", "1", "2.25"},
+      {"U2-DRUM", "4", "0", "0", "4"},
+    };
+    StringBuilder test = new StringBuilder(series);
+    StringBuilder expected = new StringBuilder();
+    for (String[] p : points) {
+      String labels =
+          "{plant=\"brackenmoor\",unit=\""
+              + p[0].substring(0, 2)
+              + "\",sample_point=\""
+              + p[0]
+              + "\",parameter=\"sodium\"}";
+      test.append("      - series: 'kwanta_sample_level")
+          .append(labels)
+          .append("'\n        values: '")
+          .append(p[1])
+          .append("x5'\n");
+      test.append("      - series: 'kwanta_sample_outside_normal")
+          .append(labels)
+          .append("'\n        values: '")
+          .append(p[2])
+          .append("x5'\n");
+      test.append("      - series: 'kwanta_sample_instrument_in_doubt")
+          .append(labels)
+          .append("'\n        values: '")
+          .append(p[3])
+          .append("x5'\n");
+      expected
+          .append("          - labels: 'level_code")
+          .append(labels)
+          .append("'\n            value: ")
+          .append(p[4])
+          .append("\n");
+    }
+    test.append(
+            "    promql_expr_test:\n      - expr: level_code\n        eval_time: 2m\n        exp_samples:\n")
+        .append(expected);
+    Files.writeString(dir.resolve("level.test.yml"), test.toString());
+    assertThat(Promtool.run(dir, "test", "rules", "level.test.yml")).contains("SUCCESS");
+  }
+
+  @Test
+  void oneUnitPerAxisAndNoFixedLimitLines() throws Exception {
+    Map<String, String> grafanaUnit = Map.of("uS/cm", "µS/cm", "ug/kg", "µg/kg", "[pH]", "pH");
+    Pattern parameter = Pattern.compile("parameter=\"([a-z_]+)\"");
+    for (JsonNode panel : panels(dashboard(), "timeseries")) {
+      String title = panel.get("title").asString();
+      JsonNode defaults = panel.get("fieldConfig").get("defaults");
+      assertThat(defaults.get("unit").asString()).as(title).isNotBlank();
+      assertThat(panel.get("fieldConfig").get("overrides").toString())
+          .as(title + ": a second unit needs a second panel")
+          .doesNotContain("\"unit\"");
+      Set<String> units = new TreeSet<>();
+      for (JsonNode target : panel.get("targets")) {
+        String expr = target.get("expr").asString();
+        Matcher m = parameter.matcher(expr);
+        while (m.find()) {
+          units.add(grafanaUnit.get(Parameter.ofCode(m.group(1)).unit()));
+        }
+        if (expr.contains("kwanta_sample_ph_at_temperature")) {
+          units.add("pH");
+        }
+      }
+      assertThat(units).as(title).hasSizeLessThanOrEqualTo(1);
+      if (!units.isEmpty()) {
+        assertThat(defaults.get("unit").asString()).as(title).isEqualTo(units.iterator().next());
+      }
+      // no limit lines of fixed numbers: the limits in force are per point, and the service exposes
+      // no limit metric (yet) to draw them from
+      assertThat(defaults.has("thresholds")).as(title).isFalse();
+    }
+  }
+
+  @Test
+  void diagnosisFindingsAreListedPerPointCodeAndTarget() throws Exception {
+    JsonNode panel = panel(dashboard(), "Diagnosis findings");
+    assertThat(panel.get("type").asString()).isEqualTo("table");
+    assertThat(panel.get("targets").get(0).get("expr").asString())
+        .startsWith("kwanta_diagnosis_finding{")
+        .endsWith("== 1");
+    JsonNode excluded = panel.get("transformations").get(0).get("options").get("excludeByName");
+    for (String label : List.of("sample_point", "code", "points_at")) {
+      assertThat(excluded.has(label)).as(label).isFalse();
+    }
+    assertThat(panel.get("description").asString()).contains("the plant's own procedures govern");
   }
 
   @Test

@@ -5,6 +5,9 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.metrics.MetricNames;
@@ -20,6 +23,7 @@ class PrometheusRulesTest {
 
   private static final Path ROOT = Path.of("..").toAbsolutePath().normalize();
   private static final Path PROMETHEUS = ROOT.resolve("deploy/prometheus");
+  private static final Path ALERTMANAGER = ROOT.resolve("deploy/alertmanager");
   private static final String RULES = "rules/kwanta-alerts.yml";
 
   @Test
@@ -27,12 +31,18 @@ class PrometheusRulesTest {
     JsonNode rules = new YAMLMapper().readTree(Files.readString(PROMETHEUS.resolve(RULES)));
     Set<String> used = new HashSet<>();
     Set<String> alerts = new HashSet<>();
+    Set<String> recorded = new HashSet<>();
     for (JsonNode group : rules.get("groups")) {
       for (JsonNode rule : group.get("rules")) {
         used.addAll(PromQl.metricNames(rule.get("expr").asString()));
-        alerts.add(rule.get("alert").asString());
+        if (rule.has("record")) {
+          recorded.add(rule.get("record").asString());
+        } else {
+          alerts.add(rule.get("alert").asString());
+        }
       }
     }
+    used.removeAll(recorded);
     assertThat(MetricNames.exposedNames()).containsAll(used);
     assertThat(used)
         .contains(
@@ -76,5 +86,120 @@ class PrometheusRulesTest {
   void alertRulesPassTheirUnitTests() throws Exception {
     assertThat(Promtool.run(PROMETHEUS.resolve("rules"), "test", "rules", "kwanta-alerts.test.yml"))
         .contains("SUCCESS");
+    // the week-long allowance series, at the 5-minute interval of the recording rule
+    assertThat(
+            Promtool.run(
+                PROMETHEUS.resolve("rules"), "test", "rules", "kwanta-allowances.test.yml"))
+        .contains("SUCCESS");
+  }
+
+  private static Map<String, JsonNode> alertRules() throws Exception {
+    JsonNode rules = new YAMLMapper().readTree(Files.readString(PROMETHEUS.resolve(RULES)));
+    Map<String, JsonNode> byName = new LinkedHashMap<>();
+    for (JsonNode group : rules.get("groups")) {
+      for (JsonNode rule : group.get("rules")) {
+        if (rule.has("alert")) {
+          byName.put(rule.get("alert").asString(), rule);
+        }
+      }
+    }
+    return byName;
+  }
+
+  @Test
+  void everyAlertLinksItsRunbookSection() throws Exception {
+    String runbook = Files.readString(ROOT.resolve("docs/runbook.md"));
+    Set<String> anchors = new HashSet<>();
+    for (String line : runbook.split("\n")) {
+      if (line.startsWith("## ")) {
+        // GitHub's anchors: lower case, spaces to dashes, other punctuation dropped
+        anchors.add(
+            line.substring(3).trim().toLowerCase().replaceAll("[^a-z0-9 -]", "").replace(' ', '-'));
+      }
+    }
+    for (Map.Entry<String, JsonNode> alert : alertRules().entrySet()) {
+      String url = alert.getValue().get("annotations").get("runbook_url").asString();
+      assertThat(url)
+          .as(alert.getKey())
+          .isEqualTo("docs/runbook.md#" + alert.getKey().toLowerCase());
+      assertThat(anchors).as(alert.getKey()).contains(url.substring(url.indexOf('#') + 1));
+    }
+  }
+
+  @Test
+  void chemistryAlertsSayTheyAreAdvisory() throws Exception {
+    JsonNode rules = new YAMLMapper().readTree(Files.readString(PROMETHEUS.resolve(RULES)));
+    int checked = 0;
+    for (JsonNode group : rules.get("groups")) {
+      if (group.get("name").asString().equals("kwanta-chemistry")) {
+        for (JsonNode rule : group.get("rules")) {
+          assertThat(rule.get("annotations").get("description").asString())
+              .as(rule.get("alert").asString())
+              .contains("Advisory", "the plant's own procedures govern");
+          checked++;
+        }
+      }
+    }
+    assertThat(checked).isGreaterThanOrEqualTo(10);
+  }
+
+  @Test
+  void staleDataWatchesOnlyOnlineParametersAndServiceDownCoversAVanishedTarget() throws Exception {
+    Map<String, JsonNode> alerts = alertRules();
+    String stale = alerts.get("KwantaStaleData").get("expr").asString();
+    for (String periodic :
+        List.of("iron", "copper", "chloride", "sulfate", "silica", "phosphate")) {
+      assertThat(stale).contains(periodic);
+    }
+    assertThat(stale).contains("parameter!~");
+    assertThat(alerts.get("KwantaDown").get("expr").asString())
+        .contains("absent(up{job=\"kwanta\"})");
+    // the overrun is measured on the recorded levels, not on the held seconds (capped at a day)
+    assertThat(alerts.get("KwantaActionLevelAllowanceOverrun").get("expr").asString())
+        .contains("[168h]", "[24h]", "[4h]")
+        .doesNotContain("held_seconds");
+  }
+
+  @Test
+  void prometheusSendsToTheAlertmanagerWhoseInhibitRulesNameRealAlerts() throws Exception {
+    JsonNode config =
+        new YAMLMapper().readTree(Files.readString(PROMETHEUS.resolve("prometheus.yml")));
+    assertThat(
+            config
+                .get("alerting")
+                .get("alertmanagers")
+                .get(0)
+                .get("static_configs")
+                .get(0)
+                .get("targets")
+                .get(0)
+                .asString())
+        .isEqualTo("alertmanager:9093");
+    JsonNode alertmanager =
+        new YAMLMapper().readTree(Files.readString(ALERTMANAGER.resolve("alertmanager.yml")));
+    Set<String> names = alertRules().keySet();
+    boolean al3InhibitsAl1AndAl2 = false;
+    for (JsonNode rule : alertmanager.get("inhibit_rules")) {
+      String source = rule.get("source_matchers").toString();
+      String target = rule.get("target_matchers").toString();
+      java.util.regex.Matcher m =
+          java.util.regex.Pattern.compile("Kwanta[A-Za-z0-9]+").matcher(source + target);
+      while (m.find()) {
+        assertThat(names).contains(m.group());
+      }
+      if (source.contains("KwantaActionLevel3")
+          && source.contains("KwantaImmediateShutdown")
+          && target.contains("KwantaActionLevel1")
+          && target.contains("KwantaActionLevel2")) {
+        assertThat(rule.get("equal").toString()).contains("sample_point", "parameter");
+        al3InhibitsAl1AndAl2 = true;
+      }
+    }
+    assertThat(al3InhibitsAl1AndAl2).isTrue();
+  }
+
+  @Test
+  void amtoolAcceptsTheAlertmanagerConfiguration() throws Exception {
+    assertThat(Amtool.run(ALERTMANAGER, "check-config", "alertmanager.yml")).contains("SUCCESS");
   }
 }

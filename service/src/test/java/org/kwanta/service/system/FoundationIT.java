@@ -48,6 +48,17 @@ class FoundationIT {
   }
 
   @Test
+  void infoShowsTheBuildVersionAndTheAdvisoryCaution() {
+    HttpResponse<String> info = http.get("/actuator/info");
+    assertThat(info.statusCode()).isEqualTo(200);
+    // spring-boot-maven-plugin's build-info goal (service/pom.xml)
+    assertThat(info.body())
+        .containsPattern("\"build\":\\{[^}]*\"version\":\"\\d+\\.\\d+\\.\\d+[^\"]*\"")
+        .contains("\"artifact\":\"kwanta-service\"")
+        .contains("Results are advisory");
+  }
+
+  @Test
   void openApiDocumentCarriesTheAdvisoryCaution() {
     HttpResponse<String> docs = http.get("/v3/api-docs");
     assertThat(docs.statusCode()).isEqualTo(200);
