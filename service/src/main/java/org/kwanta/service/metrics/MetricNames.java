@@ -95,6 +95,21 @@ public final class MetricNames {
   public static final String INGEST_RETRIED = "kwanta.ingest.retried";
 
   /** Kind of meter, for the exposed suffixes. */
+  /** A threshold of the limits in force (normal range bounds and action levels). */
+  public static final String LIMIT_THRESHOLD = "kwanta.limit.threshold";
+
+  /** pH at 25 °C calculated from the conductivities, latest evaluation. */
+  public static final String SAMPLE_PH_CALCULATED = "kwanta.sample.ph.calculated";
+
+  /** Neutral pH at the operating temperature, latest evaluation. */
+  public static final String SAMPLE_NEUTRAL_PH = "kwanta.sample.neutral.ph.at.temperature";
+
+  /** Label: the level a threshold belongs to (NORMAL for the normal range's bounds). */
+  public static final String LEVEL = "level";
+
+  /** Label: which side a threshold bounds (HIGH or LOW). */
+  public static final String SIDE = "side";
+
   /** 1 per active finding of the diagnosis over time. */
   public static final String DIAGNOSIS_FINDING = "kwanta.diagnosis.finding";
 
@@ -177,6 +192,25 @@ public final class MetricNames {
               Type.GAUGE,
               POINT_PARAMETER,
               "1 when the instrument behind the latest value is in doubt, else 0"),
+          new Metric(
+              LIMIT_THRESHOLD,
+              "kwanta_limit_threshold",
+              Type.GAUGE,
+              List.of(PLANT, UNIT, SAMPLE_POINT, PARAMETER, LEVEL, SIDE),
+              "A threshold of the limits in force now, in the parameter's canonical unit (NORMAL:"
+                  + " the normal range's bound; AL1-AL3, SHUTDOWN: action levels)"),
+          new Metric(
+              SAMPLE_PH_CALCULATED,
+              "kwanta_sample_ph_calculated",
+              Type.GAUGE,
+              POINT,
+              "pH at 25 °C calculated from specific and cation conductivity (latest evaluation)"),
+          new Metric(
+              SAMPLE_NEUTRAL_PH,
+              "kwanta_sample_neutral_ph_at_temperature",
+              Type.GAUGE,
+              POINT,
+              "Neutral pH at the sample point's operating temperature (latest evaluation)"),
           new Metric(
               DIAGNOSIS_FINDING,
               "kwanta_diagnosis_finding",

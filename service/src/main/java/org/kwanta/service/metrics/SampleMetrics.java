@@ -42,6 +42,9 @@ class SampleMetrics {
   private final MultiGauge outsideNormal;
   private final MultiGauge inDoubt;
   private final MultiGauge age;
+  private final MultiGauge threshold;
+  private final MultiGauge phCalculated;
+  private final MultiGauge neutralPh;
 
   SampleMetrics(
       MeterRegistry registry,
@@ -62,6 +65,9 @@ class SampleMetrics {
     this.outsideNormal = gauge(registry, MetricNames.SAMPLE_OUTSIDE_NORMAL, null);
     this.inDoubt = gauge(registry, MetricNames.SAMPLE_INSTRUMENT_IN_DOUBT, null);
     this.age = gauge(registry, MetricNames.SAMPLE_READING_AGE, "seconds");
+    this.threshold = gauge(registry, MetricNames.LIMIT_THRESHOLD, null);
+    this.phCalculated = gauge(registry, MetricNames.SAMPLE_PH_CALCULATED, null);
+    this.neutralPh = gauge(registry, MetricNames.SAMPLE_NEUTRAL_PH, null);
   }
 
   private static MultiGauge gauge(MeterRegistry registry, String name, String baseUnit) {
@@ -104,17 +110,36 @@ class SampleMetrics {
                       new Latest(rs.getTimestamp(3).toInstant(), rs.getDouble(4)));
                 });
     Map<String, Double> ph = new HashMap<>();
+    Map<String, Double> neutral = new HashMap<>();
     jdbc.sql(
             """
-            SELECT s.id, e.ph_at_temperature FROM sample_point s
+            SELECT s.id, e.ph_at_temperature, e.neutral_ph_at_temperature FROM sample_point s
             CROSS JOIN LATERAL (
-              SELECT ph_at_temperature FROM evaluation
+              SELECT ph_at_temperature, neutral_ph_at_temperature FROM evaluation
               WHERE sample_point_id = s.id AND time >= ? AND ph_at_temperature IS NOT NULL
               ORDER BY time DESC LIMIT 1) e""")
         .param(Timestamp.from(since))
         .query(
             (org.springframework.jdbc.core.RowCallbackHandler)
-                rs -> ph.put(rs.getString(1), rs.getDouble(2)));
+                rs -> {
+                  ph.put(rs.getString(1), rs.getDouble(2));
+                  double n = rs.getDouble(3);
+                  if (!rs.wasNull()) {
+                    neutral.put(rs.getString(1), n);
+                  }
+                });
+    Map<String, Double> calculated = new HashMap<>();
+    jdbc.sql(
+            """
+            SELECT s.id, e.calculated_ph_25 FROM sample_point s
+            CROSS JOIN LATERAL (
+              SELECT calculated_ph_25 FROM evaluation
+              WHERE sample_point_id = s.id AND time >= ? AND calculated_ph_25 IS NOT NULL
+              ORDER BY time DESC LIMIT 1) e""")
+        .param(Timestamp.from(since))
+        .query(
+            (org.springframework.jdbc.core.RowCallbackHandler)
+                rs -> calculated.put(rs.getString(1), rs.getDouble(2)));
 
     List<MultiGauge.Row<?>> values = new ArrayList<>();
     List<MultiGauge.Row<?>> ages = new ArrayList<>();
@@ -123,6 +148,9 @@ class SampleMetrics {
     List<MultiGauge.Row<?>> outsides = new ArrayList<>();
     List<MultiGauge.Row<?>> doubts = new ArrayList<>();
     List<MultiGauge.Row<?>> phs = new ArrayList<>();
+    List<MultiGauge.Row<?>> thresholds = new ArrayList<>();
+    List<MultiGauge.Row<?>> calculateds = new ArrayList<>();
+    List<MultiGauge.Row<?>> neutrals = new ArrayList<>();
     for (Limits.Point point : limits.points(null, null)) {
       Tags pointTags =
           Tags.of(
@@ -131,6 +159,12 @@ class SampleMetrics {
               MetricNames.SAMPLE_POINT, point.id());
       if (ph.containsKey(point.id())) {
         phs.add(MultiGauge.Row.of(pointTags, ph.get(point.id())));
+      }
+      if (calculated.containsKey(point.id())) {
+        calculateds.add(MultiGauge.Row.of(pointTags, calculated.get(point.id())));
+      }
+      if (neutral.containsKey(point.id())) {
+        neutrals.add(MultiGauge.Row.of(pointTags, neutral.get(point.id())));
       }
       latest.forEach(
           (key, l) -> {
@@ -153,6 +187,7 @@ class SampleMetrics {
         }
         Classification last = classified.get(classified.size() - 1);
         Tags tags = pointTags.and(MetricNames.PARAMETER, parameter);
+        thresholdRows(effective.profile(), tags, thresholds);
         levels.add(MultiGauge.Row.of(tags, last.level().severity()));
         helds.add(
             MultiGauge.Row.of(tags, Duration.between(last.levelSince(), now).toMillis() / 1000.0));
@@ -167,5 +202,35 @@ class SampleMetrics {
     outsideNormal.register(outsides, true);
     inDoubt.register(doubts, true);
     phAtTemperature.register(phs, true);
+    threshold.register(thresholds, true);
+    phCalculated.register(calculateds, true);
+    neutralPh.register(neutrals, true);
+  }
+
+  /** The normal range's bounds and every action level of a profile as threshold rows. */
+  private static void thresholdRows(
+      org.kwanta.model.limits.LimitProfile profile, Tags tags, List<MultiGauge.Row<?>> out) {
+    profile
+        .normal()
+        .low()
+        .ifPresent(
+            v ->
+                out.add(
+                    MultiGauge.Row.of(
+                        tags.and(MetricNames.LEVEL, "NORMAL", MetricNames.SIDE, "LOW"), v)));
+    profile
+        .normal()
+        .high()
+        .ifPresent(
+            v ->
+                out.add(
+                    MultiGauge.Row.of(
+                        tags.and(MetricNames.LEVEL, "NORMAL", MetricNames.SIDE, "HIGH"), v)));
+    for (org.kwanta.model.limits.Threshold t : profile.thresholds()) {
+      out.add(
+          MultiGauge.Row.of(
+              tags.and(MetricNames.LEVEL, t.level().name(), MetricNames.SIDE, t.side().name()),
+              t.value()));
+    }
   }
 }

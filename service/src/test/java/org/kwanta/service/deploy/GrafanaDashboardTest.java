@@ -332,10 +332,43 @@ class GrafanaDashboardTest {
       if (!units.isEmpty()) {
         assertThat(defaults.get("unit").asString()).as(title).isEqualTo(units.iterator().next());
       }
-      // no limit lines of fixed numbers: the limits in force are per point, and the service exposes
-      // no limit metric (yet) to draw them from
+      // no limit lines of fixed numbers: the limits in force are per point, drawn from the
+      // service's kwanta_limit_threshold
       assertThat(defaults.has("thresholds")).as(title).isFalse();
     }
+  }
+
+  @Test
+  void limitLinesComeFromTheLimitsInForceAndPhIsShownMeasuredAndCalculated() throws Exception {
+    JsonNode dashboard = dashboard();
+    Map<String, String> panels =
+        Map.of(
+            "pH at 25 °C", "ph",
+            "Cation conductivity (µS/cm at 25 °C)", "cation_conductivity",
+            "Specific conductivity (µS/cm at 25 °C)", "specific_conductivity",
+            "Degassed cation conductivity (µS/cm at 25 °C)", "degassed_cation_conductivity",
+            "Sodium (µg/kg)", "sodium");
+    for (Map.Entry<String, String> e : panels.entrySet()) {
+      boolean hasLimits = false;
+      for (JsonNode t : panel(dashboard, e.getKey()).get("targets")) {
+        String expr = t.get("expr").asString();
+        if (expr.startsWith("kwanta_limit_threshold{")) {
+          hasLimits = true;
+          assertThat(expr).as(e.getKey()).contains("parameter=\"" + e.getValue() + "\"");
+        }
+      }
+      assertThat(hasLimits).as(e.getKey() + " draws the limits in force").isTrue();
+    }
+    String ph =
+        panel(dashboard, "pH at 25 °C: measured and calculated from the conductivities")
+            .get("targets")
+            .toString();
+    assertThat(ph).contains("kwanta_sample_value{").contains("kwanta_sample_ph_calculated{");
+    assertThat(
+            panel(dashboard, "pH at operating temperature and neutral pH")
+                .get("targets")
+                .toString())
+        .contains("kwanta_sample_neutral_ph_at_temperature{");
   }
 
   @Test
