@@ -143,7 +143,8 @@ class GrafanaDashboardTest {
     }
     assertThat(rows).contains("Plant overview", "pH and conductivity", "Excursions");
     assertThat(titles)
-        .contains("pH at operating temperature", "Cation conductivity (µS/cm at 25 °C)");
+        .contains(
+            "pH at operating temperature and neutral pH", "Cation conductivity (µS/cm at 25 °C)");
     assertThat(dashboard.get("uid").asString()).isEqualTo("kwanta-overview");
   }
 
