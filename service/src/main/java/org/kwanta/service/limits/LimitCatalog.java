@@ -3,6 +3,7 @@ package org.kwanta.service.limits;
 import java.io.IOException;
 import java.io.InputStream;
 import java.util.Collection;
+import java.util.EnumMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -11,6 +12,7 @@ import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.limits.PlantType;
 import org.kwanta.model.limits.TreatmentRegime;
 import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.dataformat.yaml.YAMLMapper;
@@ -27,6 +29,7 @@ public final class LimitCatalog {
 
   /** One entry: the same limits for several regimes and locations. */
   record Entry(
+      List<PlantType> plantTypes,
       List<TreatmentRegime> regimes,
       List<CycleLocation> locations,
       String parameter,
@@ -39,11 +42,17 @@ public final class LimitCatalog {
   private final int version;
   private final String notice;
   private final Map<LimitKey, LimitProfile> profiles;
+  private final Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType;
 
-  private LimitCatalog(int version, String notice, Map<LimitKey, LimitProfile> profiles) {
+  private LimitCatalog(
+      int version,
+      String notice,
+      Map<LimitKey, LimitProfile> profiles,
+      Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType) {
     this.version = version;
     this.notice = notice;
     this.profiles = profiles;
+    this.byPlantType = byPlantType;
   }
 
   /**
@@ -61,6 +70,7 @@ public final class LimitCatalog {
       throw new IllegalArgumentException("A limit file needs a version >= 1 and a notice");
     }
     Map<LimitKey, LimitProfile> profiles = new LinkedHashMap<>();
+    Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType = new EnumMap<>(PlantType.class);
     for (Entry e : file.profiles()) {
       LimitDocument doc =
           new LimitDocument(
@@ -73,16 +83,35 @@ public final class LimitCatalog {
         throw new IllegalArgumentException(
             "Limits for " + parameter.code() + ": 'regimes' and 'locations' must not be empty");
       }
+      if (e.plantTypes() != null && e.plantTypes().isEmpty()) {
+        throw new IllegalArgumentException(
+            "Limits for " + parameter.code() + ": 'plantTypes' must be omitted or not empty");
+      }
       for (TreatmentRegime regime : e.regimes()) {
         for (CycleLocation location : e.locations()) {
           LimitKey key = new LimitKey(regime, location, parameter);
-          if (profiles.put(key, doc.toProfile(key)) != null) {
-            throw new IllegalArgumentException("Limits for " + key + " are given twice");
+          if (e.plantTypes() == null) {
+            if (profiles.put(key, doc.toProfile(key)) != null) {
+              throw new IllegalArgumentException("Limits for " + key + " are given twice");
+            }
+            continue;
+          }
+          for (PlantType type : e.plantTypes()) {
+            if (byPlantType
+                    .computeIfAbsent(type, t -> new LinkedHashMap<>())
+                    .put(key, doc.toProfile(key))
+                != null) {
+              throw new IllegalArgumentException(
+                  "Limits for " + key + " (" + type + ") are given twice");
+            }
           }
         }
       }
     }
-    return new LimitCatalog(file.version(), file.notice().strip(), Map.copyOf(profiles));
+    Map<PlantType, Map<LimitKey, LimitProfile>> specific = new EnumMap<>(PlantType.class);
+    byPlantType.forEach((t, m) -> specific.put(t, Map.copyOf(m)));
+    return new LimitCatalog(
+        file.version(), file.notice().strip(), Map.copyOf(profiles), Map.copyOf(specific));
   }
 
   /** The data file's version. */
@@ -95,13 +124,31 @@ public final class LimitCatalog {
     return notice;
   }
 
-  /** The profile for a key, if the defaults have one. */
+  /**
+   * The profile for a key that applies to any plant type (entries without {@code plantTypes}), if
+   * the defaults have one; for a conventional drum plant use {@link #find(LimitKey, PlantType)}.
+   */
   public Optional<LimitProfile> find(LimitKey key) {
     return Optional.ofNullable(profiles.get(key));
   }
 
-  /** Every profile. */
+  /**
+   * The profile for a key at a plant of a type: an entry for that plant type if there is one,
+   * otherwise the entry for any plant type. A null type is {@link PlantType#CONVENTIONAL_DRUM}.
+   */
+  public Optional<LimitProfile> find(LimitKey key, PlantType plantType) {
+    PlantType type = plantType == null ? PlantType.CONVENTIONAL_DRUM : plantType;
+    LimitProfile specific = byPlantType.getOrDefault(type, Map.of()).get(key);
+    return specific != null ? Optional.of(specific) : find(key);
+  }
+
+  /** Every profile that applies to any plant type. */
   public Collection<LimitProfile> profiles() {
     return profiles.values();
+  }
+
+  /** Every profile that applies only to plants of a type (in addition to {@link #profiles()}). */
+  public Collection<LimitProfile> profiles(PlantType plantType) {
+    return byPlantType.getOrDefault(plantType, Map.of()).values();
   }
 }

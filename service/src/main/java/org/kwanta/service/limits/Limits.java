@@ -13,6 +13,7 @@ import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.LimitTimeline;
 import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.limits.PlantType;
 import org.kwanta.model.limits.TreatmentRegime;
 import org.kwanta.service.audit.AuditLog;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -45,7 +46,18 @@ public class Limits {
 
   /** A sample point's registry facts that limits and metrics need. */
   public record Point(
-      String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
+      String id,
+      String plant,
+      String unit,
+      String cycleLocation,
+      String treatmentRegime,
+      PlantType plantType) {
+
+    /** A point of a plant that declares no plant type (a conventional drum plant). */
+    public Point(
+        String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
+      this(id, plant, unit, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
+    }
 
     Optional<LimitKey> key(Parameter parameter) {
       return key(treatmentRegime, cycleLocation, parameter);
@@ -99,9 +111,10 @@ public class Limits {
   public List<Point> points(String plant, String samplePoint) {
     return jdbc.sql(
             """
-            SELECT id, plant_id, unit_id, cycle_location, treatment_regime FROM sample_point
-            WHERE (?::text IS NULL OR plant_id = ?) AND (?::text IS NULL OR id = ?)
-            ORDER BY id""")
+            SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type
+            FROM sample_point s JOIN plant p ON p.id = s.plant_id
+            WHERE (?::text IS NULL OR s.plant_id = ?) AND (?::text IS NULL OR s.id = ?)
+            ORDER BY s.id""")
         .params(plant, plant, samplePoint, samplePoint)
         .query(
             (rs, i) ->
@@ -110,7 +123,8 @@ public class Limits {
                     rs.getString(2),
                     rs.getString(3),
                     rs.getString(4),
-                    rs.getString(5)))
+                    rs.getString(5),
+                    PlantType.ofNullable(rs.getString(6))))
         .list();
   }
 
@@ -283,7 +297,7 @@ public class Limits {
         int version = a == null ? defaults.version() : a.version();
         e =
             Point.key(regimeName, location, parameter)
-                .flatMap(k -> defaultVersions.catalog(version).find(k))
+                .flatMap(k -> defaultVersions.catalog(version).find(k, point.plantType()))
                 .map(p -> new Effective(point, p, Origin.DEFAULT, version, from));
       }
       if (e.isPresent() ? e.get().sameAs(previous) : previousEmpty) {

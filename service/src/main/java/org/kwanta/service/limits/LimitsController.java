@@ -75,7 +75,15 @@ class LimitsController {
     }
   }
 
-  record DefaultsResponse(int version, String notice, List<ProfileResponse> profiles) {}
+  /**
+   * The shipped defaults: {@code profiles} apply to any plant type; {@code byPlantType} lists the
+   * entries that apply only to plants of a type and win there over {@code profiles}.
+   */
+  record DefaultsResponse(
+      int version,
+      String notice,
+      List<ProfileResponse> profiles,
+      java.util.Map<String, List<ProfileResponse>> byPlantType) {}
 
   @GetMapping("/limits/defaults")
   @Operation(summary = "The shipped example default limits (not the plant's limits)")
@@ -87,7 +95,23 @@ class LimitsController {
         catalog.profiles().stream()
             .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
             .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-            .toList());
+            .toList(),
+        byPlantType(catalog));
+  }
+
+  private static java.util.Map<String, List<ProfileResponse>> byPlantType(LimitCatalog catalog) {
+    java.util.Map<String, List<ProfileResponse>> out = new java.util.LinkedHashMap<>();
+    for (org.kwanta.model.limits.PlantType type : org.kwanta.model.limits.PlantType.values()) {
+      List<ProfileResponse> list =
+          catalog.profiles(type).stream()
+              .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
+              .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
+              .toList();
+      if (!list.isEmpty()) {
+        out.put(type.name(), list);
+      }
+    }
+    return out;
   }
 
   @GetMapping("/sample-points/{id}/limits")

@@ -16,13 +16,27 @@ import java.util.List;
  * @param samplePoints the sample points, each in one unit
  * @param coolingWater the condensers' cooling water ({@code SEA}, {@code BRACKISH}, {@code FRESH},
  *     {@code HARD_FRESH}); optional. The diagnosis names a condenser leak only when it is declared.
+ * @param plantType the kind of steam generator ({@code CONVENTIONAL_DRUM}, {@code HRSG}, {@code
+ *     ONCE_THROUGH}); optional, {@code CONVENTIONAL_DRUM} when absent. The default limits depend on
+ *     it from defaults version 2.
  */
 public record PlantDeclaration(
     @NotBlank @Size(max = 64) @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
     @NotBlank @Size(max = 200) String name,
     @NotNull @Size(max = 100) List<@Valid UnitDeclaration> units,
     @NotNull @Size(max = 2000) List<@Valid SamplePointDeclaration> samplePoints,
-    @Size(max = 32) String coolingWater) {
+    @Size(max = 32) String coolingWater,
+    @Size(max = 32) String plantType) {
+
+  /** A declaration without a plant type (a conventional drum plant). */
+  public PlantDeclaration(
+      String id,
+      String name,
+      List<UnitDeclaration> units,
+      List<SamplePointDeclaration> samplePoints,
+      String coolingWater) {
+    this(id, name, units, samplePoints, coolingWater, null);
+  }
 
   /** A declaration without a cooling water. */
   public PlantDeclaration(
@@ -30,7 +44,7 @@ public record PlantDeclaration(
       String name,
       List<UnitDeclaration> units,
       List<SamplePointDeclaration> samplePoints) {
-    this(id, name, units, samplePoints, null);
+    this(id, name, units, samplePoints, null, null);
   }
 
   /**

@@ -6,6 +6,7 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import org.kwanta.model.conductivity.Alkalizer;
 import org.kwanta.model.diagnosis.CoolingWater;
+import org.kwanta.model.limits.PlantType;
 import org.kwanta.service.audit.AuditLog;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -49,6 +50,17 @@ public class Plants {
                 + plant.coolingWater()
                 + "'; known: "
                 + java.util.Arrays.toString(CoolingWater.values()));
+      }
+    }
+    if (plant.plantType() != null) {
+      try {
+        PlantType.ofNullable(plant.plantType());
+      } catch (IllegalArgumentException e) {
+        problems.add(
+            "unknown plantType '"
+                + plant.plantType()
+                + "'; known: "
+                + java.util.Arrays.toString(PlantType.values()));
       }
     }
     for (PlantDeclaration.SamplePointDeclaration p : plant.samplePoints()) {
@@ -116,8 +128,8 @@ public class Plants {
   public Applied apply(PlantDeclaration plant, String changedBy) {
     boolean created = false;
     if (!exists(plant.id())) {
-      jdbc.sql("INSERT INTO plant (id, name, cooling_water) VALUES (?, ?, ?)")
-          .params(plant.id(), plant.name(), coolingWater(plant))
+      jdbc.sql("INSERT INTO plant (id, name, cooling_water, plant_type) VALUES (?, ?, ?, ?)")
+          .params(plant.id(), plant.name(), coolingWater(plant), plantType(plant))
           .update();
       created = true;
       audit.record(
@@ -126,23 +138,40 @@ public class Plants {
           plant.id(),
           null,
           java.util.Map.of(
-              "name", plant.name(), "coolingWater", String.valueOf(coolingWater(plant))));
+              "name",
+              plant.name(),
+              "coolingWater",
+              String.valueOf(coolingWater(plant)),
+              "plantType",
+              plantType(plant)));
     } else {
       java.util.Map<String, Object> before =
-          jdbc.sql("SELECT name, cooling_water FROM plant WHERE id = ?")
+          jdbc.sql("SELECT name, cooling_water, plant_type FROM plant WHERE id = ?")
               .param(plant.id())
               .query(
                   (rs, i) ->
                       java.util.Map.<String, Object>of(
-                          "name", rs.getString(1), "coolingWater", String.valueOf(rs.getString(2))))
+                          "name",
+                          rs.getString(1),
+                          "coolingWater",
+                          String.valueOf(rs.getString(2)),
+                          "plantType",
+                          rs.getString(3)))
               .single();
       int updated =
           jdbc.sql(
                   """
-                  UPDATE plant SET name = ?, cooling_water = ?
-                  WHERE id = ? AND (name <> ? OR cooling_water IS DISTINCT FROM ?)""")
+                  UPDATE plant SET name = ?, cooling_water = ?, plant_type = ?
+                  WHERE id = ?
+                    AND (name <> ? OR cooling_water IS DISTINCT FROM ? OR plant_type <> ?)""")
               .params(
-                  plant.name(), coolingWater(plant), plant.id(), plant.name(), coolingWater(plant))
+                  plant.name(),
+                  coolingWater(plant),
+                  plantType(plant),
+                  plant.id(),
+                  plant.name(),
+                  coolingWater(plant),
+                  plantType(plant))
               .update();
       if (updated > 0) {
         audit.record(
@@ -151,7 +180,12 @@ public class Plants {
             plant.id(),
             before,
             java.util.Map.of(
-                "name", plant.name(), "coolingWater", String.valueOf(coolingWater(plant))));
+                "name",
+                plant.name(),
+                "coolingWater",
+                String.valueOf(coolingWater(plant)),
+                "plantType",
+                plantType(plant)));
       }
     }
     for (PlantDeclaration.UnitDeclaration unit : plant.units()) {
@@ -187,6 +221,10 @@ public class Plants {
       }
     }
     return new Applied(created, inserted, changed);
+  }
+
+  private static String plantType(PlantDeclaration plant) {
+    return PlantType.ofNullable(plant.plantType()).name();
   }
 
   private static String coolingWater(PlantDeclaration plant) {
@@ -377,7 +415,17 @@ public class Plants {
                     .param(plantId)
                     .query(Plants::samplePoint)
                     .list(),
-                coolingWater(plantId)));
+                coolingWater(plantId),
+                plantType(plantId)));
+  }
+
+  /** The plant's declared plant type (CONVENTIONAL_DRUM when it declared none), or null. */
+  public String plantType(String plantId) {
+    return jdbc.sql("SELECT plant_type FROM plant WHERE id = ?")
+        .param(plantId)
+        .query(String.class)
+        .optional()
+        .orElse(null);
   }
 
   /** The plant's declared cooling water, or null. */

@@ -135,6 +135,24 @@ class ChemistryRecordIT {
         PLANT_LIMITS);
   }
 
+  /**
+   * The version of the shipped defaults this build brings (in force from the test database's
+   * start).
+   */
+  private static final int DEFAULTS_VERSION_NOW = 2;
+
+  private static JsonNode withoutVersion(JsonNode excursions) {
+    tools.jackson.databind.node.ArrayNode out = JSON.createArrayNode();
+    for (JsonNode e : excursions) {
+      tools.jackson.databind.node.ObjectNode copy =
+          ((tools.jackson.databind.node.ObjectNode) e).deepCopy();
+      copy.remove("limitsVersion");
+      copy.remove("limitsEffectiveFrom");
+      out.add(copy);
+    }
+    return out;
+  }
+
   private static String enc(String s) {
     return URLEncoder.encode(s, StandardCharsets.UTF_8);
   }
@@ -151,9 +169,15 @@ class ChemistryRecordIT {
     assertThat(before.get(0).get("limitsOrigin").asString()).isEqualTo("DEFAULT");
     assertThat(before.get(0).get("limitsVersion").asInt()).isEqualTo(1);
     assertThat(before.get(0).get("basis").asString()).isEqualTo("as-reported");
-    // Before any change, today's limits are last week's: both bases agree.
-    assertThat(excursions(point, "recomputed").body())
-        .isEqualTo(reported.replace("\"as-reported\"", "\"recomputed\""));
+    // Before any change, today's limits judge last week as last week's did: both bases agree.
+    // Today's
+    // defaults are a later version (2, in force since this database's start) with the same values
+    // for this point, so only the version and its start differ.
+    JsonNode recomputedBefore = JSON.readTree(excursions(point, "recomputed").body());
+    assertThat(recomputedBefore.get(0).get("limitsVersion").asInt())
+        .isEqualTo(DEFAULTS_VERSION_NOW);
+    assertThat(withoutVersion(recomputedBefore))
+        .isEqualTo(withoutVersion(JSON.readTree(reported.replace("as-reported", "recomputed"))));
 
     HttpResponse<String> put = putLimits(http, "");
     assertThat(put.statusCode()).as(put.body()).isEqualTo(200);
@@ -509,5 +533,105 @@ class ChemistryRecordIT {
         .isInstanceOf(DataAccessException.class)
         .rootCause()
         .hasMessageContaining("append-only");
+  }
+
+  /**
+   * A plant of a type with a feedwater and a condensate point (AVT(O)); the ids end in -FW, -CPD.
+   */
+  private String plantOfType(String plantType) {
+    String id = "type-" + UUID.randomUUID().toString().substring(0, 8);
+    String fw =
+        ("{\"id\":\"%s-FW\",\"unit\":\"U1\",\"name\":\"Economizer inlet\","
+                + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+                + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15.0}")
+            .formatted(id);
+    String cpd =
+        ("{\"id\":\"%s-CPD\",\"unit\":\"U1\",\"name\":\"Condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}")
+            .formatted(id);
+    String body =
+        ("{\"id\":\"%s\",\"name\":\"Plant type test (fictional)\",%s"
+                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s,%s]}")
+            .formatted(
+                id, plantType == null ? "" : "\"plantType\":\"" + plantType + "\",", fw, cpd);
+    HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
+    return id;
+  }
+
+  private JsonNode limitsNow(String samplePoint, String parameter) {
+    HttpResponse<String> r = http.get("/api/v1/sample-points/" + samplePoint + "/limits");
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    for (JsonNode p : JSON.readTree(r.body())) {
+      if (p.get("limits").get("parameter").asString().equals(parameter)) {
+        return p;
+      }
+    }
+    throw new AssertionError("no limits for " + parameter + " at " + samplePoint);
+  }
+
+  @Test
+  void aPlantDeclaredHrsgGetsTheHrsgFeedwaterPhRangeAndAConventionalPlantDoesNot() {
+    String hrsg = plantOfType("HRSG");
+    String conventional = plantOfType(null);
+    JsonNode h = limitsNow(hrsg + "-FW", "ph");
+    assertThat(h.get("origin").asString()).isEqualTo("DEFAULT");
+    assertThat(h.get("version").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
+    assertThat(h.get("limits").get("normal").get("low").asDouble()).isEqualTo(9.6);
+    assertThat(h.get("limits").get("normal").get("high").asDouble()).isEqualTo(10.0);
+    assertThat(h.get("limits").get("normal").get("source").asString())
+        .contains("HRSG")
+        .contains("from memory — verify");
+    JsonNode c = limitsNow(conventional + "-FW", "ph");
+    assertThat(c.get("limits").get("normal").get("low").asDouble()).isEqualTo(9.2);
+    assertThat(c.get("limits").get("normal").get("high").asDouble()).isEqualTo(9.6);
+    assertThat(jdbc.queryForObject("SELECT plant_type FROM plant WHERE id = ?", String.class, hrsg))
+        .isEqualTo("HRSG");
+    assertThat(
+            jdbc.queryForObject(
+                "SELECT plant_type FROM plant WHERE id = ?", String.class, conventional))
+        .isEqualTo("CONVENTIONAL_DRUM");
+
+    // The history: version 1 (the conventional range for every plant) before version 2 came into
+    // force, the HRSG range from then on.
+    JsonNode periods =
+        JSON.readTree(http.get("/api/v1/sample-points/" + hrsg + "-FW/limits/ph/history").body())
+            .get("periods");
+    assertThat(periods).hasSize(2);
+    assertThat(periods.get(0).get("limits").get("version").asInt()).isEqualTo(1);
+    assertThat(periods.get(0).get("limits").get("limits").get("normal").get("high").asDouble())
+        .isEqualTo(9.6);
+    assertThat(periods.get(1).get("limits").get("version").asInt()).isEqualTo(2);
+    assertThat(periods.get(1).get("limits").get("limits").get("normal").get("high").asDouble())
+        .isEqualTo(10.0);
+  }
+
+  @Test
+  void excursionsBeforeVersion2CameIntoForceAreUnchanged() {
+    String hrsg = plantOfType("HRSG");
+    String cpd = hrsg + "-CPD";
+    // Last week, an hour of condensate sodium at 3 µg/kg: version 1 has no action levels for it,
+    // version 2 puts it at AL1 (> 2, from memory — verify).
+    List<String> readings = new ArrayList<>();
+    for (int m = 0; m <= 60; m++) {
+      readings.add(
+          "{\"samplePoint\":\"%s\",\"parameter\":\"sodium\",\"time\":\"%s\",\"value\":3,\"unit\":\"ug/kg\"}"
+              .formatted(cpd, day.plusSeconds(3600L + 60L * m)));
+    }
+    HttpResponse<String> in =
+        http.post(
+            "/api/v1/readings",
+            "application/json",
+            "{\"readings\":[" + String.join(",", readings) + "]}");
+    assertThat(in.statusCode()).as(in.body()).isEqualTo(200);
+    String query = "/api/v1/excursions?samplePoint=" + cpd + "&parameter=sodium" + window();
+    HttpResponse<String> reported = http.get(query);
+    assertThat(reported.statusCode()).as(reported.body()).isEqualTo(200);
+    assertThat(JSON.readTree(reported.body())).isEmpty();
+    JsonNode recomputed = JSON.readTree(http.get(query + "&basis=recomputed").body());
+    assertThat(recomputed).hasSize(1);
+    assertThat(recomputed.get(0).get("highestLevel").asString()).isEqualTo("AL1");
+    assertThat(recomputed.get(0).get("limitsVersion").asInt()).isEqualTo(2);
   }
 }

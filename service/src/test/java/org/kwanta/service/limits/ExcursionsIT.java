@@ -212,5 +212,7 @@ class ExcursionsIT {
     JsonNode defaults = JSON.readTree(http.get("/api/v1/limits/defaults").body());
     assertThat(defaults.get("notice").asString()).contains("not this plant's limits");
     assertThat(defaults.get("profiles").size()).isGreaterThan(40);
+    assertThat(defaults.get("version").asInt()).isEqualTo(2);
+    assertThat(defaults.get("byPlantType").get("HRSG").toString()).contains("9.6").contains("HRSG");
   }
 }

@@ -14,6 +14,7 @@ import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.limits.PlantType;
 import org.kwanta.model.limits.Side;
 import org.kwanta.model.limits.Threshold;
 import org.kwanta.model.limits.TreatmentRegime;
@@ -35,6 +36,22 @@ class LimitCatalogTest {
     }
   }
 
+  static LimitCatalog version(int version) throws IOException {
+    try (InputStream in =
+        new ClassPathResource("limits/defaults-v" + version + ".yaml").getInputStream()) {
+      return LimitCatalog.read(in);
+    }
+  }
+
+  /** Every profile of a catalog, for any plant type and for each plant type. */
+  private static List<LimitProfile> all(LimitCatalog catalog) {
+    List<LimitProfile> out = new java.util.ArrayList<>(catalog.profiles());
+    for (PlantType type : PlantType.values()) {
+      out.addAll(catalog.profiles(type));
+    }
+    return out;
+  }
+
   private static LimitCatalog read(String yaml) throws IOException {
     return LimitCatalog.read(new ByteArrayInputStream(yaml.getBytes(StandardCharsets.UTF_8)));
   }
@@ -42,7 +59,7 @@ class LimitCatalogTest {
   @Test
   void defaultsLoadAndSayTheyAreExamples() throws IOException {
     LimitCatalog catalog = defaults();
-    assertThat(catalog.version()).isEqualTo(1);
+    assertThat(catalog.version()).isEqualTo(2);
     assertThat(catalog.notice())
         .contains("from memory — verify")
         .contains("not this plant's limits");
@@ -51,7 +68,7 @@ class LimitCatalogTest {
 
   @Test
   void everyDefaultValueCarriesItsSourceAndConfidence() throws IOException {
-    for (LimitProfile p : defaults().profiles()) {
+    for (LimitProfile p : all(defaults())) {
       assertThat(p.normal().source()).as(p.key() + " normal").contains("from memory — verify");
       for (Threshold t : p.thresholds()) {
         assertThat(t.source()).as(p.key() + " " + t.level()).contains("from memory — verify");
@@ -59,6 +76,86 @@ class LimitCatalogTest {
       assertThat(p.deadbandSource()).as(p.key() + " deadband").contains("no source");
       assertThat(p.persistenceSource()).as(p.key() + " persistence").contains("no source");
     }
+  }
+
+  @Test
+  void version1StaysAsReleased() throws IOException {
+    LimitCatalog v1 = version(1);
+    assertThat(v1.version()).isEqualTo(1);
+    LimitKey feedwaterPh =
+        new LimitKey(TreatmentRegime.AVT_O, CycleLocation.FEEDWATER, Parameter.PH);
+    for (PlantType type : PlantType.values()) {
+      assertThat(v1.profiles(type)).as(type.name()).isEmpty();
+      // Entries without plant types match any plant type: v1 judges an HRSG as it always did.
+      assertThat(v1.find(feedwaterPh, type).orElseThrow().normal().high().getAsDouble())
+          .isEqualTo(9.6);
+    }
+  }
+
+  @Test
+  void version2LoadsAndEveryEntryHasASource() throws IOException {
+    LimitCatalog v2 = version(2);
+    assertThat(v2.version()).isEqualTo(2);
+    assertThat(v2.profiles(PlantType.HRSG)).isNotEmpty();
+    for (LimitProfile p : all(v2)) {
+      assertThat(p.normal().source()).as(p.key() + " normal").isNotBlank();
+      assertThat(
+              p.normal().source().contains("from memory — verify")
+                  || p.normal().source().contains("no source"))
+          .as(p.key() + " normal source says how far it can be trusted")
+          .isTrue();
+      for (Threshold t : p.thresholds()) {
+        assertThat(t.source()).as(p.key() + " " + t.level()).contains("from memory — verify");
+      }
+      assertThat(p.deadbandSource()).as(p.key() + " deadband").contains("no source");
+      assertThat(p.persistenceSource()).as(p.key() + " persistence").contains("no source");
+    }
+  }
+
+  @Test
+  void hrsgFeedwaterPh97UnderAvtOIsNormalButNotAtAConventionalDrum() throws IOException {
+    LimitCatalog v2 = version(2);
+    LimitKey key = new LimitKey(TreatmentRegime.AVT_O, CycleLocation.FEEDWATER, Parameter.PH);
+    LimitProfile hrsg = v2.find(key, PlantType.HRSG).orElseThrow();
+    assertThat(hrsg.normal().source()).contains("HRSG").contains("from memory — verify");
+    assertThat(hrsg.normal().contains(9.7)).isTrue();
+    LimitProfile drum = v2.find(key, PlantType.CONVENTIONAL_DRUM).orElseThrow();
+    assertThat(drum.normal().contains(9.7)).isFalse();
+    // A plant that declares no type is a conventional drum plant.
+    assertThat(v2.find(key, null)).contains(drum);
+    assertThat(v2.find(key)).contains(drum);
+  }
+
+  @Test
+  void condensateSodiumHasActionLevelsInVersion2() throws IOException {
+    LimitProfile na =
+        version(2)
+            .find(
+                new LimitKey(TreatmentRegime.AVT_O, CycleLocation.CONDENSATE, Parameter.SODIUM),
+                PlantType.HRSG)
+            .orElseThrow();
+    assertThat(na.levelOf(1)).isEqualTo(Level.NORMAL);
+    assertThat(na.levelOf(3)).isEqualTo(Level.AL1);
+    assertThat(na.levelOf(5)).isEqualTo(Level.AL2);
+    assertThat(na.levelOf(9)).isEqualTo(Level.AL3);
+  }
+
+  @Test
+  void anEntryForAPlantTypeWinsOnlyForThatType() throws IOException {
+    String general = ENTRY.formatted("ug/kg", "general");
+    String hrsg =
+        general
+            .substring(general.indexOf("  - regimes"))
+            .replace("  - regimes", "  - plantTypes: [HRSG]\n    regimes")
+            .replace("general", "hrsg");
+    LimitCatalog catalog = read(general + hrsg);
+    LimitKey key = new LimitKey(TreatmentRegime.AVT_O, CycleLocation.FEEDWATER, Parameter.SODIUM);
+    assertThat(catalog.find(key, PlantType.HRSG).orElseThrow().normal().source()).isEqualTo("hrsg");
+    assertThat(catalog.find(key, PlantType.ONCE_THROUGH).orElseThrow().normal().source())
+        .isEqualTo("general");
+    assertThatThrownBy(() -> read(general + hrsg + hrsg.substring(hrsg.indexOf("  - plantTypes"))))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("(HRSG) are given twice");
   }
 
   @Test
