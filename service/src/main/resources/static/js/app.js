@@ -1,4 +1,5 @@
 // Kwanta chemist page: plain JavaScript over the public API (read key kept in this browser only).
+// Data from the API goes into the page as text nodes only (no HTML built from strings).
 'use strict';
 const $ = (id) => document.getElementById(id);
 const key = () => localStorage.getItem('kwanta.key') || '';
@@ -15,13 +16,37 @@ async function api(path) {
   return r.json();
 }
 
-// Every value from the API is escaped before it goes into HTML.
-function esc(text) {
-  return String(text).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' }[c]));
+// el('span', { class: 'x', title: 't' }, 'text', otherNode): an element; strings become text nodes.
+function el(tag, attrs, ...children) {
+  const e = document.createElement(tag);
+  for (const [k, v] of Object.entries(attrs || {})) {
+    if (v !== undefined && v !== null) e.setAttribute(k, v);
+  }
+  for (const c of children.flat()) {
+    if (c === null || c === undefined || c === false) continue;
+    e.append(c instanceof Node ? c : document.createTextNode(String(c)));
+  }
+  return e;
+}
+
+// svg elements for the charts
+function svgEl(tag, attrs, text) {
+  const e = document.createElementNS('http://www.w3.org/2000/svg', tag);
+  for (const [k, v] of Object.entries(attrs || {})) e.setAttribute(k, v);
+  if (text !== undefined) e.textContent = text;
+  return e;
 }
 
 const fmt = (v, digits) => (v === null || v === undefined || Number.isNaN(v)) ? '–' : Number(v).toFixed(digits);
 const age = (s) => s === undefined ? '–' : s < 120 ? Math.round(s) + ' s' : s < 7200 ? Math.round(s / 60) + ' min' : Math.round(s / 3600) + ' h';
+const words = (s) => String(s).toLowerCase().replace(/_/g, ' ');
+
+// several nodes, one per line
+function lines(nodes) {
+  const out = [];
+  nodes.forEach((n, i) => { if (i) out.push(el('br')); out.push(n); });
+  return out;
+}
 
 function latest(state, parameter) {
   return (state.readings || []).find((r) => r.parameter === parameter);
@@ -31,12 +56,26 @@ function latest(state, parameter) {
 const LEVEL_CLASS = { NORMAL: 'lvl-normal', OUTSIDE_NORMAL: 'lvl-outside', AL1: 'lvl-al1', AL2: 'lvl-al2', AL3: 'lvl-al3', SHUTDOWN: 'lvl-shutdown' };
 function levels(state) {
   const ls = state.levels || [];
-  if (ls.length === 0) return '–';
+  if (ls.length === 0) return ['–'];
   const shown = ls.filter((l) => l.level !== 'NORMAL' || l.instrumentInDoubt);
-  if (shown.length === 0) return '<span class="lvl lvl-normal">normal</span>';
-  return shown.map((l) => '<span class="lvl ' + LEVEL_CLASS[l.level] + '" title="' + esc(l.parameter) + ' ' + fmt(l.value, 3) + ' ' + esc(l.valueUnit)
-    + ' since ' + new Date(l.since).toLocaleString() + (l.instrumentInDoubt ? '; instrument in doubt' : '') + (l.calculatedValue ? '; calculated value' : '') + '">'
-    + (l.level === 'OUTSIDE_NORMAL' ? 'outside normal' : esc(l.level)) + ' ' + esc(l.parameter) + (l.instrumentInDoubt ? ' ?' : '') + '</span>').join('<br>');
+  if (shown.length === 0) return [el('span', { class: 'lvl lvl-normal' }, 'normal')];
+  return lines(shown.map((l) => el('span', {
+    class: 'lvl ' + (LEVEL_CLASS[l.level] || ''),
+    title: l.parameter + ' ' + fmt(l.value, 3) + ' ' + l.valueUnit + ' since ' + new Date(l.since).toLocaleString()
+      + (l.instrumentInDoubt ? '; instrument in doubt' : '') + (l.calculatedValue ? '; calculated value' : ''),
+  }, (l.level === 'OUTSIDE_NORMAL' ? 'outside normal' : l.level) + ' ' + l.parameter + (l.instrumentInDoubt ? ' ?' : ''))));
+}
+
+// The diagnosis of a row: the findings over time, then the instant checks not already among them.
+function diagnosisCell(ev, findings, diagnosis) {
+  if (findings.length === 0 && diagnosis.length === 0) {
+    return ev ? [el('span', { class: 'ok' }, 'consistent')] : ['–'];
+  }
+  const nodes = diagnosis.map((f) => el('span', { class: f.pointsAt === 'process' ? 'bad' : 'warn', title: f.explanation },
+    f.code + ' → ' + words(f.pointsAt)));
+  findings.filter((f) => !diagnosis.some((d) => d.code === f.code)).forEach((f) => nodes.push(
+    el('span', { class: f.suspect === 'PROCESS' ? 'bad' : 'warn', title: f.explanation }, f.code + ' → ' + words(f.suspect))));
+  return lines(nodes);
 }
 
 function row(state) {
@@ -50,28 +89,22 @@ function row(state) {
   const t = ev && ev.phAtTemperature;
   const findings = ev ? ev.findings : [];
   const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
-  const tr = document.createElement('tr');
   const cells = [
-    esc(state.samplePoint) + ' <small>' + esc(state.name) + '</small>',
-    esc(state.treatmentRegime),
-    fmt(at25('specific_conductivity'), 3),
-    fmt(at25('cation_conductivity'), 3),
-    fmt(at25('degassed_cation_conductivity'), 3),
-    ph ? fmt(ph.value, 2) : '–',
-    ev && ev.calculatedPh ? fmt(ev.calculatedPh.rigorous, 2) : '–',
-    t ? fmt(t.ph, 2) + ' <small>[' + fmt(t.low, 2) + '–' + fmt(t.high, 2) + '] at ' + fmt(t.temperatureCel, 0) + ' °C</small>' : '–',
-    t ? fmt(t.neutralPh, 2) : '–',
-    na ? fmt(na.value, 2) : '–',
-    findings.length === 0 && diagnosis.length === 0 ? (ev ? '<span class="ok">consistent</span>' : '–')
-      : diagnosis.map((f) => '<span class="' + (f.pointsAt === 'process' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
-        + esc(f.code) + ' → ' + esc(f.pointsAt.replace(/_/g, ' ')) + '</span>')
-        .concat(findings.filter((f) => !diagnosis.some((d) => d.code === f.code))
-          .map((f) => '<span class="' + (f.suspect === 'PROCESS' ? 'bad' : 'warn') + '" title="' + esc(f.explanation) + '">'
-            + esc(f.code) + ' → ' + esc(f.suspect.toLowerCase().replace(/_/g, ' ')) + '</span>')).join('<br>'),
-    state.evaluation ? age(state.evaluation.ageSeconds) : '–',
+    [state.samplePoint, ' ', el('small', {}, state.name)],
+    [state.treatmentRegime],
+    [fmt(at25('specific_conductivity'), 3)],
+    [fmt(at25('cation_conductivity'), 3)],
+    [fmt(at25('degassed_cation_conductivity'), 3)],
+    [ph ? fmt(ph.value, 2) : '–'],
+    [ev && ev.calculatedPh ? fmt(ev.calculatedPh.rigorous, 2) : '–'],
+    t ? [fmt(t.ph, 2), ' ', el('small', {}, '[' + fmt(t.low, 2) + '–' + fmt(t.high, 2) + '] at ' + fmt(t.temperatureCel, 0) + ' °C')] : ['–'],
+    [t ? fmt(t.neutralPh, 2) : '–'],
+    [na ? fmt(na.value, 2) : '–'],
+    diagnosisCell(ev, findings, diagnosis),
+    [state.evaluation ? age(state.evaluation.ageSeconds) : '–'],
     levels(state),
   ];
-  tr.innerHTML = cells.map((c, i) => '<td' + (i === 10 ? ' class="checks"' : i === 12 ? ' class="levels"' : '') + '>' + c + '</td>').join('');
+  const tr = el('tr', {}, cells.map((c, i) => el('td', { class: i === 10 ? 'checks' : i === 12 ? 'levels' : null }, c)));
   if (state.evaluation && state.evaluation.ageSeconds > 900) tr.classList.add('stale');
   tr.addEventListener('click', () => detail(state));
   return tr;
@@ -80,7 +113,7 @@ function row(state) {
 async function loadPlants() {
   const plants = await api('api/v1/plants');
   const select = $('plant');
-  select.innerHTML = plants.map((p) => '<option value="' + esc(p.id) + '">' + esc(p.name) + '</option>').join('');
+  select.replaceChildren(...plants.map((p) => el('option', { value: p.id }, p.name)));
   // the plant in the address (#plant=ID) is shown first, so a link can point at a plant
   const wanted = new URLSearchParams(location.hash.slice(1)).get('plant');
   if (wanted && plants.some((p) => p.id === wanted)) select.value = wanted;
@@ -101,23 +134,23 @@ async function refresh() {
   }
 }
 
-function chart(svg, series, lines) {
+function chart(svg, series, colours) {
   const W = 600, H = 220, L = 40, B = 20;
   const all = series.flatMap((s) => s.points.map((p) => p.y)).filter((y) => y !== null && Number.isFinite(y));
-  svg.innerHTML = '';
-  if (all.length === 0) { svg.innerHTML = '<text x="20" y="40">no data</text>'; return; }
+  if (all.length === 0) { svg.replaceChildren(svgEl('text', { x: 20, y: 40 }, 'no data')); return; }
   let lo = Math.min(...all), hi = Math.max(...all);
   if (hi - lo < 1e-9) { lo -= 0.5; hi += 0.5; }
   const t0 = Math.min(...series.flatMap((s) => s.points.map((p) => p.x)));
   const t1 = Math.max(...series.flatMap((s) => s.points.map((p) => p.x)));
   const x = (t) => L + (W - L - 5) * (t - t0) / Math.max(1, t1 - t0);
   const y = (v) => H - B - (H - B - 10) * (v - lo) / (hi - lo);
-  let out = '<text x="2" y="14" font-size="10">' + hi.toPrecision(4) + '</text><text x="2" y="' + (H - B) + '" font-size="10">' + lo.toPrecision(4) + '</text>';
+  const nodes = [svgEl('text', { x: 2, y: 14, 'font-size': 10 }, hi.toPrecision(4)),
+    svgEl('text', { x: 2, y: H - B, 'font-size': 10 }, lo.toPrecision(4))];
   series.forEach((s, i) => {
     const d = s.points.filter((p) => p.y !== null).map((p, j) => (j ? 'L' : 'M') + x(p.x).toFixed(1) + ',' + y(p.y).toFixed(1)).join('');
-    out += '<path d="' + d + '" fill="none" stroke="' + lines[i] + '" stroke-width="' + (i === 0 ? 2 : 1) + '"/>';
+    if (d) nodes.push(svgEl('path', { d, fill: 'none', stroke: colours[i], 'stroke-width': i === 0 ? 2 : 1 }));
   });
-  svg.innerHTML = out;
+  svg.replaceChildren(...nodes);
 }
 
 async function series(point, parameter) {
@@ -128,8 +161,8 @@ async function series(point, parameter) {
 }
 
 function evidence(e) {
-  return e ? ' <small>(' + esc(e.quantity) + ': expected ' + fmt(e.expected, 3) + ', read ' + fmt(e.read, 3)
-    + ', residual ' + fmt(e.residual, 3) + ', tolerance ±' + fmt(e.tolerance, 3) + ' ' + esc(e.unit) + ')</small>' : '';
+  return e ? el('small', {}, ' (' + e.quantity + ': expected ' + fmt(e.expected, 3) + ', read ' + fmt(e.read, 3)
+    + ', residual ' + fmt(e.residual, 3) + ', tolerance ±' + fmt(e.tolerance, 3) + ' ' + e.unit + ')') : null;
 }
 
 async function detail(state) {
@@ -137,26 +170,27 @@ async function detail(state) {
   $('detail-title').textContent = state.samplePoint + ' – ' + state.name;
   const ev = state.evaluation && state.evaluation.evaluation;
   const diagnosis = state.diagnosis ? state.diagnosis.findings : [];
-  $('findings').innerHTML = diagnosis.map((f) => '<li><strong>' + esc(f.code) + '</strong> → ' + esc(f.pointsAt.replace(/_/g, ' '))
-      + ': ' + esc(f.explanation) + evidence(f.evidence) + '</li>').join('')
-    + (ev && ev.findings.length
-      ? ev.findings.map((f) => '<li><strong>' + esc(f.code) + '</strong> → ' + esc(f.suspect.toLowerCase().replace(/_/g, ' ')) + ' (instant check): ' + esc(f.explanation) + '</li>').join('')
-      : '')
-    || '<li>No finding now: the channels agree with each other, their baselines and the neighbouring points.</li>';
+  const items = diagnosis.map((f) => el('li', {}, el('strong', {}, f.code), ' → ' + words(f.pointsAt) + ': ' + f.explanation, evidence(f.evidence)));
+  (ev ? ev.findings : []).forEach((f) => items.push(
+    el('li', {}, el('strong', {}, f.code), ' → ' + words(f.suspect) + ' (instant check): ' + f.explanation)));
+  if (items.length === 0) {
+    items.push(el('li', {}, 'No finding now: the channels agree with each other, their baselines and the neighbouring points.'));
+  }
+  $('findings').replaceChildren(...items);
   try {
     const r = await api('api/v1/sample-points/' + encodeURIComponent(state.samplePoint) + '/findings');
     const spans = [];
     for (const m of r.minutes) {
-      const key = m.findings.map((f) => f.code + ' → ' + f.pointsAt.replace(/_/g, ' ')).join(', ');
+      const k = m.findings.map((f) => f.code + ' → ' + words(f.pointsAt)).join(', ');
       const last = spans[spans.length - 1];
-      if (last && last.key === key && Date.parse(m.time) - Date.parse(last.to) <= 5 * 60000) last.to = m.time;
-      else spans.push({ key, from: m.time, to: m.time });
+      if (last && last.key === k && Date.parse(m.time) - Date.parse(last.to) <= 5 * 60000) last.to = m.time;
+      else spans.push({ key: k, from: m.time, to: m.time });
     }
-    $('history').innerHTML = spans.length
-      ? spans.reverse().map((s) => '<li>' + s.from.substring(5, 16).replace('T', ' ') + ' – ' + s.to.substring(11, 16) + ' UTC: ' + esc(s.key) + '</li>').join('')
-      : '<li>No finding in the last 24 h.</li>';
+    $('history').replaceChildren(...(spans.length
+      ? spans.reverse().map((s) => el('li', {}, s.from.substring(5, 16).replace('T', ' ') + ' – ' + s.to.substring(11, 16) + ' UTC: ' + s.key))
+      : [el('li', {}, 'No finding in the last 24 h.')]));
   } catch (e) {
-    $('history').innerHTML = '<li>Could not load the findings (' + esc(e.message) + ').</li>';
+    $('history').replaceChildren(el('li', {}, 'Could not load the findings (' + e.message + ').'));
   }
   $('provenance').textContent = ev && ev.phAtTemperature
     ? 'pH at ' + fmt(ev.phAtTemperature.temperatureCel, 0) + ' °C and ' + fmt(ev.phAtTemperature.pressureMPa, 2) + ' MPa: ' + ev.phAtTemperature.formulation + '. Configuration version ' + ev.configVersion + '.'

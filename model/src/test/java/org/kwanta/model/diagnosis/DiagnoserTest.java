@@ -31,9 +31,9 @@ class DiagnoserTest {
   }
 
   /**
-   * Near pure water the acid suppresses the water's own ions, so the first µg/kg adds less than the
-   * limiting value (reference notes §5.4, computed: pure NaCl 1 µg/kg Na gives +0.008 µS/cm from
-   * pure water, far below 1/10 of the +0.142 at 10 µg/kg).
+   * Near pure water the acid suppresses the water's own ions (Kw = [H⁺][OH⁻] is fixed), so the
+   * first µg/kg adds less than its share of the rise at 10 µg/kg: a property of the charge balance,
+   * no published table behind it.
    */
   @Test
   void nearPureWaterTheFirstSodiumAddsLessThanItsShare() {
