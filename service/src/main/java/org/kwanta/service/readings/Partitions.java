@@ -71,28 +71,33 @@ public class Partitions {
     if (unknown.isEmpty()) {
       return;
     }
-    ownTransaction.executeWithoutResult(
-        status -> {
-          jdbc.queryForObject("SELECT pg_advisory_xact_lock(?)", Object.class, LOCK_KEY);
-          Set<String> missing = new TreeSet<>();
-          Set<LocalDate> newDays = new TreeSet<>();
-          for (LocalDate day : unknown) {
-            for (String table : TABLES) {
-              String name = name(table, day);
-              Boolean exists =
-                  jdbc.queryForObject("SELECT to_regclass(?) IS NOT NULL", Boolean.class, name);
-              if (!Boolean.TRUE.equals(exists)) {
-                missing.add(name);
-                newDays.add(day);
-              }
+    // which partitions are missing (read only; the count is checked before anything is made)
+    Set<String> missing = new TreeSet<>();
+    Set<LocalDate> newDays = new TreeSet<>();
+    for (LocalDate day : unknown) {
+      for (String table : TABLES) {
+        String name = name(table, day);
+        if (!exists(name)) {
+          missing.add(name);
+          newDays.add(day);
+        }
+      }
+    }
+    if (newDays.size() > maxNewDays) {
+      throw new TooManyNewDaysException(newDays.size(), maxNewDays);
+    }
+    // each partition in a short transaction of its own, under the lock that retention takes too:
+    // CREATE TABLE ... PARTITION OF locks its parent exclusively, and holding one parent while
+    // waiting for the other deadlocked with ingest transactions that write both tables
+    for (String name : missing) {
+      String table = name.substring(0, name.length() - 10);
+      LocalDate day = LocalDate.parse(name.substring(name.length() - 8), SUFFIX);
+      ownTransaction.executeWithoutResult(
+          status -> {
+            jdbc.queryForObject("SELECT pg_advisory_xact_lock(?)", Object.class, LOCK_KEY);
+            if (exists(name)) {
+              return; // another instance or request made it meanwhile
             }
-          }
-          if (newDays.size() > maxNewDays) {
-            throw new TooManyNewDaysException(newDays.size(), maxNewDays);
-          }
-          for (String name : missing) {
-            String table = name.substring(0, name.length() - 10);
-            LocalDate day = LocalDate.parse(name.substring(name.length() - 8), SUFFIX);
             jdbc.execute(
                 "CREATE TABLE "
                     + name
@@ -104,9 +109,14 @@ public class Partitions {
                     + day.plusDays(1)
                     + " 00:00:00+00')");
             log.debug("Created partition {}", name);
-          }
-        });
+          });
+    }
     known.addAll(unknown);
+  }
+
+  private boolean exists(String name) {
+    return Boolean.TRUE.equals(
+        jdbc.queryForObject("SELECT to_regclass(?) IS NOT NULL", Boolean.class, name));
   }
 
   /** Forgets that the days have partitions: the next {@link #ensure} checks the database. */
