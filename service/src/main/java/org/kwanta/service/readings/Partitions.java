@@ -99,7 +99,7 @@ public class Partitions {
               return; // another instance or request made it meanwhile
             }
             jdbc.execute(
-                "CREATE TABLE "
+                "CREATE TABLE IF NOT EXISTS "
                     + name
                     + " PARTITION OF "
                     + table
@@ -114,9 +114,16 @@ public class Partitions {
     known.addAll(unknown);
   }
 
+  /**
+   * Whether the table exists, read from pg_class with the statement's snapshot (to_regclass reads
+   * the session's catalog cache, which may not yet show a table another session just committed).
+   */
   private boolean exists(String name) {
     return Boolean.TRUE.equals(
-        jdbc.queryForObject("SELECT to_regclass(?) IS NOT NULL", Boolean.class, name));
+        jdbc.queryForObject(
+            "SELECT EXISTS (SELECT 1 FROM pg_class WHERE relname = ? AND relkind IN ('r', 'p'))",
+            Boolean.class,
+            name));
   }
 
   /** Forgets that the days have partitions: the next {@link #ensure} checks the database. */
