@@ -106,20 +106,7 @@ public class IngestService {
    * valid.
    */
   public Outcome ingest(List<ReadingInput> inputs, List<RejectedReading> alreadyRejected) {
-    if (inputs == null || inputs.isEmpty()) {
-      throw new InvalidBatchException(
-          List.of(new RejectedReading(0, null, "batch has no readings")));
-    }
-    if (inputs.size() > limits.maxBatchSize()) {
-      throw new BatchTooLargeException(inputs.size(), limits.maxBatchSize());
-    }
-    Set<String> named = new TreeSet<>();
-    for (ReadingInput in : inputs) {
-      if (in != null && in.samplePoint() != null && in.samplePoint().length() <= 64) {
-        named.add(in.samplePoint());
-      }
-    }
-    ReadingValidator.Outcome checked = validator.validate(inputs, configs.existing(named));
+    ReadingValidator.Outcome checked = check(inputs);
     if (!checked.rejected().isEmpty() || !alreadyRejected.isEmpty()) {
       // a row the CSV parser refused is reported with the parser's reason only
       Set<Integer> parsedBad = new TreeSet<>();
@@ -594,6 +581,15 @@ public class IngestService {
    * @throws InvalidBatchException when any reading is invalid
    */
   public List<ValidReading> validateOnly(List<ReadingInput> inputs) {
+    ReadingValidator.Outcome checked = check(inputs);
+    if (!checked.rejected().isEmpty()) {
+      throw new InvalidBatchException(checked.rejected());
+    }
+    return checked.valid();
+  }
+
+  /** The batch's size checks and the validation of every reading against the registry. */
+  private ReadingValidator.Outcome check(List<ReadingInput> inputs) {
     if (inputs == null || inputs.isEmpty()) {
       throw new InvalidBatchException(
           List.of(new RejectedReading(0, null, "batch has no readings")));
@@ -607,11 +603,7 @@ public class IngestService {
         named.add(in.samplePoint());
       }
     }
-    ReadingValidator.Outcome checked = validator.validate(inputs, configs.existing(named));
-    if (!checked.rejected().isEmpty()) {
-      throw new InvalidBatchException(checked.rejected());
-    }
-    return checked.valid();
+    return validator.validate(inputs, configs.existing(named));
   }
 
   /** A validated reading as the evaluation reads it. */
