@@ -268,31 +268,44 @@ final class StoryBench {
         Duration.ofHours(3));
   }
 
+  /**
+   * The usual pair: condensate (SC, CACE, sodium) feeding the economizer inlet (SC, CACE, DCACE,
+   * pH), both brackish-water cooled, with a fault at one of them.
+   */
+  static List<PointSpec> condensateAndFeedwater(
+      Composition c,
+      Fault atCondensate,
+      double condensateRate,
+      Fault atFeedwater,
+      double feedwaterRate) {
+    return List.of(
+        new PointSpec(
+            point("CPD", CoolingWater.BRACKISH),
+            true,
+            true,
+            false,
+            false,
+            true,
+            c,
+            atCondensate,
+            condensateRate),
+        new PointSpec(
+            point("ECO", CoolingWater.BRACKISH, "CPD"),
+            true,
+            true,
+            true,
+            true,
+            false,
+            c,
+            atFeedwater,
+            feedwaterRate));
+  }
+
   static Story electrodeDrift() {
     Composition c = (h, sw) -> feedwater(1.0, sw);
     return new Story(
         "pH electrode drift −0.03 pH/h",
-        List.of(
-            new PointSpec(
-                point("CPD", CoolingWater.BRACKISH),
-                true,
-                true,
-                false,
-                false,
-                true,
-                c,
-                Fault.NONE,
-                0),
-            new PointSpec(
-                point("ECO", CoolingWater.BRACKISH, "CPD"),
-                true,
-                true,
-                true,
-                true,
-                false,
-                c,
-                Fault.PH_DRIFT,
-                0.03)),
+        condensateAndFeedwater(c, Fault.NONE, 0, Fault.PH_DRIFT, 0.03),
         "ECO",
         "PH_ELECTRODE_DRIFT",
         "PH",
@@ -304,27 +317,7 @@ final class StoryBench {
     Composition c = (h, sw) -> feedwater(1.0, sw);
     return new Story(
         "sodium analyser step +5 µg/kg",
-        List.of(
-            new PointSpec(
-                point("CPD", CoolingWater.BRACKISH),
-                true,
-                true,
-                false,
-                false,
-                true,
-                c,
-                Fault.SODIUM_STEP,
-                5.0),
-            new PointSpec(
-                point("ECO", CoolingWater.BRACKISH, "CPD"),
-                true,
-                true,
-                true,
-                true,
-                false,
-                c,
-                Fault.NONE,
-                0)),
+        condensateAndFeedwater(c, Fault.SODIUM_STEP, 5.0, Fault.NONE, 0),
         "CPD",
         "SODIUM_WITHOUT_CATION_RISE",
         "SODIUM",
@@ -336,27 +329,7 @@ final class StoryBench {
     Composition c = (h, sw) -> feedwater(1.0, sw);
     return new Story(
         "specific conductivity cell fouling −6 %/h",
-        List.of(
-            new PointSpec(
-                point("CPD", CoolingWater.BRACKISH),
-                true,
-                true,
-                false,
-                false,
-                true,
-                c,
-                Fault.NONE,
-                0),
-            new PointSpec(
-                point("ECO", CoolingWater.BRACKISH, "CPD"),
-                true,
-                true,
-                true,
-                true,
-                false,
-                c,
-                Fault.SC_FOULING,
-                0.06)),
+        condensateAndFeedwater(c, Fault.NONE, 0, Fault.SC_FOULING, 0.06),
         "ECO",
         "SPECIFIC_CONDUCTIVITY_DRIFT",
         "SPECIFIC_CONDUCTIVITY",
@@ -407,27 +380,7 @@ final class StoryBench {
     Composition c = (h, sw) -> feedwater(nh3.applyAsDouble(h), sw);
     return new Story(
         "alkalizer overdose",
-        List.of(
-            new PointSpec(
-                point("CPD", CoolingWater.BRACKISH),
-                true,
-                true,
-                false,
-                false,
-                true,
-                c,
-                Fault.NONE,
-                0),
-            new PointSpec(
-                point("ECO", CoolingWater.BRACKISH, "CPD"),
-                true,
-                true,
-                true,
-                true,
-                false,
-                c,
-                Fault.NONE,
-                0)),
+        condensateAndFeedwater(c, Fault.NONE, 0, Fault.NONE, 0),
         "ECO",
         "DOSING_CHANGE",
         "PROCESS",
