@@ -24,12 +24,20 @@ import tools.jackson.dataformat.yaml.YAMLMapper;
  */
 public final class LimitCatalog {
 
-  /** The data file: a version, a notice, and entries that expand over regimes and locations. */
-  record LimitFile(int version, String status, String notice, List<Entry> profiles) {}
+  /**
+   * The data file: a version, a notice, entries that expand over regimes and locations, and
+   * (version 3 on) guidance that no measured parameter carries, listed but never classified.
+   */
+  record LimitFile(
+      int version, String status, String notice, List<Entry> profiles, List<Guidance> guidance) {}
 
-  /** One entry: the same limits for several regimes and locations. */
+  /**
+   * One entry: the same limits for several regimes and locations; optionally only for some plant
+   * types and/or for a band of drum pressure.
+   */
   record Entry(
       List<PlantType> plantTypes,
+      PressureBand drumPressureMPa,
       List<TreatmentRegime> regimes,
       List<CycleLocation> locations,
       String parameter,
@@ -39,20 +47,79 @@ public final class LimitCatalog {
       LimitDocument.Sourced deadband,
       LimitDocument.SourcedDuration persistence) {}
 
+  /**
+   * A band of drum pressure, MPa: above {@code above} (exclusive; omitted: from 0) up to {@code
+   * upTo} (inclusive; omitted: no upper end). Matched against the drum pressure of a sample point
+   * (its operating pressure, or the saturation pressure at its operating temperature).
+   */
+  public record PressureBand(Double above, Double upTo) {
+
+    /** Whether a pressure (MPa) lies in the band; an unknown pressure (null) lies in none. */
+    public boolean contains(Double pressureMPa) {
+      return pressureMPa != null
+          && (above == null || pressureMPa > above)
+          && (upTo == null || pressureMPa <= upTo);
+    }
+
+    boolean overlaps(PressureBand o) {
+      double lo = above == null ? Double.NEGATIVE_INFINITY : above;
+      double hi = upTo == null ? Double.POSITIVE_INFINITY : upTo;
+      double oLo = o.above == null ? Double.NEGATIVE_INFINITY : o.above;
+      double oHi = o.upTo == null ? Double.POSITIVE_INFINITY : o.upTo;
+      return lo < oHi && oLo < hi;
+    }
+
+    @Override
+    public String toString() {
+      return "(" + (above == null ? "0" : above) + ", " + (upTo == null ? "∞" : upTo) + "] MPa";
+    }
+  }
+
+  /**
+   * Guidance that no measured parameter carries (for example phosphate treatment's Na:PO4 molar
+   * ratio): listed with the defaults, never classified.
+   */
+  public record Guidance(
+      String topic,
+      List<TreatmentRegime> regimes,
+      List<CycleLocation> locations,
+      String value,
+      String source) {}
+
+  /**
+   * A profile that applies in a band of drum pressure.
+   *
+   * @param plantTypes the plant types it applies to; empty: every plant type
+   */
+  public record Banded(List<PlantType> plantTypes, PressureBand band, LimitProfile profile) {
+
+    boolean appliesTo(LimitKey key, PlantType type, Double pressureMPa, boolean typed) {
+      return profile.key().equals(key)
+          && (typed ? plantTypes.contains(type) : plantTypes.isEmpty())
+          && band.contains(pressureMPa);
+    }
+  }
+
   private final int version;
   private final String notice;
   private final Map<LimitKey, LimitProfile> profiles;
   private final Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType;
+  private final List<Banded> banded;
+  private final List<Guidance> guidance;
 
   private LimitCatalog(
       int version,
       String notice,
       Map<LimitKey, LimitProfile> profiles,
-      Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType) {
+      Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType,
+      List<Banded> banded,
+      List<Guidance> guidance) {
     this.version = version;
     this.notice = notice;
     this.profiles = profiles;
     this.byPlantType = byPlantType;
+    this.banded = banded;
+    this.guidance = guidance;
   }
 
   /**
@@ -71,6 +138,7 @@ public final class LimitCatalog {
     }
     Map<LimitKey, LimitProfile> profiles = new LinkedHashMap<>();
     Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType = new EnumMap<>(PlantType.class);
+    List<Banded> banded = new java.util.ArrayList<>();
     for (Entry e : file.profiles()) {
       LimitDocument doc =
           new LimitDocument(
@@ -87,9 +155,42 @@ public final class LimitCatalog {
         throw new IllegalArgumentException(
             "Limits for " + parameter.code() + ": 'plantTypes' must be omitted or not empty");
       }
+      if (e.drumPressureMPa() != null) {
+        PressureBand b = e.drumPressureMPa();
+        if ((b.above() == null && b.upTo() == null)
+            || (b.above() != null && !(b.above() >= 0))
+            || (b.upTo() != null && !(b.upTo() > 0))
+            || (b.above() != null && b.upTo() != null && !(b.upTo() > b.above()))) {
+          throw new IllegalArgumentException(
+              "Limits for " + parameter.code() + ": drum pressure band " + b + " is not a band");
+        }
+      }
       for (TreatmentRegime regime : e.regimes()) {
         for (CycleLocation location : e.locations()) {
           LimitKey key = new LimitKey(regime, location, parameter);
+          if (e.drumPressureMPa() != null) {
+            Banded add =
+                new Banded(
+                    e.plantTypes() == null ? List.of() : List.copyOf(e.plantTypes()),
+                    e.drumPressureMPa(),
+                    doc.toProfile(key));
+            for (Banded b : banded) {
+              if (b.profile().key().equals(key)
+                  && sameScope(b, add)
+                  && b.band().overlaps(add.band())) {
+                throw new IllegalArgumentException(
+                    "Limits for "
+                        + key
+                        + ": drum pressure bands "
+                        + b.band()
+                        + " and "
+                        + add.band()
+                        + " overlap");
+              }
+            }
+            banded.add(add);
+            continue;
+          }
           if (e.plantTypes() == null) {
             if (profiles.put(key, doc.toProfile(key)) != null) {
               throw new IllegalArgumentException("Limits for " + key + " are given twice");
@@ -110,8 +211,38 @@ public final class LimitCatalog {
     }
     Map<PlantType, Map<LimitKey, LimitProfile>> specific = new EnumMap<>(PlantType.class);
     byPlantType.forEach((t, m) -> specific.put(t, Map.copyOf(m)));
+    List<Guidance> guidance = file.guidance() == null ? List.of() : List.copyOf(file.guidance());
+    for (Guidance g : guidance) {
+      if (g.topic() == null
+          || g.value() == null
+          || g.source() == null
+          || g.source().isBlank()
+          || g.regimes() == null
+          || g.regimes().isEmpty()
+          || g.locations() == null
+          || g.locations().isEmpty()) {
+        throw new IllegalArgumentException(
+            "Guidance '" + g.topic() + "' needs a topic, regimes, locations, a value and a source");
+      }
+    }
     return new LimitCatalog(
-        file.version(), file.notice().strip(), Map.copyOf(profiles), Map.copyOf(specific));
+        file.version(),
+        file.notice().strip(),
+        Map.copyOf(profiles),
+        Map.copyOf(specific),
+        List.copyOf(banded),
+        guidance);
+  }
+
+  /**
+   * Whether two banded entries compete for the same plants: both for any plant type, or both for
+   * plant types they share (an entry for a plant type wins over one for any type, so those never
+   * compete).
+   */
+  private static boolean sameScope(Banded a, Banded b) {
+    return a.plantTypes().isEmpty()
+        ? b.plantTypes().isEmpty()
+        : !java.util.Collections.disjoint(a.plantTypes(), b.plantTypes());
   }
 
   /** The data file's version. */
@@ -137,9 +268,43 @@ public final class LimitCatalog {
    * otherwise the entry for any plant type. A null type is {@link PlantType#CONVENTIONAL_DRUM}.
    */
   public Optional<LimitProfile> find(LimitKey key, PlantType plantType) {
+    return find(key, plantType, null);
+  }
+
+  /**
+   * The profile for a key at a plant of a type and a drum pressure, the first of: an entry for that
+   * plant type whose drum pressure band holds the pressure; an entry for that plant type without a
+   * band; an entry for any plant type whose band holds the pressure; an entry for any plant type
+   * without a band. A null type is {@link PlantType#CONVENTIONAL_DRUM}; a null pressure (unknown)
+   * matches no band.
+   */
+  public Optional<LimitProfile> find(LimitKey key, PlantType plantType, Double drumPressureMPa) {
     PlantType type = plantType == null ? PlantType.CONVENTIONAL_DRUM : plantType;
+    for (Banded b : banded) {
+      if (b.appliesTo(key, type, drumPressureMPa, true)) {
+        return Optional.of(b.profile());
+      }
+    }
     LimitProfile specific = byPlantType.getOrDefault(type, Map.of()).get(key);
-    return specific != null ? Optional.of(specific) : find(key);
+    if (specific != null) {
+      return Optional.of(specific);
+    }
+    for (Banded b : banded) {
+      if (b.appliesTo(key, type, drumPressureMPa, false)) {
+        return Optional.of(b.profile());
+      }
+    }
+    return find(key);
+  }
+
+  /** Every profile that applies in a band of drum pressure, in file order. */
+  public List<Banded> banded() {
+    return banded;
+  }
+
+  /** Guidance without a measured parameter (listed, never classified). */
+  public List<Guidance> guidance() {
+    return guidance;
   }
 
   /** Every profile that applies to any plant type. */

@@ -44,19 +44,56 @@ public class Limits {
     DEFAULT
   }
 
-  /** A sample point's registry facts that limits and metrics need. */
+  /**
+   * A sample point's registry facts that limits and metrics need.
+   *
+   * @param operatingTemperatureCel the configured operating temperature, °C (null: none)
+   * @param operatingPressureMPa the configured operating pressure, MPa (null: none)
+   */
   public record Point(
       String id,
       String plant,
       String unit,
       String cycleLocation,
       String treatmentRegime,
-      PlantType plantType) {
+      PlantType plantType,
+      Double operatingTemperatureCel,
+      Double operatingPressureMPa) {
 
     /** A point of a plant that declares no plant type (a conventional drum plant). */
     public Point(
         String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
       this(id, plant, unit, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
+    }
+
+    /** A point without operating conditions. */
+    public Point(
+        String id,
+        String plant,
+        String unit,
+        String cycleLocation,
+        String treatmentRegime,
+        PlantType plantType) {
+      this(id, plant, unit, cycleLocation, treatmentRegime, plantType, null, null);
+    }
+
+    /**
+     * The drum pressure that pressure-banded defaults are matched against, MPa: the configured
+     * operating pressure, or for a drum-water point without one the IF97 saturation pressure at its
+     * operating temperature (a drum is at saturation); null when neither is known.
+     */
+    static Double drumPressureMPa(String location, Double temperatureCel, Double pressureMPa) {
+      if (pressureMPa != null) {
+        return pressureMPa;
+      }
+      if (temperatureCel == null || !"DRUM_WATER".equals(location)) {
+        return null;
+      }
+      try {
+        return org.kwanta.model.water.Water.saturationPressurePa(temperatureCel + 273.15) / 1e6;
+      } catch (IllegalArgumentException outsideIf97) {
+        return null;
+      }
     }
 
     Optional<LimitKey> key(Parameter parameter) {
@@ -111,7 +148,8 @@ public class Limits {
   public List<Point> points(String plant, String samplePoint) {
     return jdbc.sql(
             """
-            SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type
+            SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type,
+                   s.operating_temperature_cel, s.operating_pressure_mpa
             FROM sample_point s JOIN plant p ON p.id = s.plant_id
             WHERE (?::text IS NULL OR s.plant_id = ?) AND (?::text IS NULL OR s.id = ?)
             ORDER BY s.id""")
@@ -124,7 +162,9 @@ public class Limits {
                     rs.getString(3),
                     rs.getString(4),
                     rs.getString(5),
-                    PlantType.ofNullable(rs.getString(6))))
+                    PlantType.ofNullable(rs.getString(6)),
+                    rs.getObject(7, Double.class),
+                    rs.getObject(8, Double.class)))
         .list();
   }
 
@@ -143,7 +183,8 @@ public class Limits {
       return o != null
           && origin == o.origin
           && version == o.version
-          && profile.key().equals(o.profile.key());
+          && profile.key().equals(o.profile.key())
+          && profile.equals(o.profile);
     }
   }
 
@@ -210,7 +251,8 @@ public class Limits {
       Instant recordedAt,
       String recordedBy) {}
 
-  private record RegimeVersion(Instant from, String regime, String location) {}
+  private record RegimeVersion(
+      Instant from, String regime, String location, Double temperatureCel, Double pressureMPa) {}
 
   /** Every profile in force at a point now, one per parameter that has limits. */
   public List<Effective> inForce(Point point) {
@@ -278,6 +320,11 @@ public class Limits {
       RegimeVersion regime = latest(regimes, RegimeVersion::from, s);
       String regimeName = regime == null ? point.treatmentRegime() : regime.regime();
       String location = regime == null ? point.cycleLocation() : regime.location();
+      Double drumPressure =
+          regime == null
+              ? Point.drumPressureMPa(
+                  location, point.operatingTemperatureCel(), point.operatingPressureMPa())
+              : Point.drumPressureMPa(location, regime.temperatureCel(), regime.pressureMPa());
       OverrideVersion override = latestOverride(overrides, s);
       Instant from = s.equals(Instant.MIN) ? null : s;
       Optional<Effective> e;
@@ -297,7 +344,8 @@ public class Limits {
         int version = a == null ? defaults.version() : a.version();
         e =
             Point.key(regimeName, location, parameter)
-                .flatMap(k -> defaultVersions.catalog(version).find(k, point.plantType()))
+                .flatMap(
+                    k -> defaultVersions.catalog(version).find(k, point.plantType(), drumPressure))
                 .map(p -> new Effective(point, p, Origin.DEFAULT, version, from));
       }
       if (e.isPresent() ? e.get().sameAs(previous) : previousEmpty) {
@@ -357,12 +405,19 @@ public class Limits {
   private List<RegimeVersion> regimeVersions(Point point) {
     return jdbc.sql(
             """
-            SELECT valid_from, config->>'treatmentRegime', config->>'cycleLocation'
+            SELECT valid_from, config->>'treatmentRegime', config->>'cycleLocation',
+                   (config->>'operatingTemperatureCel')::double precision,
+                   (config->>'operatingPressureMPa')::double precision
             FROM sample_point_version WHERE sample_point_id = ? ORDER BY version""")
         .param(point.id())
         .query(
             (rs, i) ->
-                new RegimeVersion(rs.getTimestamp(1).toInstant(), rs.getString(2), rs.getString(3)))
+                new RegimeVersion(
+                    rs.getTimestamp(1).toInstant(),
+                    rs.getString(2),
+                    rs.getString(3),
+                    rs.getObject(4, Double.class),
+                    rs.getObject(5, Double.class)))
         .list();
   }
 

@@ -83,7 +83,16 @@ class LimitsController {
       int version,
       String notice,
       List<ProfileResponse> profiles,
-      java.util.Map<String, List<ProfileResponse>> byPlantType) {}
+      java.util.Map<String, List<ProfileResponse>> byPlantType,
+      List<BandedResponse> byDrumPressure,
+      List<LimitCatalog.Guidance> guidance) {}
+
+  /**
+   * An entry that applies only in a band of drum pressure ({@code aboveMPa} exclusive, {@code
+   * upToMPa} inclusive, null: open), for the plant types named (empty: every type).
+   */
+  record BandedResponse(
+      List<String> plantTypes, Double aboveMPa, Double upToMPa, ProfileResponse limits) {}
 
   @GetMapping("/limits/defaults")
   @Operation(summary = "The shipped example default limits (not the plant's limits)")
@@ -96,7 +105,17 @@ class LimitsController {
             .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
             .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
             .toList(),
-        byPlantType(catalog));
+        byPlantType(catalog),
+        catalog.banded().stream()
+            .map(
+                b ->
+                    new BandedResponse(
+                        b.plantTypes().stream().map(Enum::name).toList(),
+                        b.band().above(),
+                        b.band().upTo(),
+                        ProfileResponse.of(b.profile(), "DEFAULT", catalog.version(), null)))
+            .toList(),
+        catalog.guidance());
   }
 
   private static java.util.Map<String, List<ProfileResponse>> byPlantType(LimitCatalog catalog) {

@@ -24,8 +24,9 @@ import tools.jackson.dataformat.yaml.YAMLMapper;
 
 /**
  * The shipped default limits load and validate. The numbers in them are recalled from the IAPWS
- * technical guidance (from memory — verify); these tests check that every value says so, not the
- * numbers themselves.
+ * technical guidance (from memory — verify) or retrieved from a named public page; these tests
+ * check that every value says which, and, for the retrieved drum-water silica table (ASME CRTD-Vol.
+ * 34, as transcribed at the page named in the file), that the bands select the printed values.
  */
 class LimitCatalogTest {
 
@@ -43,13 +44,19 @@ class LimitCatalogTest {
     }
   }
 
-  /** Every profile of a catalog, for any plant type and for each plant type. */
+  /** Every profile of a catalog: for any plant type, for each plant type, and pressure-banded. */
   private static List<LimitProfile> all(LimitCatalog catalog) {
     List<LimitProfile> out = new java.util.ArrayList<>(catalog.profiles());
     for (PlantType type : PlantType.values()) {
       out.addAll(catalog.profiles(type));
     }
+    catalog.banded().forEach(b -> out.add(b.profile()));
     return out;
+  }
+
+  /** A source text says how far it can be trusted: recalled (verify) or retrieved from a page. */
+  private static boolean trustStated(String source) {
+    return source.contains("from memory — verify") || source.contains("RETRIEVED");
   }
 
   private static LimitCatalog read(String yaml) throws IOException {
@@ -59,7 +66,7 @@ class LimitCatalogTest {
   @Test
   void defaultsLoadAndSayTheyAreExamples() throws IOException {
     LimitCatalog catalog = defaults();
-    assertThat(catalog.version()).isEqualTo(2);
+    assertThat(catalog.version()).isEqualTo(3);
     assertThat(catalog.notice())
         .contains("from memory — verify")
         .contains("not this plant's limits");
@@ -69,9 +76,9 @@ class LimitCatalogTest {
   @Test
   void everyDefaultValueCarriesItsSourceAndConfidence() throws IOException {
     for (LimitProfile p : all(defaults())) {
-      assertThat(p.normal().source()).as(p.key() + " normal").contains("from memory — verify");
+      assertThat(trustStated(p.normal().source())).as(p.key() + " normal").isTrue();
       for (Threshold t : p.thresholds()) {
-        assertThat(t.source()).as(p.key() + " " + t.level()).contains("from memory — verify");
+        assertThat(trustStated(t.source())).as(p.key() + " " + t.level()).isTrue();
       }
       assertThat(p.deadbandSource()).as(p.key() + " deadband").contains("no source");
       assertThat(p.persistenceSource()).as(p.key() + " persistence").contains("no source");
@@ -203,7 +210,10 @@ class LimitCatalogTest {
     for (JsonNode point : plant.get("samplePoints")) {
       CycleLocation location = CycleLocation.valueOf(point.get("cycleLocation").asString());
       if (location == CycleLocation.MAKE_UP) {
-        continue; // section 6 of the reference notes gives no make-up water values
+        // Version 3: make-up water has specific conductivity and silica, no cation conductivity.
+        assertThat(catalog.find(new LimitKey(regime(point), location, Parameter.SILICA)))
+            .isPresent();
+        continue;
       }
       TreatmentRegime regime = TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
       if (regime == TreatmentRegime.PT && location == CycleLocation.DRUM_WATER) {
@@ -219,6 +229,168 @@ class LimitCatalogTest {
       checked++;
     }
     assertThat(checked).isEqualTo(16);
+  }
+
+  private static TreatmentRegime regime(JsonNode point) {
+    return TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
+  }
+
+  private static final LimitKey AVT_DRUM_SILICA =
+      new LimitKey(TreatmentRegime.AVT_O, CycleLocation.DRUM_WATER, Parameter.SILICA);
+
+  @Test
+  void drumWaterSilicaFollowsTheAsmeDrumPressureBands() throws IOException {
+    LimitCatalog v3 = defaults();
+    // ASME CRTD-Vol. 34 table, boiler water silica, mg/l, as transcribed at the page the file
+    // names:
+    // 0-2.07 MPa < 150, 2.08-3.10 < 90, 3.11-4.14 < 40, 4.15-5.17 < 30, 5.18-6.21 < 20,
+    // 6.22-6.89 < 8, 6.90-10.34 < 2, 10.35-13.79 < 1.
+    double[][] pressureAndBound = {
+      {1.0, 150_000}, {2.07, 150_000}, {2.5, 90_000}, {4.0, 40_000}, {5.0, 30_000},
+      {6.0, 20_000}, {6.5, 8_000}, {10.0, 2_000}, {12.86, 1_000}, {13.79, 1_000}
+    };
+    for (double[] pb : pressureAndBound) {
+      for (PlantType type : List.of(PlantType.CONVENTIONAL_DRUM, PlantType.HRSG)) {
+        LimitProfile p = v3.find(AVT_DRUM_SILICA, type, pb[0]).orElseThrow();
+        assertThat(p.normal().high().getAsDouble()).as(pb[0] + " MPa " + type).isEqualTo(pb[1]);
+        assertThat(p.normal().source()).contains("ASME CRTD-Vol. 34").contains("RETRIEVED");
+      }
+    }
+    // Above the table, and with no known drum pressure: no default.
+    assertThat(v3.find(AVT_DRUM_SILICA, PlantType.CONVENTIONAL_DRUM, 15.0)).isEmpty();
+    assertThat(v3.find(AVT_DRUM_SILICA, PlantType.CONVENTIONAL_DRUM, null)).isEmpty();
+    assertThat(v3.find(AVT_DRUM_SILICA)).isEmpty();
+    // Version 2 has no drum-water silica at any pressure.
+    assertThat(version(2).find(AVT_DRUM_SILICA, PlantType.CONVENTIONAL_DRUM, 10.0)).isEmpty();
+  }
+
+  @Test
+  void version3CarriesVersion2sEntriesOver() throws IOException {
+    LimitCatalog v2 = version(2);
+    LimitCatalog v3 = defaults();
+    for (LimitProfile p : v2.profiles()) {
+      if (p.key().parameter() == Parameter.DEGASSED_CATION_CONDUCTIVITY) {
+        // v3 adds action levels in steam; the normal range stays.
+        assertThat(v3.find(p.key()).orElseThrow().normal()).isEqualTo(p.normal());
+        continue;
+      }
+      assertThat(v3.find(p.key())).as(p.key().toString()).contains(p);
+    }
+    for (PlantType type : PlantType.values()) {
+      for (LimitProfile p : v2.profiles(type)) {
+        assertThat(v3.find(p.key(), type)).as(type + " " + p.key()).contains(p);
+      }
+    }
+  }
+
+  @Test
+  void steamDegassedCationConductivityHasTheSteamActionLevelsInVersion3() throws IOException {
+    LimitProfile p =
+        defaults()
+            .find(
+                new LimitKey(
+                    TreatmentRegime.AVT_O,
+                    CycleLocation.MAIN_STEAM,
+                    Parameter.DEGASSED_CATION_CONDUCTIVITY))
+            .orElseThrow();
+    assertThat(p.thresholds()).extracting(Threshold::value).containsExactly(0.2, 0.35, 0.65);
+    assertThat(p.thresholds().get(0).source()).contains("from memory — verify");
+  }
+
+  @Test
+  void makeUpWaterHasConductivityAndSilicaInVersion3() throws IOException {
+    LimitCatalog v3 = defaults();
+    LimitKey conductivity =
+        new LimitKey(
+            TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, Parameter.SPECIFIC_CONDUCTIVITY);
+    assertThat(v3.find(conductivity).orElseThrow().normal().high().getAsDouble()).isEqualTo(0.1);
+    assertThat(
+            v3.find(new LimitKey(TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, Parameter.SILICA))
+                .orElseThrow()
+                .normal()
+                .high()
+                .getAsDouble())
+        .isEqualTo(10);
+  }
+
+  @Test
+  void guidanceWithoutAParameterIsListedWithItsSource() throws IOException {
+    List<LimitCatalog.Guidance> guidance = defaults().guidance();
+    assertThat(guidance)
+        .extracting(LimitCatalog.Guidance::topic)
+        .anyMatch(t -> t.contains("Na:PO4"));
+    assertThat(guidance)
+        .extracting(LimitCatalog.Guidance::topic)
+        .anyMatch(t -> t.contains("free sodium hydroxide"));
+    for (LimitCatalog.Guidance g : guidance) {
+      assertThat(trustStated(g.source())).as(g.topic()).isTrue();
+    }
+  }
+
+  private static final String BANDED =
+      """
+      version: 9
+      status: EXAMPLE
+      notice: test
+      profiles:
+        - regimes: [AVT_O]
+          locations: [DRUM_WATER]
+          parameter: chloride
+          unit: ug/kg
+          normal: {high: 500, source: "s"}
+          deadband: {value: 1, source: "s"}
+          persistence: {value: PT0S, source: "s"}
+        - regimes: [AVT_O]
+          locations: [DRUM_WATER]
+          drumPressureMPa: {upTo: 10}
+          parameter: chloride
+          unit: ug/kg
+          normal: {high: 300, source: "s"}
+          deadband: {value: 1, source: "s"}
+          persistence: {value: PT0S, source: "s"}
+        - regimes: [AVT_O]
+          locations: [DRUM_WATER]
+          drumPressureMPa: {above: %s}
+          parameter: chloride
+          unit: ug/kg
+          normal: {high: 100, source: "s"}
+          deadband: {value: 1, source: "s"}
+          persistence: {value: PT0S, source: "s"}
+        - plantTypes: [HRSG]
+          regimes: [AVT_O]
+          locations: [DRUM_WATER]
+          drumPressureMPa: {above: 10}
+          parameter: chloride
+          unit: ug/kg
+          normal: {high: 50, source: "s"}
+          deadband: {value: 1, source: "s"}
+          persistence: {value: PT0S, source: "s"}
+      """;
+
+  private static final LimitKey CHLORIDE =
+      new LimitKey(TreatmentRegime.AVT_O, CycleLocation.DRUM_WATER, Parameter.CHLORIDE);
+
+  private static double chlorideBound(LimitCatalog c, PlantType type, Double pressure) {
+    return c.find(CHLORIDE, type, pressure).orElseThrow().normal().high().getAsDouble();
+  }
+
+  @Test
+  void aBandMatchesItsPressuresUpperEndIncludedAndAPlantTypeBandComesFirst() throws IOException {
+    LimitCatalog c = read(BANDED.formatted("10"));
+    assertThat(chlorideBound(c, PlantType.CONVENTIONAL_DRUM, 10.0)).isEqualTo(300);
+    assertThat(chlorideBound(c, PlantType.CONVENTIONAL_DRUM, 10.01)).isEqualTo(100);
+    assertThat(chlorideBound(c, PlantType.HRSG, 12.0)).isEqualTo(50);
+    assertThat(chlorideBound(c, PlantType.HRSG, 5.0)).isEqualTo(300);
+    // Unknown drum pressure: no band matches, the entry without a band applies.
+    assertThat(chlorideBound(c, PlantType.CONVENTIONAL_DRUM, null)).isEqualTo(500);
+    assertThat(chlorideBound(c, PlantType.HRSG, null)).isEqualTo(500);
+  }
+
+  @Test
+  void rejectsOverlappingBandsOfOneKey() {
+    assertThatThrownBy(() -> read(BANDED.formatted("9")))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("overlap");
   }
 
   private static final String ENTRY =
