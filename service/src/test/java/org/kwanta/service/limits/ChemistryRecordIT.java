@@ -139,7 +139,7 @@ class ChemistryRecordIT {
    * The version of the shipped defaults this build brings (in force from the test database's
    * start).
    */
-  private static final int DEFAULTS_VERSION_NOW = 2;
+  private static final int DEFAULTS_VERSION_NOW = 3;
 
   private static JsonNode withoutVersion(JsonNode excursions) {
     tools.jackson.databind.node.ArrayNode out = JSON.createArrayNode();
@@ -593,8 +593,8 @@ class ChemistryRecordIT {
                 "SELECT plant_type FROM plant WHERE id = ?", String.class, conventional))
         .isEqualTo("CONVENTIONAL_DRUM");
 
-    // The history: version 1 (the conventional range for every plant) before version 2 came into
-    // force, the HRSG range from then on.
+    // The history: version 1 (the conventional range for every plant) before this build's defaults
+    // version came into force in the test database, the HRSG range from then on.
     JsonNode periods =
         JSON.readTree(http.get("/api/v1/sample-points/" + hrsg + "-FW/limits/ph/history").body())
             .get("periods");
@@ -602,17 +602,17 @@ class ChemistryRecordIT {
     assertThat(periods.get(0).get("limits").get("version").asInt()).isEqualTo(1);
     assertThat(periods.get(0).get("limits").get("limits").get("normal").get("high").asDouble())
         .isEqualTo(9.6);
-    assertThat(periods.get(1).get("limits").get("version").asInt()).isEqualTo(2);
+    assertThat(periods.get(1).get("limits").get("version").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
     assertThat(periods.get(1).get("limits").get("limits").get("normal").get("high").asDouble())
         .isEqualTo(10.0);
   }
 
   @Test
-  void excursionsBeforeVersion2CameIntoForceAreUnchanged() {
+  void excursionsBeforeThisBuildsDefaultsCameIntoForceAreUnchanged() {
     String hrsg = plantOfType("HRSG");
     String cpd = hrsg + "-CPD";
     // Last week, an hour of condensate sodium at 3 µg/kg: version 1 has no action levels for it,
-    // version 2 puts it at AL1 (> 2, from memory — verify).
+    // versions 2 and 3 put it at AL1 (> 2, from memory — verify).
     List<String> readings = new ArrayList<>();
     for (int m = 0; m <= 60; m++) {
       readings.add(
@@ -632,6 +632,6 @@ class ChemistryRecordIT {
     JsonNode recomputed = JSON.readTree(http.get(query + "&basis=recomputed").body());
     assertThat(recomputed).hasSize(1);
     assertThat(recomputed.get(0).get("highestLevel").asString()).isEqualTo("AL1");
-    assertThat(recomputed.get(0).get("limitsVersion").asInt()).isEqualTo(2);
+    assertThat(recomputed.get(0).get("limitsVersion").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
   }
 }

@@ -212,7 +212,13 @@ class ExcursionsIT {
     JsonNode defaults = JSON.readTree(http.get("/api/v1/limits/defaults").body());
     assertThat(defaults.get("notice").asString()).contains("not this plant's limits");
     assertThat(defaults.get("profiles").size()).isGreaterThan(40);
-    assertThat(defaults.get("version").asInt()).isEqualTo(2);
+    assertThat(defaults.get("version").asInt()).isEqualTo(3);
     assertThat(defaults.get("byPlantType").get("HRSG").toString()).contains("9.6").contains("HRSG");
+    // Version 3: drum-water silica by drum pressure band, and guidance without a parameter.
+    JsonNode firstBand = defaults.get("byDrumPressure").get(0);
+    assertThat(firstBand.get("upToMPa").asDouble()).isEqualTo(2.07);
+    assertThat(firstBand.get("limits").get("limits").get("parameter").asString())
+        .isEqualTo("silica");
+    assertThat(defaults.get("guidance").toString()).contains("Na:PO4").contains("source");
   }
 }
