@@ -226,7 +226,8 @@ class DefaultsVersion3IT {
     assertThat(periods.get(2).get("limits").get("version").asInt()).isEqualTo(3);
 
     // Drum-water silica by drum pressure: the HP drum has no configured pressure, so its drum
-    // pressure is the saturation pressure at 330 °C (12.86 MPa, IF97): band 10.35-13.79 MPa,
+    // pressure is the saturation pressure at 330 °C (12.86 MPa, IF97; Debian python3-iapws
+    // IAPWS97(T=603.15, x=0).P = 12.8575 MPa): band 10.35-13.79 MPa,
     // < 1 mg/kg. The LP drum is configured at 0.5 MPa: band 0-2.07 MPa, < 150 mg/kg.
     JsonNode hp = limitsNow(v3, "D3-HP-DRUM", "silica");
     assertThat(hp.get("version").asInt()).isEqualTo(3);
