@@ -26,7 +26,7 @@ import tools.jackson.dataformat.yaml.YAMLMapper;
  * The shipped default limits load and validate. The numbers in them are recalled from the IAPWS
  * technical guidance (from memory — verify) or retrieved from a named public page; these tests
  * check that every value says which, and, for the retrieved drum-water silica table (ASME CRTD-Vol.
- * 34, as transcribed at the page named in the file), that the bands select the printed values.
+ * 34, as copied at the page named in the file), that the bands select the printed values.
  */
 class LimitCatalogTest {
 
@@ -241,7 +241,7 @@ class LimitCatalogTest {
   @Test
   void drumWaterSilicaFollowsTheAsmeDrumPressureBands() throws IOException {
     LimitCatalog v3 = defaults();
-    // ASME CRTD-Vol. 34 table, boiler water silica, mg/l, as transcribed at the page the file
+    // ASME CRTD-Vol. 34 table, boiler water silica, mg/l, as copied at the page the file
     // names:
     // 0-2.07 MPa < 150, 2.08-3.10 < 90, 3.11-4.14 < 40, 4.15-5.17 < 30, 5.18-6.21 < 20,
     // 6.22-6.89 < 8, 6.90-10.34 < 2, 10.35-13.79 < 1.
