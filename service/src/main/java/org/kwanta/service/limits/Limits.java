@@ -180,11 +180,7 @@ public class Limits {
       Point point, LimitProfile profile, Origin origin, int version, Instant effectiveFrom) {
 
     boolean sameAs(Effective o) {
-      return o != null
-          && origin == o.origin
-          && version == o.version
-          && profile.key().equals(o.profile.key())
-          && profile.equals(o.profile);
+      return o != null && origin == o.origin && version == o.version && profile.equals(o.profile);
     }
   }
 
