@@ -127,7 +127,9 @@ public final class LimitCatalog {
    *
    * @throws IllegalArgumentException naming the entry when an entry is incomplete, has a value
    *     without a source, a unit that is not the parameter's canonical unit, thresholds out of
-   *     order, or repeats a (regime, location, parameter) of an earlier entry
+   *     order, repeats a (regime, location, parameter) of an earlier entry, has a drum pressure
+   *     band that is not a band or overlaps another of the same key and plant types, or guidance
+   *     without a source
    */
   public static LimitCatalog read(InputStream in) throws IOException {
     YAMLMapper mapper =

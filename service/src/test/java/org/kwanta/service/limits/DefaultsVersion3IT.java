@@ -29,7 +29,8 @@ import tools.jackson.databind.json.JsonMapper;
  * version 2 has been in force since two weeks ago and last week's readings are judged by it; then a
  * release with version 3 starts. Last week's excursions, monthly hours and stored evaluations as
  * reported are identical before and after; recomputed with today's limits they differ exactly where
- * version 3 differs (steam degassed cation conductivity now has action levels).
+ * version 3 differs (steam degassed cation conductivity now has action levels). Drum-water silica
+ * follows the drum pressure band of the point's configuration version in force.
  *
  * <p>The plant is invented (demo only). The thresholds crossed are the recalled IAPWS steam values
  * (0.2 / 0.35 / 0.65 µS/cm, from memory — verify); the drum-water silica bounds checked are the
@@ -237,5 +238,32 @@ class DefaultsVersion3IT {
         .contains("10.35-13.79 MPa");
     JsonNode lp = limitsNow(v3, "D3-LP-DRUM", "silica");
     assertThat(lp.get("limits").get("normal").get("high").asDouble()).isEqualTo(150_000);
+
+    // The drum pressure is part of the point's configuration versions: raised to 3.0 MPa (band
+    // 2.08-3.10 MPa, < 90 mg/kg) from now on, the earlier period keeps < 150 mg/kg.
+    HttpResponse<String> changed =
+        v3.send(
+            "PUT",
+            "/api/v1/sample-points/D3-LP-DRUM",
+            "application/json",
+            """
+            {"id":"D3-LP-DRUM","unit":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
+             "treatmentRegime":"AVT_O","operatingTemperatureCel":150,"operatingPressureMPa":3.0}""");
+    assertThat(changed.statusCode()).as(changed.body()).isEqualTo(200);
+    assertThat(
+            limitsNow(v3, "D3-LP-DRUM", "silica")
+                .get("limits")
+                .get("normal")
+                .get("high")
+                .asDouble())
+        .isEqualTo(90_000);
+    JsonNode silica =
+        get(v3, "/api/v1/sample-points/D3-LP-DRUM/limits/silica/history").get("periods");
+    assertThat(silica).hasSize(3);
+    assertThat(silica.get(0).get("limits").isNull()).isTrue();
+    assertThat(silica.get(1).get("limits").get("limits").get("normal").get("high").asDouble())
+        .isEqualTo(150_000);
+    assertThat(silica.get(2).get("limits").get("limits").get("normal").get("high").asDouble())
+        .isEqualTo(90_000);
   }
 }
