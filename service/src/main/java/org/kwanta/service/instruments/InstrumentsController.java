@@ -69,6 +69,60 @@ class InstrumentsController {
       @NotBlank @Size(max = 32) String unit,
       Double reference) {}
 
+  /** One logged check; who logged it is the key of the request. */
+  record CheckResponse(
+      long id,
+      String samplePoint,
+      String parameter,
+      CheckKind kind,
+      Instant performedAt,
+      Outcome outcome,
+      List<InstrumentLog.Result> results,
+      String note,
+      Instant recordedAt,
+      String recordedByKeyId,
+      String recordedBy) {
+    static CheckResponse from(InstrumentLog.Check c) {
+      return new CheckResponse(
+          c.id(),
+          c.samplePoint(),
+          c.parameter().code(),
+          c.kind(),
+          c.performedAt(),
+          c.outcome(),
+          c.results(),
+          c.note(),
+          c.recordedAt(),
+          c.keyId(),
+          c.keyName());
+    }
+  }
+
+  /** One check of one instrument: when it was last done and when it is next due. */
+  record DueResponse(
+      String samplePoint,
+      String parameter,
+      CheckKind kind,
+      long intervalDays,
+      Instant lastDone,
+      Outcome lastOutcome,
+      Instant lastPerformed,
+      Instant nextDue,
+      CheckSchedule.Status status) {
+    static DueResponse from(CheckSchedule.Due d) {
+      return new DueResponse(
+          d.samplePoint(),
+          d.parameter().code(),
+          d.kind(),
+          d.intervalDays(),
+          d.lastDone(),
+          d.lastOutcome(),
+          d.lastPerformed(),
+          d.nextDue(),
+          d.status());
+    }
+  }
+
   @PostMapping("/api/v1/sample-points/{samplePoint}/instrument-checks")
   @ResponseStatus(HttpStatus.CREATED)
   @Operation(
@@ -78,7 +132,7 @@ class InstrumentsController {
               + " SODIUM_CALIBRATION (sodium), CATION_RESIN_CHANGE (cation conductivities),"
               + " DISSOLVED_OXYGEN_ZERO_SPAN (dissolved_oxygen); outcome PASSED, ADJUSTED or"
               + " FAILED. Appended and audited; who logged it is the key of the request.")
-  InstrumentLog.Check record(@PathVariable String samplePoint, @Valid @RequestBody CheckRequest r) {
+  CheckResponse record(@PathVariable String samplePoint, @Valid @RequestBody CheckRequest r) {
     requirePoint(samplePoint);
     Parameter p = parameter(r.parameter());
     if (!r.kind().appliesTo(p)) {
@@ -94,16 +148,18 @@ class InstrumentsController {
             : r.results().stream()
                 .map(x -> new InstrumentLog.Result(x.name(), x.value(), x.unit(), x.reference()))
                 .toList();
-    return log.record(
-        samplePoint, p, r.kind(), r.performedAt(), r.outcome(), results, r.note(), by);
+    return CheckResponse.from(
+        log.record(samplePoint, p, r.kind(), r.performedAt(), r.outcome(), results, r.note(), by));
   }
 
   @GetMapping("/api/v1/sample-points/{samplePoint}/instrument-checks")
   @Operation(summary = "The check log of a sample point's instruments, oldest first")
-  List<InstrumentLog.Check> checks(
+  List<CheckResponse> checks(
       @PathVariable String samplePoint, @RequestParam(required = false) String parameter) {
     requirePoint(samplePoint);
-    return log.checks(samplePoint, parameter == null ? null : parameter(parameter));
+    return log.checks(samplePoint, parameter == null ? null : parameter(parameter)).stream()
+        .map(CheckResponse::from)
+        .toList();
   }
 
   @GetMapping("/api/v1/plants/{plant}/instrument-checks/due")
@@ -113,11 +169,12 @@ class InstrumentsController {
           "At `at` (default now): per instrument and applicable check, the last successful one,"
               + " the next due date (last + interval of its kind, kwanta.instruments.*) and IN_DATE,"
               + " OVERDUE or NEVER_DONE.")
-  List<CheckSchedule.Due> due(
-      @PathVariable String plant, @RequestParam(required = false) String at) {
+  List<DueResponse> due(@PathVariable String plant, @RequestParam(required = false) String at) {
     requirePlant(plant);
     Instant when = TimeParameters.instant("at", at);
-    return schedule.at(plant, when == null ? clock.instant() : when);
+    return schedule.at(plant, when == null ? clock.instant() : when).stream()
+        .map(DueResponse::from)
+        .toList();
   }
 
   /** One core instrument's availability in the month. */
