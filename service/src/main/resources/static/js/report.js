@@ -118,10 +118,23 @@ async function trend(report, c) {
     s.appendChild(lt);
   }
   points.sort((a, b) => a[0] - b[0]);
-  s.appendChild(svg('polyline', {
-    points: points.map((p) => x(p[0]).toFixed(1) + ',' + y(p[1]).toFixed(1)).join(' '),
-    class: 'trend',
-  }));
+  // no line across a stretch without data (a shut-down, an analyser off): a new segment after a gap
+  const gap = 2 * 1000 * (series.bucketSeconds || 3600);
+  let segment = [];
+  const flush = () => {
+    if (segment.length > 0) {
+      s.appendChild(svg('polyline', {
+        points: segment.map((p) => x(p[0]).toFixed(1) + ',' + y(p[1]).toFixed(1)).join(' '),
+        class: 'trend',
+      }));
+    }
+    segment = [];
+  };
+  for (const p of points) {
+    if (segment.length > 0 && p[0] - segment[segment.length - 1][0] > gap) flush();
+    segment.push(p);
+  }
+  flush();
   box.appendChild(s);
 }
 
@@ -172,7 +185,8 @@ function render(r) {
       { text: c.checksInPeriod, num: true }]);
   }
 
-  $('grab').textContent = (r.grabVsOnline.available ? '' : 'Not yet available. ') + r.grabVsOnline.note;
+  const note = r.grabVsOnline.note || '';
+  $('grab').textContent = note.charAt(0).toUpperCase() + note.slice(1);
 }
 
 async function load() {

@@ -1,11 +1,11 @@
 package org.kwanta.service.reports;
 
 import java.util.Locale;
+import org.kwanta.service.system.CsvCells;
 
 /**
  * A report as one CSV table in long form: {@code section,sample_point,parameter,item,value,unit},
- * one row per figure, so a spreadsheet can filter by section. RFC 4180 quoting; a leading formula
- * character is neutralised.
+ * one row per figure, so a spreadsheet can filter by section ({@link CsvCells} quoting).
  */
 final class ReportCsv {
 
@@ -97,18 +97,8 @@ final class ReportCsv {
       if (i > 0) {
         sb.append(',');
       }
-      sb.append(cell(cells[i]));
+      sb.append(CsvCells.of(cells[i]));
     }
     sb.append("\r\n");
-  }
-
-  private static String cell(String s) {
-    if (s == null) {
-      return "";
-    }
-    String v = !s.isEmpty() && "=+@".indexOf(s.charAt(0)) >= 0 ? "'" + s : s;
-    return v.contains(",") || v.contains("\"") || v.contains("\n") || v.contains("\r")
-        ? "\"" + v.replace("\"", "\"\"") + "\""
-        : v;
   }
 }

@@ -6,8 +6,8 @@ import java.time.Instant;
 import java.time.Year;
 import java.time.YearMonth;
 import java.time.ZoneOffset;
-import java.util.Locale;
 import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ResponseFormats;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -84,7 +84,7 @@ class ReportsController {
             .optional()
             .orElseThrow(() -> BadRequestException.notFound("plant", plant));
     Report report = reports.build(plant, name, period, label, from, to);
-    if (csv(format, accept)) {
+    if (ResponseFormats.csvRequested(format, accept)) {
       return ResponseEntity.ok()
           .contentType(MediaType.parseMediaType("text/csv;charset=UTF-8"))
           .header(
@@ -93,16 +93,5 @@ class ReportsController {
           .body(ReportCsv.of(report));
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(report);
-  }
-
-  private static boolean csv(String format, String accept) {
-    if (format != null) {
-      return switch (format.toLowerCase(Locale.ROOT)) {
-        case "csv" -> true;
-        case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
-      };
-    }
-    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
   }
 }

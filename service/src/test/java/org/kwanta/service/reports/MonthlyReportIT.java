@@ -274,8 +274,8 @@ class MonthlyReportIT {
   /**
    * The printable page in Debian's headless Chromium (as PageIT): the index shows, the trend is
    * drawn, and the browser reports no error (a Content-Security-Policy violation would be one).
-   * Screenshot: target/screenshots/report-2026-04.png. Without the browser this part is left out
-   * (logged), except in CI, where it fails.
+   * Screenshots: target/screenshots/report-2026-04.png (1100 px) and report-2026-04-390.png.
+   * Without the browser this part is left out (logged), except in CI, where it fails.
    */
   private void printablePage(String plant) {
     Path chromium = Path.of("/usr/bin/chromium");
@@ -310,7 +310,8 @@ class MonthlyReportIT {
       WebDriverWait wait = new WebDriverWait(driver, Duration.ofSeconds(30));
       wait.until(d -> d.findElement(By.id("index")).getText().startsWith("99.45"));
       wait.until(d -> !d.findElements(By.cssSelector("#trends polyline")).isEmpty());
-      assertThat(driver.findElement(By.id("grab")).getText()).startsWith("Not yet available.");
+      assertThat(driver.findElement(By.id("grab")).getText())
+          .startsWith("Not yet available: lab and grab results are not stored yet");
       assertThat(driver.findElements(By.cssSelector("#bars rect"))).hasSize(3);
       assertThat(driver.findElement(By.id("channels")).getText())
           .contains("654.00")
@@ -320,6 +321,10 @@ class MonthlyReportIT {
       Files.createDirectories(dir);
       Files.write(
           dir.resolve("report-2026-04.png"),
+          ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES));
+      driver.manage().window().setSize(new org.openqa.selenium.Dimension(390, 2600));
+      Files.write(
+          dir.resolve("report-2026-04-390.png"),
           ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES));
       List<String> errors =
           driver.manage().logs().get(LogType.BROWSER).getAll().stream()
