@@ -256,6 +256,14 @@ public class ExcursionFinder {
     return out;
   }
 
+  /**
+   * Per parameter, the limits of one point over time on a basis (parameters without limits left
+   * out).
+   */
+  public Map<Parameter, Limits.History> histories(Limits.Point point, Basis basis) {
+    return histories(point, basis, clock.instant());
+  }
+
   /** The limits of one point and parameter over time on a basis, if it has any. */
   public Optional<Limits.History> history(Limits.Point point, Parameter parameter, Basis basis) {
     return Optional.ofNullable(histories(point, basis, clock.instant()).get(parameter));

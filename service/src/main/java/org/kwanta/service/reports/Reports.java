@@ -95,13 +95,14 @@ class Reports {
     List<Map<Level, Double>> channelHours = new ArrayList<>();
     for (Limits.Point point : limits.points(plant, null)) {
       ServiceTime t = service.get(point.unit());
-      for (Parameter p : Parameter.values()) {
-        var history = finder.history(point, p, ExcursionFinder.Basis.AS_REPORTED);
-        if (history.isEmpty() || !asOf.isAfter(from)) {
-          continue;
-        }
+      if (!asOf.isAfter(from)) {
+        continue;
+      }
+      for (Map.Entry<Parameter, Limits.History> limitsOf :
+          finder.histories(point, ExcursionFinder.Basis.AS_REPORTED).entrySet()) {
+        Parameter p = limitsOf.getKey();
         List<Classification> classified =
-            finder.classify(point, history.get(), p, from.minus(LOOKBACK), asOf);
+            finder.classify(point, limitsOf.getValue(), p, from.minus(LOOKBACK), asOf);
         if (classified.isEmpty()) {
           continue;
         }
