@@ -61,7 +61,7 @@ function bars(channels) {
   for (const c of channels) {
     const label = el('div', c.samplePoint + ' · ' + c.parameter + ' (' + num(c.hoursInService, 1) + ' h)', 'small');
     box.appendChild(label);
-    const s = svg('svg', { width, height: 18, role: 'img', 'aria-label': label.textContent });
+    const s = svg('svg', { width, height: 18, viewBox: '0 0 ' + width + ' 18', role: 'img', 'aria-label': label.textContent });
     let x = 0;
     for (const level of LEVELS) {
       const h = c.hoursByLevel[level] || 0;
@@ -105,7 +105,7 @@ async function trend(report, c) {
   vmax = vmax > 0 ? vmax * 1.1 : 1;
   const x = (t) => L + ((W - L - 5) * (t - t0)) / Math.max(1, t1 - t0);
   const y = (v) => H - B - ((H - B - 5) * v) / vmax;
-  const s = svg('svg', { width: W, height: H, role: 'img', 'aria-label': 'trend of ' + c.samplePoint + ' ' + c.parameter });
+  const s = svg('svg', { width: W, height: H, viewBox: '0 0 ' + W + ' ' + H, role: 'img', 'aria-label': 'trend of ' + c.samplePoint + ' ' + c.parameter });
   s.appendChild(svg('line', { x1: L, y1: H - B, x2: W, y2: H - B, stroke: '#333' }));
   s.appendChild(svg('line', { x1: L, y1: 0, x2: L, y2: H - B, stroke: '#333' }));
   const top = svg('text', { x: 2, y: 12, class: 'axis' });
