@@ -190,6 +190,18 @@ public final class Excursions {
    * levels with no time are left out.
    */
   public static List<MonthlyHours> monthlyHours(List<Classification> classified, Instant asOf) {
+    return monthlyHours(classified, asOf, null);
+  }
+
+  /**
+   * Time per action level per calendar month (UTC) as {@link #monthlyHours(List, Instant)},
+   * counting only the time inside {@code counted} (for instance the stretches the unit was in
+   * service).
+   *
+   * @param counted windows that do not overlap one another; null counts all time
+   */
+  public static List<MonthlyHours> monthlyHours(
+      List<Classification> classified, Instant asOf, List<TimeWindow> counted) {
     Map<YearMonth, Map<Level, Duration>> sums = new TreeMap<>();
     for (LevelSpan span : timeline(classified, asOf)) {
       Instant from = span.start();
@@ -197,8 +209,12 @@ public final class Excursions {
         YearMonth month = YearMonth.from(from.atOffset(ZoneOffset.UTC));
         Instant monthEnd = month.plusMonths(1).atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
         Instant to = monthEnd.isBefore(span.end()) ? monthEnd : span.end();
-        sums.computeIfAbsent(month, m -> new EnumMap<>(Level.class))
-            .merge(span.level().actionLevel(), Duration.between(from, to), Duration::plus);
+        Duration time =
+            counted == null ? Duration.between(from, to) : TimeWindow.overlap(counted, from, to);
+        if (!time.isZero()) {
+          sums.computeIfAbsent(month, m -> new EnumMap<>(Level.class))
+              .merge(span.level().actionLevel(), time, Duration::plus);
+        }
         from = to;
       }
     }

@@ -19,6 +19,8 @@ import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitTimeline;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.Sample;
+import org.kwanta.service.operatingstate.OperatingStates;
+import org.kwanta.service.operatingstate.ServiceTime;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
 
@@ -47,11 +49,13 @@ public class ExcursionFinder {
   private final JdbcClient jdbc;
   private final Limits limits;
   private final Clock clock;
+  private final OperatingStates states;
 
-  ExcursionFinder(JdbcClient jdbc, Limits limits, Clock clock) {
+  ExcursionFinder(JdbcClient jdbc, Limits limits, Clock clock, OperatingStates states) {
     this.jdbc = jdbc;
     this.limits = limits;
     this.clock = clock;
+    this.states = states;
   }
 
   /** Which limits judge the past. */
@@ -87,12 +91,15 @@ public class ExcursionFinder {
    * An excursion at one sample point and parameter, with its acknowledgements, oldest first.
    *
    * @param limits the limits in force at the excursion's start (on the basis asked for)
+   * @param inService the part of the excursion (up to now, when running) that fell in time the unit
+   *     was in service ({@link ServiceTime#counted()}): excursion hours count only this
    */
   public record Found(
       Limits.Effective limits,
       Excursion excursion,
       List<Acknowledgement> acknowledgements,
-      Basis basis) {
+      Basis basis,
+      Duration inService) {
 
     /** The latest acknowledgement, if any. */
     public Optional<Acknowledgement> acknowledgement() {
@@ -200,6 +207,8 @@ public class ExcursionFinder {
     List<Found> out = new ArrayList<>();
     for (Limits.Point point : limits.points(filter.plant(), filter.samplePoint())) {
       Map<String, List<Acknowledgement>> acks = acknowledgements(point.id());
+      ServiceTime service =
+          states.serviceTime(point.plant(), point.unit(), from.minus(LOOKBACK), to);
       for (Map.Entry<Parameter, Limits.History> entry : histories(point, basis, now).entrySet()) {
         Parameter parameter = entry.getKey();
         if (filter.parameter() != null && filter.parameter() != parameter) {
@@ -226,7 +235,8 @@ public class ExcursionFinder {
                     in.get(),
                     e,
                     acks.getOrDefault(parameter.code() + "|" + e.start(), List.of()),
-                    basis));
+                    basis,
+                    service.inService(e.start(), end)));
           }
         }
       }
@@ -244,6 +254,14 @@ public class ExcursionFinder {
     Map<Parameter, Limits.History> out = new java.util.EnumMap<>(Parameter.class);
     all.forEach((p, h) -> h.at(now).ifPresent(e -> out.put(p, Limits.History.always(e))));
     return out;
+  }
+
+  /**
+   * Per parameter, the limits of one point over time on a basis (parameters without limits left
+   * out).
+   */
+  public Map<Parameter, Limits.History> histories(Limits.Point point, Basis basis) {
+    return histories(point, basis, clock.instant());
   }
 
   /** The limits of one point and parameter over time on a basis, if it has any. */

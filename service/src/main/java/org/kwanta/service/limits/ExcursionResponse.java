@@ -18,7 +18,9 @@ import java.util.Locale;
  * limitsVersion} and {@code limitsEffectiveFrom} name the limits in force at its start on that
  * basis. {@code acknowledgements} is the whole history, oldest first; {@code acknowledgedAt},
  * {@code acknowledgedBy} (the key's name), {@code acknowledgedByKeyId} and {@code
- * acknowledgementNote} repeat the latest.
+ * acknowledgementNote} repeat the latest. {@code inServiceSeconds} is the part of {@code
+ * durationSeconds} (up to now, for a running excursion) that fell in time the unit was in service:
+ * excursion hours count only that (time before a unit's first recorded state counts as in service).
  */
 public record ExcursionResponse(
     String plant,
@@ -51,7 +53,8 @@ public record ExcursionResponse(
     String acknowledgedBy,
     String acknowledgedByKeyId,
     String acknowledgementNote,
-    List<AcknowledgementResponse> acknowledgements) {
+    List<AcknowledgementResponse> acknowledgements,
+    long inServiceSeconds) {
 
   /** One acknowledgement in the history, oldest first; by the key that made it. */
   public record AcknowledgementResponse(Instant at, String keyId, String keyName, String note) {
@@ -96,7 +99,8 @@ public record ExcursionResponse(
         ack.map(ExcursionFinder.Acknowledgement::byKeyName).orElse(null),
         ack.map(ExcursionFinder.Acknowledgement::byKeyId).orElse(null),
         ack.map(ExcursionFinder.Acknowledgement::note).orElse(null),
-        f.acknowledgements().stream().map(AcknowledgementResponse::from).toList());
+        f.acknowledgements().stream().map(AcknowledgementResponse::from).toList(),
+        f.inService().toSeconds());
   }
 
   static final String CSV_HEADER =
@@ -105,7 +109,7 @@ public record ExcursionResponse(
           + "time_remaining_s,allowance_exceeded,samples,in_doubt_samples,in_doubt_fraction,"
           + "calculated_samples,acknowledged_at,acknowledged_by,"
           + "acknowledgement_note,limits_version,limits_effective_from,basis,acknowledged_by_key_id,"
-          + "acknowledgements\r\n";
+          + "acknowledgements,in_service_s\r\n";
 
   String csvRow() {
     return String.join(
@@ -140,7 +144,8 @@ public record ExcursionResponse(
             limitsEffectiveFrom == null ? "" : limitsEffectiveFrom.toString(),
             basis,
             csv(acknowledgedByKeyId),
-            String.valueOf(acknowledgements.size()))
+            String.valueOf(acknowledgements.size()),
+            String.valueOf(inServiceSeconds))
         + "\r\n";
   }
 

@@ -17,6 +17,7 @@ import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.MonthlyHours;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.service.audit.Actor;
+import org.kwanta.service.operatingstate.OperatingStates;
 import org.kwanta.service.system.BadRequestException;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
@@ -45,11 +46,17 @@ class ExcursionsController {
   private final ExcursionFinder finder;
   private final Limits limits;
   private final Acknowledgements acknowledgements;
+  private final OperatingStates states;
 
-  ExcursionsController(ExcursionFinder finder, Limits limits, Acknowledgements acknowledgements) {
+  ExcursionsController(
+      ExcursionFinder finder,
+      Limits limits,
+      Acknowledgements acknowledgements,
+      OperatingStates states) {
     this.finder = finder;
     this.limits = limits;
     this.acknowledgements = acknowledgements;
+    this.states = states;
   }
 
   @GetMapping(produces = {MediaType.APPLICATION_JSON_VALUE, "text/csv"})
@@ -104,22 +111,28 @@ class ExcursionsController {
    * Hours per action level per calendar month (UTC) at one sample point and parameter; time
    * OUTSIDE_NORMAL counts as NORMAL.
    */
-  record MonthlyHoursResponse(String month, String level, double hours, String basis) {}
+  record MonthlyHoursResponse(
+      String month, String level, double hours, String basis, String timeCounted) {}
 
   @GetMapping(value = "/monthly-hours", produces = MediaType.APPLICATION_JSON_VALUE)
   @Operation(
       summary = "Cumulative hours per action level per calendar month (UTC)",
       description =
           "NORMAL, AL1, AL2, AL3, SHUTDOWN; time outside the normal range but below AL1 counts as"
-              + " NORMAL here (it is not excursion time). Example:"
+              + " NORMAL here (it is not excursion time). Only time the unit was in service counts"
+              + " (time=in-service, the default: IN_SERVICE time and time before the unit's first"
+              + " recorded state); time=all counts every hour. Each row and the header"
+              + " Kwanta-Time-Counted say which. Example:"
               + " ?samplePoint=U2-CPD&parameter=cation_conductivity")
   ResponseEntity<List<MonthlyHoursResponse>> monthlyHours(
       @RequestParam String samplePoint,
       @RequestParam String parameter,
       @RequestParam(required = false) String from,
       @RequestParam(required = false) String to,
-      @RequestParam(required = false) String basis) {
+      @RequestParam(required = false) String basis,
+      @RequestParam(required = false) String time) {
     ExcursionFinder.Basis b = basis(basis);
+    boolean all = timeCounted(time);
     Parameter p = WebLookups.parameter(parameter);
     Limits.Point point = WebLookups.point(limits, samplePoint);
     Limits.History history =
@@ -131,15 +144,21 @@ class ExcursionsController {
     Instant start =
         time("from", from) == null ? end.minus(java.time.Duration.ofDays(366)) : time("from", from);
     List<Classification> classified = finder.classify(point, history, p, start, end);
-    List<MonthlyHours> hours = Excursions.monthlyHours(classified, end);
+    List<MonthlyHours> hours =
+        Excursions.monthlyHours(
+            classified,
+            end,
+            all ? null : states.serviceTime(point.plant(), point.unit(), start, end).counted());
+    String counted = all ? "all" : "in-service";
     return ResponseEntity.ok()
         .header(BASIS_HEADER, b.code())
+        .header(TIME_COUNTED_HEADER, counted)
         .body(
             hours.stream()
                 .map(
                     h ->
                         new MonthlyHoursResponse(
-                            h.month().toString(), h.level().name(), h.hours(), b.code()))
+                            h.month().toString(), h.level().name(), h.hours(), b.code(), counted))
                 .toList());
   }
 
@@ -191,6 +210,19 @@ class ExcursionsController {
 
   /** The header that says which limits judged the past. */
   static final String BASIS_HEADER = "Kwanta-Basis";
+
+  /** The header that says which time the hours count: in-service or all. */
+  static final String TIME_COUNTED_HEADER = "Kwanta-Time-Counted";
+
+  private static boolean timeCounted(String value) {
+    if (value == null || value.equalsIgnoreCase("in-service")) {
+      return false;
+    }
+    if (value.equalsIgnoreCase("all")) {
+      return true;
+    }
+    throw BadRequestException.of("time must be in-service or all");
+  }
 
   private static ExcursionFinder.Basis basis(String value) {
     if (value == null) {

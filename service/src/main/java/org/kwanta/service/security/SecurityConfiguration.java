@@ -20,7 +20,8 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  * <table>
  *   <caption>Rules, first match wins</caption>
  *   <tr><th>request</th><th>needs</th></tr>
- *   <tr><td>health, info, OpenAPI, Swagger UI, {@code GET}/{@code HEAD /}, static assets</td>
+ *   <tr><td>health, info, OpenAPI, Swagger UI, {@code GET}/{@code HEAD /}, {@code /report.html},
+ *       static assets</td>
  *       <td>nothing</td></tr>
  *   <tr><td>{@code GET /actuator/prometheus}</td><td>read</td></tr>
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
@@ -28,7 +29,9 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
  *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements}, {@code
  *       POST /api/v1/excursion-events/**};
- *       {@code PUT}/{@code DELETE /api/v1/sample-points/*}{@code /limits/*}</td><td>chemist</td></tr>
+ *       {@code PUT}/{@code DELETE /api/v1/sample-points/*}{@code /limits/*}; {@code POST
+ *       /api/v1/plants/*}{@code /units/*}{@code /operating-states}, {@code POST
+ *       /api/v1/sample-points/*}{@code /instrument-checks}</td><td>chemist</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
  *   <tr><td>anything else under {@code /api/**}, and any other path</td><td>admin</td></tr>
@@ -78,10 +81,20 @@ class SecurityConfiguration {
                         "/swagger-ui/**")
                     .permitAll()
                     .requestMatchers(
-                        HttpMethod.GET, "/", "/index.html", "/favicon.ico", "/assets/**")
+                        HttpMethod.GET,
+                        "/",
+                        "/index.html",
+                        "/report.html",
+                        "/favicon.ico",
+                        "/assets/**")
                     .permitAll()
                     .requestMatchers(
-                        HttpMethod.HEAD, "/", "/index.html", "/favicon.ico", "/assets/**")
+                        HttpMethod.HEAD,
+                        "/",
+                        "/index.html",
+                        "/report.html",
+                        "/favicon.ico",
+                        "/assets/**")
                     .permitAll()
                     .requestMatchers(PathRequest.toStaticResources().atCommonLocations())
                     .permitAll()
@@ -98,6 +111,11 @@ class SecurityConfiguration {
                         HttpMethod.POST, "/api/v1/excursion-events", "/api/v1/excursion-events/**")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.PUT, "/api/v1/sample-points/*/limits/*")
+                    .hasRole(CHEMIST)
+                    // the unit's operating state and the instrument log (issue 14)
+                    .requestMatchers(HttpMethod.POST, "/api/v1/plants/*/units/*/operating-states")
+                    .hasRole(CHEMIST)
+                    .requestMatchers(HttpMethod.POST, "/api/v1/sample-points/*/instrument-checks")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.DELETE, "/api/v1/sample-points/*/limits/*")
                     .hasRole(CHEMIST)

@@ -63,6 +63,8 @@ class EndpointRoleMatrixIT {
           row("POST", "/api/v1/excursion-events/**", Access.CHEMIST),
           row("PUT", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("DELETE", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
+          row("POST", "/api/v1/plants/*/units/*/operating-states", Access.CHEMIST),
+          row("POST", "/api/v1/sample-points/*/instrument-checks", Access.CHEMIST),
           row("GET", "/api/**", Access.READ),
           row("HEAD", "/api/**", Access.READ),
           row("POST", "/api/v1/chemistry/**", Access.READ),
@@ -152,7 +154,11 @@ class EndpointRoleMatrixIT {
         .as("the matrix found the known endpoints")
         .anyMatch(s -> s.startsWith("POST /api/v1/plants "))
         .anyMatch(s -> s.startsWith("GET /api/v1/water "))
-        .anyMatch(s -> s.startsWith("DELETE /api/v1/keys/"));
+        .anyMatch(s -> s.startsWith("DELETE /api/v1/keys/"))
+        .anyMatch(
+            s -> s.startsWith("POST /api/v1/plants/matrix-x/units/matrix-x/operating-states "))
+        .anyMatch(s -> s.startsWith("GET /api/v1/plants/matrix-x/reports/monthly "))
+        .anyMatch(s -> s.startsWith("POST /api/v1/sample-points/matrix-x/instrument-checks "));
   }
 
   /** Six callers on one endpoint; returns the number of checks. */

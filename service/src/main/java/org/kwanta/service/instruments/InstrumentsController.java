@@ -1,0 +1,246 @@
+package org.kwanta.service.instruments;
+
+import io.swagger.v3.oas.annotations.Operation;
+import io.swagger.v3.oas.annotations.tags.Tag;
+import jakarta.validation.Valid;
+import jakarta.validation.constraints.NotBlank;
+import jakarta.validation.constraints.NotNull;
+import jakarta.validation.constraints.Size;
+import java.time.Clock;
+import java.time.Instant;
+import java.time.YearMonth;
+import java.time.ZoneOffset;
+import java.util.List;
+import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.audit.Actor;
+import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.TimeParameters;
+import org.springframework.http.HttpStatus;
+import org.springframework.jdbc.core.simple.JdbcClient;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PathVariable;
+import org.springframework.web.bind.annotation.PostMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RequestParam;
+import org.springframework.web.bind.annotation.ResponseStatus;
+import org.springframework.web.bind.annotation.RestController;
+
+@RestController
+@Tag(
+    name = "Instrument care",
+    description =
+        "The log of calibrations and checks per instrument (a sample point and a parameter), when"
+            + " each check is next due, and core-instrument availability per month (slots of"
+            + " in-service time with good data not in doubt, over slots in service).")
+class InstrumentsController {
+
+  private final InstrumentLog log;
+  private final CheckSchedule schedule;
+  private final Availability availability;
+  private final JdbcClient jdbc;
+  private final Clock clock;
+
+  InstrumentsController(
+      InstrumentLog log,
+      CheckSchedule schedule,
+      Availability availability,
+      JdbcClient jdbc,
+      Clock clock) {
+    this.log = log;
+    this.schedule = schedule;
+    this.availability = availability;
+    this.jdbc = jdbc;
+    this.clock = clock;
+  }
+
+  /** A check as a chemist enters it. */
+  record CheckRequest(
+      @NotBlank @Size(max = 64) String parameter,
+      @NotNull CheckKind kind,
+      @NotNull Instant performedAt,
+      @NotNull Outcome outcome,
+      @Size(max = 20) List<@Valid ResultRequest> results,
+      @Size(min = 1, max = 4000) String note) {}
+
+  /** One result of a check, in its unit (UCUM). */
+  record ResultRequest(
+      @NotBlank @Size(max = 100) String name,
+      @NotNull Double value,
+      @NotBlank @Size(max = 32) String unit,
+      Double reference) {}
+
+  /** One logged check; who logged it is the key of the request. */
+  record CheckResponse(
+      long id,
+      String samplePoint,
+      String parameter,
+      CheckKind kind,
+      Instant performedAt,
+      Outcome outcome,
+      List<InstrumentLog.Result> results,
+      String note,
+      Instant recordedAt,
+      String recordedByKeyId,
+      String recordedBy) {
+    static CheckResponse from(InstrumentLog.Check c) {
+      return new CheckResponse(
+          c.id(),
+          c.samplePoint(),
+          c.parameter().code(),
+          c.kind(),
+          c.performedAt(),
+          c.outcome(),
+          c.results(),
+          c.note(),
+          c.recordedAt(),
+          c.keyId(),
+          c.keyName());
+    }
+  }
+
+  /** One check of one instrument: when it was last done and when it is next due. */
+  record DueResponse(
+      String samplePoint,
+      String parameter,
+      CheckKind kind,
+      long intervalDays,
+      Instant lastDone,
+      Outcome lastOutcome,
+      Instant lastPerformed,
+      Instant nextDue,
+      CheckSchedule.Status status) {
+    static DueResponse from(CheckSchedule.Due d) {
+      return new DueResponse(
+          d.samplePoint(),
+          d.parameter().code(),
+          d.kind(),
+          d.intervalDays(),
+          d.lastDone(),
+          d.lastOutcome(),
+          d.lastPerformed(),
+          d.nextDue(),
+          d.status());
+    }
+  }
+
+  @PostMapping("/api/v1/sample-points/{samplePoint}/instrument-checks")
+  @ResponseStatus(HttpStatus.CREATED)
+  @Operation(
+      summary = "Log a calibration or check of an instrument (chemist)",
+      description =
+          "kind: CELL_CONSTANT_CHECK (conductivities), BUFFER_CALIBRATION (ph),"
+              + " SODIUM_CALIBRATION (sodium), CATION_RESIN_CHANGE (cation conductivities),"
+              + " DISSOLVED_OXYGEN_ZERO_SPAN (dissolved_oxygen); outcome PASSED, ADJUSTED or"
+              + " FAILED. Appended and audited; who logged it is the key of the request.")
+  CheckResponse record(@PathVariable String samplePoint, @Valid @RequestBody CheckRequest r) {
+    requirePoint(samplePoint);
+    Parameter p = parameter(r.parameter());
+    if (!r.kind().appliesTo(p)) {
+      throw BadRequestException.of(r.kind() + " is not a check of a " + p.code() + " instrument");
+    }
+    if (r.performedAt().isAfter(clock.instant().plusSeconds(300))) {
+      throw BadRequestException.of("performedAt " + r.performedAt() + " lies in the future");
+    }
+    Actor by = Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
+    List<InstrumentLog.Result> results =
+        r.results() == null
+            ? List.of()
+            : r.results().stream()
+                .map(x -> new InstrumentLog.Result(x.name(), x.value(), x.unit(), x.reference()))
+                .toList();
+    return CheckResponse.from(
+        log.record(samplePoint, p, r.kind(), r.performedAt(), r.outcome(), results, r.note(), by));
+  }
+
+  @GetMapping("/api/v1/sample-points/{samplePoint}/instrument-checks")
+  @Operation(summary = "The check log of a sample point's instruments, oldest first")
+  List<CheckResponse> checks(
+      @PathVariable String samplePoint, @RequestParam(required = false) String parameter) {
+    requirePoint(samplePoint);
+    return log.checks(samplePoint, parameter == null ? null : parameter(parameter)).stream()
+        .map(CheckResponse::from)
+        .toList();
+  }
+
+  @GetMapping("/api/v1/plants/{plant}/instrument-checks/due")
+  @Operation(
+      summary = "When each check of each instrument of a plant is next due",
+      description =
+          "At `at` (default now): per instrument and applicable check, the last successful one,"
+              + " the next due date (last + interval of its kind, kwanta.instruments.*) and IN_DATE,"
+              + " OVERDUE or NEVER_DONE.")
+  List<DueResponse> due(@PathVariable String plant, @RequestParam(required = false) String at) {
+    requirePlant(plant);
+    Instant when = TimeParameters.instant("at", at);
+    return schedule.at(plant, when == null ? clock.instant() : when).stream()
+        .map(DueResponse::from)
+        .toList();
+  }
+
+  /** One core instrument's availability in the month. */
+  record AvailabilityResponse(
+      String samplePoint,
+      String unit,
+      String parameter,
+      long slotSeconds,
+      long slotsInService,
+      long slotsWithData,
+      long slotsGood,
+      Double availability,
+      Double completeness,
+      String counting) {
+    static AvailabilityResponse from(Availability.Instrument i) {
+      return new AvailabilityResponse(
+          i.samplePoint(),
+          i.unit(),
+          i.parameter().code(),
+          i.slot().toSeconds(),
+          i.slotsInService(),
+          i.slotsWithData(),
+          i.slotsGood(),
+          i.availability(),
+          i.completeness(),
+          COUNTING);
+    }
+  }
+
+  static final String COUNTING =
+      "slots of in-service time (IN_SERVICE and time before the unit's first recorded state)";
+
+  @GetMapping("/api/v1/plants/{plant}/instrument-availability")
+  @Operation(
+      summary = "Core-instrument availability and completeness in a calendar month (UTC)",
+      description = "month=YYYY-MM. Availability and completeness are fractions 0 to 1.")
+  List<AvailabilityResponse> availability(@PathVariable String plant, @RequestParam String month) {
+    requirePlant(plant);
+    YearMonth m = TimeParameters.month("month", month);
+    Instant from = m.atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
+    Instant to = m.plusMonths(1).atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
+    return availability.of(plant, from, to).stream().map(AvailabilityResponse::from).toList();
+  }
+
+  private static Parameter parameter(String code) {
+    try {
+      return Parameter.ofCode(code);
+    } catch (IllegalArgumentException e) {
+      throw BadRequestException.of(e.getMessage());
+    }
+  }
+
+  private void requirePoint(String id) {
+    if (jdbc.sql("SELECT count(*) FROM sample_point WHERE id = ?")
+            .param(id)
+            .query(Integer.class)
+            .single()
+        == 0) {
+      throw BadRequestException.notFound("sample point", id);
+    }
+  }
+
+  private void requirePlant(String id) {
+    if (jdbc.sql("SELECT count(*) FROM plant WHERE id = ?").param(id).query(Integer.class).single()
+        == 0) {
+      throw BadRequestException.notFound("plant", id);
+    }
+  }
+}

@@ -1,0 +1,153 @@
+package org.kwanta.service.operatingstate;
+
+import com.fasterxml.jackson.annotation.JsonProperty;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.sql.Timestamp;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.kwanta.model.limits.CycleLocation;
+import org.kwanta.model.limits.Parameter;
+import org.springframework.core.io.ResourceLoader;
+import org.springframework.jdbc.core.simple.JdbcClient;
+import org.springframework.stereotype.Service;
+import tools.jackson.databind.DeserializationFeature;
+import tools.jackson.dataformat.yaml.YAMLMapper;
+
+/**
+ * Start-up hold points: values a sample must reach before the unit takes the next start-up step,
+ * each with its source, read from a file ({@link StartupProperties}). {@link #check} reports each
+ * one as met, not met, or without data, from the latest good reading of the unit's sample points at
+ * the hold point's cycle locations within {@link #RECENT} before the time asked.
+ */
+@Service
+public class HoldPoints {
+
+  /** How old the latest reading may be to judge a hold point (engineering choice, no source). */
+  static final Duration RECENT = Duration.ofMinutes(30);
+
+  /** Which way the value must lie. */
+  public enum Comparison {
+    /** The value must not exceed the hold value. */
+    AT_MOST,
+    /** The value must not fall below the hold value. */
+    AT_LEAST
+  }
+
+  /** The outcome of one hold point at one sample point. */
+  public enum Status {
+    MET,
+    NOT_MET,
+    NO_DATA
+  }
+
+  /** One hold point as written in the file. */
+  public record HoldPoint(
+      String id,
+      String step,
+      String description,
+      List<CycleLocation> cycleLocations,
+      String parameter,
+      String unit,
+      Comparison comparison,
+      double value,
+      String source,
+      boolean fromMemory) {
+
+    public HoldPoint {
+      Objects.requireNonNull(id, "id");
+      Objects.requireNonNull(step, "step");
+      Objects.requireNonNull(comparison, "comparison");
+      Objects.requireNonNull(source, "source: every hold point names where its value comes from");
+      Parameter p = Parameter.ofCode(parameter);
+      if (!p.unit().equals(unit)) {
+        throw new IllegalArgumentException(
+            "Hold point " + id + ": unit " + unit + " is not " + p.code() + "'s " + p.unit());
+      }
+      cycleLocations = List.copyOf(cycleLocations);
+    }
+
+    boolean met(double measured) {
+      return comparison == Comparison.AT_MOST ? measured <= value : measured >= value;
+    }
+  }
+
+  /** One hold point judged at one sample point. */
+  public record Result(
+      HoldPoint holdPoint,
+      String samplePoint,
+      Double measured,
+      Instant measuredAt,
+      Status status) {}
+
+  private record File(@JsonProperty("holdPoints") List<HoldPoint> holdPoints) {}
+
+  private final List<HoldPoint> holdPoints;
+  private final JdbcClient jdbc;
+
+  HoldPoints(StartupProperties properties, ResourceLoader resources, JdbcClient jdbc) {
+    this.jdbc = jdbc;
+    YAMLMapper yaml =
+        YAMLMapper.builder().enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES).build();
+    try (InputStream in = resources.getResource(properties.location()).getInputStream()) {
+      this.holdPoints = List.copyOf(yaml.readValue(in, File.class).holdPoints());
+    } catch (IOException e) {
+      throw new UncheckedIOException("Cannot read hold points " + properties.location(), e);
+    }
+  }
+
+  /** The hold points in force. */
+  public List<HoldPoint> all() {
+    return holdPoints;
+  }
+
+  /** Every hold point at every sample point of the unit it applies to, judged at {@code at}. */
+  public List<Result> check(String plant, String unit, Instant at) {
+    List<Result> out = new ArrayList<>();
+    for (HoldPoint h : holdPoints) {
+      List<String> points =
+          jdbc.sql(
+                  """
+                  SELECT id FROM sample_point
+                  WHERE plant_id = ? AND unit_id = ?
+                    AND cycle_location = ANY(string_to_array(?, ','))
+                  ORDER BY id""")
+              .params(
+                  plant,
+                  unit,
+                  String.join(",", h.cycleLocations().stream().map(Enum::name).toList()))
+              .query(String.class)
+              .list();
+      for (String point : points) {
+        out.add(latest(h, point, at));
+      }
+    }
+    return out;
+  }
+
+  /** The latest reading that is not of bad quality within RECENT before {@code at}, judged. */
+  private Result latest(HoldPoint h, String point, Instant at) {
+    return jdbc.sql(
+            """
+            SELECT time, value FROM reading
+            WHERE sample_point_id = ? AND parameter = ? AND time > ? AND time <= ? AND quality < 2
+            ORDER BY time DESC LIMIT 1""")
+        .params(point, h.parameter(), Timestamp.from(at.minus(RECENT)), Timestamp.from(at))
+        .query(
+            (rs, i) -> {
+              double v = rs.getDouble(2);
+              return new Result(
+                  h,
+                  point,
+                  v,
+                  rs.getTimestamp(1).toInstant(),
+                  h.met(v) ? Status.MET : Status.NOT_MET);
+            })
+        .optional()
+        .orElse(new Result(h, point, null, null, Status.NO_DATA));
+  }
+}
