@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.OutOfValidityRangeException;
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.water.WaterState;
 
 class ConductivityTest {
@@ -36,11 +37,11 @@ class ConductivityTest {
   void oneMillimolarPotassiumChlorideMatchesCrcAndAstmD1125() {
     IonConductivities ions = Conductivity.at(W25);
     double m = 1e-3 / (W25.densityKgPerM3() / 1000);
-    double[] mol = new double[Ion.values().length];
-    mol[Ion.K.ordinal()] = m;
-    mol[Ion.CL.ordinal()] = m;
-    mol[Ion.H.ordinal()] = 1.003e-7;
-    mol[Ion.OH.ordinal()] = 1.003e-7;
+    double[] mol = new double[Species.values().length];
+    mol[Species.POTASSIUM_ION.ordinal()] = m;
+    mol[Species.CHLORIDE_ION.ordinal()] = m;
+    mol[Species.HYDROGEN_ION.ordinal()] = 1.003e-7;
+    mol[Species.HYDROXIDE.ordinal()] = 1.003e-7;
     double k = ions.kappa(mol);
     assertThat(k).isCloseTo(146.88, within(146.88 * 0.001)); // CRC via pyEQL
     // ASTM D1125 reference solution D; that D is 1 mmol/L KCl is from memory
@@ -103,8 +104,8 @@ class ConductivityTest {
   void limitingConductivitiesAt25AreTheCrcValues() {
     IonConductivities ions = Conductivity.at(W25);
     // the 25 °C state of the table is at 0.101325 MPa: the Walden ratio is 1 up to density noise
-    assertThat(ions.limiting(Ion.H)).isCloseTo(349.65, within(1e-6));
-    assertThat(ions.limiting(Ion.CL)).isCloseTo(76.31, within(1e-6));
+    assertThat(ions.limiting(Species.HYDROGEN_ION)).isCloseTo(349.65, within(1e-6));
+    assertThat(ions.limiting(Species.CHLORIDE_ION)).isCloseTo(76.31, within(1e-6));
   }
 
   /**
@@ -115,9 +116,9 @@ class ConductivityTest {
   @Test
   void limitingConductivitiesAtZeroAgreeWithLangeWithinThreeAndAHalfPercent() {
     IonConductivities ions = Conductivity.at(TestWater.atCelsius(0));
-    assertThat(ions.limiting(Ion.H)).isCloseTo(224.1, within(224.1 * 0.035));
-    assertThat(ions.limiting(Ion.NA)).isCloseTo(25.85, within(25.85 * 0.035));
-    assertThat(ions.limiting(Ion.K)).isCloseTo(40.3, within(40.3 * 0.035));
+    assertThat(ions.limiting(Species.HYDROGEN_ION)).isCloseTo(224.1, within(224.1 * 0.035));
+    assertThat(ions.limiting(Species.SODIUM_ION)).isCloseTo(25.85, within(25.85 * 0.035));
+    assertThat(ions.limiting(Species.POTASSIUM_ION)).isCloseTo(40.3, within(40.3 * 0.035));
   }
 
   @Test

@@ -2,6 +2,7 @@ package org.kwanta.model.conductivity;
 
 import java.util.EnumMap;
 import java.util.Map;
+import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.water.WaterState;
 
 /**
@@ -15,10 +16,10 @@ final class TestEquilibria {
   private TestEquilibria() {}
 
   static Equilibria at25(WaterState water) {
-    Map<Alkalizer, Double> pka = new EnumMap<>(Alkalizer.class);
-    pka.put(Alkalizer.AMMONIA, 9.244);
-    pka.put(Alkalizer.MORPHOLINE, 8.491);
-    pka.put(Alkalizer.ETHANOLAMINE, 9.498);
+    Map<Component, Double> pka = new EnumMap<>(Component.class);
+    pka.put(Component.AMMONIA, 9.244);
+    pka.put(Component.MORPHOLINE, 8.491);
+    pka.put(Component.ETHANOLAMINE, 9.498);
     return new Equilibria(water, pka, 6.352, 10.329, 2.168, 7.207, 12.346);
   }
 }
