@@ -49,9 +49,9 @@ class ConductivityTest {
   }
 
   /**
-   * ASTM D5128 Table 1: NaOH 0.1 / 1.0 / 8.0 mg/L at 25 °C give 0.625 / 6.229 / 49.83 µS/cm and pH
-   * 8.40 / 9.40 / 10.30. The model is about 1 % lower in conductivity (project reference notes), so
-   * the tolerance is 1.5 %; pH within 0.02.
+   * ASTM D5128 (on-line pH of water of low conductivity), Table 1 (retrieved): NaOH 0.1 / 1.0 / 8.0
+   * mg/L at 25 °C give 0.625 / 6.229 / 49.83 µS/cm and pH 8.40 / 9.40 / 10.30. The model is about 1
+   * % lower in conductivity (our own comparison), so the tolerance is 1.5 %; pH within 0.02.
    */
   @Test
   void sodiumHydroxideMatchesAstmD5128Table1() {
@@ -109,9 +109,9 @@ class ConductivityTest {
   }
 
   /**
-   * Lange's Handbook Table 8.32 (retrieved via the project's reference notes): H⁺ 224.1 at 0 °C;
-   * Na⁺ 25.85 at 0 °C; K⁺ 40.3 at 0 °C. The model is within 3.5 % at 0 °C (notes: largest
-   * deviations at 0 °C).
+   * Lange's Handbook of Chemistry (J. A. Dean, ed.), Table 8.32, limiting equivalent ionic
+   * conductances: H⁺ 224.1, Na⁺ 25.85, K⁺ 40.3 S cm² mol⁻¹ at 0 °C (retrieved). The model is within
+   * 3.5 % at 0 °C, where its deviations are largest.
    */
   @Test
   void limitingConductivitiesAtZeroAgreeWithLangeWithinThreeAndAHalfPercent() {

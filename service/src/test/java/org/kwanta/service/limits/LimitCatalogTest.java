@@ -203,12 +203,13 @@ class LimitCatalogTest {
     for (JsonNode point : plant.get("samplePoints")) {
       CycleLocation location = CycleLocation.valueOf(point.get("cycleLocation").asString());
       if (location == CycleLocation.MAKE_UP) {
-        continue; // section 6 of the reference notes gives no make-up water values
+        continue; // no make-up water values recalled from IAPWS TGD3/TGD4 (from memory)
       }
       TreatmentRegime regime = TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
       if (regime == TreatmentRegime.PT && location == CycleLocation.DRUM_WATER) {
         // Phosphate boiler water: cation conductivity includes the treatment's own phosphate, so
-        // guidance limits contamination through chloride and sulfate instead (reference notes 6.5).
+        // IAPWS TGD4-11(2015) limits contamination through chloride and sulfate instead (from
+        // memory: only the TGD's cover page was read).
         assertThat(catalog.find(new LimitKey(regime, location, Parameter.PH))).isPresent();
         checked++;
         continue;
