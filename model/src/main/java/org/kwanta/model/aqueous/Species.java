@@ -109,9 +109,9 @@ public enum Species {
   public static final Reference DW_T =
       new Reference(
           "dw_T temperature parameters",
-          "D. L. Parkhurst, C. A. J. Appelo, PHREEQC version 3, USGS Techniques and Methods 6-A43"
-              + " (2013): database phreeqc.dat (C.A.J. Appelo version), -dw parameters, and function"
-              + " calc_SC",
+          "PHREEQC database phreeqc.dat (C.A.J. Appelo version), -dw parameters, and PHREEQC 3"
+              + " function calc_SC (D. L. Parkhurst, C. A. J. Appelo, USGS Techniques and Methods"
+              + " 6-A43, 2013; manual citation from memory)",
           Reference.Confidence.RETRIEVED);
 
   /** Where λ° at 25 °C comes from. */

@@ -7,10 +7,11 @@ import org.kwanta.model.water.WaterState;
 
 /**
  * Equilibrium constants at 25 °C for conductivity tests, from the database phreeqc.dat distributed
- * with PHREEQC 3 (Parkhurst &amp; Appelo 2013, USGS Techniques and Methods 6-A43; retrieved):
- * pKa(NH₄⁺) 9.244 (Bates &amp; Pinching 1949), carbonic pK 6.352 / 10.329 (Plummer &amp; Busenberg,
- * Geochim. Cosmochim. Acta 46 (1982) 1011), phosphoric pK 2.168 / 7.207 / 12.346; morpholinium
- * 8.491 (Ridley et al. 2000) and ethanolammonium 9.498 (Bates and Pinching, from memory).
+ * with PHREEQC 3 (retrieved; manual: Parkhurst &amp; Appelo 2013, USGS Techniques and Methods
+ * 6-A43, citation from memory): pKa(NH₄⁺) 9.244 (Bates &amp; Pinching 1949), carbonic pK 6.352 /
+ * 10.329 (Plummer &amp; Busenberg, Geochim. Cosmochim. Acta 46 (1982) 1011), phosphoric pK 2.168 /
+ * 7.207 / 12.346; morpholinium 8.491 (Ridley et al. 2000) and ethanolammonium 9.498 (Bates and
+ * Pinching, from memory).
  */
 final class TestEquilibria {
 
