@@ -15,8 +15,8 @@ import org.kwanta.model.water.WaterState;
  * @param water the state (Kw from its pKw, Davies A from its Debye–Hückel A)
  * @param basePKa pKa of each weak base's BH⁺ ({@link Component#isWeakBase()}) at this state; bases
  *     absent cannot be used
- * @param carbonicPK1 pK1 of CO₂(aq) + H₂O = HCO₃⁻ + H⁺
- * @param carbonicPK2 pK2 of HCO₃⁻ = CO₃²⁻ + H⁺
+ * @param carbonicPK1 pK1 of CO₂(aq) + H₂O ⇌ HCO₃⁻ + H⁺
+ * @param carbonicPK2 pK2 of HCO₃⁻ ⇌ CO₃²⁻ + H⁺
  * @param phosphoricPK1 pK1 of H₃PO₄
  * @param phosphoricPK2 pK2 of H₂PO₄⁻
  * @param phosphoricPK3 pK3 of HPO₄²⁻

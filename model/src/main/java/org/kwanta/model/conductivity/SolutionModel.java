@@ -12,7 +12,7 @@ import org.kwanta.model.water.WaterState;
  * Charge balance and conductivity of a cycle-water solution at one temperature, and its inverse:
  * the amount of one solute that gives a measured conductivity.
  *
- * <p>Species follow from a(H⁺) in closed form (Kw; BH⁺ = B + H⁺ for each alkalizer; carbonic and
+ * <p>Species follow from a(H⁺) in closed form (Kw; BH⁺ ⇌ B + H⁺ for each alkalizer; carbonic and
  * phosphoric acid steps; Na⁺, Cl⁻, SO₄²⁻ fully dissociated), with Davies activity coefficients at
  * an ionic strength iterated to a fixed point. For the inverse problem the unknown amount x enters
  * the charge balance linearly, x = −(charge of the rest)/(charge per unit x), so the fit is a

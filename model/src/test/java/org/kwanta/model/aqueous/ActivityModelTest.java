@@ -14,9 +14,9 @@ import org.kwanta.model.water.WaterState;
  * extended Debye–Hückel with å = 4 Å and the B-dot term of Helgeson, Am. J. Sci. 267 (1969) 729; A
  * and B from ε of IAPWS R8-97 and ρ of IAPWS-IF97 on the saturation curve. No publication prints
  * these values: the expected numbers are an evaluation of the published equations independent of
- * this code (4 decimals), so this checks the transcription of the equations and the A, B our water
- * facade supplies, not an outside value. Tolerance: half a unit of the fourth decimal plus 1e-4 for
- * A/B differences (0.002 in A changes log γ by 6e-5 at I = 1e-3).
+ * this code (4 decimals), so this checks our copy of the equations and the A, B our water facade
+ * supplies, not an outside value. Tolerance: half a unit of the fourth decimal plus 1e-4 for A/B
+ * differences (0.002 in A changes log γ by 6e-5 at I = 1e-3).
  */
 class ActivityModelTest {
 

@@ -89,7 +89,7 @@ class EquilibriumConstantsTest {
 
   /**
    * The independent fit of T. J. Edwards, G. Maurer, J. Newman, J. M. Prausnitz, AIChE J. 24 (1978)
-   * 966, Table 1 (coefficients retrieved through two public transcriptions) agrees with the
+   * 966, Table 1 (coefficients retrieved through two public copies of the table) agrees with the
    * llnl.dat fit within 0.03 up to 225 °C, the upper end of the Edwards fit.
    */
   @Test
