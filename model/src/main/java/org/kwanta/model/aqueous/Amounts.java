@@ -1,8 +1,5 @@
 package org.kwanta.model.aqueous;
 
-import java.util.EnumMap;
-import java.util.Map;
-
 /**
  * Conversion between mass fractions (mg/kg, µg/kg of water) and molalities (mol/kg of water), each
  * component counted as the formula of {@link Component#countedAs()}.
@@ -52,31 +49,9 @@ public final class Amounts {
   /** Standard atomic weight of K, g/mol. */
   public static final double K = 39.0983;
 
-  private static final Map<Component, Double> MOLAR_MASS = new EnumMap<>(Component.class);
-
-  static {
-    MOLAR_MASS.put(Component.AMMONIA, N + 3 * H);
-    MOLAR_MASS.put(Component.MORPHOLINE, 4 * C + 9 * H + N + O);
-    MOLAR_MASS.put(Component.ETHANOLAMINE, 2 * C + 7 * H + N + O);
-    MOLAR_MASS.put(Component.CYCLOHEXYLAMINE, 6 * C + 13 * H + N);
-    MOLAR_MASS.put(Component.DIMETHYLAMINE, 2 * C + 7 * H + N);
-    MOLAR_MASS.put(Component.METHOXYPROPYLAMINE, 4 * C + 11 * H + N + O);
-    MOLAR_MASS.put(Component.DIETHYLAMINOETHANOL, 6 * C + 15 * H + N + O);
-    MOLAR_MASS.put(Component.SODIUM, NA);
-    MOLAR_MASS.put(Component.POTASSIUM, K);
-    MOLAR_MASS.put(Component.LITHIUM, LI);
-    MOLAR_MASS.put(Component.CHLORIDE, CL);
-    MOLAR_MASS.put(Component.SULFATE, S + 4 * O);
-    MOLAR_MASS.put(Component.CARBON_DIOXIDE, C + 2 * O);
-    MOLAR_MASS.put(Component.PHOSPHATE, P + 4 * O);
-    MOLAR_MASS.put(Component.ACETATE, 2 * C + 3 * H + 2 * O);
-    MOLAR_MASS.put(Component.FORMATE, C + H + 2 * O);
-    MOLAR_MASS.put(Component.BORON, B);
-  }
-
   /** Molar mass of the formula a component is counted as, g/mol. */
   public static double molarMassGPerMol(Component component) {
-    return MOLAR_MASS.get(component);
+    return component.molarMassGPerMol();
   }
 
   /** mg of the counted formula per kg of water → mol/kg. */

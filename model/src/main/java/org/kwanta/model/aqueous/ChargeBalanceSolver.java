@@ -69,13 +69,13 @@ final class ChargeBalanceSolver {
     for (Component c : Component.values()) {
       List<Species> sp = c.species();
       List<Equilibrium> eq = c.equilibria();
-      CHAIN_CHARGES[c.ordinal()] = sp.stream().mapToInt(Species::charge).toArray();
+      CHAIN_CHARGES[c.ordinal()] = sp.stream().mapToInt(Species::chargeNumber).toArray();
       CHAIN_STEPS[c.ordinal()] = eq.stream().mapToInt(Equilibrium::ordinal).toArray();
       for (int i = 0; i < eq.size(); i++) {
         // evaluate() relies on each step releasing exactly one H⁺ between neighbours.
         if (eq.get(i).acid() != sp.get(i)
             || eq.get(i).base() != sp.get(i + 1)
-            || sp.get(i + 1).charge() != sp.get(i).charge() - 1) {
+            || sp.get(i + 1).chargeNumber() != sp.get(i).chargeNumber() - 1) {
           throw new IllegalStateException("species chain of " + c + " is inconsistent");
         }
       }

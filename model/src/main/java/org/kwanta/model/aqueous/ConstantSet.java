@@ -10,23 +10,24 @@ import java.util.Map;
  * extrapolated. Most lists hold one fit; the organic acids hold two (the 0-60 °C Harned form, then
  * the 0-300 °C database fit).
  *
- * @param name short name shown in results and in the band
+ * @param id short id of our own, shown in results and in the band (provenance in {@code
+ *     description} and the fits' citations)
  * @param description what differs from the default and why
  * @param fits for every {@link Equilibrium}, a non-empty preference list
  */
-public record ConstantSet(String name, String description, Map<Equilibrium, List<Fit>> fits) {
+public record ConstantSet(String id, String description, Map<Equilibrium, List<Fit>> fits) {
 
   public ConstantSet {
     EnumMap<Equilibrium, List<Fit>> copy = new EnumMap<>(Equilibrium.class);
     for (Equilibrium e : Equilibrium.values()) {
       List<Fit> list = fits.get(e);
       if (list == null || list.isEmpty()) {
-        throw new IllegalArgumentException("constant set " + name + " has no fit for " + e);
+        throw new IllegalArgumentException("constant set " + id + " has no fit for " + e);
       }
       for (Fit f : list) {
         if (f.equilibrium() != e) {
           throw new IllegalArgumentException(
-              "constant set " + name + ": fit " + f.id() + " is not for " + e);
+              "constant set " + id + ": fit " + f.id() + " is not for " + e);
         }
       }
       copy.put(e, List.copyOf(list));
@@ -48,14 +49,14 @@ public record ConstantSet(String name, String description, Map<Equilibrium, List
   /**
    * A copy of this set with some preference lists replaced.
    *
-   * @param newName name of the new set
+   * @param newId id of the new set
    * @param newDescription description of the new set
    * @param replacements the lists to replace
    */
   public ConstantSet with(
-      String newName, String newDescription, Map<Equilibrium, List<Fit>> replacements) {
+      String newId, String newDescription, Map<Equilibrium, List<Fit>> replacements) {
     EnumMap<Equilibrium, List<Fit>> m = new EnumMap<>(fits);
     m.putAll(replacements);
-    return new ConstantSet(newName, newDescription, m);
+    return new ConstantSet(newId, newDescription, m);
   }
 }

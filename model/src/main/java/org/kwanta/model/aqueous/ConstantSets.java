@@ -7,7 +7,9 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * The default constant set and the named alternatives the pH band is evaluated over.
+ * The default constant set and the alternatives the pH band is evaluated over. Set ids are short
+ * ids of our own ("ammonium-2": the default with fit ammonium-2); the description of each set names
+ * the sources, and each fit's {@link Fit#reference()} carries the full citation.
  *
  * <p>Default (the project's reference notes, §10 superseding §3/§4): NH4⁺ llnl.dat; amines the
  * recommended three-term rows; CO2 K1 and K2 Plummer &amp; Busenberg 1982; HSO4⁻ Dickson 1990;
@@ -23,13 +25,11 @@ public final class ConstantSets {
 
   private static ConstantSet buildDefault() {
     Map<Equilibrium, List<Fit>> m = new EnumMap<>(Equilibrium.class);
+    // the choices, where the catalogue holds more than one fit of an equilibrium
     m.put(Equilibrium.AMMONIUM, List.of(AMMONIUM_LLNL));
     m.put(Equilibrium.MORPHOLINIUM, List.of(MORPHOLINIUM_RIDLEY));
     m.put(Equilibrium.ETHANOLAMMONIUM, List.of(ETHANOLAMMONIUM_RECOMMENDED));
-    m.put(Equilibrium.CYCLOHEXYLAMMONIUM, List.of(CYCLOHEXYLAMMONIUM_ESTIMATE));
     m.put(Equilibrium.DIMETHYLAMMONIUM, List.of(DIMETHYLAMMONIUM_BENEZETH));
-    m.put(Equilibrium.METHOXYPROPYLAMMONIUM, List.of(METHOXYPROPYLAMMONIUM_ESTIMATE));
-    m.put(Equilibrium.DIETHYLAMINOETHANOLIUM, List.of(DIETHYLAMINOETHANOLIUM_ESTIMATE));
     m.put(Equilibrium.BISULFATE, List.of(BISULFATE_DICKSON));
     m.put(Equilibrium.CARBONIC_FIRST, List.of(CARBONIC_FIRST_PLUMMER_BUSENBERG));
     m.put(Equilibrium.CARBONIC_SECOND, List.of(CARBONIC_SECOND_PLUMMER_BUSENBERG));
@@ -38,13 +38,23 @@ public final class ConstantSets {
     m.put(Equilibrium.PHOSPHORIC_THIRD, List.of(PHOSPHORIC_THIRD_LLNL));
     m.put(Equilibrium.ACETIC, List.of(ACETIC_HARNED, ACETIC_LLNL));
     m.put(Equilibrium.FORMIC, List.of(FORMIC_HARNED, FORMIC_LLNL));
-    m.put(Equilibrium.BORIC, List.of(BORIC_MESMER));
+    // every other equilibrium has a single fit in the catalogue, and the default uses it
+    for (Fit fit : EquilibriumConstants.all()) {
+      Equilibrium e = fit.equilibrium();
+      if (!m.containsKey(e) && onlyFitOf(e)) {
+        m.put(e, List.of(fit));
+      }
+    }
     return new ConstantSet(
         "default",
-        "NH4+ llnl.dat; amines three-term (recommended dCp); CO2 Plummer-Busenberg 1982; HSO4-"
-            + " Dickson 1990; H3PO4 llnl.dat; acetic/formic Harned to 60 °C then llnl; B(OH)3"
-            + " Mesmer 1972",
+        "ammonium llnl.dat; amines three-term (recommended dCp); carbonic acid Plummer-Busenberg"
+            + " 1982; bisulfate Dickson 1990; phosphoric acid llnl.dat; acetic/formic Harned to 60"
+            + " °C then llnl; boric acid Mesmer 1972",
         m);
+  }
+
+  private static boolean onlyFitOf(Equilibrium e) {
+    return EquilibriumConstants.all().stream().filter(f -> f.equilibrium() == e).count() == 1;
   }
 
   /** The alternatives to {@link #DEFAULT}, each differing in one source or one database. */
@@ -57,62 +67,63 @@ public final class ConstantSets {
     return ALL;
   }
 
-  /** The set with a given name. */
-  public static ConstantSet byName(String name) {
+  /** The set with a given {@link ConstantSet#id()}. */
+  public static ConstantSet byId(String id) {
     for (ConstantSet s : ALL) {
-      if (s.name().equals(name)) {
+      if (s.id().equals(id)) {
         return s;
       }
     }
-    throw new IllegalArgumentException("no constant set named " + name);
+    throw new IllegalArgumentException("no constant set with id " + id);
   }
 
   private static final List<ConstantSet> ALTERNATIVES =
       List.of(
-          one("NH4+ Thermoddem", Equilibrium.AMMONIUM, AMMONIUM_THERMODDEM),
+          one("ammonium-2", Equilibrium.AMMONIUM, AMMONIUM_THERMODDEM),
           one(
-              "NH4+ Bates-Pinching 1949",
+              "ammonium-3",
               Equilibrium.AMMONIUM,
               AMMONIUM_BATES_PINCHING,
               "extrapolated above 50 °C"),
-          one("NH4+ Edwards 1978", Equilibrium.AMMONIUM, AMMONIUM_EDWARDS, "to 225 °C"),
-          one("morpholine dCp 0", Equilibrium.MORPHOLINIUM, MORPHOLINIUM_ZERO_CP),
-          one("ethanolamine dCp 0", Equilibrium.ETHANOLAMMONIUM, ETHANOLAMMONIUM_ZERO_CP),
+          one("ammonium-4", Equilibrium.AMMONIUM, AMMONIUM_EDWARDS, "to 225 °C"),
+          one("morpholinium-2", Equilibrium.MORPHOLINIUM, MORPHOLINIUM_ZERO_CP),
+          one("ethanolammonium-2", Equilibrium.ETHANOLAMMONIUM, ETHANOLAMMONIUM_ZERO_CP),
           one(
-              "dimethylamine NIST46 dCp 0",
+              "dimethylammonium-2",
               Equilibrium.DIMETHYLAMMONIUM,
               DIMETHYLAMMONIUM_NIST46_ZERO_CP,
               "the old row; 25 °C data only"),
           DEFAULT.with(
-              "CO2 llnl.dat",
-              "CO2 K1 and K2 from llnl.dat instead of Plummer-Busenberg 1982",
+              "carbonic-2",
+              "carbonic acid K1 and K2 from llnl.dat instead of Plummer-Busenberg 1982",
               Map.of(
                   Equilibrium.CARBONIC_FIRST, List.of(CARBONIC_FIRST_LLNL),
                   Equilibrium.CARBONIC_SECOND, List.of(CARBONIC_SECOND_LLNL))),
-          one("HSO4- llnl.dat", Equilibrium.BISULFATE, BISULFATE_LLNL),
+          one("bisulfate-2", Equilibrium.BISULFATE, BISULFATE_LLNL),
           DEFAULT.with(
-              "H3PO4 Thermoddem",
-              "H3PO4 K1-K3 from Thermoddem instead of llnl.dat",
+              "phosphoric-2",
+              "phosphoric acid K1-K3 from Thermoddem instead of llnl.dat",
               Map.of(
                   Equilibrium.PHOSPHORIC_FIRST, List.of(PHOSPHORIC_FIRST_THERMODDEM),
                   Equilibrium.PHOSPHORIC_SECOND, List.of(PHOSPHORIC_SECOND_THERMODDEM),
                   Equilibrium.PHOSPHORIC_THIRD, List.of(PHOSPHORIC_THIRD_THERMODDEM))),
           DEFAULT.with(
-              "organic acids llnl",
+              "organic-acids-2",
               "acetic and formic acid from the llnl fits at every temperature",
               Map.of(
                   Equilibrium.ACETIC, List.of(ACETIC_LLNL),
                   Equilibrium.FORMIC, List.of(FORMIC_LLNL))),
           DEFAULT.with(
-              "organic acids Harned",
+              "organic-acids-1",
               "acetic and formic acid from the Harned forms at every temperature (extrapolated"
                   + " above 60 °C)",
               Map.of(
                   Equilibrium.ACETIC, List.of(ACETIC_HARNED),
                   Equilibrium.FORMIC, List.of(FORMIC_HARNED))),
           DEFAULT.with(
-              "llnl.dat throughout",
-              "every equilibrium llnl.dat has: NH4+, CO2 K1/K2, HSO4-, H3PO4, acetic, formic",
+              "hkf-fits",
+              "every equilibrium the HKF-based database llnl.dat has: ammonium, carbonic acid K1/K2,"
+                  + " bisulfate, phosphoric acid, acetic, formic",
               Map.of(
                   Equilibrium.CARBONIC_FIRST, List.of(CARBONIC_FIRST_LLNL),
                   Equilibrium.CARBONIC_SECOND, List.of(CARBONIC_SECOND_LLNL),
@@ -120,9 +131,9 @@ public final class ConstantSets {
                   Equilibrium.ACETIC, List.of(ACETIC_LLNL),
                   Equilibrium.FORMIC, List.of(FORMIC_LLNL))),
           DEFAULT.with(
-              "Thermoddem where transcribed",
-              "NH4+ and H3PO4 K1-K3 from Thermoddem (its CO2 and HSO4- coefficients are not"
-                  + " transcribed)",
+              "ammonium-phosphoric-2",
+              "ammonium and phosphoric acid K1-K3 from Thermoddem (its carbonic-acid and bisulfate"
+                  + " coefficients are not transcribed)",
               Map.of(
                   Equilibrium.AMMONIUM, List.of(AMMONIUM_THERMODDEM),
                   Equilibrium.PHOSPHORIC_FIRST, List.of(PHOSPHORIC_FIRST_THERMODDEM),
@@ -138,12 +149,18 @@ public final class ConstantSets {
     return List.copyOf(list);
   }
 
-  private static ConstantSet one(String name, Equilibrium e, Fit fit) {
-    return one(name, e, fit, null);
+  private static ConstantSet one(String id, Equilibrium e, Fit fit) {
+    return one(id, e, fit, null);
   }
 
-  private static ConstantSet one(String name, Equilibrium e, Fit fit, String remark) {
-    String d = e.reaction() + " from " + fit.id() + (remark == null ? "" : " (" + remark + ")");
-    return DEFAULT.with(name, d, Map.of(e, List.of(fit)));
+  private static ConstantSet one(String id, Equilibrium e, Fit fit, String remark) {
+    String d =
+        e.reaction()
+            + " from fit "
+            + fit.id()
+            + ": "
+            + fit.reference().id()
+            + (remark == null ? "" : " (" + remark + ")");
+    return DEFAULT.with(id, d, Map.of(e, List.of(fit)));
   }
 }

@@ -176,7 +176,7 @@ public final class EquilibriumConstants {
    */
   public static final Fit AMMONIUM_LLNL =
       new Fit(
-          "NH4+ llnl.dat",
+          "ammonium-1",
           Equilibrium.AMMONIUM,
           Sum.reverse(Analytic.of(-14.527, -5.0518e-3, 3044.7, 6.0865, 47.515)),
           LLNL,
@@ -185,7 +185,7 @@ public final class EquilibriumConstants {
   /** Thermoddem, NH3 + H⁺ = NH4⁺ (association, as printed); 0-300 °C. */
   public static final Fit AMMONIUM_THERMODDEM =
       new Fit(
-          "NH4+ Thermoddem",
+          "ammonium-2",
           Equilibrium.AMMONIUM,
           Sum.reverse(Analytic.of(37.494408, -1.5452368e-3, -695.60062, -11.496355, 265549.9)),
           THERMODDEM,
@@ -194,7 +194,7 @@ public final class EquilibriumConstants {
   /** Bates &amp; Pinching 1949, NH4⁺ = NH3 + H⁺ as stored in phreeqc.dat; 0-50 °C. */
   public static final Fit AMMONIUM_BATES_PINCHING =
       new Fit(
-          "NH4+ Bates-Pinching 1949",
+          "ammonium-3",
           Equilibrium.AMMONIUM,
           new Analytic(0.6322, -0.001225, -2835.76, 0, 0, 0),
           BATES_PINCHING_1949,
@@ -203,7 +203,7 @@ public final class EquilibriumConstants {
   /** Edwards et al. 1978 base constant with their own Kw; 0-225 °C. */
   public static final Fit AMMONIUM_EDWARDS =
       new Fit(
-          "NH4+ Edwards 1978",
+          "ammonium-4",
           Equilibrium.AMMONIUM,
           new EdwardsAmmonia(-3335.7, 1.4971, -0.0370566, 2.76, -13445.9, -22.4773, 140.932),
           EDWARDS_1978,
@@ -214,7 +214,7 @@ public final class EquilibriumConstants {
   /** Morpholine, log K(25 °C) −8.491, ΔH 39 kJ/mol, ΔCp +40 J/(K mol); 0-300 °C. */
   public static final Fit MORPHOLINIUM_RIDLEY =
       new Fit(
-          "morpholine Ridley 2000 dCp 40",
+          "morpholinium-1",
           Equilibrium.MORPHOLINIUM,
           new ThreeTerm(-8.491, 39_000, 40),
           RIDLEY_2000,
@@ -223,7 +223,7 @@ public final class EquilibriumConstants {
   /** Morpholine with ΔCp = 0 (lower bound); 0-300 °C. */
   public static final Fit MORPHOLINIUM_ZERO_CP =
       new Fit(
-          "morpholine Ridley 2000 dCp 0",
+          "morpholinium-2",
           Equilibrium.MORPHOLINIUM,
           new ThreeTerm(-8.491, 39_000, 0),
           RIDLEY_2000,
@@ -232,7 +232,7 @@ public final class EquilibriumConstants {
   /** Ethanolamine, −9.498, ΔH 50.5 kJ/mol, ΔCp +26 J/(K mol) [M]; 0-300 °C. */
   public static final Fit ETHANOLAMMONIUM_RECOMMENDED =
       new Fit(
-          "ethanolamine dCp 26",
+          "ethanolammonium-1",
           Equilibrium.ETHANOLAMMONIUM,
           new ThreeTerm(-9.498, 50_500, 26),
           ETHANOLAMINE_RECALLED,
@@ -241,7 +241,7 @@ public final class EquilibriumConstants {
   /** Ethanolamine with ΔCp = 0 (lower bound) [M]; 0-300 °C. */
   public static final Fit ETHANOLAMMONIUM_ZERO_CP =
       new Fit(
-          "ethanolamine dCp 0",
+          "ethanolammonium-2",
           Equilibrium.ETHANOLAMMONIUM,
           new ThreeTerm(-9.498, 50_500, 0),
           ETHANOLAMINE_RECALLED,
@@ -250,7 +250,7 @@ public final class EquilibriumConstants {
   /** Cyclohexylamine, −10.64 [M], ΔH 54.6 kJ/mol [M], ΔCp +30 [E]; 0-300 °C. */
   public static final Fit CYCLOHEXYLAMMONIUM_ESTIMATE =
       new Fit(
-          "cyclohexylamine estimate",
+          "cyclohexylammonium-1",
           Equilibrium.CYCLOHEXYLAMMONIUM,
           new ThreeTerm(-10.64, 54_600, 30),
           CYCLOHEXYLAMINE_ESTIMATE,
@@ -259,7 +259,7 @@ public final class EquilibriumConstants {
   /** Dimethylamine, Bénézeth 2001: −10.77, ΔH 50.8 kJ/mol, ΔCp +116 J/(K mol); 0-290 °C. */
   public static final Fit DIMETHYLAMMONIUM_BENEZETH =
       new Fit(
-          "dimethylamine Benezeth 2001 dCp 116",
+          "dimethylammonium-1",
           Equilibrium.DIMETHYLAMMONIUM,
           new ThreeTerm(-10.77, 50_800, 116),
           BENEZETH_2001,
@@ -272,7 +272,7 @@ public final class EquilibriumConstants {
    */
   public static final Fit DIMETHYLAMMONIUM_NIST46_ZERO_CP =
       new Fit(
-          "dimethylamine NIST46 dCp 0",
+          "dimethylammonium-2",
           Equilibrium.DIMETHYLAMMONIUM,
           new ThreeTerm(-10.774, 50_208, 0),
           NIST46,
@@ -281,7 +281,7 @@ public final class EquilibriumConstants {
   /** 3-Methoxypropylamine, −10.4 [M, unverified], ΔH 55 [E], ΔCp +30 [E]; 25 °C only. */
   public static final Fit METHOXYPROPYLAMMONIUM_ESTIMATE =
       new Fit(
-          "methoxypropylamine estimate",
+          "methoxypropylammonium-1",
           Equilibrium.METHOXYPROPYLAMMONIUM,
           new ThreeTerm(-10.4, 55_000, 30),
           METHOXYPROPYLAMINE_ESTIMATE,
@@ -290,7 +290,7 @@ public final class EquilibriumConstants {
   /** DEAE, −9.8 [M], ΔH 44.6 [M], ΔCp +60 [E]; 0-300 °C. */
   public static final Fit DIETHYLAMINOETHANOLIUM_ESTIMATE =
       new Fit(
-          "DEAE estimate",
+          "diethylaminoethanolium-1",
           Equilibrium.DIETHYLAMINOETHANOLIUM,
           new ThreeTerm(-9.8, 44_600, 60),
           DEAE_ESTIMATE,
@@ -301,7 +301,7 @@ public final class EquilibriumConstants {
   /** Dickson et al. 1990, HSO4⁻ = SO4²⁻ + H⁺; 0-250 °C. */
   public static final Fit BISULFATE_DICKSON =
       new Fit(
-          "HSO4- Dickson 1990",
+          "bisulfate-1",
           Equilibrium.BISULFATE,
           new DicksonBisulfate(562.69486, -102.5154, -1.117033e-4, 0.2477538, -13273.75),
           DICKSON_1990,
@@ -310,7 +310,7 @@ public final class EquilibriumConstants {
   /** llnl.dat, SO4²⁻ + H⁺ = HSO4⁻ (association, as printed); 0-300 °C. */
   public static final Fit BISULFATE_LLNL =
       new Fit(
-          "HSO4- llnl.dat",
+          "bisulfate-2",
           Equilibrium.BISULFATE,
           Sum.reverse(Analytic.of(49.619, 3.0368e-2, -1155.8, -21.335, -18.051)),
           LLNL,
@@ -321,7 +321,7 @@ public final class EquilibriumConstants {
   /** Plummer &amp; Busenberg 1982 K1, CO2(aq) + H2O = HCO3⁻ + H⁺; 0-250 °C. */
   public static final Fit CARBONIC_FIRST_PLUMMER_BUSENBERG =
       new Fit(
-          "CO2 K1 Plummer-Busenberg 1982",
+          "carbonic-first-1",
           Equilibrium.CARBONIC_FIRST,
           Analytic.of(-356.3094, -0.06091964, 21834.37, 126.8339, -1684915),
           PLUMMER_BUSENBERG_1982,
@@ -330,7 +330,7 @@ public final class EquilibriumConstants {
   /** Plummer &amp; Busenberg 1982 K2, HCO3⁻ = CO3²⁻ + H⁺; 0-250 °C. */
   public static final Fit CARBONIC_SECOND_PLUMMER_BUSENBERG =
       new Fit(
-          "CO2 K2 Plummer-Busenberg 1982",
+          "carbonic-second-1",
           Equilibrium.CARBONIC_SECOND,
           Analytic.of(-107.8871, -0.03252849, 5151.79, 38.92561, -563713.9),
           PLUMMER_BUSENBERG_1982,
@@ -339,7 +339,7 @@ public final class EquilibriumConstants {
   /** llnl.dat K1 from HCO3⁻ + H⁺ = CO2 + H2O (association, as printed); 0-300 °C. */
   public static final Fit CARBONIC_FIRST_LLNL =
       new Fit(
-          "CO2 K1 llnl.dat",
+          "carbonic-first-2",
           Equilibrium.CARBONIC_FIRST,
           Sum.reverse(Analytic.of(-10.534, 0.021746, 2521.6, 0.79125, 39.351)),
           LLNL,
@@ -348,7 +348,7 @@ public final class EquilibriumConstants {
   /** llnl.dat K2, HCO3⁻ = CO3²⁻ + H⁺ (as printed); 0-300 °C. */
   public static final Fit CARBONIC_SECOND_LLNL =
       new Fit(
-          "CO2 K2 llnl.dat",
+          "carbonic-second-2",
           Equilibrium.CARBONIC_SECOND,
           Analytic.of(-69.958, -0.033526, -70.846, 28.224, -1.0849),
           LLNL,
@@ -367,7 +367,7 @@ public final class EquilibriumConstants {
   /** llnl.dat K1 = log K(HPO4²⁻ + H⁺ = H2PO4⁻) − log K(HPO4²⁻ + 2H⁺ = H3PO4); 0-300 °C. */
   public static final Fit PHOSPHORIC_FIRST_LLNL =
       new Fit(
-          "H3PO4 K1 llnl.dat",
+          "phosphoric-first-1",
           Equilibrium.PHOSPHORIC_FIRST,
           Sum.difference(LLNL_H2PO4_FORMATION, LLNL_H3PO4_FORMATION),
           LLNL,
@@ -376,7 +376,7 @@ public final class EquilibriumConstants {
   /** llnl.dat K2, the reverse of HPO4²⁻ + H⁺ = H2PO4⁻; 0-300 °C. */
   public static final Fit PHOSPHORIC_SECOND_LLNL =
       new Fit(
-          "H3PO4 K2 llnl.dat",
+          "phosphoric-second-1",
           Equilibrium.PHOSPHORIC_SECOND,
           Sum.reverse(LLNL_H2PO4_FORMATION),
           LLNL,
@@ -385,7 +385,7 @@ public final class EquilibriumConstants {
   /** llnl.dat K3, HPO4²⁻ = PO4³⁻ + H⁺ (as printed); 0-300 °C. */
   public static final Fit PHOSPHORIC_THIRD_LLNL =
       new Fit(
-          "H3PO4 K3 llnl.dat",
+          "phosphoric-third-1",
           Equilibrium.PHOSPHORIC_THIRD,
           Analytic.of(-76.17, -0.033574, 134.05, 29.658, 2.114),
           LLNL,
@@ -398,7 +398,7 @@ public final class EquilibriumConstants {
   /** Thermoddem K1, the reverse of H2PO4⁻ + H⁺ = H3PO4; 0-300 °C. */
   public static final Fit PHOSPHORIC_FIRST_THERMODDEM =
       new Fit(
-          "H3PO4 K1 Thermoddem",
+          "phosphoric-first-2",
           Equilibrium.PHOSPHORIC_FIRST,
           Sum.reverse(Analytic.of(710.25502, 0.11203519, -39337.065, -256.90201, 2320664.1)),
           THERMODDEM,
@@ -407,7 +407,7 @@ public final class EquilibriumConstants {
   /** Thermoddem K2, H2PO4⁻ = HPO4²⁻ + H⁺ (as printed); 0-300 °C. */
   public static final Fit PHOSPHORIC_SECOND_THERMODDEM =
       new Fit(
-          "H3PO4 K2 Thermoddem",
+          "phosphoric-second-2",
           Equilibrium.PHOSPHORIC_SECOND,
           THERMODDEM_H2PO4_TO_HPO4,
           THERMODDEM,
@@ -416,7 +416,7 @@ public final class EquilibriumConstants {
   /** Thermoddem K3 = log K(H2PO4⁻ = PO4³⁻ + 2H⁺) − log K(H2PO4⁻ = HPO4²⁻ + H⁺); 0-300 °C. */
   public static final Fit PHOSPHORIC_THIRD_THERMODDEM =
       new Fit(
-          "H3PO4 K3 Thermoddem",
+          "phosphoric-third-2",
           Equilibrium.PHOSPHORIC_THIRD,
           Sum.difference(
               Analytic.of(-1484.1595, -0.240379, 81179.531, 534.08042, -5116368.6),
@@ -429,7 +429,7 @@ public final class EquilibriumConstants {
   /** Harned &amp; Ehlers 1933 acetic acid [M]; 0-60 °C. */
   public static final Fit ACETIC_HARNED =
       new Fit(
-          "acetic Harned-Ehlers 1933",
+          "acetic-1",
           Equilibrium.ACETIC,
           new Harned(-1170.48, 3.1649, -0.013399),
           HARNED_EHLERS_1933,
@@ -438,7 +438,7 @@ public final class EquilibriumConstants {
   /** llnl.dat HAcetate = Acetate⁻ + H⁺ (as printed); 0-300 °C. */
   public static final Fit ACETIC_LLNL =
       new Fit(
-          "acetic llnl.dat",
+          "acetic-2",
           Equilibrium.ACETIC,
           Analytic.of(-96.597, -0.034535, 1975.3, 38.593, 30.85),
           LLNL,
@@ -447,7 +447,7 @@ public final class EquilibriumConstants {
   /** Harned &amp; Embree 1934 formic acid [M]; 0-60 °C. */
   public static final Fit FORMIC_HARNED =
       new Fit(
-          "formic Harned-Embree 1934",
+          "formic-1",
           Equilibrium.FORMIC,
           new Harned(-1342.85, 5.2743, -0.015168),
           HARNED_EMBREE_1934,
@@ -456,7 +456,7 @@ public final class EquilibriumConstants {
   /** llnl_organics.dat HCOOH = HCOO⁻ + H⁺ (as printed); 0-300 °C. */
   public static final Fit FORMIC_LLNL =
       new Fit(
-          "formic llnl_organics.dat",
+          "formic-2",
           Equilibrium.FORMIC,
           Analytic.of(-94.187, -0.034616, 1891.8, 38.145, 29.547),
           LLNL_ORGANICS,
@@ -470,7 +470,7 @@ public final class EquilibriumConstants {
    */
   public static final Fit BORIC_MESMER =
       new Fit(
-          "B(OH)3 Mesmer 1972 Q11",
+          "boric-1",
           Equilibrium.BORIC,
           new MesmerBoricQ11(1573.21, 28.6059, 0.012078, -13.2258),
           MESMER_1972,

@@ -8,7 +8,8 @@ import org.kwanta.model.ValidityRange;
  * the source, and the temperature range the source states. Outside that range the engine still
  * evaluates the fit but marks the constant as extrapolated in every result.
  *
- * @param id stable source id shown in results, e.g. {@code "NH4+ llnl.dat"}
+ * @param id stable id of our own shown in results, e.g. {@code "ammonium-1"} (the equilibrium and a
+ *     number; the source is in {@code reference})
  * @param equilibrium the dissociation equilibrium (the engine's direction)
  * @param function log10 Ka(T) in the engine's direction, built from the printed reaction(s)
  * @param reference citation and confidence ([V] retrieved, [M] from memory, [E] estimated)

@@ -196,7 +196,7 @@ public final class Speciation {
         solver.species(s),
         used,
         options.activityModel(),
-        options.constants().name(),
+        options.constants().id(),
         options.sampleOrigin(),
         residual,
         s.iterations(),
@@ -250,14 +250,14 @@ public final class Speciation {
         startI = s.ionicStrength();
       }
       double ph = -s.log10ActivityH();
-      members.add(new PhBand.Member(set.name(), ph, k.extrapolated));
+      members.add(new PhBand.Member(set.id(), ph, k.extrapolated));
       if (ph < min) {
         min = ph;
-        minSet = set.name();
+        minSet = set.id();
       }
       if (ph > max) {
         max = ph;
-        maxSet = set.name();
+        maxSet = set.id();
       }
     }
     return new PhBand(min, minSet, max, maxSet, members);

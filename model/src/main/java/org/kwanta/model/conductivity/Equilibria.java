@@ -2,6 +2,7 @@ package org.kwanta.model.conductivity;
 
 import java.util.EnumMap;
 import java.util.Map;
+import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.ConstantSet;
 import org.kwanta.model.aqueous.ConstantSets;
 import org.kwanta.model.aqueous.Equilibrium;
@@ -9,19 +10,20 @@ import org.kwanta.model.water.WaterState;
 
 /**
  * Equilibrium constants at one water state, molal, infinite-dilution standard state, as supplied by
- * the speciation engine. Acid constants are written HA = A⁻ + H⁺ and BH⁺ = B + H⁺.
+ * the speciation engine. Acid constants are written HA ⇌ A⁻ + H⁺ and BH⁺ ⇌ B + H⁺.
  *
  * @param water the state (Kw from its pKw, Davies A from its Debye–Hückel A)
- * @param basePKa pKa of each alkalizer's BH⁺ at this state; alkalizers absent cannot be used
- * @param carbonicPK1 pK1 of CO₂(aq) + H₂O = HCO₃⁻ + H⁺
- * @param carbonicPK2 pK2 of HCO₃⁻ = CO₃²⁻ + H⁺
+ * @param basePKa pKa of each weak base's BH⁺ ({@link Component#isWeakBase()}) at this state; bases
+ *     absent cannot be used
+ * @param carbonicPK1 pK1 of CO₂(aq) + H₂O ⇌ HCO₃⁻ + H⁺
+ * @param carbonicPK2 pK2 of HCO₃⁻ ⇌ CO₃²⁻ + H⁺
  * @param phosphoricPK1 pK1 of H₃PO₄
  * @param phosphoricPK2 pK2 of H₂PO₄⁻
  * @param phosphoricPK3 pK3 of HPO₄²⁻
  */
 public record Equilibria(
     WaterState water,
-    Map<Alkalizer, Double> basePKa,
+    Map<Component, Double> basePKa,
     double carbonicPK1,
     double carbonicPK2,
     double phosphoricPK1,
@@ -31,16 +33,6 @@ public record Equilibria(
   public Equilibria {
     basePKa = Map.copyOf(basePKa);
   }
-
-  private static final Map<Alkalizer, Equilibrium> BASE_EQUILIBRIA =
-      Map.of(
-          Alkalizer.AMMONIA, Equilibrium.AMMONIUM,
-          Alkalizer.MORPHOLINE, Equilibrium.MORPHOLINIUM,
-          Alkalizer.ETHANOLAMINE, Equilibrium.ETHANOLAMMONIUM,
-          Alkalizer.DIMETHYLAMINE, Equilibrium.DIMETHYLAMMONIUM,
-          Alkalizer.CYCLOHEXYLAMINE, Equilibrium.CYCLOHEXYLAMMONIUM,
-          Alkalizer.METHOXYPROPYLAMINE, Equilibrium.METHOXYPROPYLAMMONIUM,
-          Alkalizer.DIETHYLAMINOETHANOL, Equilibrium.DIETHYLAMINOETHANOLIUM);
 
   /**
    * The constants of the speciation engine's default constant set at a water state (an adapter onto
@@ -55,9 +47,11 @@ public record Equilibria(
   public static Equilibria of(WaterState water, ConstantSet set) {
     double t = water.temperatureK();
     double pKw = water.pKw();
-    Map<Alkalizer, Double> pka = new EnumMap<>(Alkalizer.class);
-    for (Map.Entry<Alkalizer, Equilibrium> e : BASE_EQUILIBRIA.entrySet()) {
-      pka.put(e.getKey(), -set.fitAt(e.getValue(), t).log10K(t, pKw));
+    Map<Component, Double> pka = new EnumMap<>(Component.class);
+    for (Component c : Component.values()) {
+      if (c.isWeakBase()) {
+        pka.put(c, -set.fitAt(c.equilibria().get(0), t).log10K(t, pKw));
+      }
     }
     return new Equilibria(
         water,
@@ -70,8 +64,8 @@ public record Equilibria(
   }
 
   /** Convenience builder for one alkalizer. */
-  public static Map<Alkalizer, Double> pKa(Alkalizer a, double pKa) {
-    Map<Alkalizer, Double> m = new EnumMap<>(Alkalizer.class);
+  public static Map<Component, Double> pKa(Component a, double pKa) {
+    Map<Component, Double> m = new EnumMap<>(Component.class);
     m.put(a, pKa);
     return m;
   }

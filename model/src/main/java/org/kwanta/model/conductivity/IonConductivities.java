@@ -1,5 +1,6 @@
 package org.kwanta.model.conductivity;
 
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.water.WaterState;
 
 /**
@@ -9,7 +10,7 @@ import org.kwanta.model.water.WaterState;
  */
 public final class IonConductivities {
 
-  private static final Ion[] IONS = Ion.values();
+  private static final Species[] IONS = Species.values();
 
   private final WaterState water;
   private final double viscosityPaS;
@@ -24,7 +25,7 @@ public final class IonConductivities {
     this.water = water;
     this.viscosityPaS = viscosityPaS;
     this.lambda0 = new double[IONS.length];
-    for (Ion ion : IONS) {
+    for (Species ion : IONS) {
       lambda0[ion.ordinal()] = LimitingConductivity.at(ion, water.temperatureK(), viscosityRatio);
     }
     this.b1 = OnsagerCorrection.b1(water.relativePermittivity(), water.temperatureK());
@@ -44,7 +45,7 @@ public final class IonConductivities {
   }
 
   /** Limiting conductivity λ° of an ion per unit charge, S cm² mol⁻¹. */
-  public double limiting(Ion ion) {
+  public double limiting(Species ion) {
     return lambda0[ion.ordinal()];
   }
 
@@ -61,8 +62,8 @@ public final class IonConductivities {
   /**
    * Conductivity of a solution.
    *
-   * @param molalities molality of each ion, mol/kg, indexed by {@link Ion#ordinal()}; ions absent
-   *     from a shorter array count as zero
+   * @param molalities molality of each ion, mol/kg, indexed by {@link Species#ordinal()}; ions
+   *     absent from a shorter array count as zero
    * @return κ, µS/cm
    */
   public double kappa(double[] molalities) {
@@ -70,7 +71,7 @@ public final class IonConductivities {
     double halfSumMz2 = 0;
     int n = Math.min(molalities.length, IONS.length);
     for (int i = 0; i < n; i++) {
-      int z = IONS[i].charge();
+      int z = IONS[i].chargeNumber();
       halfSumMz2 += molalities[i] * z * z;
     }
     double sqrtI = Math.sqrt(0.5 * halfSumMz2 * rho / 1000);
@@ -78,7 +79,7 @@ public final class IonConductivities {
     for (int i = 0; i < n; i++) {
       double m = molalities[i];
       if (m != 0) {
-        int z = Math.abs(IONS[i].charge());
+        int z = Math.abs(IONS[i].chargeNumber());
         double l0 = lambda0[i];
         sum += m * z * (l0 - (b1 * l0 + b2 / 2) * z * sqrtI);
       }
@@ -95,7 +96,7 @@ public final class IonConductivities {
     double s = 0;
     int n = Math.min(molalities.length, IONS.length);
     for (int i = 0; i < n; i++) {
-      int z = IONS[i].charge();
+      int z = IONS[i].chargeNumber();
       s += molalities[i] * z * z;
     }
     return 0.5 * s * water.densityKgPerM3() / 1000;
@@ -113,8 +114,8 @@ public final class IonConductivities {
       m = Math.sqrt(kw) / Davies.gamma(water.debyeHuckelA(), 1, m);
     }
     double[] mol = new double[IONS.length];
-    mol[Ion.H.ordinal()] = m;
-    mol[Ion.OH.ordinal()] = m;
+    mol[Species.HYDROGEN_ION.ordinal()] = m;
+    mol[Species.HYDROXIDE.ordinal()] = m;
     return kappa(mol);
   }
 }

@@ -1,15 +1,26 @@
 package org.kwanta.model.conductivity;
 
+import java.util.EnumMap;
+import java.util.Map;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Composition;
+
 /**
- * Total amounts of the solutes the conductivity model handles, mol/kg of water (molality, which
- * does not change when the sample is heated or cooled).
+ * Total amounts of the solutes the conductivity fits determine, mol/kg of water (molality, which
+ * does not change when the sample is heated or cooled): the {@link Component}s a conductivity
+ * channel can tell apart, grouped by the role they play in the fits ({@link #composition} gives the
+ * same water as components). A flat record rather than a map because the fits build millions of
+ * them.
  *
  * @param alkalizer total of the configured alkalizer or alkalizer mix (B + BH⁺), mol/kg
- * @param sodium sodium (as a strong cation), mol/kg
- * @param chloride chloride, or strong-acid anions counted as chloride equivalents, mol/kg
- * @param sulfate sulfate, mol/kg (fully dissociated; HSO₄⁻ is negligible above pH 4)
- * @param carbonate total inorganic carbon CO₂ + HCO₃⁻ + CO₃²⁻, mol/kg
- * @param phosphate total phosphate, mol/kg
+ * @param sodium {@link Component#SODIUM} (as a strong cation), mol/kg
+ * @param chloride {@link Component#CHLORIDE}, or strong-acid anions counted as chloride
+ *     equivalents, mol/kg
+ * @param sulfate {@link Component#SULFATE}, mol/kg (fully dissociated; HSO₄⁻ is negligible above pH
+ *     4)
+ * @param carbonate {@link Component#CARBON_DIOXIDE}, total inorganic carbon CO₂ + HCO₃⁻ + CO₃²⁻,
+ *     mol/kg
+ * @param phosphate {@link Component#PHOSPHATE}, total phosphate, mol/kg
  */
 public record Solutes(
     double alkalizer,
@@ -50,5 +61,29 @@ public record Solutes(
       case CARBON_DIOXIDE -> carbonate;
       case PHOSPHORIC_ACID -> phosphate;
     };
+  }
+
+  /**
+   * The same water as component totals (zero totals left out), the alkalizer split over the mix.
+   *
+   * @param mix the alkalizer or mix {@link #alkalizer()} refers to
+   */
+  public Composition composition(AlkalizerMix mix) {
+    Map<Component, Double> totals = new EnumMap<>(Component.class);
+    for (Map.Entry<Component, Double> e : mix.molarFractions().entrySet()) {
+      totals.put(e.getKey(), alkalizer * e.getValue());
+    }
+    putNonZero(totals, Component.SODIUM, sodium);
+    putNonZero(totals, Component.CHLORIDE, chloride);
+    putNonZero(totals, Component.SULFATE, sulfate);
+    putNonZero(totals, Component.CARBON_DIOXIDE, carbonate);
+    putNonZero(totals, Component.PHOSPHATE, phosphate);
+    return new Composition(totals);
+  }
+
+  private static void putNonZero(Map<Component, Double> totals, Component c, double total) {
+    if (total != 0) {
+      totals.put(c, total);
+    }
   }
 }

@@ -3,6 +3,8 @@ package org.kwanta.model.conductivity;
 import java.util.Map;
 import java.util.function.DoubleUnaryOperator;
 import org.kwanta.model.NoConvergenceException;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.numeric.Brent;
 import org.kwanta.model.water.WaterState;
 
@@ -10,7 +12,7 @@ import org.kwanta.model.water.WaterState;
  * Charge balance and conductivity of a cycle-water solution at one temperature, and its inverse:
  * the amount of one solute that gives a measured conductivity.
  *
- * <p>Species follow from a(H⁺) in closed form (Kw; BH⁺ = B + H⁺ for each alkalizer; carbonic and
+ * <p>Species follow from a(H⁺) in closed form (Kw; BH⁺ ⇌ B + H⁺ for each alkalizer; carbonic and
  * phosphoric acid steps; Na⁺, Cl⁻, SO₄²⁻ fully dissociated), with Davies activity coefficients at
  * an ionic strength iterated to a fixed point. For the inverse problem the unknown amount x enters
  * the charge balance linearly, x = −(charge of the rest)/(charge per unit x), so the fit is a
@@ -78,17 +80,17 @@ public final class SolutionModel {
   private static final int PHO = 5;
   private static final int GROUPS = 6;
 
-  private static final int H = Ion.H.ordinal();
-  private static final int OH = Ion.OH.ordinal();
-  private static final int NA = Ion.NA.ordinal();
-  private static final int CL = Ion.CL.ordinal();
-  private static final int SO4 = Ion.SO4.ordinal();
-  private static final int HCO3 = Ion.HCO3.ordinal();
-  private static final int CO3 = Ion.CO3.ordinal();
-  private static final int H2PO4 = Ion.H2PO4.ordinal();
-  private static final int HPO4 = Ion.HPO4.ordinal();
-  private static final int PO4 = Ion.PO4.ordinal();
-  private static final int N_IONS = Ion.values().length;
+  private static final int H = Species.HYDROGEN_ION.ordinal();
+  private static final int OH = Species.HYDROXIDE.ordinal();
+  private static final int NA = Species.SODIUM_ION.ordinal();
+  private static final int CL = Species.CHLORIDE_ION.ordinal();
+  private static final int SO4 = Species.SULFATE.ordinal();
+  private static final int HCO3 = Species.BICARBONATE.ordinal();
+  private static final int CO3 = Species.CARBONATE.ordinal();
+  private static final int H2PO4 = Species.DIHYDROGEN_PHOSPHATE.ordinal();
+  private static final int HPO4 = Species.HYDROGEN_PHOSPHATE.ordinal();
+  private static final int PO4 = Species.PHOSPHATE.ordinal();
+  private static final int N_IONS = Species.values().length;
 
   private final IonConductivities ions;
   private final WaterState water;
@@ -151,21 +153,21 @@ public final class SolutionModel {
     this.baseFraction = new double[n];
     this.baseKa = new double[n];
     int i = 0;
-    for (Map.Entry<Alkalizer, Double> e : mix.molarFractions().entrySet()) {
+    for (Map.Entry<Component, Double> e : mix.molarFractions().entrySet()) {
       Double pk = equilibria.basePKa().get(e.getKey());
       if (pk == null) {
         throw new IllegalArgumentException("no pKa given for " + e.getKey());
       }
-      baseCation[i] = e.getKey().cation().ordinal();
+      baseCation[i] = e.getKey().species().get(0).ordinal();
       baseFraction[i] = e.getValue();
       baseKa[i] = Math.pow(10, -pk);
       i++;
     }
     this.rho = water.densityKgPerM3();
     this.halfRhoPerLiter = 0.5 * rho / 1000;
-    Ion[] all = Ion.values();
+    Species[] all = Species.values();
     for (int k = 0; k < N_IONS; k++) {
-      int z = Math.abs(all[k].charge());
+      int z = Math.abs(all[k].chargeNumber());
       double l0 = ions.limiting(all[k]);
       wa[k] = z * l0;
       wb[k] = z * z * (ions.onsagerB1() * l0 + ions.onsagerB2() / 2);
@@ -368,7 +370,9 @@ public final class SolutionModel {
     if (kappaTarget <= bg.kappa()) {
       return bg;
     }
-    double perMol = water.densityKgPerM3() * (ions.limiting(Ion.NA) + ions.limiting(Ion.CL));
+    double perMol =
+        water.densityKgPerM3()
+            * (ions.limiting(Species.SODIUM_ION) + ions.limiting(Species.CHLORIDE_ION));
     double hi = 2 * (kappaTarget - bg.kappa()) / perMol + 1e-12;
     while (solve(base.with(Solute.SODIUM_CHLORIDE, hi), bg).kappa() < kappaTarget) {
       hi *= 2;

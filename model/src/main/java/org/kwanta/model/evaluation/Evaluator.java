@@ -6,16 +6,13 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
-import org.kwanta.model.aqueous.Component;
-import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.PhSolution;
 import org.kwanta.model.aqueous.Speciation;
 import org.kwanta.model.aqueous.SpeciationOptions;
-import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Conductivity;
 import org.kwanta.model.conductivity.Equilibria;
-import org.kwanta.model.conductivity.Ion;
 import org.kwanta.model.conductivity.IonConductivities;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.Solution;
@@ -302,49 +299,16 @@ public final class Evaluator {
         ratio);
   }
 
-  static Composition toComposition(Solutes s, AlkalizerMix mix) {
-    Map<Component, Double> totals = new EnumMap<>(Component.class);
-    for (Alkalizer a : mix.molarFractions().keySet()) {
-      totals.put(component(a), s.alkalizer() * mix.molarFractions().get(a));
-    }
-    // zero totals are left out (a composition keeps only the non-zero ones)
-    putNonZero(totals, Component.SODIUM, s.sodium());
-    putNonZero(totals, Component.CHLORIDE, s.chloride());
-    putNonZero(totals, Component.SULFATE, s.sulfate());
-    putNonZero(totals, Component.CARBON_DIOXIDE, s.carbonate());
-    putNonZero(totals, Component.PHOSPHATE, s.phosphate());
-    return new Composition(totals);
-  }
-
-  private static void putNonZero(Map<Component, Double> totals, Component c, double total) {
-    if (total != 0) {
-      totals.put(c, total);
-    }
-  }
-
-  private static Component component(Alkalizer a) {
-    return switch (a) {
-      case AMMONIA -> Component.AMMONIA;
-      case MORPHOLINE -> Component.MORPHOLINE;
-      case ETHANOLAMINE -> Component.ETHANOLAMINE;
-      case DIMETHYLAMINE -> Component.DIMETHYLAMINE;
-      case CYCLOHEXYLAMINE -> Component.CYCLOHEXYLAMINE;
-      case METHOXYPROPYLAMINE -> Component.METHOXYPROPYLAMINE;
-      case DIETHYLAMINOETHANOL -> Component.DIETHYLAMINOETHANOL;
-    };
-  }
-
   private static OperatingPh operatingPh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
     WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
     SpeciationOptions options = SpeciationOptions.defaults();
-    PhSolution centralPh = Speciation.ph(toComposition(central, config.alkalizer()), w, options);
+    PhSolution centralPh = Speciation.ph(central.composition(config.alkalizer()), w, options);
     double ph = centralPh.ph();
     double var = 0;
     for (Solutes s : perturbed) {
       // The perturbed totals are near the central ones: start from the central solution.
-      double d =
-          Speciation.ph(toComposition(s, config.alkalizer()), w, options, centralPh).ph() - ph;
+      double d = Speciation.ph(s.composition(config.alkalizer()), w, options, centralPh).ph() - ph;
       var += d * d;
     }
     double sd = Math.sqrt(var);
@@ -352,7 +316,7 @@ public final class Evaluator {
   }
 
   /** λ° of an ion at 25 °C (for the trade-formula constant). */
-  static double lambda25(Ion ion) {
+  static double lambda25(Species ion) {
     return IONS_25.limiting(ion);
   }
 }

@@ -3,8 +3,8 @@ package org.kwanta.model.evaluation;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import org.kwanta.model.conductivity.Alkalizer;
-import org.kwanta.model.conductivity.Ion;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Species;
 
 /**
  * The trade formula for calculated pH at 25 °C: pH ≈ log10(SC − CACE/3) + K, SC and CACE in µS/cm
@@ -39,12 +39,12 @@ final class TradeFormula {
     } else if (regime == Regime.MAKE_UP) {
       why.add("not an alkalized sample");
     } else if (regime == Regime.CAUSTIC) {
-      k = constant(Ion.NA);
+      k = constant(Species.SODIUM_ION);
     } else if (!config.alkalizer().isSingle()) {
       why.add("alkalizer mix");
     } else {
-      Alkalizer a = config.alkalizer().molarFractions().keySet().iterator().next();
-      k = a == Alkalizer.AMMONIA ? Evaluator.TRADE_CONSTANT_AMMONIA : constant(a.cation());
+      Component a = config.alkalizer().molarFractions().keySet().iterator().next();
+      k = a == Component.AMMONIA ? Evaluator.TRADE_CONSTANT_AMMONIA : constant(a.species().get(0));
     }
     if (sc == null || cace == null) {
       why.add("needs specific and cation conductivity");
@@ -65,10 +65,10 @@ final class TradeFormula {
   }
 
   /** K = pKw − 3 − log10(λ°cation + λ°OH) − log10(ρ/1000) at 25 °C. */
-  static double constant(Ion cation) {
+  static double constant(Species cation) {
     return Evaluator.WATER_25.pKw()
         - 3
-        - Math.log10(Evaluator.lambda25(cation) + Evaluator.lambda25(Ion.OH))
+        - Math.log10(Evaluator.lambda25(cation) + Evaluator.lambda25(Species.HYDROXIDE))
         - Math.log10(Evaluator.WATER_25.densityKgPerM3() / 1000);
   }
 }

@@ -9,11 +9,14 @@ import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
 
 /**
- * log10 γ against the reference notes' §2.3 table, which was computed [C] with the same equations
- * (Davies 1962; extended Debye–Hückel with å = 4 Å) and A, B of its §2.2: a consistency check of
- * our implementation and of the A, B our water facade supplies, not an outside value. Tolerance:
- * half a unit of the printed fourth decimal plus 1e-4 for A/B differences (0.002 in A changes log γ
- * by 6e-5 at I = 1e-3, notes §2.2).
+ * log10 γ of the published equations, evaluated independently of this code: Davies, C. W., <i>Ion
+ * Association</i>, Butterworths, London 1962, p. 41 (log10 γ = −A z² [√I/(1 + √I) − 0.3 I]);
+ * extended Debye–Hückel with å = 4 Å and the B-dot term of Helgeson, Am. J. Sci. 267 (1969) 729; A
+ * and B from ε of IAPWS R8-97 and ρ of IAPWS-IF97 on the saturation curve. No publication prints
+ * these values: the expected numbers are an evaluation of the published equations independent of
+ * this code (4 decimals), so this checks our copy of the equations and the A, B our water facade
+ * supplies, not an outside value. Tolerance: half a unit of the fourth decimal plus 1e-4 for A/B
+ * differences (0.002 in A changes log γ by 6e-5 at I = 1e-3).
  */
 class ActivityModelTest {
 
@@ -40,14 +43,20 @@ class ActivityModelTest {
         .isCloseTo(-0.1508, within(TOLERANCE));
   }
 
-  /** At 300 °C llnl.dat's Ḃ is 0, so B-dot equals the table's extended Debye–Hückel column. */
+  /**
+   * At 300 °C Ḃ is 0 (the -bdot table of the EQ3/6 database llnl.dat, as distributed with PHREEQC,
+   * retrieved), so B-dot equals extended Debye–Hückel evaluated independently of this code.
+   */
   @Test
   void bDotAt300CelsiusMatchesTheExtendedDebyeHuckelColumn() {
     assertThat(log10Gamma(ActivityModel.B_DOT, 1, 1e-3, 300)).isCloseTo(-0.0374, within(TOLERANCE));
     assertThat(log10Gamma(ActivityModel.B_DOT, 1, 1e-2, 300)).isCloseTo(-0.1073, within(TOLERANCE));
   }
 
-  /** At 25 °C B-dot adds Ḃ·I with Ḃ = 0.041 kg/mol (llnl.dat) to the extended DH column. */
+  /**
+   * At 25 °C B-dot adds Ḃ·I with Ḃ = 0.041 kg/mol (llnl.dat -bdot table, retrieved) to extended
+   * Debye–Hückel evaluated independently of this code.
+   */
   @Test
   void bDotAt25CelsiusAddsTheLlnlBdotTerm() {
     assertThat(log10Gamma(ActivityModel.B_DOT, 1, 1e-2, 25))

@@ -19,8 +19,8 @@ import org.kwanta.model.water.WaterState;
 /**
  * Seeded random property checks (plain parameterised JUnit; each seed is reproducible). The
  * properties are chemistry that holds for any correct solver: adding a strong acid lowers pH,
- * adding a base raises it (Brønsted; the charge balance is monotone in a(H⁺), reference notes
- * §8.1), totals are conserved, and the charge balance closes.
+ * adding a base raises it (Brønsted; the charge balance is monotone in a(H⁺), shown in the class
+ * comment of {@code ChargeBalanceSolver}), totals are conserved, and the charge balance closes.
  */
 class SpeciationPropertiesTest {
 

@@ -118,7 +118,7 @@ class WarmStartTest {
     assertThat(band.members()).isNotEmpty();
     for (PhBand.Member m : band.members()) {
       SpeciationResult full =
-          Speciation.solve(c, w, options.withConstants(ConstantSets.byName(m.constantSet())));
+          Speciation.solve(c, w, options.withConstants(ConstantSets.byId(m.constantSet())));
       assertThat(m.ph())
           .as("%s, %s at %s K", m.constantSet(), c, t)
           .isCloseTo(full.ph(), within(PH_AGREEMENT));

@@ -4,6 +4,8 @@ import java.util.Arrays;
 import java.util.Map;
 import java.util.function.DoubleUnaryOperator;
 import org.kwanta.model.NoConvergenceException;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.numeric.Brent;
 import org.kwanta.model.water.WaterState;
 
@@ -42,17 +44,17 @@ final class BrentSolutionModel {
   /** Half-width of the warm-start pH bracket. */
   private static final double WARM_HALF_WIDTH = 0.01;
 
-  private static final int H = Ion.H.ordinal();
-  private static final int OH = Ion.OH.ordinal();
-  private static final int NA = Ion.NA.ordinal();
-  private static final int CL = Ion.CL.ordinal();
-  private static final int SO4 = Ion.SO4.ordinal();
-  private static final int HCO3 = Ion.HCO3.ordinal();
-  private static final int CO3 = Ion.CO3.ordinal();
-  private static final int H2PO4 = Ion.H2PO4.ordinal();
-  private static final int HPO4 = Ion.HPO4.ordinal();
-  private static final int PO4 = Ion.PO4.ordinal();
-  private static final int N_IONS = Ion.values().length;
+  private static final int H = Species.HYDROGEN_ION.ordinal();
+  private static final int OH = Species.HYDROXIDE.ordinal();
+  private static final int NA = Species.SODIUM_ION.ordinal();
+  private static final int CL = Species.CHLORIDE_ION.ordinal();
+  private static final int SO4 = Species.SULFATE.ordinal();
+  private static final int HCO3 = Species.BICARBONATE.ordinal();
+  private static final int CO3 = Species.CARBONATE.ordinal();
+  private static final int H2PO4 = Species.DIHYDROGEN_PHOSPHATE.ordinal();
+  private static final int HPO4 = Species.HYDROGEN_PHOSPHATE.ordinal();
+  private static final int PO4 = Species.PHOSPHATE.ordinal();
+  private static final int N_IONS = Species.values().length;
   private static final int[] CHARGES = charges();
 
   private final IonConductivities ions;
@@ -98,12 +100,12 @@ final class BrentSolutionModel {
     this.baseFraction = new double[n];
     this.baseKa = new double[n];
     int i = 0;
-    for (Map.Entry<Alkalizer, Double> e : mix.molarFractions().entrySet()) {
+    for (Map.Entry<Component, Double> e : mix.molarFractions().entrySet()) {
       Double pk = equilibria.basePKa().get(e.getKey());
       if (pk == null) {
         throw new IllegalArgumentException("no pKa given for " + e.getKey());
       }
-      baseCation[i] = e.getKey().cation().ordinal();
+      baseCation[i] = e.getKey().species().get(0).ordinal();
       baseFraction[i] = e.getValue();
       baseKa[i] = Math.pow(10, -pk);
       i++;
@@ -111,10 +113,10 @@ final class BrentSolutionModel {
   }
 
   private static int[] charges() {
-    Ion[] all = Ion.values();
+    Species[] all = Species.values();
     int[] z = new int[all.length];
     for (int i = 0; i < all.length; i++) {
-      z[i] = all[i].charge();
+      z[i] = all[i].chargeNumber();
     }
     return z;
   }
@@ -217,7 +219,9 @@ final class BrentSolutionModel {
     if (kappaTarget <= bg.kappa()) {
       return bg;
     }
-    double perMol = water.densityKgPerM3() * (ions.limiting(Ion.NA) + ions.limiting(Ion.CL));
+    double perMol =
+        water.densityKgPerM3()
+            * (ions.limiting(Species.SODIUM_ION) + ions.limiting(Species.CHLORIDE_ION));
     double hi = 2 * (kappaTarget - bg.kappa()) / perMol + 1e-12;
     while (solve(base.with(Solute.SODIUM_CHLORIDE, hi)).kappa() < kappaTarget) {
       hi *= 2;

@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.OutOfValidityRangeException;
+import org.kwanta.model.aqueous.Species;
 import org.kwanta.model.water.WaterState;
 
 class ConductivityTest {
@@ -36,11 +37,11 @@ class ConductivityTest {
   void oneMillimolarPotassiumChlorideMatchesCrcAndAstmD1125() {
     IonConductivities ions = Conductivity.at(W25);
     double m = 1e-3 / (W25.densityKgPerM3() / 1000);
-    double[] mol = new double[Ion.values().length];
-    mol[Ion.K.ordinal()] = m;
-    mol[Ion.CL.ordinal()] = m;
-    mol[Ion.H.ordinal()] = 1.003e-7;
-    mol[Ion.OH.ordinal()] = 1.003e-7;
+    double[] mol = new double[Species.values().length];
+    mol[Species.POTASSIUM_ION.ordinal()] = m;
+    mol[Species.CHLORIDE_ION.ordinal()] = m;
+    mol[Species.HYDROGEN_ION.ordinal()] = 1.003e-7;
+    mol[Species.HYDROXIDE.ordinal()] = 1.003e-7;
     double k = ions.kappa(mol);
     assertThat(k).isCloseTo(146.88, within(146.88 * 0.001)); // CRC via pyEQL
     // ASTM D1125 reference solution D; that D is 1 mmol/L KCl is from memory
@@ -48,9 +49,9 @@ class ConductivityTest {
   }
 
   /**
-   * ASTM D5128 Table 1: NaOH 0.1 / 1.0 / 8.0 mg/L at 25 °C give 0.625 / 6.229 / 49.83 µS/cm and pH
-   * 8.40 / 9.40 / 10.30. The model is about 1 % lower in conductivity (project reference notes), so
-   * the tolerance is 1.5 %; pH within 0.02.
+   * ASTM D5128 (on-line pH of water of low conductivity), Table 1 (retrieved): NaOH 0.1 / 1.0 / 8.0
+   * mg/L at 25 °C give 0.625 / 6.229 / 49.83 µS/cm and pH 8.40 / 9.40 / 10.30. The model is about 1
+   * % lower in conductivity (our own comparison), so the tolerance is 1.5 %; pH within 0.02.
    */
   @Test
   void sodiumHydroxideMatchesAstmD5128Table1() {
@@ -103,21 +104,21 @@ class ConductivityTest {
   void limitingConductivitiesAt25AreTheCrcValues() {
     IonConductivities ions = Conductivity.at(W25);
     // the 25 °C state of the table is at 0.101325 MPa: the Walden ratio is 1 up to density noise
-    assertThat(ions.limiting(Ion.H)).isCloseTo(349.65, within(1e-6));
-    assertThat(ions.limiting(Ion.CL)).isCloseTo(76.31, within(1e-6));
+    assertThat(ions.limiting(Species.HYDROGEN_ION)).isCloseTo(349.65, within(1e-6));
+    assertThat(ions.limiting(Species.CHLORIDE_ION)).isCloseTo(76.31, within(1e-6));
   }
 
   /**
-   * Lange's Handbook Table 8.32 (retrieved via the project's reference notes): H⁺ 224.1 at 0 °C;
-   * Na⁺ 25.85 at 0 °C; K⁺ 40.3 at 0 °C. The model is within 3.5 % at 0 °C (notes: largest
-   * deviations at 0 °C).
+   * Lange's Handbook of Chemistry (J. A. Dean, ed.), Table 8.32, limiting equivalent ionic
+   * conductances: H⁺ 224.1, Na⁺ 25.85, K⁺ 40.3 S cm² mol⁻¹ at 0 °C (retrieved). The model is within
+   * 3.5 % at 0 °C, where its deviations are largest.
    */
   @Test
   void limitingConductivitiesAtZeroAgreeWithLangeWithinThreeAndAHalfPercent() {
     IonConductivities ions = Conductivity.at(TestWater.atCelsius(0));
-    assertThat(ions.limiting(Ion.H)).isCloseTo(224.1, within(224.1 * 0.035));
-    assertThat(ions.limiting(Ion.NA)).isCloseTo(25.85, within(25.85 * 0.035));
-    assertThat(ions.limiting(Ion.K)).isCloseTo(40.3, within(40.3 * 0.035));
+    assertThat(ions.limiting(Species.HYDROGEN_ION)).isCloseTo(224.1, within(224.1 * 0.035));
+    assertThat(ions.limiting(Species.SODIUM_ION)).isCloseTo(25.85, within(25.85 * 0.035));
+    assertThat(ions.limiting(Species.POTASSIUM_ION)).isCloseTo(40.3, within(40.3 * 0.035));
   }
 
   @Test

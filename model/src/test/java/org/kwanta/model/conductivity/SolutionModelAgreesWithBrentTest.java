@@ -11,6 +11,7 @@ import java.util.stream.Stream;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
@@ -25,11 +26,11 @@ class SolutionModelAgreesWithBrentTest {
 
   private static final AlkalizerMix[] MIXES = {
     AlkalizerMix.AMMONIA,
-    AlkalizerMix.of(Alkalizer.MORPHOLINE),
-    AlkalizerMix.of(Alkalizer.ETHANOLAMINE),
-    new AlkalizerMix(Map.of(Alkalizer.AMMONIA, 0.6, Alkalizer.ETHANOLAMINE, 0.4)),
+    AlkalizerMix.of(Component.MORPHOLINE),
+    AlkalizerMix.of(Component.ETHANOLAMINE),
+    new AlkalizerMix(Map.of(Component.AMMONIA, 0.6, Component.ETHANOLAMINE, 0.4)),
     new AlkalizerMix(
-        Map.of(Alkalizer.AMMONIA, 0.5, Alkalizer.MORPHOLINE, 0.3, Alkalizer.DIMETHYLAMINE, 0.2))
+        Map.of(Component.AMMONIA, 0.5, Component.MORPHOLINE, 0.3, Component.DIMETHYLAMINE, 0.2))
   };
 
   record Sample(double temperatureK, AlkalizerMix mix, Solutes solutes, Solute unknown) {}

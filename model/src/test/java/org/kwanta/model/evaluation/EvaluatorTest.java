@@ -30,7 +30,7 @@ class EvaluatorTest {
   /**
    * Inside its window (ammonia, strong-acid contamination, no CO₂, SC 0.3–40 µS/cm) the trade
    * formula log10(SC − CACE/3) + 8.57 agrees with the rigorous charge balance within 0.05 pH (the
-   * issue's acceptance; the project's reference notes expect ±0.02–0.05).
+   * acceptance bound we set; common practice, no source, puts the trade formula within 0.02–0.05).
    */
   @ParameterizedTest
   @CsvSource({"0.2,1", "0.5,2", "1,5", "2,10", "5,20", "10,50", "0.5,40", "3,0"})

@@ -6,7 +6,7 @@ import java.util.EnumMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.SolutionModel;
@@ -100,7 +100,7 @@ final class RegressionCases {
     return SamplePointConfig.of(
         "U1-ECO-IN",
         Regime.AVT_O,
-        new AlkalizerMix(Map.of(Alkalizer.AMMONIA, 0.7, Alkalizer.ETHANOLAMINE, 0.3)),
+        new AlkalizerMix(Map.of(Component.AMMONIA, 0.7, Component.ETHANOLAMINE, 0.3)),
         428.15,
         15e6);
   }

@@ -65,7 +65,7 @@ record SpeciationCurveResponse(
     return new SpeciationCurveResponse(
         in.totals(),
         SpeciationInputs.apiName(in.options().activityModel()),
-        in.options().constants().name(),
+        in.options().constants().id(),
         SpeciationInputs.apiName(in.options().sampleOrigin()),
         IonizationNames.label(in.ionization()),
         at25.ph(),

@@ -238,16 +238,16 @@ final class SpeciationInputs {
       return ConstantSets.DEFAULT;
     }
     for (ConstantSet s : ConstantSets.all()) {
-      if (s.name().equalsIgnoreCase(name.trim())) {
+      if (s.id().equalsIgnoreCase(name.trim())) {
         return s;
       }
     }
-    List<String> known = ConstantSets.all().stream().map(ConstantSet::name).toList();
+    List<String> known = ConstantSets.all().stream().map(ConstantSet::id).toList();
     throw new BadRequestException(
         HttpStatus.BAD_REQUEST,
         ProblemTypes.BAD_REQUEST,
         "Unknown constant set",
-        "no constant set named '" + name + "'; known sets: " + String.join(", ", known),
+        "no constant set with id '" + name + "'; known sets: " + String.join(", ", known),
         Map.of("field", "constantSet", "knownConstantSets", known));
   }
 }

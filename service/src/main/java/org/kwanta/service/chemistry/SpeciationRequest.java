@@ -23,7 +23,7 @@ record SpeciationRequest(
             description = "activity model, default davies",
             allowableValues = {"davies", "bdot"})
         String activityModel,
-    @Schema(description = "constant set name, default \"default\"", example = "default")
+    @Schema(description = "constant set id, default \"default\"", example = "default")
         String constantSet,
     @Schema(
             description = "liquid (default) or condensed_steam (speciated as condensate)",

@@ -33,7 +33,7 @@ record SpeciationResponse(
         in.totals(),
         SpeciationInputs.apiName(in.options().activityModel()),
         in.options().activityModel().reference().id(),
-        in.options().constants().name(),
+        in.options().constants().id(),
         SpeciationInputs.apiName(in.options().sampleOrigin()),
         IonizationNames.label(in.ionization()),
         reports.stream().map(AtTemperature::from).toList());
@@ -99,9 +99,9 @@ record SpeciationResponse(
       description = "pH at temperature over every distinct alternative constant set")
   record Band(
       @Schema(example = "5.93") double minPh,
-      @Schema(example = "NH4+ Thermoddem") String minConstantSet,
+      @Schema(example = "ammonium-2") String minConstantSet,
       @Schema(example = "6.13") double maxPh,
-      @Schema(example = "NH4+ Bates-Pinching 1949") String maxConstantSet,
+      @Schema(example = "ammonium-3") String maxConstantSet,
       @Schema(example = "0.20") double widthPh,
       List<Member> members) {
 
@@ -126,7 +126,8 @@ record SpeciationResponse(
   @Schema(name = "SpeciesAmount")
   record SpeciesRow(
       @Schema(example = "ammonium") String species,
-      @Schema(example = "NH4+") String formula,
+      @Schema(description = "formula without charge (see chargeNumber)", example = "NH4")
+          String formula,
       @Schema(example = "ammonia") String component,
       @Schema(example = "1") int chargeNumber,
       double molalityMolPerKg,
@@ -138,7 +139,7 @@ record SpeciationResponse(
           a.species().name().toLowerCase(java.util.Locale.ROOT),
           a.species().formula(),
           SpeciationInputs.apiName(a.species().component()),
-          a.species().charge(),
+          a.species().chargeNumber(),
           a.molalityMolPerKg(),
           a.fractionOfComponent(),
           a.activityCoefficient());
@@ -149,10 +150,11 @@ record SpeciationResponse(
   @Schema(name = "ConstantUsed")
   record ConstantRow(
       @Schema(example = "ammonium") String equilibrium,
-      @Schema(example = "NH4+ = NH3 + H+") String reaction,
+      @Schema(example = "NH₄⁺ ⇌ NH₃ + H⁺") String reaction,
       @Schema(description = "log10 Ka, dissociation direction, molal", example = "-5.6")
           double log10K,
-      @Schema(example = "llnl.dat NH4+") String sourceId,
+      @Schema(description = "id of the fit; its source is in citation", example = "ammonium-1")
+          String sourceId,
       String citation,
       @Schema(description = "VERIFIED_BY_CHECK_TABLE, RETRIEVED, FROM_MEMORY or ESTIMATED")
           String confidence,

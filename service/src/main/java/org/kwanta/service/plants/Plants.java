@@ -4,7 +4,8 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
-import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.diagnosis.CoolingWater;
 import org.kwanta.model.limits.PlantType;
 import org.kwanta.service.audit.AuditLog;
@@ -76,7 +77,7 @@ public class Plants {
         problems.add("sample point " + p.id() + ": " + e.getMessage());
       }
       try {
-        Alkalizer.valueOf(alkalizer(p));
+        AlkalizerMix.of(Component.valueOf(alkalizer(p)));
       } catch (IllegalArgumentException e) {
         problems.add(
             "sample point "
@@ -84,7 +85,7 @@ public class Plants {
                 + ": unknown alkalizer '"
                 + p.alkalizer()
                 + "'; known: "
-                + java.util.Arrays.toString(Alkalizer.values()));
+                + AlkalizerMix.alkalizers());
       }
       if (p.operatingTemperatureCel() != null
           && !(p.operatingTemperatureCel() >= 0 && p.operatingTemperatureCel() <= 350)) {

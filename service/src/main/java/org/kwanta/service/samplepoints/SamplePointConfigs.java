@@ -6,7 +6,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.stream.Collectors;
-import org.kwanta.model.conductivity.Alkalizer;
+import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.evaluation.CheckSettings;
 import org.kwanta.model.evaluation.Regime;
@@ -64,7 +64,7 @@ public class SamplePointConfigs {
                   new SamplePointConfig(
                       id,
                       regime(rs.getString(2)),
-                      AlkalizerMix.of(Alkalizer.valueOf(rs.getString(3))),
+                      AlkalizerMix.of(Component.valueOf(rs.getString(3))),
                       (t == null ? 25.0 : t) + 273.15,
                       p == null ? Double.NaN : p * 1e6,
                       Tolerances.defaults(),

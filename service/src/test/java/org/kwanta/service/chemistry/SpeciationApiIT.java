@@ -111,7 +111,8 @@ class SpeciationApiIT {
 
   @Test
   void sodiumHydroxideMatchesAstmD5128Table1InMicromolesPerKilogram() {
-    // ASTM D5128 Table 1 (as quoted in the project's reference notes): 1.0 mg/L NaOH, pH 9.40 at
+    // ASTM D5128 (on-line pH of low-conductivity water) Table 1 (retrieved): 1.0 mg/L NaOH, pH 9.40
+    // at
     // 25 °C. 1.0 mg/L / 39.997 g/mol / 0.99705 kg/L (water at 25 °C) = 25.08 µmol/kg of Na.
     JsonNode r =
         ok(
@@ -125,8 +126,8 @@ class SpeciationApiIT {
 
   @Test
   void everySpeciesAndConstantIsListedWithSourceAndExtrapolationFlag() {
-    // llnl.dat states its NH4+ fit to 300 °C, so at 330 °C (Brackenmoor HP drum) it is
-    // extrapolated and the result says so.
+    // The default NH4+ fit (llnl.dat, cited in the response) is stated to 300 °C, so at 330 °C
+    // (Brackenmoor HP drum) it is extrapolated and the result says so.
     JsonNode r =
         ok(
                 SPECIATION,
@@ -139,8 +140,9 @@ class SpeciationApiIT {
             .get("results")
             .get(0);
     List<String> species = new ArrayList<>();
-    r.get("species").forEach(s -> species.add(s.get("formula").asString()));
-    assertThat(species).containsExactly("NH4+", "NH3", "Cl-", "HSO4-", "SO4-2");
+    r.get("species")
+        .forEach(s -> species.add(s.get("formula").asString() + " " + s.get("chargeNumber")));
+    assertThat(species).containsExactly("NH4 1", "NH3 0", "Cl -1", "HSO4 -1", "SO4 -2");
     double ammoniaFractions = 0;
     for (JsonNode s : r.get("species")) {
       assertThat(s.get("molalityMolPerKg").asDouble()).isNotNegative();
@@ -151,7 +153,9 @@ class SpeciationApiIT {
     assertThat(ammoniaFractions).isCloseTo(1.0, within(1e-12));
     JsonNode ammonium = r.get("constants").get(0);
     assertThat(ammonium.get("equilibrium").asString()).isEqualTo("ammonium");
-    assertThat(ammonium.get("sourceId").asString()).isNotBlank();
+    assertThat(ammonium.get("reaction").asString()).isEqualTo("NH₄⁺ ⇌ NH₃ + H⁺");
+    assertThat(ammonium.get("sourceId").asString()).isEqualTo("ammonium-1");
+    assertThat(ammonium.get("citation").asString()).contains("llnl.dat");
     assertThat(ammonium.get("confidence").asString()).isEqualTo("RETRIEVED");
     assertThat(ammonium.get("validToCel").asDouble()).isEqualTo(300.0);
     assertThat(ammonium.get("extrapolated").asBoolean()).isTrue();
@@ -190,10 +194,10 @@ class SpeciationApiIT {
                 + AMMONIA_1_MG
                 + "], \"temperaturesCel\": [25, 155, 230, 300], \"pressureMPa\": 15,"
                 + " \"activityModel\": \"bdot\", \"sampleOrigin\": \"condensed_steam\","
-                + " \"constantSet\": \"NH4+ Thermoddem\", \"ionization\": \"R11-24\"}");
+                + " \"constantSet\": \"ammonium-2\", \"ionization\": \"R11-24\"}");
     assertThat(body.get("activityModel").asString()).isEqualTo("bdot");
     assertThat(body.get("sampleOrigin").asString()).isEqualTo("condensed_steam");
-    assertThat(body.get("constantSet").asString()).isEqualTo("NH4+ Thermoddem");
+    assertThat(body.get("constantSet").asString()).isEqualTo("ammonium-2");
     assertThat(body.get("pKwFormulation").asString()).isEqualTo("IAPWS R11-24");
     JsonNode results = body.get("results");
     assertThat(results.size()).isEqualTo(4);

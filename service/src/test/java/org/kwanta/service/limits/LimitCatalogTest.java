@@ -218,7 +218,8 @@ class LimitCatalogTest {
       TreatmentRegime regime = TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
       if (regime == TreatmentRegime.PT && location == CycleLocation.DRUM_WATER) {
         // Phosphate boiler water: cation conductivity includes the treatment's own phosphate, so
-        // guidance limits contamination through chloride and sulfate instead (reference notes 6.5).
+        // IAPWS TGD4-11(2015) limits contamination through chloride and sulfate instead (from
+        // memory: only the TGD's cover page was read).
         assertThat(catalog.find(new LimitKey(regime, location, Parameter.PH))).isPresent();
         checked++;
         continue;
