@@ -39,13 +39,17 @@ final class EarlyCondensate {
   /** Largest number of fixed-point iterations. */
   static final int MAX_ITERATIONS = 60;
 
-  /** Relative change of every volatile total at which the iteration stops. */
-  static final double TOLERANCE = 1e-10;
+  /**
+   * Change of ln m of every volatile total at which the iteration stops (1e-9 relative; the pH
+   * moves by less than 1e-9).
+   */
+  static final double TOLERANCE = 1e-9;
 
   private EarlyCondensate() {}
 
   /** The liquid's speciation and what the reader must know about it. */
-  record Result(SpeciationResult liquid, List<String> notes) {}
+  record Result(
+      SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
 
   /** Thrown when a component of the steam has no distribution constant. */
   static final class NoDistributionConstant extends RuntimeException {
@@ -68,6 +72,16 @@ final class EarlyCondensate {
    * @throws NoDistributionConstant when an amine is present
    */
   static Result of(Composition steam, WaterState liquidWater, SpeciationOptions options) {
+    return of(steam, liquidWater, options, null);
+  }
+
+  /**
+   * As {@link #of(Composition, WaterState, SpeciationOptions)}, started from the liquid of a nearby
+   * steam (the band's perturbed compositions start from the central one); {@code near} changes only
+   * the starting point, not the result beyond the tolerance.
+   */
+  static Result of(
+      Composition steam, WaterState liquidWater, SpeciationOptions options, Result near) {
     double t = liquidWater.temperatureK();
     Map<Component, DistributionConstant> kD = new EnumMap<>(Component.class);
     for (Component c : steam.totals().keySet()) {
@@ -78,21 +92,48 @@ final class EarlyCondensate {
         throw new NoDistributionConstant(c);
       }
     }
+    // Fixed point x = F(x) per volatile component, x = ln m_liquid, F(x) = ln(m_steam / (K_D
+    // α₀(x))); accelerated by a secant estimate of F'(x) from the previous iterate (Steffensen's
+    // idea), falling back to the plain update when the estimate is not usable.
+    Component[] volatiles = kD.keySet().toArray(new Component[0]);
+    int n = volatiles.length;
+    double[] x = new double[n];
+    double[] previousX = new double[n];
+    double[] previousF = new double[n];
     Composition liquid = steam;
-    SpeciationResult r = Speciation.solve(liquid, liquidWater, options);
+    for (int i = 0; i < n; i++) {
+      Component c = volatiles[i];
+      // start: the near liquid's ratio to its steam, or all neutral (α₀ = 1)
+      x[i] =
+          near != null && near.steam().molality(c) > 0
+              ? Math.log(
+                  steam.molality(c) * near.liquidTotals().molality(c) / near.steam().molality(c))
+              : Math.log(steam.molality(c) / kD.get(c).kD());
+      previousX[i] = Double.NaN;
+      liquid = liquid.with(c, Math.exp(x[i]));
+    }
+    SpeciationResult r =
+        near == null
+            ? Speciation.solve(liquid, liquidWater, options)
+            : Speciation.solve(liquid, liquidWater, options, near.liquid());
     for (int k = 0; k < MAX_ITERATIONS; k++) {
       double change = 0;
       Composition next = steam;
-      for (Map.Entry<Component, DistributionConstant> e : kD.entrySet()) {
-        Component c = e.getKey();
-        double total = liquid.molality(c);
-        double alpha0 = r.molality(neutral(c)) / total;
-        double m = steam.molality(c) / (e.getValue().kD() * alpha0);
-        change = Math.max(change, Math.abs(m - total) / total);
-        next = next.with(c, m);
+      for (int i = 0; i < n; i++) {
+        Component c = volatiles[i];
+        double alpha0 = r.molality(neutral(c)) / liquid.molality(c);
+        double f = Math.log(steam.molality(c) / (kD.get(c).kD() * alpha0));
+        double step = f - x[i];
+        change = Math.max(change, Math.abs(step));
+        double slope = (f - previousF[i]) / (x[i] - previousX[i]);
+        double xNext = Double.isFinite(slope) && slope < 0.9 ? x[i] + step / (1 - slope) : f;
+        previousX[i] = x[i];
+        previousF[i] = f;
+        x[i] = xNext;
+        next = next.with(c, Math.exp(xNext));
       }
       if (change <= TOLERANCE) {
-        return new Result(r, notes(kD));
+        return new Result(r, liquid, steam, notes(kD));
       }
       liquid = next;
       r = Speciation.solve(liquid, liquidWater, options, r);

@@ -431,7 +431,8 @@ public final class Evaluator {
     double var = 0;
     for (Solutes s : perturbed) {
       double d =
-          EarlyCondensate.of(toComposition(s, config.alkalizer()), w, options).liquid().ph() - ph;
+          EarlyCondensate.of(toComposition(s, config.alkalizer()), w, options, r).liquid().ph()
+              - ph;
       var += d * d;
     }
     double sd = Math.sqrt(var);
