@@ -1,17 +1,9 @@
 package org.kwanta.benchmarks;
 
-import java.time.Duration;
-import java.time.Instant;
-import java.util.ArrayList;
-import java.util.EnumMap;
-import java.util.List;
-import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.Evaluator;
-import org.kwanta.model.evaluation.Parameter;
-import org.kwanta.model.evaluation.Reading;
 import org.kwanta.model.evaluation.Regime;
 import org.kwanta.model.evaluation.SamplePointConfig;
 import org.kwanta.model.evaluation.Snapshot;
@@ -40,24 +32,7 @@ public class SteamEvaluationBenchmark {
   public void setUp() {
     config =
         SamplePointConfig.of("U1-MS", Regime.AVT_O, AlkalizerMix.AMMONIA, 813.15, 16e6).asSteam();
-    Instant now = Instant.parse("2025-03-14T10:00:00Z");
-    Map<Parameter, List<Reading>> h = new EnumMap<>(Parameter.class);
-    double[][] base = {{9.85, 0.0}, {0.085, 0.0}, {0.062, 0.0}, {9.68, 0.0}};
-    Parameter[] ps = {
-      Parameter.SPECIFIC_CONDUCTIVITY,
-      Parameter.CATION_CONDUCTIVITY,
-      Parameter.DEGASSED_CATION_CONDUCTIVITY,
-      Parameter.PH
-    };
-    for (int p = 0; p < ps.length; p++) {
-      List<Reading> r = new ArrayList<>();
-      for (int i = 0; i < 25; i++) {
-        double v = base[p][0] * (1 + 0.003 * Math.sin(1.7 * i + p));
-        r.add(Reading.raw(now.minus(Duration.ofMinutes(5L * (24 - i))), v, 299.45));
-      }
-      h.put(ps[p], r);
-    }
-    snapshot = new Snapshot(now, h);
+    snapshot = EvaluationBenchmark.snapshot();
   }
 
   @Benchmark

@@ -152,8 +152,8 @@ public final class Speciation {
   static final Reference IONIC_STRENGTH_SOURCE =
       new Reference(
           "activity model limit (total ionic strength)",
-          "Davies and B-dot equations customarily adequate to I ≈ 0.1 mol/kg (the project's"
-              + " reference notes §2.3); enforced by Kwanta on the total ionic strength of the"
+          "Davies and B-dot equations customarily taken as adequate to I ≈ 0.1 mol/kg (common"
+              + " practice); the limit is Kwanta's, enforced on the total ionic strength of the"
               + " solution",
           Confidence.RETRIEVED);
 

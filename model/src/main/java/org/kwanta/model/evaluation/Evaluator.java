@@ -22,6 +22,7 @@ import org.kwanta.model.conductivity.IonConductivities;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.Solution;
 import org.kwanta.model.conductivity.SolutionModel;
+import org.kwanta.model.water.Distribution;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
@@ -422,7 +423,7 @@ public final class Evaluator {
       tSat = Water.saturationTemperatureK(p);
     }
     // the liquid limit of the distribution constants and the speciation engine, Kwanta's
-    org.kwanta.model.water.Distribution.ENGINE_LIMIT.check(tSat);
+    Distribution.ENGINE_LIMIT.check(tSat);
     WaterState w = operatingWater(tSat, Double.NaN);
     SpeciationOptions options = SpeciationOptions.defaults();
     EarlyCondensate.Result r =

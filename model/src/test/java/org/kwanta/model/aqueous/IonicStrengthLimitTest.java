@@ -7,8 +7,10 @@ import org.junit.jupiter.api.Test;
 import org.kwanta.model.OutOfValidityRangeException;
 
 /**
- * The activity model's 0.1 mol/kg (Davies, customary; the project's reference notes §2.3) is
- * enforced on the solution's total ionic strength, not only on each component's total.
+ * The activity model's limit of 0.1 mol/kg (the Davies equation is customarily taken as adequate to
+ * about 0.1 mol/kg: common practice, no source; the limit is Kwanta's choice) is enforced on the
+ * solution's total ionic strength, not only on each component's total. The compositions are
+ * invented; the expected ionic strength is arithmetic (½ Σ m z²).
  */
 class IonicStrengthLimitTest {
 
