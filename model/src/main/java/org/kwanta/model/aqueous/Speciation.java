@@ -5,6 +5,7 @@ import java.util.EnumSet;
 import java.util.List;
 import java.util.Objects;
 import java.util.Set;
+import org.kwanta.model.OutOfValidityRangeException;
 import org.kwanta.model.Reference;
 import org.kwanta.model.Reference.Confidence;
 import org.kwanta.model.ValidityRange;
@@ -27,8 +28,10 @@ public final class Speciation {
   public static final double REFERENCE_TEMPERATURE_K = 298.15;
 
   /**
-   * Temperature range of the engine, K: liquid water in IAPWS-IF97 region 1 (its upper limit 623.15
-   * K), over which the fits are evaluated or, beyond their stated ranges, flagged.
+   * Temperature range of the engine, K: liquid water to 623.15 K (the upper limit of IAPWS-IF97
+   * region 1), over which the fits are evaluated or, beyond their stated ranges, flagged. The limit
+   * is Kwanta's (the equilibrium-constant fits end at 250-300 °C); IF97 itself continues into
+   * region 3.
    */
   public static final ValidityRange TEMPERATURE_RANGE =
       new ValidityRange(
@@ -37,9 +40,10 @@ public final class Speciation {
           623.15,
           "K",
           new Reference(
-              "IAPWS-IF97 region 1",
-              "IAPWS R7-97(2012), IAPWS-IF97 region 1 (liquid) temperature range 273.15-623.15 K;"
-                  + " the speciation engine's scope",
+              "Kwanta speciation scope (liquid to 350 °C)",
+              "The speciation engine's scope, Kwanta's limit: liquid water 273.15-623.15 K (the"
+                  + " range of IAPWS-IF97 region 1, R7-97(2012)); equilibrium-constant fits are"
+                  + " published to 250-300 °C and flagged as extrapolated beyond",
               Confidence.VERIFIED_BY_CHECK_TABLE));
 
   private Speciation() {}
@@ -124,8 +128,34 @@ public final class Speciation {
         new ChargeBalanceSolver(
                 composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
             .solve(startX, startI);
+    checkIonicStrength(s.ionicStrength(), options);
     return new PhSolution(-s.log10ActivityH(), s.ionicStrength());
   }
+
+  /**
+   * The ionic strength of the whole solution, enforced: each total may lie within {@link
+   * Composition#TOTAL_MOLALITY_RANGE} while their sum does not, so the limit of the activity model
+   * is checked on the solved ionic strength.
+   *
+   * @throws OutOfValidityRangeException above the activity model's limit
+   */
+  private static void checkIonicStrength(double ionicStrength, SpeciationOptions options) {
+    double limit = options.activityModel().ionicStrengthLimitMolPerKg();
+    if (ionicStrength > limit) {
+      throw new OutOfValidityRangeException(
+          new ValidityRange("ionic strength", 0, limit, "mol/kg", IONIC_STRENGTH_SOURCE),
+          ionicStrength);
+    }
+  }
+
+  /** Where the ionic-strength limit comes from. */
+  static final Reference IONIC_STRENGTH_SOURCE =
+      new Reference(
+          "activity model limit (total ionic strength)",
+          "Davies and B-dot equations customarily taken as adequate to I ≈ 0.1 mol/kg (common"
+              + " practice); the limit is Kwanta's, enforced on the total ionic strength of the"
+              + " solution",
+          Confidence.RETRIEVED);
 
   private static double checkInputs(
       Composition composition, WaterState water, SpeciationOptions options) {
@@ -178,9 +208,7 @@ public final class Speciation {
     if (extrapolated) {
       notices.add(Notice.EXTRAPOLATED_CONSTANT);
     }
-    if (s.ionicStrength() > options.activityModel().ionicStrengthLimitMolPerKg()) {
-      notices.add(Notice.IONIC_STRENGTH_ABOVE_ACTIVITY_MODEL_RANGE);
-    }
+    checkIonicStrength(s.ionicStrength(), options);
     if (options.sampleOrigin() == SampleOrigin.CONDENSED_STEAM) {
       notices.add(Notice.CONDENSED_LIQUID_AT_STATED_TEMPERATURE);
     }

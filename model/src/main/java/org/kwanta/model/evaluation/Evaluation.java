@@ -14,6 +14,8 @@ import java.util.Optional;
  * @param operatingPh pH at operating temperature and pressure (empty without a composition
  *     including specific conductivity)
  * @param findings the checks that fired, in a fixed order; empty when all agree
+ * @param notes why a part was not evaluated (for example the pH at temperature of a steam sample
+ *     beyond the engine's range); the other parts stand
  */
 public record Evaluation(
     String samplePointId,
@@ -21,10 +23,12 @@ public record Evaluation(
     Optional<InferredComposition> composition,
     Optional<CalculatedPh> calculatedPh,
     Optional<OperatingPh> operatingPh,
-    List<Finding> findings) {
+    List<Finding> findings,
+    List<String> notes) {
 
   public Evaluation {
     compensated = Map.copyOf(compensated);
     findings = List.copyOf(findings);
+    notes = List.copyOf(notes);
   }
 }

@@ -3,9 +3,11 @@ package org.kwanta.model.evaluation;
 import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
+import org.kwanta.model.OutOfValidityRangeException;
 import org.kwanta.model.aqueous.PhSolution;
 import org.kwanta.model.aqueous.Speciation;
 import org.kwanta.model.aqueous.SpeciationOptions;
@@ -17,6 +19,7 @@ import org.kwanta.model.conductivity.IonConductivities;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.Solution;
 import org.kwanta.model.conductivity.SolutionModel;
+import org.kwanta.model.water.Distribution;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
@@ -55,12 +58,13 @@ public final class Evaluator {
    *
    * @param config the sample point
    * @param snapshot latest readings and recent history
-   * @return the evaluation
-   * @throws org.kwanta.model.OutOfValidityRangeException when the operating temperature or pressure
-   *     lies outside the speciation engine's range
+   * @return the evaluation; when the pH at temperature cannot be evaluated (an operating state
+   *     outside the engine's range, a steam sample with no condensate or an amine without a
+   *     distribution constant) the 25 °C results stand and {@link Evaluation#notes()} says why
    */
   public static Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
     List<Finding> findings = new ArrayList<>();
+    List<String> notes = new ArrayList<>(1);
     Map<Parameter, Reading> usable = Checks.signals(config, snapshot, findings);
     Checks.sampleTemperature(config, usable, findings);
 
@@ -171,7 +175,13 @@ public final class Evaluator {
             Optional.of(
                 new CalculatedPh(
                     pH25, Math.sqrt(phVariance), t.value(), t.constant(), t.inWindow(), t.note()));
-        operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
+        try {
+          operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
+        } catch (OutOfValidityRangeException
+            | OperatingStateException
+            | EarlyCondensate.NoDistributionConstant e) {
+          notes.add("pH at temperature not evaluated: " + e.getMessage());
+        }
       }
     }
     ChannelFits.Result central = fitted;
@@ -190,7 +200,8 @@ public final class Evaluator {
           return modelAt(t, config.alkalizer()).solve(central.all(), sc25).pH();
         };
     Checks.consistency(config, snapshot, usable, at25, fitted, calculated, calculatedAt, findings);
-    return new Evaluation(config.id(), compensated, composition, calculated, operating, findings);
+    return new Evaluation(
+        config.id(), compensated, composition, calculated, operating, findings, notes);
   }
 
   static final Parameter[] CONDUCTIVITIES = {
@@ -299,9 +310,31 @@ public final class Evaluator {
         ratio);
   }
 
+  /** The operating state does not allow a pH at temperature; the message says why. */
+  static final class OperatingStateException extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+
+    OperatingStateException(String message) {
+      super(message);
+    }
+  }
+
   private static OperatingPh operatingPh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+    if (config.steam()) {
+      return earlyCondensatePh(config, central, perturbed);
+    }
     WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
+    if (!w.liquidLike()) {
+      throw new OperatingStateException(
+          String.format(
+              Locale.ROOT,
+              "the operating state %.2f °C, %.4g MPa is %s, not liquid-like; a steam sample point"
+                  + " is evaluated as its first condensate",
+              w.temperatureK() - 273.15,
+              w.pressurePa() / 1e6,
+              w.phase()));
+    }
     SpeciationOptions options = SpeciationOptions.defaults();
     PhSolution centralPh = Speciation.ph(central.composition(config.alkalizer()), w, options);
     double ph = centralPh.ph();
@@ -312,8 +345,74 @@ public final class Evaluator {
       var += d * d;
     }
     double sd = Math.sqrt(var);
-    return new OperatingPh(w.temperatureK(), w.pressurePa(), ph, ph - sd, ph + sd, w.neutralPh());
+    return new OperatingPh(
+        w.temperatureK(),
+        w.pressurePa(),
+        ph,
+        ph - sd,
+        ph + sd,
+        w.neutralPh(),
+        OperatingPh.Basis.LIQUID,
+        List.of());
   }
+
+  /**
+   * A steam sample: the liquid in equilibrium with the steam at the saturation temperature of the
+   * operating pressure (or at the operating temperature on the saturation line when no pressure is
+   * declared).
+   */
+  private static OperatingPh earlyCondensatePh(
+      SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+    double p = config.operatingPressurePa();
+    double tSat;
+    if (Double.isNaN(p)) {
+      double t = config.operatingTemperatureK();
+      if (!Water.SATURATION_VALIDITY.contains(t)) {
+        throw new OperatingStateException(
+            String.format(
+                Locale.ROOT,
+                "a steam sample at %.2f °C, above the critical temperature, needs its operating"
+                    + " pressure to find where it condenses",
+                t - 273.15));
+      }
+      tSat = t;
+    } else if (p >= CRITICAL_PRESSURE_PA) {
+      throw new OperatingStateException(
+          String.format(
+              Locale.ROOT,
+              "steam at %.4g MPa, at or above the critical pressure 22.064 MPa (IAPWS-IF97), has no"
+                  + " first condensate",
+              p / 1e6));
+    } else {
+      tSat = Water.saturationTemperatureK(p);
+    }
+    // the liquid limit of the distribution constants and the speciation engine, Kwanta's
+    Distribution.ENGINE_LIMIT.check(tSat);
+    WaterState w = operatingWater(tSat, Double.NaN);
+    SpeciationOptions options = SpeciationOptions.defaults();
+    EarlyCondensate.Result r =
+        EarlyCondensate.of(central.composition(config.alkalizer()), w, options);
+    double ph = r.liquid().ph();
+    double var = 0;
+    for (Solutes s : perturbed) {
+      double d =
+          EarlyCondensate.of(s.composition(config.alkalizer()), w, options, r).liquid().ph() - ph;
+      var += d * d;
+    }
+    double sd = Math.sqrt(var);
+    return new OperatingPh(
+        w.temperatureK(),
+        w.pressurePa(),
+        ph,
+        ph - sd,
+        ph + sd,
+        w.neutralPh(),
+        OperatingPh.Basis.EARLY_CONDENSATE,
+        r.notes());
+  }
+
+  /** Critical pressure of water, IAPWS-IF97, Pa. */
+  static final double CRITICAL_PRESSURE_PA = 22.064e6;
 
   /** λ° of an ion at 25 °C (for the trade-formula constant). */
   static double lambda25(Species ion) {

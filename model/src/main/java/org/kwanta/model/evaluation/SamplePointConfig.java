@@ -10,6 +10,8 @@ import org.kwanta.model.conductivity.AlkalizerMix;
  * @param alkalizer the alkalizer or mix of known molar ratio (volatile regimes)
  * @param operatingTemperatureK process temperature at the point, K, for the at-temperature pH
  * @param operatingPressurePa process pressure, Pa; NaN for the saturation pressure
+ * @param steam true for a steam sample (saturated, main or reheat steam): its pH at temperature is
+ *     that of the first condensate
  * @param tolerances instrument tolerances
  * @param checks check thresholds
  */
@@ -19,10 +21,11 @@ public record SamplePointConfig(
     AlkalizerMix alkalizer,
     double operatingTemperatureK,
     double operatingPressurePa,
+    boolean steam,
     Tolerances tolerances,
     CheckSettings checks) {
 
-  /** A point with default tolerances and check settings. */
+  /** A liquid sample point with default tolerances and check settings. */
   public static SamplePointConfig of(
       String id,
       Regime regime,
@@ -35,7 +38,21 @@ public record SamplePointConfig(
         alkalizer,
         operatingTemperatureK,
         operatingPressurePa,
+        false,
         Tolerances.defaults(),
         CheckSettings.defaults());
+  }
+
+  /** The same point as a steam sample. */
+  public SamplePointConfig asSteam() {
+    return new SamplePointConfig(
+        id,
+        regime,
+        alkalizer,
+        operatingTemperatureK,
+        operatingPressurePa,
+        true,
+        tolerances,
+        checks);
   }
 }

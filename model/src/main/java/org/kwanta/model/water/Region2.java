@@ -22,18 +22,20 @@ import org.kwanta.model.ValidityRange;
  * release prints (each rounds back to the identical double, checked when they were transcribed). An
  * implementation of them reproduces the release's Table 15 to its 9 printed digits (tested).
  *
- * <p>Validity of this class: {@link #VALIDITY} (273.15 K to 623.15 K) with 0 &lt; p ≤ p_s(T), where
- * p_s is {@link Region4}. Region 2 of the release extends to 1073.15 K (bounded by the B23 line
- * above 623.15 K); that part is not implemented here. Units: K, Pa, m³/kg, kg/m³.
+ * <p>Validity (release section 4, Fig. 1): {@link #VALIDITY}, 273.15 K to 1073.15 K, with 0 &lt; p
+ * ≤ p_s(T) up to 623.15 K ({@link Region4}), 0 &lt; p ≤ p_B23(T) from 623.15 K to 863.15 K ({@link
+ * Boundary23}) and 0 &lt; p ≤ 100 MPa above; {@link #maxPressurePa} gives the upper limit. The same
+ * 43-term equation covers the whole range (check values of Table 15 at 700 K, tested). Units: K,
+ * Pa, m³/kg, kg/m³.
  */
 final class Region2 {
 
   /** IAPWS-IF97, the revised release of 2007 with the 2012 editorial revision. */
   static final Reference REFERENCE = Region4.REFERENCE;
 
-  /** Temperature range of the part of region 2 implemented here (release section 4), K. */
+  /** Temperature range of region 2 (release section 4), K. */
   static final ValidityRange VALIDITY =
-      new ValidityRange("temperature", 273.15, 623.15, "K", REFERENCE);
+      new ValidityRange("temperature", 273.15, 1073.15, "K", REFERENCE);
 
   /** Specific gas constant, Eq. 1, J kg⁻¹ K⁻¹. */
   static final double R = 461.526;
@@ -79,17 +81,28 @@ final class Region2 {
    * @param temperatureK T, K
    * @param pressurePa p, Pa
    * @return ρ, kg/m³
-   * @throws OutOfValidityRangeException if T is outside {@link #VALIDITY}, p is not in (0, p_s(T)],
-   *     or either is NaN
+   * @throws OutOfValidityRangeException if T is outside {@link #VALIDITY}, p is not in (0, {@link
+   *     #maxPressurePa}(T)], or either is NaN
    */
   static double density(double temperatureK, double pressurePa) {
     VALIDITY.check(temperatureK);
-    double ps = Region4.saturationPressurePaUnchecked(temperatureK);
-    if (!(pressurePa > 0 && pressurePa <= ps)) {
+    double pMax = maxPressurePa(temperatureK);
+    if (!(pressurePa > 0 && pressurePa <= pMax)) {
       throw new OutOfValidityRangeException(
-          new ValidityRange("pressure", Double.MIN_VALUE, ps, "Pa", REFERENCE), pressurePa);
+          new ValidityRange("pressure", Double.MIN_VALUE, pMax, "Pa", REFERENCE), pressurePa);
     }
     return densityUnchecked(temperatureK, pressurePa);
+  }
+
+  /**
+   * Upper pressure limit of region 2 at a temperature within {@link #VALIDITY}: p_s(T) to 623.15 K,
+   * p_B23(T) to 863.15 K, 100 MPa above, Pa.
+   */
+  static double maxPressurePa(double t) {
+    if (t <= 623.15) {
+      return Region4.saturationPressurePaUnchecked(t);
+    }
+    return t <= 863.15 ? Boundary23.pressurePaUnchecked(t) : 100e6;
   }
 
   /** Density, kg/m³, without range checks; the caller has checked T and p. */

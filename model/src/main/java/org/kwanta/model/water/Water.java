@@ -8,12 +8,20 @@ import org.kwanta.model.ValidityRange;
  * The water-properties facade: density (IAPWS-IF97), ionization constant (IAPWS R11-07 or R11-24),
  * static dielectric constant (IAPWS R8-97) and the Debye–Hückel parameters derived from them.
  *
- * <p>Phase: for T ≤ 623.15 K the state is liquid (IF97 region 1) when p ≥ p_s(T) and vapour (IF97
- * region 2) when p &lt; p_s(T); exactly on the saturation line it is the saturated liquid. Above
- * 623.15 K the liquid lies in IF97 region 3, which is not implemented: such temperatures throw.
- * Validity: {@link #TEMPERATURE_VALIDITY} and {@link #PRESSURE_VALIDITY}. Inputs outside, or NaN,
- * throw {@link org.kwanta.model.OutOfValidityRangeException} naming the quantity, value, limits,
- * unit and source; nothing is clamped.
+ * <p>Phase (IF97 regions, release section 4): for T ≤ 623.15 K the state is liquid (region 1) when
+ * p ≥ p_s(T) and vapour (region 2) when p &lt; p_s(T); exactly on the saturation line it is the
+ * saturated liquid. From 623.15 K to 863.15 K, states at p ≥ p_B23(T) lie in region 3 (liquid below
+ * the critical temperature at p ≥ p_s(T), dense vapour below it at p &lt; p_s(T), supercritical
+ * fluid above it), the others in region 2; above 863.15 K everything is region 2.
+ *
+ * <p>Permittivity and Debye–Hückel parameters: ε is given up to 873 K (IAPWS R8-97's limit) and NaN
+ * above. Debye–Hückel A and B are NaN in states that are not liquid-like (density below {@link
+ * #LIQUID_LIKE_DENSITY}, the critical density): this is Kwanta's limit, not a release's; in steam
+ * the ions that a liquid activity model describes are not there to describe.
+ *
+ * <p>Validity: {@link #TEMPERATURE_VALIDITY} and {@link #PRESSURE_VALIDITY}. Inputs outside, or
+ * NaN, throw {@link org.kwanta.model.OutOfValidityRangeException} naming the quantity, value,
+ * limits, unit and source; nothing is clamped.
  */
 public final class Water {
 
@@ -23,8 +31,46 @@ public final class Water {
   /** IAPWS-IF97, the density formulation. */
   public static final Reference IF97 = Region1.REFERENCE;
 
-  /** Temperature range of the facade: IF97 regions 1 and 2 below region 3, K. */
-  public static final ValidityRange TEMPERATURE_VALIDITY = Region1.VALIDITY;
+  /**
+   * Temperature range of the facade, K: IF97 regions 1 to 3 (273.15 K to 1073.15 K), which is also
+   * the range of IAPWS R11-07. IF97 region 5 (1073.15 K to 2273.15 K at p ≤ 50 MPa) is not
+   * implemented, so the upper limit is Kwanta's as well as R11-07's.
+   */
+  public static final ValidityRange TEMPERATURE_VALIDITY =
+      new ValidityRange(
+          "temperature",
+          273.15,
+          1073.15,
+          "K",
+          new Reference(
+              "IAPWS R7-97(2012) regions 1-3 (region 5 not implemented in Kwanta)",
+              IF97.citation()
+                  + "; regions 1-4 as implemented here, region 5 (above 1073.15 K) is not",
+              Reference.Confidence.VERIFIED_BY_CHECK_TABLE));
+
+  /**
+   * Densities at which a state counts as liquid-like, kg/m³: at least the critical density 322
+   * kg/m³ (IF97). Kwanta's convention for where a liquid pH scale and Debye–Hückel parameters are
+   * reported; no release states it.
+   */
+  public static final ValidityRange LIQUID_LIKE_DENSITY =
+      new ValidityRange(
+          "density",
+          Region3.RHO_C,
+          Double.POSITIVE_INFINITY,
+          "kg/m3",
+          new Reference(
+              "Kwanta liquid-like states (density at least the critical density)",
+              "Kwanta's convention: a liquid pH scale and Debye–Hückel parameters are reported"
+                  + " for states at least as dense as the critical density of IAPWS-IF97, 322"
+                  + " kg/m3",
+              Reference.Confidence.ESTIMATED));
+
+  /**
+   * Temperature range of saturation (IF97 region 4): 273.15 K to the critical temperature, K. Above
+   * the critical point there is no saturation line.
+   */
+  public static final ValidityRange SATURATION_VALIDITY = Region4.VALIDITY;
 
   /** Pressure range of the facade: above 0 up to the 100 MPa limit of IF97 regions 1 and 2, Pa. */
   public static final ValidityRange PRESSURE_VALIDITY =
@@ -59,7 +105,7 @@ public final class Water {
    */
   public static WaterState atSaturation(double temperatureK, IonizationFormulation ionization) {
     Objects.requireNonNull(ionization, "ionization formulation");
-    TEMPERATURE_VALIDITY.check(temperatureK);
+    SATURATION_VALIDITY.check(temperatureK);
     double ps = Region4.saturationPressurePaUnchecked(temperatureK);
     return ps >= ATMOSPHERIC_PRESSURE_PA
         ? state(temperatureK, ps, PressureSource.SATURATION, ps, ionization)
@@ -89,7 +135,7 @@ public final class Water {
   }
 
   /**
-   * Density of water (IF97 region 1 for liquid, region 2 for vapour).
+   * Density of water (IF97 region 1, 2 or 3 by {@link #phase}).
    *
    * @param temperatureK temperature, K
    * @param pressurePa pressure, Pa
@@ -100,9 +146,47 @@ public final class Water {
   public static double densityKgPerM3(double temperatureK, double pressurePa) {
     TEMPERATURE_VALIDITY.check(temperatureK);
     PRESSURE_VALIDITY.check(pressurePa);
-    return pressurePa >= Region4.saturationPressurePaUnchecked(temperatureK)
-        ? Region1.densityUnchecked(temperatureK, pressurePa)
-        : Region2.densityUnchecked(temperatureK, pressurePa);
+    return density(temperatureK, pressurePa, phaseUnchecked(temperatureK, pressurePa));
+  }
+
+  /**
+   * The IF97 region and phase of a state.
+   *
+   * @param temperatureK temperature, K
+   * @param pressurePa pressure, Pa
+   * @throws org.kwanta.model.OutOfValidityRangeException outside {@link #TEMPERATURE_VALIDITY} or
+   *     {@link #PRESSURE_VALIDITY}
+   */
+  public static Phase phase(double temperatureK, double pressurePa) {
+    TEMPERATURE_VALIDITY.check(temperatureK);
+    PRESSURE_VALIDITY.check(pressurePa);
+    return phaseUnchecked(temperatureK, pressurePa);
+  }
+
+  static Phase phaseUnchecked(double t, double p) {
+    if (t <= Region1.VALIDITY.max()) {
+      return p >= Region4.saturationPressurePaUnchecked(t)
+          ? Phase.LIQUID_REGION_1
+          : Phase.VAPOUR_REGION_2;
+    }
+    if (t > Region3.VALIDITY.max() || p < Boundary23.pressurePaUnchecked(t)) {
+      return Phase.VAPOUR_REGION_2;
+    }
+    if (t >= Region3.T_C) {
+      return Phase.SUPERCRITICAL_REGION_3;
+    }
+    return p >= Region4.saturationPressurePaUnchecked(t)
+        ? Phase.LIQUID_REGION_3
+        : Phase.VAPOUR_REGION_3;
+  }
+
+  private static double density(double t, double p, Phase phase) {
+    return switch (phase) {
+      case LIQUID_REGION_1 -> Region1.densityUnchecked(t, p);
+      case VAPOUR_REGION_2 -> Region2.densityUnchecked(t, p);
+      case LIQUID_REGION_3, VAPOUR_REGION_3, SUPERCRITICAL_REGION_3 ->
+          Region3.densityUnchecked(t, p);
+    };
   }
 
   /**
@@ -127,21 +211,25 @@ public final class Water {
 
   private static WaterState state(
       double t, double p, PressureSource source, double ps, IonizationFormulation ionization) {
-    boolean liquid = p >= ps;
-    double rho = liquid ? Region1.densityUnchecked(t, p) : Region2.densityUnchecked(t, p);
+    Phase phase = phaseUnchecked(t, p);
+    double rho = density(t, p, phase);
     double pKw = IonizationConstant.of(ionization).pKw(t, rho);
-    double epsilon = DielectricConstant.relativePermittivity(t, rho);
+    double epsilon =
+        DielectricConstant.VALIDITY.contains(t)
+            ? DielectricConstant.relativePermittivity(t, rho)
+            : Double.NaN;
+    boolean debyeHuckel = LIQUID_LIKE_DENSITY.contains(rho) && !Double.isNaN(epsilon);
     return new WaterState(
         t,
         p,
         source,
-        liquid ? Phase.LIQUID_REGION_1 : Phase.VAPOUR_REGION_2,
-        ps,
+        phase,
+        t <= Region4.VALIDITY.max() ? ps : Double.NaN,
         rho,
         ionization,
         pKw,
         epsilon,
-        DebyeHuckel.a(t, rho, epsilon),
-        DebyeHuckel.b(t, rho, epsilon));
+        debyeHuckel ? DebyeHuckel.a(t, rho, epsilon) : Double.NaN,
+        debyeHuckel ? DebyeHuckel.b(t, rho, epsilon) : Double.NaN);
   }
 }

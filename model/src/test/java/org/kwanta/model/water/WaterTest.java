@@ -80,11 +80,48 @@ class WaterTest {
 
   @Test
   void rejectsTemperatureAboveValidity() {
-    assertThatThrownBy(() -> Water.at(623.2, 20e6, R11_07))
+    assertThatThrownBy(() -> Water.at(1073.2, 20e6, R11_07))
         .isInstanceOf(OutOfValidityRangeException.class)
         .hasMessage(
-            "temperature 623.2 K is outside the validity range [273.15, 623.15] K of IAPWS"
-                + " R7-97(2012)");
+            "temperature 1073.2 K is outside the validity range [273.15, 1073.15] K of IAPWS"
+                + " R7-97(2012) regions 1-3 (region 5 not implemented in Kwanta)");
+  }
+
+  /** Liquid above 350 °C lies in IF97 region 3: 360 °C at 20 MPa (a PWR pressurizer's state). */
+  @Test
+  void liquidAbove623KIsRegion3() {
+    WaterState w = Water.at(633.15, 20e6, R11_07);
+    assertThat(w.phase()).isEqualTo(Phase.LIQUID_REGION_3);
+    assertThat(w.liquidLike()).isTrue();
+    assertThat(w.debyeHuckelA()).isFinite();
+  }
+
+  /** Steam: density and pKw, but no Debye–Hückel parameters (Kwanta's liquid-like limit). */
+  @Test
+  void steamHasNoDebyeHuckelParameters() {
+    WaterState w = Water.at(573.15, 5e6, R11_07);
+    assertThat(w.phase()).isEqualTo(Phase.VAPOUR_REGION_2);
+    assertThat(w.liquidLike()).isFalse();
+    assertThat(w.pKw()).isFinite();
+    assertThat(w.debyeHuckelA()).isNaN();
+    assertThat(w.debyeHuckelB()).isNaN();
+  }
+
+  /** Above R8-97's 873 K there is no permittivity; density and pKw remain. */
+  @Test
+  void noPermittivityAbove873K() {
+    WaterState w = Water.at(1000, 10e6, R11_07);
+    assertThat(w.relativePermittivity()).isNaN();
+    assertThat(w.pKw()).isFinite();
+    assertThat(w.saturationPressurePa()).isNaN();
+  }
+
+  @Test
+  void saturationEndsAtTheCriticalPoint() {
+    assertThat(Water.atSaturation(645, R11_07).phase()).isEqualTo(Phase.LIQUID_REGION_3);
+    assertThatThrownBy(() -> Water.atSaturation(650, R11_07))
+        .isInstanceOf(OutOfValidityRangeException.class)
+        .hasMessageContaining("[273.15, 647.096] K");
   }
 
   @Test
@@ -92,7 +129,7 @@ class WaterTest {
     assertThatThrownBy(() -> Water.atSaturation(273.0, R11_07))
         .isInstanceOf(OutOfValidityRangeException.class)
         .hasMessageContaining("temperature 273 K")
-        .hasMessageContaining("[273.15, 623.15] K");
+        .hasMessageContaining("[273.15, 647.096] K");
   }
 
   @Test

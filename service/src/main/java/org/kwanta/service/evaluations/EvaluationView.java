@@ -3,6 +3,7 @@ package org.kwanta.service.evaluations;
 import java.util.List;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.Instrument;
+import org.kwanta.model.evaluation.OperatingPh;
 
 /**
  * What the engine derived for one sample point at one time, units in the field names. Stored as
@@ -41,18 +42,29 @@ public record EvaluationView(
     return Double.isFinite(v) ? v : null;
   }
 
-  /** pH at 25 °C calculated from the conductivities. */
+  /**
+   * pH at 25 °C calculated from the conductivities. The trade formula and its constant are null
+   * when they cannot be computed; {@code tradeFormulaNote} says why. Never NaN (JSON has none; rows
+   * stored before this rule with the string "NaN" read back as null).
+   */
   public record CalculatedPh(
       double rigorous,
       double rigorousUncertainty,
-      double tradeFormula,
-      double tradeFormulaConstant,
+      Double tradeFormula,
+      Double tradeFormulaConstant,
       boolean tradeFormulaInWindow,
-      String tradeFormulaNote) {}
+      String tradeFormulaNote) {
+
+    public CalculatedPh {
+      tradeFormula = tradeFormula == null ? null : finite(tradeFormula);
+      tradeFormulaConstant = tradeFormulaConstant == null ? null : finite(tradeFormulaConstant);
+    }
+  }
 
   /**
-   * pH at the sample point's operating temperature and pressure, with its band over alternative
-   * constants.
+   * pH at the sample point's operating temperature and pressure, with its band; for a steam sample
+   * the pH of its first condensate at the saturation temperature ({@code basis} EARLY_CONDENSATE),
+   * with the assumptions and distribution constants in {@code notes}.
    */
   public record PhAtTemperature(
       double temperatureCel,
@@ -61,7 +73,9 @@ public record EvaluationView(
       double low,
       double high,
       double neutralPh,
-      String formulation) {}
+      String formulation,
+      String basis,
+      List<String> notes) {}
 
   /** A consistency-check result. */
   public record FindingView(String code, String suspect, String explanation) {}
@@ -69,6 +83,11 @@ public record EvaluationView(
   static final String FORMULATION =
       "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
           + " band over the alternative constant sets";
+
+  static final String FORMULATION_EARLY_CONDENSATE =
+      "First condensate of the steam at the saturation temperature: vapour-liquid distribution"
+          + " constants (CO2: IAPWS G7-04; NH3: estimate from a Henry's-law fit) with the"
+          + " speciation above";
 
   public static EvaluationView from(int configVersion, Evaluation e, List<String> notes) {
     List<Compensated> compensated =
@@ -105,8 +124,8 @@ public record EvaluationView(
                     new CalculatedPh(
                         c.rigorous(),
                         c.rigorousUncertainty(),
-                        c.tradeFormula(),
-                        c.tradeFormulaConstant(),
+                        finite(c.tradeFormula()),
+                        finite(c.tradeFormulaConstant()),
                         c.tradeFormulaInWindow(),
                         c.tradeFormulaNote()))
             .orElse(null);
@@ -121,15 +140,31 @@ public record EvaluationView(
                         o.low(),
                         o.high(),
                         o.neutralPh(),
-                        FORMULATION))
+                        o.basis() == OperatingPh.Basis.EARLY_CONDENSATE
+                            ? FORMULATION_EARLY_CONDENSATE
+                            : FORMULATION,
+                        o.basis().name(),
+                        o.notes()))
             .orElse(null);
     List<FindingView> findings =
         e.findings().stream()
             .map(f -> new FindingView(f.code().name(), f.suspect().name(), f.explanation()))
             .toList();
     boolean suspect = e.findings().stream().anyMatch(f -> f.suspect() != Instrument.PROCESS);
+    List<String> allNotes = notes;
+    if (!e.notes().isEmpty()) {
+      allNotes = new java.util.ArrayList<>(notes);
+      allNotes.addAll(e.notes());
+    }
     return new EvaluationView(
-        configVersion, compensated, composition, calculated, operating, findings, suspect, notes);
+        configVersion,
+        compensated,
+        composition,
+        calculated,
+        operating,
+        findings,
+        suspect,
+        List.copyOf(allNotes));
   }
 
   /** The 25 °C value of a conductivity channel, or null. */

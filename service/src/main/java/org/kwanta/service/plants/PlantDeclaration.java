@@ -60,7 +60,11 @@ public record PlantDeclaration(
   /**
    * A sample point.
    *
-   * @param operatingTemperatureCel temperature at which the at-temperature pH is computed, °C
+   * @param operatingTemperatureCel process temperature at the point, 0–800 °C: the at-temperature
+   *     pH is computed there for a liquid point; a steam point (SATURATED_STEAM, MAIN_STEAM,
+   *     REHEAT_STEAM) is evaluated as its first condensate at the saturation temperature of its
+   *     pressure. A location that contradicts the phase at the declared temperature and pressure is
+   *     refused (422)
    * @param operatingPressureMPa pressure for it, MPa; null means saturation
    * @param alkalizer the alkalizer (AMMONIA when absent; MORPHOLINE, ETHANOLAMINE, ...)
    * @param parameters the parameters measured there (codes as in the readings API); informative

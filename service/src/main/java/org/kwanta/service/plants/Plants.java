@@ -88,8 +88,12 @@ public class Plants {
                 + AlkalizerMix.alkalizers());
       }
       if (p.operatingTemperatureCel() != null
-          && !(p.operatingTemperatureCel() >= 0 && p.operatingTemperatureCel() <= 350)) {
-        problems.add("sample point " + p.id() + ": operatingTemperatureCel must be in [0, 350]");
+          && !(p.operatingTemperatureCel() >= 0 && p.operatingTemperatureCel() <= 800)) {
+        problems.add(
+            "sample point "
+                + p.id()
+                + ": operatingTemperatureCel must be in [0, 800] (IAPWS-IF97 regions 1-3 and"
+                + " IAPWS R11-07 end at 800 °C)");
       }
       if (p.operatingPressureMPa() != null
           && !(p.operatingPressureMPa() > 0 && p.operatingPressureMPa() <= 100)) {

@@ -53,6 +53,7 @@ class PlantsController {
           String.join("; ", problems),
           java.util.Map.of("problems", problems));
     }
+    OperatingPhases.require(plant);
     plants.insert(plant, "api");
     return plant;
   }

@@ -79,7 +79,8 @@ class RegistryFiles implements ApplicationRunner {
     for (String location : locations) {
       Resource resource = resources.getResource(location);
       PlantDeclaration plant = read(resource);
-      List<String> problems = Plants.problems(plant);
+      List<String> problems = new ArrayList<>(Plants.problems(plant));
+      problems.addAll(OperatingPhases.conflicts(plant));
       if (!problems.isEmpty()) {
         throw new IllegalStateException(
             "Plant declaration " + location + " is invalid: " + String.join("; ", problems));

@@ -80,6 +80,7 @@ class SamplePointsController {
           String.join("; ", problems),
           Map.of("problems", problems));
     }
+    OperatingPhases.require(check);
     int version =
         plants.updateSamplePoint(next, principal == null ? "api" : "key:" + principal.getName());
     return Map.of("samplePoint", samplePointId, "changed", true, "version", version);
@@ -107,6 +108,7 @@ class SamplePointsController {
           String.join("; ", problems),
           Map.of("problems", problems));
     }
+    OperatingPhases.require(plant);
     return plants.apply(plant, principal == null ? "api" : "key:" + principal.getName());
   }
 

@@ -67,6 +67,7 @@ public class SamplePointConfigs {
                       AlkalizerMix.of(Component.valueOf(rs.getString(3))),
                       (t == null ? 25.0 : t) + 273.15,
                       p == null ? Double.NaN : p * 1e6,
+                      isSteam(rs.getString(7)),
                       Tolerances.defaults(),
                       CheckSettings.defaults());
               out.put(id, new Versioned(config, rs.getInt(6), rs.getString(7), rs.getString(8)));
@@ -74,6 +75,16 @@ public class SamplePointConfigs {
             })
         .list();
     return out;
+  }
+
+  /** The cycle locations whose samples are steam (evaluated at temperature as first condensate). */
+  public static final Set<String> STEAM_LOCATIONS =
+      Set.of("SATURATED_STEAM", "MAIN_STEAM", "REHEAT_STEAM");
+
+  /** True for a steam cycle location (case-insensitive). */
+  public static boolean isSteam(String cycleLocation) {
+    return cycleLocation != null
+        && STEAM_LOCATIONS.contains(cycleLocation.trim().toUpperCase(Locale.ROOT));
   }
 
   /**

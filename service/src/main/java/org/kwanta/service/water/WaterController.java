@@ -38,9 +38,12 @@ class WaterController {
   @Operation(
       summary = "Water properties at one temperature and optional pressure",
       description =
-          "Give the temperature in °C (temperatureCel) or K (temperatureK). Without pressureMPa the"
-              + " saturation pressure is used, not below 0.101325 MPa, and the result says so."
-              + " Outside a formulation's validity range: 422 naming the limit.")
+          "Give the temperature in °C (temperatureCel) or K (temperatureK), 0–800 °C. Without"
+              + " pressureMPa the saturation pressure is used, not below 0.101325 MPa, and the"
+              + " result says so (saturation ends at the critical point, 373.946 °C). IF97 regions"
+              + " 1, 2 and 3. In steam (states less dense than 322 kg/m3) density and pKw come with"
+              + " a notice, without neutral pH or Debye–Hückel values. Outside a formulation's"
+              + " validity range: 422 naming the limit and whose it is.")
   WaterStateResponse at(
       @Parameter(description = "temperature, °C", example = "300") @RequestParam(required = false)
           Double temperatureCel,

@@ -19,7 +19,7 @@ final class WaterCsv {
       sb.append(
               String.format(
                   Locale.ROOT,
-                  "%.4f,%.4f,%.9g,%s,%s,%s,%.6f,%.6f,%.6f,%.6f,%.6f,%.6f,%s",
+                  "%.4f,%.4f,%.9g,%s,%s,%s,%.6f,%.6f,%s,%s,%s,%s,%s",
                   r.temperatureCel(),
                   r.temperatureK(),
                   r.pressureMPa(),
@@ -30,13 +30,18 @@ final class WaterCsv {
                   r.phase(),
                   r.densityKgPerM3(),
                   r.pKw(),
-                  r.neutralPh(),
-                  r.relativePermittivity(),
-                  r.debyeHuckelAKgHalfPerMolHalf(),
-                  r.debyeHuckelBPerAngstromKgHalfPerMolHalf(),
+                  sixDecimals(r.neutralPh()),
+                  sixDecimals(r.relativePermittivity()),
+                  sixDecimals(r.debyeHuckelAKgHalfPerMolHalf()),
+                  sixDecimals(r.debyeHuckelBPerAngstromKgHalfPerMolHalf()),
                   r.formulations().pKw()))
           .append("\r\n");
     }
     return sb.toString();
+  }
+
+  /** A value with six decimals, or an empty field for a value that does not apply. */
+  private static String sixDecimals(Double v) {
+    return v == null ? "" : String.format(Locale.ROOT, "%.6f", v);
   }
 }

@@ -61,14 +61,53 @@ class WaterApiIT {
     assertThat(body.get("pressureMPa").asDouble()).isEqualTo(0.101325);
   }
 
+  /** No saturation above the critical point: the release's own limit, 647.096 K. */
   @Test
-  void outsideValidityIs422NamingTheLimit() {
+  void saturationAboveTheCriticalPointIs422NamingTheLimit() {
     HttpResponse<String> r = http.get("/api/v1/water?temperatureCel=400");
     assertThat(r.statusCode()).isEqualTo(422);
     JsonNode body = JSON.readTree(r.body());
     assertThat(body.get("type").asString()).isEqualTo("urn:kwanta:problem:out-of-validity-range");
     assertThat(body.get("limit").get("unit").asString()).isEqualTo("K");
-    assertThat(body.get("limit").get("max").asDouble()).isEqualTo(623.15);
+    assertThat(body.get("limit").get("max").asDouble()).isEqualTo(647.096);
+  }
+
+  /** Above 800 °C the limit is Kwanta's (IF97 region 5 not implemented) and R11-07's. */
+  @Test
+  void above800CelIs422SayingWhoseLimit() {
+    HttpResponse<String> r = http.get("/api/v1/water?temperatureCel=900&pressureMPa=10");
+    assertThat(r.statusCode()).isEqualTo(422);
+    JsonNode body = JSON.readTree(r.body());
+    assertThat(body.get("limit").get("max").asDouble()).isEqualTo(1073.15);
+    assertThat(body.get("detail").asString()).contains("region 5 not implemented in Kwanta");
+  }
+
+  /**
+   * The issue's case, steam at 300 °C and 5 MPa: density and pKw with a notice, no neutral pH and
+   * no Debye–Hückel values. Density against IAPWS-IF97 region 2 as computed by Debian python3-iapws
+   * 1.5.3, IAPWS97(T=573.15, P=5).rho = 22.0522 kg/m3 (to the digits shown).
+   */
+  @Test
+  void steamHasDensityAndPkwButNoLiquidPhScale() {
+    JsonNode body =
+        JSON.readTree(http.get("/api/v1/water?temperatureCel=300&pressureMPa=5").body());
+    assertThat(body.get("phase").asString()).isEqualTo("VAPOUR_REGION_2");
+    assertThat(body.get("densityKgPerM3").asDouble()).isBetween(22.05, 22.06);
+    assertThat(body.get("pKw").isNumber()).isTrue();
+    assertThat(body.get("neutralPh").isNull()).isTrue();
+    assertThat(body.get("debyeHuckelAKgHalfPerMolHalf").isNull()).isTrue();
+    assertThat(body.get("notices").get(0).asString()).contains("not a liquid pH");
+  }
+
+  /** Liquid at 360 °C and 20 MPa lies in IF97 region 3 and is now computed. */
+  @Test
+  void liquidAbove350CelIsRegion3() {
+    HttpResponse<String> r = http.get("/api/v1/water?temperatureCel=360&pressureMPa=20");
+    assertThat(r.statusCode()).isEqualTo(200);
+    JsonNode body = JSON.readTree(r.body());
+    assertThat(body.get("phase").asString()).isEqualTo("LIQUID_REGION_3");
+    assertThat(body.get("formulations").get("density").asString()).endsWith("region 3");
+    assertThat(body.get("debyeHuckelAKgHalfPerMolHalf").isNumber()).isTrue();
   }
 
   @Test

@@ -1,0 +1,196 @@
+package org.kwanta.model.evaluation;
+
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.kwanta.model.NoConvergenceException;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Composition;
+import org.kwanta.model.aqueous.Speciation;
+import org.kwanta.model.aqueous.SpeciationOptions;
+import org.kwanta.model.aqueous.SpeciationResult;
+import org.kwanta.model.aqueous.Species;
+import org.kwanta.model.water.Distribution;
+import org.kwanta.model.water.DistributionConstant;
+import org.kwanta.model.water.VolatileSolute;
+import org.kwanta.model.water.WaterState;
+
+/**
+ * The liquid in equilibrium with a steam: the first condensate of a steam sample (early
+ * condensate), which is also the liquid of a two-phase region (drum, evaporator, deaerator) whose
+ * steam was sampled.
+ *
+ * <p>Only neutral molecules distribute into the steam; ions stay in the liquid. For a volatile
+ * component with distribution constant K_D (steam over liquid, {@link Distribution}) and neutral
+ * fraction α₀ in the liquid at its pH, the overall ratio is D = K_D α₀ and the liquid total is
+ * m_liquid = m_steam / D (IAPWS G7-04 convention; the shared notes §1.1). α₀ depends on the
+ * liquid's pH, so m_liquid and the speciation are iterated to a fixed point.
+ *
+ * <p>Assumptions, stated with every result: non-volatile solutes (sodium, chloride, sulfate,
+ * phosphate) are taken at their steam concentration; their own small volatilities, which make a
+ * real early condensate richer in them, are not modelled, so the result is the least concentrated
+ * first condensate. Neutralizing amines have no distribution constant in Kwanta: a steam sample
+ * dosed with one is not evaluated at temperature.
+ */
+final class EarlyCondensate {
+
+  /** Largest number of fixed-point iterations. */
+  static final int MAX_ITERATIONS = 60;
+
+  /**
+   * Change of ln m of every volatile total at which the iteration stops (1e-9 relative; the pH
+   * moves by less than 1e-9).
+   */
+  static final double TOLERANCE = 1e-9;
+
+  private EarlyCondensate() {}
+
+  /** The liquid's speciation and what the reader must know about it. */
+  record Result(
+      SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
+
+  /** Thrown when a component of the steam has no distribution constant. */
+  static final class NoDistributionConstant extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+
+    NoDistributionConstant(Component c) {
+      super(
+          "no vapour-liquid distribution constant for "
+              + c.name().toLowerCase(Locale.ROOT).replace('_', ' ')
+              + " in Kwanta (none retrieved from a publication)");
+    }
+  }
+
+  /**
+   * The liquid in equilibrium with a steam of the given composition.
+   *
+   * @param steam totals in the steam (as condensed), mol/kg
+   * @param liquidWater saturated liquid at the condensation temperature
+   * @param options speciation options
+   * @throws NoDistributionConstant when an amine is present
+   */
+  static Result of(Composition steam, WaterState liquidWater, SpeciationOptions options) {
+    return of(steam, liquidWater, options, null);
+  }
+
+  /**
+   * As {@link #of(Composition, WaterState, SpeciationOptions)}, started from the liquid of a nearby
+   * steam (the band's perturbed compositions start from the central one); {@code near} changes only
+   * the starting point, not the result beyond the tolerance.
+   */
+  static Result of(
+      Composition steam, WaterState liquidWater, SpeciationOptions options, Result near) {
+    double t = liquidWater.temperatureK();
+    Map<Component, DistributionConstant> kD = new EnumMap<>(Component.class);
+    for (Component c : steam.totals().keySet()) {
+      VolatileSolute v = volatileSolute(c);
+      if (v != null) {
+        kD.put(c, Distribution.at(v, t));
+      } else if (isAmine(c)) {
+        throw new NoDistributionConstant(c);
+      }
+    }
+    // Fixed point x = F(x) per volatile component, x = ln m_liquid, F(x) = ln(m_steam / (K_D
+    // α₀(x))); accelerated by a secant estimate of F'(x) from the previous iterate (Steffensen's
+    // idea), falling back to the plain update when the estimate is not usable.
+    Component[] volatiles = kD.keySet().toArray(new Component[0]);
+    int n = volatiles.length;
+    double[] x = new double[n];
+    double[] previousX = new double[n];
+    double[] previousF = new double[n];
+    Composition liquid = steam;
+    for (int i = 0; i < n; i++) {
+      Component c = volatiles[i];
+      // start: the near liquid's ratio to its steam, or all neutral (α₀ = 1)
+      x[i] =
+          near != null && near.steam().molality(c) > 0
+              ? Math.log(
+                  steam.molality(c) * near.liquidTotals().molality(c) / near.steam().molality(c))
+              : Math.log(steam.molality(c) / kD.get(c).kD());
+      previousX[i] = Double.NaN;
+      liquid = liquid.with(c, Math.exp(x[i]));
+    }
+    SpeciationResult r =
+        near == null
+            ? Speciation.solve(liquid, liquidWater, options)
+            : Speciation.solve(liquid, liquidWater, options, near.liquid());
+    for (int k = 0; k < MAX_ITERATIONS; k++) {
+      double change = 0;
+      Composition next = steam;
+      for (int i = 0; i < n; i++) {
+        Component c = volatiles[i];
+        double alpha0 = r.molality(neutral(c)) / liquid.molality(c);
+        double f = Math.log(steam.molality(c) / (kD.get(c).kD() * alpha0));
+        double step = f - x[i];
+        change = Math.max(change, Math.abs(step));
+        double slope = (f - previousF[i]) / (x[i] - previousX[i]);
+        double xNext = Double.isFinite(slope) && slope < 0.9 ? x[i] + step / (1 - slope) : f;
+        previousX[i] = x[i];
+        previousF[i] = f;
+        x[i] = xNext;
+        next = next.with(c, Math.exp(xNext));
+      }
+      if (change <= TOLERANCE) {
+        return new Result(r, liquid, steam, notes(kD));
+      }
+      liquid = next;
+      r = Speciation.solve(liquid, liquidWater, options, r);
+    }
+    throw new NoConvergenceException("early-condensate distribution", MAX_ITERATIONS, Double.NaN);
+  }
+
+  private static List<String> notes(Map<Component, DistributionConstant> kD) {
+    List<String> notes = new ArrayList<>();
+    notes.add(
+        "pH of the first condensate (liquid in equilibrium with the steam) at the saturation"
+            + " temperature; non-volatile solutes taken at their steam concentration (a lower"
+            + " bound for a real early condensate)");
+    for (DistributionConstant k : kD.values()) {
+      notes.add(
+          String.format(
+              Locale.ROOT,
+              "K_D(%s) = %.3g ± %.0f %% at %.1f °C from %s (%s)%s",
+              k.solute().name().toLowerCase(Locale.ROOT).replace('_', ' '),
+              k.kD(),
+              100 * k.relativeUncertainty(),
+              k.temperatureK() - 273.15,
+              k.source().id(),
+              k.source().confidence().name().toLowerCase(Locale.ROOT).replace('_', ' '),
+              k.extrapolated()
+                  ? String.format(
+                      Locale.ROOT,
+                      ", extrapolated beyond the fit's %.0f-%.0f K",
+                      k.fitRange().min(),
+                      k.fitRange().max())
+                  : ""));
+    }
+    return notes;
+  }
+
+  static VolatileSolute volatileSolute(Component c) {
+    return switch (c) {
+      case AMMONIA -> VolatileSolute.AMMONIA;
+      case CARBON_DIOXIDE -> VolatileSolute.CARBON_DIOXIDE;
+      default -> null;
+    };
+  }
+
+  private static boolean isAmine(Component c) {
+    return switch (c) {
+      case MORPHOLINE,
+          ETHANOLAMINE,
+          CYCLOHEXYLAMINE,
+          DIMETHYLAMINE,
+          METHOXYPROPYLAMINE,
+          DIETHYLAMINOETHANOL ->
+          true;
+      default -> false;
+    };
+  }
+
+  private static Species neutral(Component c) {
+    return c == Component.AMMONIA ? Species.AMMONIA : Species.CARBON_DIOXIDE;
+  }
+}

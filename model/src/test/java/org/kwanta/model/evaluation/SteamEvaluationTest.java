@@ -1,0 +1,133 @@
+package org.kwanta.model.evaluation;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.Composition;
+import org.kwanta.model.aqueous.Speciation;
+import org.kwanta.model.aqueous.SpeciationOptions;
+import org.kwanta.model.aqueous.SpeciationResult;
+import org.kwanta.model.aqueous.Species;
+import org.kwanta.model.conductivity.AlkalizerMix;
+import org.kwanta.model.water.Distribution;
+import org.kwanta.model.water.IonizationFormulation;
+import org.kwanta.model.water.VolatileSolute;
+import org.kwanta.model.water.Water;
+import org.kwanta.model.water.WaterState;
+
+/**
+ * Steam sample points: the 25 °C chemistry always stands, and the pH at temperature is that of the
+ * first condensate. The distribution constants are checked against their sources in {@code
+ * DistributionTest}; the checks here are of the engine against itself (mass balance of the
+ * distribution) and of what is refused.
+ */
+class SteamEvaluationTest {
+
+  /** Fictional Brackenmoor-style main steam: 2 mg/kg NH3, 3 µg/kg Cl, 40 µg/kg CO2. */
+  private static Snapshot steamSample() {
+    double[] v = Demo.readings(Demo.ammonia(2), 0, Demo.chloride(3), Demo.co2(40));
+    Map<Parameter, List<Reading>> h = Demo.map();
+    h.put(Parameter.SPECIFIC_CONDUCTIVITY, List.of(Reading.raw(Demo.NOW, v[0], Demo.T25)));
+    h.put(Parameter.CATION_CONDUCTIVITY, List.of(Reading.raw(Demo.NOW, v[1], Demo.T25)));
+    h.put(Parameter.DEGASSED_CATION_CONDUCTIVITY, List.of(Reading.raw(Demo.NOW, v[2], Demo.T25)));
+    return new Snapshot(Demo.NOW, h);
+  }
+
+  private static SamplePointConfig steam(double celsius, double pressureMPa, AlkalizerMix mix) {
+    return SamplePointConfig.of("U1-MS", Regime.AVT_O, mix, celsius + 273.15, pressureMPa * 1e6)
+        .asSteam();
+  }
+
+  /** The case: main steam at 330 °C and 5 MPa was "internal error"; now it evaluates. */
+  @Test
+  void mainSteamAt5MPaIsEvaluatedAsItsFirstCondensate() {
+    Evaluation e = Evaluator.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.composition()).isPresent();
+    OperatingPh op = e.operatingPh().orElseThrow();
+    assertThat(op.basis()).isEqualTo(OperatingPh.Basis.EARLY_CONDENSATE);
+    assertThat(op.temperatureK()).isCloseTo(Water.saturationTemperatureK(5e6), within(1e-9));
+    assertThat(op.notes()).anyMatch(n -> n.contains("IAPWS G7-04"));
+    assertThat(op.notes()).anyMatch(n -> n.contains("estimated"));
+    assertThat(op.low()).isLessThanOrEqualTo(op.ph());
+    assertThat(e.notes()).isEmpty();
+  }
+
+  /** 540 °C steam at 16 MPa: accepted, condensing at T_s(16 MPa) ≈ 347 °C. */
+  @Test
+  void superheatedSteamAt540CIsAccepted() {
+    Evaluation e = Evaluator.evaluate(steam(540, 16, AlkalizerMix.AMMONIA), steamSample());
+    assertThat(e.operatingPh().orElseThrow().temperatureK()).isCloseTo(620.5, within(0.1));
+  }
+
+  /**
+   * The liquid found satisfies the distribution it was built from: m(NH3, steam) = K_D × m(NH3
+   * neutral, liquid), likewise for CO2, with the non-volatile chloride unchanged.
+   */
+  @Test
+  void firstCondensateSatisfiesTheDistribution() {
+    WaterState w = Water.atSaturation(537.09, IonizationFormulation.R11_07);
+    Composition steam =
+        Composition.builder()
+            .molal(Component.AMMONIA, Demo.ammonia(2))
+            .molal(Component.CARBON_DIOXIDE, Demo.co2(40))
+            .molal(Component.CHLORIDE, Demo.chloride(3))
+            .build();
+    SpeciationResult liquid = EarlyCondensate.of(steam, w, SpeciationOptions.defaults()).liquid();
+    double kNh3 = Distribution.at(VolatileSolute.AMMONIA, w.temperatureK()).kD();
+    double kCo2 = Distribution.at(VolatileSolute.CARBON_DIOXIDE, w.temperatureK()).kD();
+    assertThat(kNh3 * liquid.molality(Species.AMMONIA))
+        .isCloseTo(Demo.ammonia(2), within(Demo.ammonia(2) * 1e-8));
+    assertThat(kCo2 * liquid.molality(Species.CARBON_DIOXIDE))
+        .isCloseTo(Demo.co2(40), within(Demo.co2(40) * 1e-8));
+    assertThat(liquid.molality(Species.CHLORIDE_ION))
+        .isCloseTo(Demo.chloride(3), within(Demo.chloride(3) * 1e-12));
+    // ammonia prefers the steam, so the condensate is less alkaline than the steam's 25 °C
+    // composition would be at the same temperature
+    double sameComposition = Speciation.solve(steam, w).ph();
+    assertThat(liquid.ph()).isLessThan(sameComposition);
+  }
+
+  @Test
+  void supercriticalSteamHasNoFirstCondensateButKeeps25CResults() {
+    Evaluation e = Evaluator.evaluate(steam(540, 25, AlkalizerMix.AMMONIA), steamSample());
+    assertThat(e.operatingPh()).isEmpty();
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.notes()).singleElement().asString().contains("critical pressure");
+  }
+
+  @Test
+  void steamAboveTheCriticalTemperatureNeedsItsPressure() {
+    Evaluation e = Evaluator.evaluate(steam(540, Double.NaN, AlkalizerMix.AMMONIA), steamSample());
+    assertThat(e.operatingPh()).isEmpty();
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.notes()).singleElement().asString().contains("needs its operating pressure");
+  }
+
+  @Test
+  void amineWithoutDistributionConstantIsNotEvaluatedAtTemperature() {
+    Evaluation e =
+        Evaluator.evaluate(steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
+    assertThat(e.operatingPh()).isEmpty();
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.notes())
+        .singleElement()
+        .asString()
+        .contains("no vapour-liquid distribution constant for morpholine");
+  }
+
+  /** A liquid point beyond the speciation engine keeps its 25 °C results and says whose limit. */
+  @Test
+  void liquidBeyondTheEngineKeeps25CResults() {
+    SamplePointConfig c =
+        SamplePointConfig.of("U1-ECO-IN", Regime.AVT_O, AlkalizerMix.AMMONIA, 673.15, 30e6);
+    Evaluation e = Evaluator.evaluate(c, steamSample());
+    assertThat(e.operatingPh()).isEmpty();
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.notes()).singleElement().asString().contains("673.15 K");
+  }
+}
