@@ -1,14 +1,22 @@
 #!/usr/bin/env bash
-# Shows an alert rule firing for the condenser-leak story of the fictional Brackenmoor demo plant.
+# The shipped alerting path end to end, as an admin would run it, on 127.0.0.1 only: the packaged service ->
+# Prometheus -> Alertmanager -> the demo web hook receiver, with the fictional Brackenmoor demo plant.
 #
-# Starts the packaged service (embedded PostgreSQL in a scratch directory) and Prometheus with the project's
-# alert rules, both on 127.0.0.1 only; pushes the invented U2-CPD cation-conductivity series of the story up to
-# its AL3 phase (with an admin key of its own, KWANTA_ADMIN_KEY); Prometheus scrapes with the read key the
-# service writes into KWANTA_SCRAPE_KEY_FILE at start, as under docker compose; waits (at most CHECK_TIMEOUT
-# seconds, default 240) until Prometheus reports KwantaActionLevel3 firing; stops both and removes the scratch
-# directory. Exit 0 when the alert fired.
+# Starts the packaged service (embedded PostgreSQL in a scratch directory); the demo receiver
+# deploy/alertmanager/webhook-log.py; Alertmanager with deploy/alertmanager/alertmanager.yml (only the
+# receiver's address changed to loopback, and group_wait shortened so the check is quick); Prometheus with
+# deploy/prometheus/prometheus.yml and the project's alert rules (only the addresses of the service and
+# Alertmanager, the key file's path and the intervals changed). Prometheus scrapes with the read key the
+# service writes into KWANTA_SCRAPE_KEY_FILE at start, as under docker compose. Pushes (with an admin key of
+# its own, KWANTA_ADMIN_KEY) two invented series: the condenser-leak story at U2-CPD cation conductivity up
+# to its AL3 phase, and U1-CPD cation conductivity at AL3 for five hours, past its four-hour allowance.
+# Passes when the scrape target is up, Prometheus reports KwantaActionLevel3 firing, and the receiver got
+# KwantaActionLevel3 for U2-CPD and KwantaActionLevelAllowanceOverrun for U1-CPD (computed from the service's
+# own excursion deadline), each with its runbook link; waits at most CHECK_TIMEOUT seconds (default 240).
+# Stops everything and removes the scratch directory. Exit 0 when it passed.
 #
-# Needs: the jar (mvn -DskipTests package), java 17+, curl, python3, prometheus (Debian package "prometheus").
+# Needs: the jar (mvn -DskipTests package), java 17+, curl, python3, prometheus (Debian package
+# "prometheus"), alertmanager (Debian package "prometheus-alertmanager").
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 
@@ -16,15 +24,27 @@ JAR=service/target/kwanta-service.jar
 TIMEOUT="${CHECK_TIMEOUT:-240}"
 [ -f "$JAR" ] || { echo "no $JAR: build it first with mvn -DskipTests package" >&2; exit 2; }
 command -v prometheus >/dev/null || { echo "prometheus not installed (Debian package 'prometheus')" >&2; exit 2; }
+# Debian names the Alertmanager server prometheus-alertmanager
+ALERTMANAGER=$(command -v alertmanager || command -v prometheus-alertmanager || true)
+[ -n "$ALERTMANAGER" ] || { echo "alertmanager not installed (Debian package 'prometheus-alertmanager')" >&2; exit 2; }
+STARTED=$(date +%s)
+at() { echo "($(( $(date +%s) - STARTED ))s)"; }
 
 free_port() { python3 -c 'import socket; s=socket.socket(); s.bind(("127.0.0.1",0)); print(s.getsockname()[1]); s.close()'; }
 SERVICE_PORT=$(free_port)
 PROM_PORT=$(free_port)
+AM_PORT=$(free_port)
+AM_CLUSTER_PORT=$(free_port)
+HOOK_PORT=$(free_port)
 WORK=$(mktemp -d)
 SERVICE_PID=""
 PROM_PID=""
+AM_PID=""
+HOOK_PID=""
 cleanup() {
   [ -n "$PROM_PID" ] && kill "$PROM_PID" 2>/dev/null && wait "$PROM_PID" 2>/dev/null || true
+  [ -n "$AM_PID" ] && kill "$AM_PID" 2>/dev/null && wait "$AM_PID" 2>/dev/null || true
+  [ -n "$HOOK_PID" ] && kill "$HOOK_PID" 2>/dev/null && wait "$HOOK_PID" 2>/dev/null || true
   [ -n "$SERVICE_PID" ] && kill "$SERVICE_PID" 2>/dev/null && wait "$SERVICE_PID" 2>/dev/null || true
   rm -rf "$WORK"
 }
@@ -34,9 +54,41 @@ trap cleanup EXIT
 ADMIN_KEY="kw_checkalert_$(python3 -c 'import secrets; print(secrets.token_hex(32))')"
 SCRAPE_KEY_FILE="$WORK/scrape-key"
 
-echo "== service on 127.0.0.1:$SERVICE_PORT"
+# the receiver, Alertmanager and Prometheus first: they wait for the service as they would in compose
+echo "== demo receiver (webhook-log.py) on 127.0.0.1:$HOOK_PORT $(at)"
+WEBHOOK_LOG_ADDRESS=127.0.0.1 WEBHOOK_LOG_PORT=$HOOK_PORT python3 deploy/alertmanager/webhook-log.py \
+  >"$WORK/received.log" 2>"$WORK/webhook-log.err" &
+HOOK_PID=$!
+
+echo "== alertmanager (deploy/alertmanager/alertmanager.yml) on 127.0.0.1:$AM_PORT"
+mkdir -p "$WORK/alertmanager"
+sed -e "s#http://webhook-log:9095/#http://127.0.0.1:$HOOK_PORT/#" -e "s#group_wait: 30s#group_wait: 2s#" \
+  deploy/alertmanager/alertmanager.yml >"$WORK/alertmanager/alertmanager.yml"
+grep -q "127.0.0.1:$HOOK_PORT" "$WORK/alertmanager/alertmanager.yml" \
+  || { echo "alertmanager.yml has no webhook-log receiver at http://webhook-log:9095/" >&2; exit 1; }
+"$ALERTMANAGER" --config.file="$WORK/alertmanager/alertmanager.yml" --storage.path="$WORK/alertmanager/data" \
+  --web.listen-address="127.0.0.1:$AM_PORT" --cluster.listen-address="127.0.0.1:$AM_CLUSTER_PORT" \
+  >"$WORK/alertmanager.log" 2>&1 &
+AM_PID=$!
+
+mkdir -p "$WORK/prometheus/rules"
+cp deploy/prometheus/rules/kwanta-alerts.yml "$WORK/prometheus/rules/"
+sed -e "s#\"kwanta:8080\"#\"127.0.0.1:$SERVICE_PORT\"#" -e "s#\"alertmanager:9093\"#\"127.0.0.1:$AM_PORT\"#" \
+  -e "s#credentials_file: .*#credentials_file: $SCRAPE_KEY_FILE#" -e "s#_interval: 15s#_interval: 5s#" \
+  deploy/prometheus/prometheus.yml >"$WORK/prometheus/prometheus.yml"
+for expected in "127.0.0.1:$SERVICE_PORT" "127.0.0.1:$AM_PORT" "credentials_file: $SCRAPE_KEY_FILE"; do
+  grep -q "$expected" "$WORK/prometheus/prometheus.yml" \
+    || { echo "prometheus.yml no longer has the shape this check edits ($expected)" >&2; exit 1; }
+done
+echo "== prometheus on 127.0.0.1:$PROM_PORT"
+prometheus --config.file="$WORK/prometheus/prometheus.yml" --storage.tsdb.path="$WORK/prometheus/data" \
+  --web.listen-address="127.0.0.1:$PROM_PORT" >"$WORK/prometheus.log" 2>&1 &
+PROM_PID=$!
+
+echo "== service on 127.0.0.1:$SERVICE_PORT $(at)"
 KWANTA_ADMIN_KEY="$ADMIN_KEY" KWANTA_SCRAPE_KEY_FILE="$SCRAPE_KEY_FILE" \
-  java -Xmx512m -jar "$JAR" --server.address=127.0.0.1 --server.port="$SERVICE_PORT" \
+  java -Xmx512m -XX:TieredStopAtLevel=1 -XX:+UseSerialGC -jar "$JAR" \
+  --server.address=127.0.0.1 --server.port="$SERVICE_PORT" \
   --kwanta.embedded-database.data-directory="$WORK/postgres" \
   --kwanta.metrics.refresh=PT5S --kwanta.metrics.initial-delay=PT1S >"$WORK/service.log" 2>&1 &
 SERVICE_PID=$!
@@ -49,7 +101,8 @@ curl -fsS "http://127.0.0.1:$SERVICE_PORT/actuator/health/readiness" >/dev/null
 for _ in $(seq 1 30); do [ -s "$SCRAPE_KEY_FILE" ] && break; sleep 1; done
 [ -s "$SCRAPE_KEY_FILE" ] || { echo "the service wrote no scrape key to $SCRAPE_KEY_FILE" >&2; exit 1; }
 
-echo "== pushing the condenser-leak story (U2-CPD cation conductivity, invented), up to its AL3 phase"
+echo "== pushing the condenser-leak story (U2-CPD cation conductivity, invented) up to its AL3 phase, and $(at)"
+echo "   U1-CPD cation conductivity at AL3 for five hours (invented), past the four-hour allowance"
 ADMIN_KEY="$ADMIN_KEY" python3 - "$SERVICE_PORT" <<'PY'
 import json, os, sys, urllib.request
 from datetime import datetime, timedelta, timezone
@@ -60,11 +113,18 @@ def leak(m):  # 0.08 uS/cm, rise to 0.95 from 06:00 to 09:00, hold, fall to 0.08
     if m < 570: return 0.95
     if m < 810: return 0.95 - 0.87 * (m - 570) / 240
     return 0.08
+def stamp(t):
+    return t.isoformat().replace("+00:00", "Z")
 now = datetime.now(timezone.utc).replace(second=0, microsecond=0)
 start = now - timedelta(minutes=510)  # "now" is 08:30 story time: AL3 since 07:58
 readings = [{"samplePoint": "U2-CPD", "parameter": "cation_conductivity",
-             "time": (start + timedelta(minutes=m)).isoformat().replace("+00:00", "Z"),
+             "time": stamp(start + timedelta(minutes=m)),
              "value": round(leak(m), 5), "unit": "uS/cm"} for m in range(511)]
+# U1-CPD: 0.08 uS/cm for an hour, then 0.95 uS/cm (above the example AL3 of 0.65) for the last five hours
+u1 = now - timedelta(minutes=360)
+readings += [{"samplePoint": "U1-CPD", "parameter": "cation_conductivity",
+              "time": stamp(u1 + timedelta(minutes=m)),
+              "value": 0.08 if m < 60 else 0.95, "unit": "uS/cm"} for m in range(361)]
 req = urllib.request.Request(f"http://127.0.0.1:{port}/api/v1/readings",
                              data=json.dumps({"readings": readings}).encode(),
                              headers={"Content-Type": "application/json",
@@ -72,33 +132,22 @@ req = urllib.request.Request(f"http://127.0.0.1:{port}/api/v1/readings",
 print(urllib.request.urlopen(req, timeout=60).read().decode())
 PY
 
-mkdir -p "$WORK/prometheus/rules"
-cp deploy/prometheus/rules/kwanta-alerts.yml "$WORK/prometheus/rules/"
-cat >"$WORK/prometheus/prometheus.yml" <<YML
-global:
-  scrape_interval: 5s
-  evaluation_interval: 5s
-rule_files:
-  - rules/kwanta-alerts.yml
-scrape_configs:
-  - job_name: kwanta
-    metrics_path: /actuator/prometheus
-    authorization:
-      type: Bearer
-      credentials_file: $SCRAPE_KEY_FILE
-    static_configs:
-      - targets: ["127.0.0.1:$SERVICE_PORT"]
-YML
-echo "== prometheus on 127.0.0.1:$PROM_PORT"
-prometheus --config.file="$WORK/prometheus/prometheus.yml" --storage.tsdb.path="$WORK/prometheus/data" \
-  --web.listen-address="127.0.0.1:$PROM_PORT" >"$WORK/prometheus.log" 2>&1 &
-PROM_PID=$!
-
-echo "== waiting up to ${TIMEOUT}s for KwantaActionLevel3 to fire (the rule holds for 1 minute)"
+echo "== waiting up to ${TIMEOUT}s: the target up, KwantaActionLevel3 firing (it holds for 1 minute), and both $(at)"
+echo "   alerts at the receiver"
 deadline=$(( $(date +%s) + TIMEOUT ))
+target_up=false; al3_firing=false; al3_received=false; overrun_received=false
 while [ "$(date +%s)" -lt "$deadline" ]; do
+  if ! $target_up && curl -fsS "http://127.0.0.1:$PROM_PORT/api/v1/targets" 2>/dev/null | python3 -c '
+import json, sys
+targets = json.load(sys.stdin)["data"]["activeTargets"]
+up = [t for t in targets if t["labels"].get("job") == "kwanta" and t["health"] == "up"]
+for t in up:
+    print("TARGET UP", t["scrapeUrl"], "last scrape", t["lastScrape"])
+sys.exit(0 if up else 1)' 2>/dev/null; then
+    target_up=true
+  fi
   alerts=$(curl -fsS "http://127.0.0.1:$PROM_PORT/api/v1/alerts" 2>/dev/null || true)
-  if echo "$alerts" | python3 -c '
+  if ! $al3_firing && echo "$alerts" | python3 -c '
 import json, sys
 data = json.load(sys.stdin)["data"]["alerts"]
 hits = [a for a in data if a["labels"].get("alertname") == "KwantaActionLevel3" and a["state"] == "firing"
@@ -107,12 +156,28 @@ for a in hits:
     print("FIRING", a["labels"]["alertname"], a["labels"]["sample_point"], a["labels"]["parameter"],
           "since", a["activeAt"], "-", a["annotations"]["summary"])
 sys.exit(0 if hits else 1)' 2>/dev/null; then
+    al3_firing=true
+  fi
+  if ! $al3_received && grep -q "FIRING KwantaActionLevel3 .*U2-CPD cation_conductivity .*runbook: docs/runbook.md#kwantaactionlevel3" "$WORK/received.log"; then
+    al3_received=true
+    echo "$(at) RECEIVED $(grep -m1 "FIRING KwantaActionLevel3 .*U2-CPD" "$WORK/received.log")"
+  fi
+  if ! $overrun_received && grep -q "FIRING KwantaActionLevelAllowanceOverrun .*U1-CPD cation_conductivity .*runbook: docs/runbook.md#kwantaactionlevelallowanceoverrun" "$WORK/received.log"; then
+    overrun_received=true
+    echo "$(at) RECEIVED $(grep -m1 "FIRING KwantaActionLevelAllowanceOverrun .*U1-CPD" "$WORK/received.log")"
+  fi
+  if $target_up && $al3_firing && $al3_received && $overrun_received; then
+    echo "== passed in $(( $(date +%s) - STARTED ))s: target up, alerts evaluated by Prometheus, routed by"
+    echo "   Alertmanager and delivered to the demo receiver"
     exit 0
   fi
-  sleep 5
+  sleep 3
 done
-echo "KwantaActionLevel3 did not fire within ${TIMEOUT}s; last alerts:" >&2
-echo "$alerts" >&2
+echo "did not pass within ${TIMEOUT}s: target up $target_up, AL3 firing $al3_firing, AL3 received" \
+  "$al3_received, overrun received $overrun_received" >&2
+echo "last alerts:" >&2; echo "$alerts" >&2
+echo "received:" >&2; cat "$WORK/received.log" >&2 || true
 echo "scrape target:" >&2
 curl -fsS "http://127.0.0.1:$PROM_PORT/api/v1/targets" >&2 || true
+echo "alertmanager log:" >&2; tail -n 20 "$WORK/alertmanager.log" >&2 || true
 exit 1

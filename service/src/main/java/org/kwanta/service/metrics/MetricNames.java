@@ -68,6 +68,14 @@ public final class MetricNames {
    */
   public static final String SAMPLE_INSTRUMENT_IN_DOUBT = "kwanta.sample.instrument.in.doubt";
 
+  /**
+   * The deadline of a running excursion, seconds since the epoch: the earliest, over the levels up
+   * to the current one, of the onset of the running stretch at that level or above plus the level's
+   * allowance (the {@code deadline} of {@code GET /api/v1/excursions}). Only while an excursion is
+   * running.
+   */
+  public static final String EXCURSION_DEADLINE = "kwanta.excursion.deadline.timestamp";
+
   /** Age of the latest reading, seconds. */
   public static final String SAMPLE_READING_AGE = "kwanta.sample.reading.age";
 
@@ -217,6 +225,13 @@ public final class MetricNames {
               Type.GAUGE,
               List.of(PLANT, UNIT, SAMPLE_POINT, CODE, POINTS_AT),
               "1 for each finding of the diagnosis over time at the point's latest minute"),
+          new Metric(
+              EXCURSION_DEADLINE,
+              "kwanta_excursion_deadline_timestamp_seconds",
+              Type.GAUGE,
+              POINT_PARAMETER,
+              "Deadline of the running excursion (the excursions endpoint's deadline, as"
+                  + " reported), seconds since the epoch; overrun when it lies in the past"),
           new Metric(
               SAMPLE_READING_AGE,
               "kwanta_sample_reading_age_seconds",

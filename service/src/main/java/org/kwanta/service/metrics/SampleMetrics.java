@@ -22,10 +22,15 @@ import org.springframework.stereotype.Component;
 
 /**
  * Per sample point and parameter gauges (latest value, action level, outside the normal range, time
- * in level, instrument in doubt, reading age) and the pH at temperature per sample point, refreshed
- * on a schedule from the stored readings and evaluations ({@code kwanta.metrics.refresh}, default
- * 30 s). The level looks back {@code kwanta.metrics.level-window} (default 8 days, longer than the
- * AL1 allowance), so time in level is capped at that window.
+ * in level, instrument in doubt, reading age, the deadline of a running excursion) and the pH at
+ * temperature per sample point, refreshed on a schedule from the stored readings and evaluations
+ * ({@code kwanta.metrics.refresh}, default 30 s). The level looks back {@code
+ * kwanta.metrics.level-window} (default one day), so time in level is capped at that window.
+ *
+ * <p>The excursion deadline is the one {@code GET /api/v1/excursions} answers (as reported, by
+ * {@link ExcursionFinder#find}, which reads 8 days back so that a running excursion is whole): it
+ * is computed only for the series whose current level is an action level, since only those can be
+ * in a running excursion.
  */
 @Component
 class SampleMetrics {
@@ -45,6 +50,7 @@ class SampleMetrics {
   private final MultiGauge threshold;
   private final MultiGauge phCalculated;
   private final MultiGauge neutralPh;
+  private final MultiGauge deadline;
 
   SampleMetrics(
       MeterRegistry registry,
@@ -68,6 +74,7 @@ class SampleMetrics {
     this.threshold = gauge(registry, MetricNames.LIMIT_THRESHOLD, null);
     this.phCalculated = gauge(registry, MetricNames.SAMPLE_PH_CALCULATED, null);
     this.neutralPh = gauge(registry, MetricNames.SAMPLE_NEUTRAL_PH, null);
+    this.deadline = gauge(registry, MetricNames.EXCURSION_DEADLINE, "seconds");
   }
 
   private static MultiGauge gauge(MeterRegistry registry, String name, String baseUnit) {
@@ -151,6 +158,7 @@ class SampleMetrics {
     List<MultiGauge.Row<?>> thresholds = new ArrayList<>();
     List<MultiGauge.Row<?>> calculateds = new ArrayList<>();
     List<MultiGauge.Row<?>> neutrals = new ArrayList<>();
+    List<MultiGauge.Row<?>> deadlines = new ArrayList<>();
     for (Limits.Point point : limits.points(null, null)) {
       Tags pointTags =
           Tags.of(
@@ -193,6 +201,9 @@ class SampleMetrics {
             MultiGauge.Row.of(tags, Duration.between(last.levelSince(), now).toMillis() / 1000.0));
         outsides.add(MultiGauge.Row.of(tags, last.level() == Level.OUTSIDE_NORMAL ? 1 : 0));
         doubts.add(MultiGauge.Row.of(tags, last.instrumentInDoubt() ? 1 : 0));
+        if (last.level().isAction()) {
+          deadlineRows(point, effective.profile().key().parameter(), now, tags, deadlines);
+        }
       }
     }
     value.register(values, true);
@@ -205,6 +216,27 @@ class SampleMetrics {
     threshold.register(thresholds, true);
     phCalculated.register(calculateds, true);
     neutralPh.register(neutrals, true);
+    deadline.register(deadlines, true);
+  }
+
+  /**
+   * The deadline of the running excursion of one point and parameter, as the excursions endpoint
+   * gives it (as reported), in seconds since the epoch.
+   */
+  private void deadlineRows(
+      Limits.Point point,
+      org.kwanta.model.limits.Parameter parameter,
+      Instant now,
+      Tags tags,
+      List<MultiGauge.Row<?>> out) {
+    ExcursionFinder.Filter running =
+        new ExcursionFinder.Filter(point.plant(), point.id(), parameter, now, now, null, true);
+    for (ExcursionFinder.Found found : finder.find(running)) {
+      found
+          .excursion()
+          .deadline()
+          .ifPresent(d -> out.add(MultiGauge.Row.of(tags, d.toEpochMilli() / 1000.0)));
+    }
   }
 
   /** The normal range's bounds and every action level of a profile as threshold rows. */

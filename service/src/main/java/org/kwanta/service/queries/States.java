@@ -1,5 +1,6 @@
 package org.kwanta.service.queries;
 
+import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
@@ -7,6 +8,7 @@ import java.util.Locale;
 import org.kwanta.service.evaluations.EvaluationView;
 import org.kwanta.service.readings.MeasuredParameter;
 import org.kwanta.service.readings.ValidReading;
+import org.springframework.beans.factory.annotation.Value;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 import tools.jackson.databind.json.JsonMapper;
@@ -14,6 +16,11 @@ import tools.jackson.databind.json.JsonMapper;
 /**
  * The latest state of sample points: each parameter's latest reading with its age, the current
  * level of each parameter with limits, the latest evaluation.
+ *
+ * <p>"Latest" looks back {@code kwanta.queries.latest-look-back} (default 35 days, so that a
+ * monthly laboratory result still shows): a reading or evaluation older than that is not part of
+ * the state. The bound lets PostgreSQL prune the daily partitions before it; without one, every
+ * partition of {@code reading} and {@code evaluation} was planned and probed on each request.
  */
 @Repository
 class States {
@@ -21,12 +28,38 @@ class States {
   private final JdbcTemplate jdbc;
   private final JsonMapper json;
   private final CurrentLevels levels;
+  private final Duration lookBack;
 
-  States(JdbcTemplate jdbc, JsonMapper json, CurrentLevels levels) {
+  States(
+      JdbcTemplate jdbc,
+      JsonMapper json,
+      CurrentLevels levels,
+      @Value("${kwanta.queries.latest-look-back:P35D}") Duration lookBack) {
     this.jdbc = jdbc;
     this.json = json;
     this.levels = levels;
+    this.lookBack = lookBack;
   }
+
+  /**
+   * Each parameter's latest reading at a point since a time. Parameters: the parameter codes, the
+   * sample point, the earliest time.
+   */
+  static final String LATEST_READINGS =
+      """
+      SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
+      FROM unnest(?::text[]) AS p(code)
+      CROSS JOIN LATERAL (
+        SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
+        WHERE sample_point_id = ? AND parameter = p.code AND time >= ?
+        ORDER BY time DESC LIMIT 1) r
+      ORDER BY p.code""";
+
+  /** The latest evaluation at a point since a time. Parameters: the sample point, the time. */
+  static final String LATEST_EVALUATION =
+      """
+      SELECT time, details::text FROM evaluation WHERE sample_point_id = ? AND time >= ?
+      ORDER BY time DESC LIMIT 1""";
 
   /** A parameter's latest reading. */
   record Latest(
@@ -67,15 +100,10 @@ class States {
       String regime,
       Instant now,
       org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
+    Instant since = now.minus(lookBack);
     List<Latest> latest =
         jdbc.query(
-            """
-            SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
-            FROM unnest(?::text[]) AS p(code)
-            CROSS JOIN LATERAL (
-              SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
-              WHERE sample_point_id = ? AND parameter = p.code ORDER BY time DESC LIMIT 1) r
-            ORDER BY p.code""",
+            LATEST_READINGS,
             (rs, i) -> {
               MeasuredParameter p = MeasuredParameter.byCode(rs.getString(1)).orElseThrow();
               Instant t = rs.getTimestamp(2).toInstant();
@@ -92,11 +120,11 @@ class States {
                   p.isConductivity() ? rs.getBoolean(6) : null);
             },
             (Object) MeasuredParameter.codeArray(),
-            samplePointId);
+            samplePointId,
+            Timestamp.from(since));
     List<LatestEvaluation> evaluation =
         jdbc.query(
-            "SELECT time, details::text FROM evaluation WHERE sample_point_id = ?"
-                + " ORDER BY time DESC LIMIT 1",
+            LATEST_EVALUATION,
             (rs, i) -> {
               Instant t = rs.getTimestamp(1).toInstant();
               return new LatestEvaluation(
@@ -104,7 +132,8 @@ class States {
                   Duration.between(t, now).toMillis() / 1000.0,
                   json.readValue(rs.getString(2), EvaluationView.class));
             },
-            samplePointId);
+            samplePointId,
+            Timestamp.from(since));
     return new State(
         samplePointId,
         name,

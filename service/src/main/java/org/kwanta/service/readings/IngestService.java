@@ -360,8 +360,8 @@ public class IngestService {
       ReadingStore.Head head = heads.get(point);
       Instant latest = max(head.previousLatest(), e.getValue()[1]);
       if (head.previousLatest() == null) {
-        Instant stored = readings.latestStored(point);
-        if (stored != null && stored.isAfter(latest)) {
+        Instant stored = readings.latestStoredAfter(point, latest);
+        if (stored != null) {
           latest = stored;
           jdbc.update(
               "UPDATE reading_head SET latest_time = greatest(latest_time, ?) WHERE"

@@ -183,25 +183,51 @@ class ReadingStore {
     return out;
   }
 
-  /** The latest stored reading time of a point, or null (one index probe per parameter). */
-  Instant latestStored(String samplePointId) {
+  /**
+   * The latest stored reading time of a point after {@code after}, or null (one index probe per
+   * parameter). Parameters: the parameter codes, the sample point, {@code after}. The lower bound
+   * lets PostgreSQL prune every daily partition before it (without it, every partition of {@code
+   * reading} was planned and probed, hundreds after a long backfill).
+   */
+  static final String LATEST_STORED =
+      """
+      SELECT max(m) FROM unnest(?::text[]) AS p(code),
+        LATERAL (SELECT max(time) AS m FROM reading
+                 WHERE sample_point_id = ? AND parameter = p.code AND time > ?) x""";
+
+  /**
+   * The latest stored reading time of a point if it is later than {@code after}, else null. The
+   * ingest only needs to know whether the database holds readings beyond its batch.
+   */
+  Instant latestStoredAfter(String samplePointId, Instant after) {
     String[] codes = PARAMETER_CODES;
     Timestamp t =
         jdbc.query(
             c -> {
-              PreparedStatement ps =
-                  c.prepareStatement(
-                      """
-                      SELECT max(m) FROM unnest(?::text[]) AS p(code),
-                        LATERAL (SELECT max(time) AS m FROM reading
-                                 WHERE sample_point_id = ? AND parameter = p.code) x""");
+              PreparedStatement ps = c.prepareStatement(LATEST_STORED);
               ps.setArray(1, c.createArrayOf("text", codes));
               ps.setString(2, samplePointId);
+              ps.setTimestamp(3, Timestamp.from(after));
               return ps;
             },
             rs -> rs.next() ? rs.getTimestamp(1) : null);
     return t == null ? null : t.toInstant();
   }
+
+  /**
+   * Every stored reading of some points, each from its own time. Parameters: the points, their
+   * times, the parameter codes, the earliest of the times (a constant bound the planner prunes by;
+   * the per-point one is known only row by row).
+   */
+  static final String LOAD_SINCE =
+      """
+      SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality,
+             r.sample_temperature_cel, r.compensated
+      FROM unnest(?::text[], ?::timestamptz[]) AS s(sample_point_id, since)
+      CROSS JOIN LATERAL (
+        SELECT * FROM reading x
+        WHERE x.sample_point_id = s.sample_point_id AND x.parameter = ANY (?::text[])
+          AND x.time >= s.since AND x.time >= ?) r""";
 
   /**
    * Every stored reading of the given points at or after the given time, per point, in time order.
@@ -213,25 +239,21 @@ class ReadingStore {
     }
     String[] points = since.keySet().toArray(String[]::new);
     String[] times = new String[points.length];
+    Instant earliest = Instant.MAX;
     for (int i = 0; i < points.length; i++) {
-      times[i] = since.get(points[i]).toString();
+      Instant t = since.get(points[i]);
+      times[i] = t.toString();
+      earliest = t.isBefore(earliest) ? t : earliest;
       out.put(points[i], new ArrayList<>());
     }
+    Instant earliestSince = earliest;
     jdbc.query(
         c -> {
-          PreparedStatement ps =
-              c.prepareStatement(
-                  """
-                  SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality,
-                         r.sample_temperature_cel, r.compensated
-                  FROM unnest(?::text[], ?::timestamptz[]) AS s(sample_point_id, since)
-                  CROSS JOIN LATERAL (
-                    SELECT * FROM reading x
-                    WHERE x.sample_point_id = s.sample_point_id AND x.parameter = ANY (?::text[])
-                      AND x.time >= s.since) r""");
+          PreparedStatement ps = c.prepareStatement(LOAD_SINCE);
           ps.setArray(1, c.createArrayOf("text", points));
           ps.setArray(2, c.createArrayOf("text", times));
           ps.setArray(3, c.createArrayOf("text", PARAMETER_CODES));
+          ps.setTimestamp(4, Timestamp.from(earliestSince));
           return ps;
         },
         rs -> {

@@ -4,18 +4,14 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.sql.Timestamp;
 import java.time.Instant;
-import java.time.LocalDate;
-import java.time.ZoneOffset;
 import java.time.temporal.ChronoUnit;
-import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
-import java.util.TreeSet;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.readings.Partitions;
 import org.kwanta.service.support.DatabaseTest;
+import org.kwanta.service.support.QueryPlans;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.jdbc.core.JdbcTemplate;
 
@@ -28,25 +24,18 @@ import org.springframework.jdbc.core.JdbcTemplate;
 @DatabaseTest
 class ExcursionQueryPlanIT {
 
-  private static final Pattern PARTITION = Pattern.compile("\\b(reading|evaluation)_p\\d{8}\\b");
-
   @Autowired JdbcTemplate jdbc;
   @Autowired Partitions partitions;
 
   @Test
   void classifyQueryPrunesThePartitionsOfBothTables() {
-    LocalDate today = LocalDate.now(ZoneOffset.UTC);
-    List<LocalDate> days = new ArrayList<>();
-    for (int i = 60; i <= 120; i++) {
-      days.add(today.minusDays(i));
-    }
-    partitions.ensure(days);
+    partitions.ensure(QueryPlans.days(120, 0).subList(0, 61));
     Instant to = Instant.now();
     Instant from = to.minus(1, ChronoUnit.DAYS);
     List<String> plan =
-        jdbc.queryForList(
-            "EXPLAIN " + ExcursionFinder.CLASSIFY,
-            String.class,
+        QueryPlans.explain(
+            jdbc,
+            ExcursionFinder.CLASSIFY,
             "PH",
             Timestamp.from(from),
             Timestamp.from(to),
@@ -54,15 +43,14 @@ class ExcursionQueryPlanIT {
             "ph",
             Timestamp.from(from),
             Timestamp.from(to));
-    Set<String> reading = new TreeSet<>();
-    Set<String> evaluation = new TreeSet<>();
-    for (String line : plan) {
-      Matcher m = PARTITION.matcher(line);
-      while (m.find()) {
-        (m.group(1).equals("reading") ? reading : evaluation).add(m.group());
-      }
-    }
-    assertThat(reading).as(String.join("\n", plan)).isNotEmpty().hasSizeLessThanOrEqualTo(2);
-    assertThat(evaluation).as(String.join("\n", plan)).isNotEmpty().hasSizeLessThanOrEqualTo(2);
+    Map<String, Set<String>> touched = QueryPlans.partitions(plan);
+    assertThat(touched.get("reading"))
+        .as(String.join("\n", plan))
+        .isNotEmpty()
+        .hasSizeLessThanOrEqualTo(2);
+    assertThat(touched.get("evaluation"))
+        .as(String.join("\n", plan))
+        .isNotEmpty()
+        .hasSizeLessThanOrEqualTo(2);
   }
 }

@@ -19,7 +19,8 @@ import org.springframework.boot.test.web.server.LocalServerPort;
 
 /**
  * The scrape shows the documented metric names with bounded labels, and a sample point above the
- * (example, from memory — verify) AL2 threshold for cation conductivity shows level 2.
+ * (example, from memory — verify) AL2 threshold for cation conductivity shows level 2, and the
+ * deadline of its running excursion exactly as the excursions endpoint gives it.
  */
 @DatabaseTest
 class MetricsIT {
@@ -83,5 +84,25 @@ class MetricsIT {
       }
     }
     assertThat(MetricNames.exposedNames()).containsAll(kwanta);
+
+    // the running excursion's deadline on the scrape is the excursions endpoint's deadline
+    HttpResponse<String> excursions =
+        http.get("/api/v1/excursions?samplePoint=" + point + "&open=true");
+    assertThat(excursions.statusCode()).as(excursions.body()).isEqualTo(200);
+    java.util.regex.Matcher apiDeadline =
+        java.util.regex.Pattern.compile("\"deadline\":\"([^\"]+)\"").matcher(excursions.body());
+    assertThat(apiDeadline.find()).as(excursions.body()).isTrue();
+    double expected = Instant.parse(apiDeadline.group(1)).toEpochMilli() / 1000.0;
+    String gauge = "kwanta_excursion_deadline_timestamp_seconds{" + labels + "} ";
+    String line =
+        scrape
+            .lines()
+            .filter(l -> l.startsWith(gauge))
+            .findFirst()
+            .orElseThrow(() -> new AssertionError("no " + gauge + " in the scrape"));
+    assertThat(Double.parseDouble(line.substring(gauge.length()).trim()))
+        .isCloseTo(expected, org.assertj.core.api.Assertions.within(0.001));
+    // AL2 since about 30 minutes: its deadline lies about 24 hours ahead (AL2's allowance)
+    assertThat(expected - Instant.now().getEpochSecond()).isBetween(22.5 * 3600, 24.0 * 3600);
   }
 }

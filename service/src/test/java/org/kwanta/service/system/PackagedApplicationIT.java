@@ -67,7 +67,9 @@ class PackagedApplicationIT {
 
   /**
    * The README's run command with no setup: the first start generates an admin key and prints it
-   * once in the log; data and key survive a restart, which prints no new key.
+   * once in the log; data and key survive a restart, which prints no new key. The embedded server
+   * asks every connection for the password the service keeps beside its data directory (issue 17:
+   * it used to trust any local user), before and after the restart.
    */
   @Test
   void embeddedDatabaseKeepsDataAndGeneratedKeyAcrossRestart(@TempDir Path dataDir)
@@ -76,8 +78,11 @@ class PackagedApplicationIT {
         "{\"id\":\"restart-check\",\"name\":\"Restart check\",\"units\":[{\"id\":\"U9\",\"name\":\"u\"}],"
             + "\"samplePoints\":[]}";
     int port = freePort();
+    int databasePort = freePort();
     List<String> args =
-        List.of("--kwanta.embedded-database.data-directory=" + dataDir.resolve("pg"));
+        List.of(
+            "--kwanta.embedded-database.data-directory=" + dataDir.resolve("pg"),
+            "--kwanta.embedded-database.port=" + databasePort);
     Map<String, String> noKey = Map.of("KWANTA_ADMIN_KEY", "");
     Process first = start(port, noKey, args);
     String key;
@@ -93,6 +98,7 @@ class PackagedApplicationIT {
                   .post("/api/v1/plants", "application/json", plant)
                   .statusCode())
           .isEqualTo(201);
+      assertEmbeddedServerAsksForThePassword(databasePort, dataDir.resolve("pg.password"));
     } finally {
       stop(first);
     }
@@ -103,8 +109,36 @@ class PackagedApplicationIT {
       HttpResponse<String> r = new Http(port).withKey(key).get("/api/v1/plants/restart-check");
       assertThat(r.statusCode()).isEqualTo(200);
       assertThat(r.body()).contains("Restart check");
+      assertEmbeddedServerAsksForThePassword(databasePort, dataDir.resolve("pg.password"));
     } finally {
       stop(second);
+    }
+  }
+
+  /** No password, or a wrong one: refused; the one in the file: connected. */
+  private static void assertEmbeddedServerAsksForThePassword(int port, Path passwordFile)
+      throws Exception {
+    String url = "jdbc:postgresql://127.0.0.1:" + port + "/postgres";
+    assertThat(passwordFile).exists();
+    if (passwordFile.getFileSystem().supportedFileAttributeViews().contains("posix")) {
+      assertThat(
+              java.nio.file.attribute.PosixFilePermissions.toString(
+                  Files.getPosixFilePermissions(passwordFile)))
+          .isEqualTo("rw-------");
+    }
+    for (String wrong : new String[] {"", "not-the-password"}) {
+      java.util.Properties p = new java.util.Properties();
+      p.setProperty("user", "postgres");
+      p.setProperty("password", wrong);
+      org.assertj.core.api.Assertions.assertThatThrownBy(() -> DriverManager.getConnection(url, p))
+          .as("password '%s'", wrong)
+          .isInstanceOf(java.sql.SQLException.class);
+    }
+    try (Connection c =
+            DriverManager.getConnection(url, "postgres", Files.readString(passwordFile).trim());
+        Statement st = c.createStatement();
+        ResultSet rs = st.executeQuery("SELECT 1")) {
+      assertThat(rs.next()).isTrue();
     }
   }
 
