@@ -27,8 +27,8 @@ const UNIT = { 'mg/kg': 'mg/kg', 'ug/kg': 'µg/kg' };
 async function fetchCurve(water) {
   const { config } = ctx;
   const to = Math.max(26, Math.min(350, config.temperatureCel || 25));
-  const step = Math.max(1, Math.ceil((to - 25) / 60));
-  return F.curve(await api.post(F.paths.curve(), F.curveBody(water, 25, to, step, config.pressureMPa)));
+  const n = Math.min(120, Math.max(1, Math.ceil((to - 25) / 2.5)));
+  return F.curve(await api.post(F.paths.curve(), F.curveBody(water, 25, to, (to - 25) / n, config.pressureMPa)));
 }
 
 function draw(now, whatIf) {
@@ -52,7 +52,8 @@ function draw(now, whatIf) {
   const opts = {
     width, height: width < 500 ? 260 : 320,
     scales: { x: { time: false }, y: { auto: true } },
-    series, bands: [{ series: [1, 2], fill: 'rgba(80, 130, 200, 0.22)' }],
+    series: series.map((x, i) => i ? { ...x, points: { show: false } } : x),
+    bands: [{ series: [1, 2], fill: 'rgba(80, 130, 200, 0.22)' }],
     axes: [{ label: 'temperature, °C', grid: { stroke: '#e6e9ee' } }, { label: 'pH (molal activity scale)', size: 50, grid: { stroke: '#e6e9ee' } }],
     cursor: { drag: { x: false, y: false }, points: { show: false } },
   };

@@ -4,7 +4,7 @@
 import * as F from './fields.js';
 import * as api from './api.js';
 import { $, el, fmt, sig, when, duration, unit, parameterName, words } from './dom.js';
-import { badge } from './levels.js';
+import { badge, CODE } from './levels.js';
 
 const CAUSES = ['UNDETERMINED', 'CONDENSER_INGRESS', 'AIR_INGRESS', 'MAKE_UP_WATER', 'CONDENSATE_POLISHING', 'CHEMICAL_DOSING',
   'OPERATING_TRANSIENT', 'INSTRUMENT_OR_SAMPLING', 'OTHER'];
@@ -77,7 +77,7 @@ function excursionCard(x, caller, reload, status) {
   return el('article', { class: 'card excursion' + (x.open ? ' open' : ''), 'data-point': x.point, 'data-parameter': x.parameter },
     el('h4', {}, badge(x.highest, x.inDoubtFraction > 0.5), ' ', x.point + ' · ' + parameterName(x.parameter)),
     el('p', {}, (x.open ? 'Open since ' : 'From ') + when(x.start) + '; peak ' + sig(x.peak) + ' ' + unit(x.unit) + ' at ' + when(x.peakTime)
-      + '; now ' + words(x.current) + '.'),
+      + '; now ' + (CODE[x.current] ? CODE[x.current].word : words(x.current)) + '.'),
     el('p', { class: x.open ? 'countdown' : 'muted' }, allowance(x)),
     x.inDoubtFraction > 0 ? el('p', { class: 'muted' }, fmt(100 * x.inDoubtFraction, 0) + ' % of its samples had the instrument in doubt.') : null,
     x.limitsOrigin === 'DEFAULT' ? el('p', { class: 'muted' }, 'Judged by the shipped example limits, not the plant\'s own.') : null,
@@ -126,10 +126,10 @@ export async function refresh(plant, points, caller, status, force) {
     const ids = new Set(points.map((p) => p.id));
     const mine = evs.filter((e) => e.excursions.some((m) => ids.has(m.point)));
     const open = xs.filter((x) => x.open), closed = xs.filter((x) => !x.open);
-    $('excursions').replaceChildren(
+    $('excursions').replaceChildren(...[
       open.length ? el('div', { class: 'cards' }, open.map((x) => excursionCard(x, caller, reload, status))) : el('p', {}, 'No open excursion.'),
       closed.length ? el('details', {}, el('summary', {}, closed.length + ' excursion(s) ended in the last 7 days'),
-        el('div', { class: 'cards' }, closed.map((x) => excursionCard(x, caller, reload, status)))) : null);
+        el('div', { class: 'cards' }, closed.map((x) => excursionCard(x, caller, reload, status)))) : null].filter(Boolean));
     $('event-list').replaceChildren(mine.length ? el('div', { class: 'cards' }, mine.map((e) => eventCard(e, caller, reload, status)))
       : el('p', {}, 'No event recorded for this plant.'));
     document.body.dataset.events = 'loaded';

@@ -17,11 +17,13 @@ let ctx = null; // { p, config, status, window: [from, to] in s, chart }
 /** The parameter whose limits apply to a series. */
 const limitParameter = (s) => s === 'ph' ? 'ph' : s.endsWith('_conductivity_25') ? s.slice(0, -3) : s === 'calculated_ph_25' ? null : s;
 
-function choices(config) {
-  const measured = config.parameters.filter((x) => x !== 'sample_temperature');
-  const derived = DERIVED.filter((d) => d === 'ph_at_temperature' || d === 'calculated_ph_25' ? config.parameters.includes('specific_conductivity')
-    : config.parameters.includes(d.slice(0, -3)));
-  return derived.concat(measured.filter((m) => !m.endsWith('conductivity'))).concat(config.parameters.includes('sample_temperature') ? ['sample_temperature'] : []);
+/** The series to offer: derived ones where their inputs are measured, then the measured ones. */
+function choices(p, config) {
+  const all = [...new Set(config.parameters.concat(p.readings.map((r) => r.parameter)))];
+  const measured = all.filter((x) => x !== 'sample_temperature');
+  const derived = DERIVED.filter((d) => d === 'ph_at_temperature' || d === 'calculated_ph_25' ? all.includes('specific_conductivity')
+    : all.includes(d.slice(0, -3)));
+  return derived.concat(measured.filter((m) => !m.endsWith('conductivity'))).concat(all.includes('sample_temperature') ? ['sample_temperature'] : []);
 }
 
 async function fetchSeries(point, parameter, from, to) {
@@ -120,10 +122,10 @@ async function draw() {
   const target = $('trend');
   const width = Math.max(240, Math.min(1100, target.parentElement.clientWidth - 16));
   const axes = [
-    { label: 'time (' + zone.name + ')', stroke: '#333', grid: { stroke: '#e6e9ee' } },
-    { scale: 'y', label: parameterName(parameter) + (u ? ', ' + u : ''), stroke: '#16324f', grid: { stroke: '#e6e9ee' }, size: 60 },
+    { label: 'time (' + zone.name + ')', stroke: '#333', grid: { stroke: '#e6e9ee' }, space: 70, values: timeTicks },
+    { scale: 'y', label: u || parameterName(parameter), stroke: '#16324f', grid: { stroke: '#e6e9ee' }, size: 60 },
   ];
-  if (other) axes.push({ scale: 'y2', side: 1, label: parameterName(second) + ', ' + unit(other.unit), stroke: '#b35c00', grid: { show: false }, size: 60 });
+  if (other) axes.push({ scale: 'y2', side: 1, label: unit(other.unit) || parameterName(second), stroke: '#b35c00', grid: { show: false }, size: 60 });
   const opts = {
     width, height: width < 500 ? 260 : 340,
     tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), zone.name),
@@ -144,6 +146,21 @@ async function draw() {
   document.body.dataset.trend = parameter;
 }
 
+/** Tick labels in 24-hour time in the chosen zone; the date where it changes, or only dates over long spans. */
+function timeTicks(u, splits) {
+  const span = splits.length > 1 ? splits[splits.length - 1] - splits[0] : 0;
+  let lastDay = null;
+  return splits.map((ts) => {
+    const d = new Date(ts * 1000);
+    const day = d.toLocaleDateString('en-GB', { timeZone: zone.name, day: 'numeric', month: 'short' });
+    if (span > 3 * 86400) return day;
+    const time = d.toLocaleTimeString('en-GB', { timeZone: zone.name, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' });
+    const label = day !== lastDay ? time + '\n' + day : time;
+    lastDay = day;
+    return label;
+  });
+}
+
 function zoom(chart) {
   const s = chart.select;
   if (s.width < 5) return;
@@ -162,7 +179,12 @@ function reset() {
 
 export async function open(p, config, status) {
   ctx = { p, config, status, chart: ctx && ctx.chart };
-  const list = choices(config);
+  const list = choices(p, config);
+  if (!list.length) {
+    if (ctx.chart) { ctx.chart.destroy(); ctx.chart = null; }
+    $('trend').replaceChildren(el('p', {}, 'No readings at this point yet.'));
+    return;
+  }
   $('trend-parameter').replaceChildren(...list.map((x) => el('option', { value: x }, parameterName(x))));
   $('trend-second').replaceChildren(el('option', { value: '' }, 'nothing else'), ...list.map((x) => el('option', { value: x }, parameterName(x))));
   if (list.includes('cation_conductivity_25')) $('trend-parameter').value = 'cation_conductivity_25';
