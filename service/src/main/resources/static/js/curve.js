@@ -13,11 +13,11 @@ function waterOf(p, config) {
   const c = p.composition || {};
   const alk = F.alkalizerComponent(config.alkalizer);
   return [
-    { component: alk, label: alk.replace(/_/g, ' '), amount: c.alkalizerMgPerKg || 0, unit: 'mg/kg', step: 0.05 },
-    { component: 'chloride', label: 'chloride (acid anions as chloride)', amount: c.chlorideUgPerKg || 0, unit: 'ug/kg', step: 1 },
-    { component: 'carbon_dioxide', label: 'carbon dioxide', amount: c.carbonDioxideUgPerKg || 0, unit: 'ug/kg', step: 10 },
-    { component: 'sodium', label: 'sodium', amount: c.sodiumUgPerKg || 0, unit: 'ug/kg', step: 1 },
-    { component: 'phosphate', label: 'phosphate', amount: c.phosphateMgPerKg || 0, unit: 'mg/kg', step: 0.1 },
+    { component: alk, label: alk.replace(/_/g, ' '), amount: c.alkalizerMgPerKg || 0, unit: 'mg/kg' },
+    { component: 'chloride', label: 'chloride (acid anions as chloride)', amount: c.chlorideUgPerKg || 0, unit: 'ug/kg' },
+    { component: 'carbon_dioxide', label: 'carbon dioxide', amount: c.carbonDioxideUgPerKg || 0, unit: 'ug/kg' },
+    { component: 'sodium', label: 'sodium', amount: c.sodiumUgPerKg || 0, unit: 'ug/kg' },
+    { component: 'phosphate', label: 'phosphate', amount: c.phosphateMgPerKg || 0, unit: 'mg/kg' },
   ];
 }
 
@@ -71,7 +71,7 @@ function draw(now, whatIf) {
 
 function fields(water) {
   return water.map((w, i) => el('label', { class: 'num' }, w.label + ', ' + UNIT[w.unit],
-    el('input', { type: 'number', min: '0', step: String(w.step), value: String(round(w.amount)), id: 'whatif-' + i, inputmode: 'decimal' })));
+    el('input', { type: 'number', min: '0', step: 'any', value: String(round(w.amount)), id: 'whatif-' + i, inputmode: 'decimal' })));
 }
 
 export async function open(p, config, status) {

@@ -129,7 +129,7 @@ async function draw() {
   const opts = {
     width, height: width < 500 ? 260 : 340,
     tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), zone.name),
-    scales: { x: { time: true }, y: { auto: true }, y2: { auto: true } },
+    scales: { x: { time: true, range: () => [from, to] }, y: { auto: true }, y2: { auto: true } },
     series, bands, axes,
     cursor: { drag: { x: true, y: false }, points: { show: false } },
     legend: { live: true },

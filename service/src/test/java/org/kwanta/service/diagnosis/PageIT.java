@@ -227,11 +227,12 @@ class PageIT {
 
   @Test
   void atPhoneWidthTheBoardIsCardsWithoutSidewaysScroll() throws Exception {
-    open(390, chemistKey, "page-levels");
+    open(390, chemistKey, "page-leak");
     assertThat(js("return document.documentElement.scrollWidth")).isEqualTo(390L);
     assertThat(js("return getComputedStyle(document.querySelector('#overview thead')).display"))
         .isEqualTo("none");
     screenshot("board-390.png");
+    choosePlant("page-levels", "PL-");
     openPoint("PL-ECO");
     wait(60).until(d -> "cation_conductivity_25".equals(body("trend")));
     wait(60).until(d -> "current".equals(body("curve")));
@@ -270,11 +271,15 @@ class PageIT {
         .until(
             d ->
                 d.findElements(By.cssSelector("#plant option[value='" + plant + "']")).size() == 1);
+    choosePlant(plant, plant.equals("page-leak") ? "PG-" : "PL-");
+  }
+
+  /** Chooses a plant and waits for its points on the board. */
+  private void choosePlant(String plant, String prefix) {
     js(
         "const s = document.getElementById('plant'); s.value = arguments[0];"
             + " s.dispatchEvent(new Event('change'));",
         plant);
-    String prefix = plant.equals("page-leak") ? "PG-" : "PL-";
     wait(60)
         .until(
             d ->
