@@ -11,7 +11,7 @@ import * as detail from './detail.js';
 
 const state = { caller: null, points: [], plant: null, open: null };
 
-function status(text) { $('status').textContent = text || ''; }
+function status(text) { $('status').textContent = text || ''; $('status').dataset.kind = ''; }
 
 function showCaller() {
   const c = state.caller;
@@ -57,9 +57,10 @@ async function refresh() {
     $('board-summary').textContent = board.summary(o.points);
     $('as-of').textContent = 'as of ' + when(o.asOf);
     document.body.dataset.loaded = 'board';
-    status('');
+    if ($('status').dataset.kind === 'board') status('');
   } catch (e) {
     status('Could not load the board (' + e.message + ').');
+    $('status').dataset.kind = 'board';
   }
   events.refresh(plant, state.points, state.caller, status);
 }

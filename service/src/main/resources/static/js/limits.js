@@ -57,6 +57,7 @@ export async function open(p, caller, status) {
   fillForm();
   const now = new Date();
   $('limit-from').value = localInput(now);
+  $('limit-from').dataset.now = $('limit-from').value; // left as it is: in force from the moment of saving
   if (!caller.backdateLimits) $('limit-from').min = localInput(now);
   else $('limit-from').removeAttribute('min');
   $('limit-note').textContent = caller.backdateLimits
@@ -70,9 +71,9 @@ $('limit-form').addEventListener('submit', async (e) => {
   const l = ctx.now.find((x) => x.parameter === $('limit-parameter').value);
   const val = (id) => { const s = $(id).value.trim(); return s === '' ? null : Number(s); };
   const reason = $('limit-reason').value.trim();
-  const from = $('limit-from').value ? new Date($('limit-from').value) : new Date();
-  // a time within the minute counts as now (the API then needs no admin key)
-  const effective = from.getTime() - Date.now() < -30000 ? from.toISOString() : (from.getTime() > Date.now() + 30000 ? from.toISOString() : null);
+  // the time left as proposed (or emptied) means now: the API takes the moment of saving
+  const chosen = $('limit-from').value;
+  const effective = !chosen || chosen === $('limit-from').dataset.now ? null : new Date(chosen).toISOString();
   const body = F.limitsBody(l, val('limit-normal-low'), val('limit-normal-high'),
     l.thresholds.map((t, i) => ({ level: t.level, side: t.side, value: val('limit-thr-' + i) })).filter((t) => t.value !== null),
     'plant procedure: ' + reason);

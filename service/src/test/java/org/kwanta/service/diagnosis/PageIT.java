@@ -170,8 +170,21 @@ class PageIT {
         .contains("what-if water");
     scrollTo("curve");
     screenshot("curve-1440.png");
-    // a chemist may change limits from now on, with a reason
+    // a chemist changes limits from now on, with a reason; the table shows the new version
     assertThat(driver.findElement(By.id("limit-form")).isDisplayed()).isTrue();
+    js(
+        "const p = document.getElementById('limit-parameter'); p.value = 'cation_conductivity';"
+            + " p.dispatchEvent(new Event('change'));");
+    WebElement al1 = driver.findElement(By.id("limit-thr-0"));
+    al1.clear();
+    al1.sendKeys("0.3");
+    driver.findElement(By.id("limit-reason")).sendKeys("Chemistry manual rev. 7 (page test)");
+    driver.findElement(By.cssSelector("#limit-form button[type=submit]")).click();
+    wait(60)
+        .until(d -> d.findElement(By.id("status")).getText().contains("recorded, in force now"));
+    wait(60)
+        .until(d -> d.findElement(By.id("limits")).getText().contains("plant's own, version 1"));
+    assertThat(driver.findElement(By.id("limits")).getText()).contains("> 0.300 µS/cm");
   }
 
   @Test
