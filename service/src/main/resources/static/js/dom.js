@@ -40,7 +40,7 @@ export function duration(seconds) {
 export const zone = { name: Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC' };
 export function when(iso) {
   if (!iso) return '–';
-  return new Date(iso).toLocaleString(undefined, { timeZone: zone.name, year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
+  return new Date(iso).toLocaleString(undefined, { timeZone: zone.name, year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' });
 }
 
 /** Units as the trade writes them (the API speaks UCUM). */

@@ -4,7 +4,7 @@
 'use strict';
 import * as F from './fields.js';
 import * as api from './api.js';
-import { $, el, unit, parameterName, zone } from './dom.js';
+import { $, el, unit, parameterName, zone, when } from './dom.js';
 
 const uPlot = window.uPlot;
 const MIN_SPAN = 3600, MAX_SPAN = 90 * 86400, POINTS = 400;
@@ -139,8 +139,8 @@ async function draw() {
   target.replaceChildren();
   ctx.chart = t.length ? new uPlot(opts, data, target) : null;
   if (!t.length) target.append(el('p', {}, 'No data in this window.'));
-  $('trend-caption').textContent = parameterName(parameter) + ' at ' + p.id + ', ' + new Date(from * 1000).toLocaleString(undefined, { timeZone: zone.name })
-    + ' – ' + new Date(to * 1000).toLocaleString(undefined, { timeZone: zone.name }) + ' (' + zone.name + '), buckets of '
+  $('trend-caption').textContent = parameterName(parameter) + ' at ' + p.id + ', ' + when(new Date(from * 1000).toISOString())
+    + ' – ' + when(new Date(to * 1000).toISOString()) + ' (' + zone.name + '), buckets of '
     + (main.bucketSeconds >= 3600 ? (main.bucketSeconds / 3600).toFixed(1) + ' h' : Math.round((main.bucketSeconds || 0) / 60) + ' min') + '.'
     + (history ? '' : ' No limits for this parameter here.');
   document.body.dataset.trend = parameter;
