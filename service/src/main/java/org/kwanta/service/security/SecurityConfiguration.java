@@ -25,6 +25,7 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *       <td>nothing</td></tr>
  *   <tr><td>{@code GET /actuator/prometheus}</td><td>read</td></tr>
  *   <tr><td>other {@code /actuator/**}</td><td>admin</td></tr>
+ *   <tr><td>{@code GET /api/v1/caller} (who the key is)</td><td>any valid key</td></tr>
  *   <tr><td>{@code /api/v1/keys/**}, any method</td><td>admin</td></tr>
  *   <tr><td>{@code POST /api/v1/readings/**}</td><td>ingest</td></tr>
  *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements}, {@code
@@ -98,6 +99,8 @@ class SecurityConfiguration {
                     .permitAll()
                     .requestMatchers(PathRequest.toStaticResources().atCommonLocations())
                     .permitAll()
+                    .requestMatchers(HttpMethod.GET, "/api/v1/caller")
+                    .authenticated()
                     .requestMatchers("/api/v1/keys", "/api/v1/keys/**")
                     .hasRole(ADMIN)
                     .requestMatchers(HttpMethod.POST, "/api/v1/readings", "/api/v1/readings/**")

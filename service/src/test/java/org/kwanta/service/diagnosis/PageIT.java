@@ -9,15 +9,21 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.logging.Level;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.Http;
-import org.kwanta.service.support.TestKeys;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.OutputType;
+import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.TakesScreenshot;
 import org.openqa.selenium.WebElement;
 import org.openqa.selenium.chrome.ChromeDriver;
@@ -28,31 +34,380 @@ import org.openqa.selenium.logging.LogType;
 import org.openqa.selenium.logging.LoggingPreferences;
 import org.openqa.selenium.support.ui.WebDriverWait;
 import org.springframework.boot.test.web.server.LocalServerPort;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
 
 /**
- * The page in a real browser (Debian's chromium and chromium-driver): a condenser leak sent through
- * the ingest shows on the plant table as COOLING_WATER_INGRESS pointing at the process, and the
- * point's detail lists it with its evidence. Screenshots go to target/screenshots. Without the
- * browser the test is skipped visibly, except in CI (CI=true), where it fails.
+ * The chemist page in a real browser (Debian's chromium and chromium-driver): the board shows an
+ * AL2 point as AL2, a condenser leak sent through the ingest as a cooling-water ingress in the
+ * process, a name holding markup as text (no script runs, the Content-Security-Policy is sent);
+ * acknowledging an excursion from the page adds a history entry; a read key sees no forms; at 390
+ * px the page does not scroll sideways; no test leaves a console error. Screenshots of the board, a
+ * trend and the pH curve at 1440 and 390 px go to target/screenshots. Without the browser the test
+ * is skipped visibly, except in CI (CI=true), where it fails.
  */
 @DatabaseTest
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
 class PageIT {
 
   static final Path CHROMIUM = Path.of("/usr/bin/chromium");
   static final Path DRIVER = Path.of("/usr/bin/chromedriver");
 
+  /** A name that would run script if the page built HTML from data. */
+  static final String MARKUP = "<img src=x onerror=\"window.kwantaInjected=1\">";
+
+  static final JsonMapper JSON = JsonMapper.builder().build();
+
   @LocalServerPort int port;
 
-  @Test
-  void theCondenserLeakShowsItsDiagnosisOnThePage() throws Exception {
+  private ChromeDriver driver;
+  private String chemistKey;
+  private String readKey;
+
+  @BeforeAll
+  void seed() throws Exception {
     boolean present = Files.isExecutable(CHROMIUM) && Files.isExecutable(DRIVER);
     if (!present && "true".equals(System.getenv("CI"))) {
       throw new AssertionError(
           "CI needs Debian's chromium and chromium-driver (.ci/run installs them)");
     }
     assumeTrue(present, "no /usr/bin/chromium and /usr/bin/chromedriver: browser test skipped");
-
     Http http = Http.admin(port);
+    chemistKey = key(http, "Page test chemist (invented)", "chemist");
+    readKey = key(http, "Page test reader (invented)", "read");
+    seedLevels(http);
+    seedLeak(http);
+    System.setProperty("webdriver.chrome.driver", DRIVER.toString());
+  }
+
+  @AfterAll
+  void quit() {
+    if (driver != null) {
+      driver.quit();
+    }
+  }
+
+  @AfterEach
+  void noConsoleErrors() {
+    if (driver == null) {
+      return;
+    }
+    List<LogEntry> severe =
+        driver.manage().logs().get(LogType.BROWSER).getAll().stream()
+            .filter(e -> e.getLevel().intValue() >= Level.SEVERE.intValue())
+            .toList();
+    driver.quit();
+    driver = null;
+    assertThat(severe).as("console errors").isEmpty();
+  }
+
+  @Test
+  void theBoardShowsAnAl2PointAsAl2AndMarkupInNamesAsText() throws Exception {
+    HttpResponse<String> page = Http.admin(port).get("/");
+    assertThat(page.headers().firstValue("Content-Security-Policy").orElse(""))
+        .contains("script-src 'self'")
+        .doesNotContain("unsafe-inline");
+    open(1440, chemistKey, "page-levels");
+    WebElement row = row("PL-ECO");
+    assertThat(row.findElement(By.cssSelector("td[data-label=Level] .lvl")).getText())
+        .contains("AL2");
+    assertThat(row.findElement(By.cssSelector(".lvl")).getAttribute("aria-label"))
+        .startsWith("action level 2");
+    assertThat(row.getText()).contains(MARKUP); // the point's name, as text
+    assertThat(driver.findElement(By.id("plant")).getText()).contains(MARKUP);
+    assertThat(js("return document.querySelectorAll('img').length")).isEqualTo(0L);
+    assertThat(js("return window.kwantaInjected === undefined")).isEqualTo(true);
+    // most urgent first: the AL2 point leads the board
+    assertThat(
+            driver
+                .findElements(By.cssSelector("#overview tbody tr"))
+                .get(0)
+                .getAttribute("data-point"))
+        .isEqualTo("PL-ECO");
+    assertThat(driver.findElement(By.id("who")).getText())
+        .contains("Signed in as Page test chemist (invented), chemist");
+    screenshot("board-1440.png");
+  }
+
+  @Test
+  void theCondenserLeakShowsItsDiagnosisOnTheBoardAndInTheTrend() throws Exception {
+    open(1440, chemistKey, "page-leak");
+    WebElement row = row("PG-CPD");
+    assertThat(row.getText())
+        .contains("Cooling water is getting in: a condenser leak")
+        .contains("points at the process")
+        .contains("COOLING_WATER_INGRESS");
+    screenshot("board-condenser-leak-1440.png");
+    openPoint("PG-CPD");
+    wait(60).until(d -> d.findElement(By.id("findings")).getText().contains("condenser leak"));
+    assertThat(driver.findElement(By.id("findings")).getText()).contains("expected");
+    wait(60)
+        .until(d -> d.findElement(By.id("history")).getText().contains("COOLING_WATER_INGRESS"));
+    wait(60).until(d -> "cation_conductivity_25".equals(body("trend")));
+    assertThat(driver.findElements(By.cssSelector("#trend canvas"))).isNotEmpty();
+    scrollTo("trend-form");
+    screenshot("trend-condenser-leak-1440.png");
+  }
+
+  @Test
+  void theTrendDrawsTheLimitsInForceAndTheCurveItsWhatIf() throws Exception {
+    open(1440, chemistKey, "page-levels");
+    openPoint("PL-ECO");
+    wait(60).until(d -> "cation_conductivity_25".equals(body("trend")));
+    String legend = driver.findElement(By.cssSelector("#trend .u-legend")).getText();
+    assertThat(legend).contains("AL2 high limit").contains("AL1 high limit").contains("µS/cm");
+    assertThat(driver.findElement(By.id("trend-caption")).getText()).contains("(UTC)");
+    scrollTo("trend-form");
+    screenshot("trend-1440.png");
+    wait(60).until(d -> "current".equals(body("curve")));
+    assertThat(driver.findElement(By.id("curve-caption")).getText()).contains("at 25 °C");
+    WebElement ammonia = driver.findElement(By.id("whatif-0"));
+    ammonia.clear();
+    ammonia.sendKeys("2");
+    driver.findElement(By.cssSelector("#whatif button[type=submit]")).click();
+    wait(60).until(d -> "what-if".equals(body("curve")));
+    assertThat(driver.findElement(By.cssSelector("#curve .u-legend")).getText())
+        .contains("what-if water");
+    scrollTo("curve");
+    screenshot("curve-1440.png");
+    // a chemist changes limits from now on, with a reason; the table shows the new version
+    assertThat(driver.findElement(By.id("limit-form")).isDisplayed()).isTrue();
+    js(
+        "const p = document.getElementById('limit-parameter'); p.value = 'cation_conductivity';"
+            + " p.dispatchEvent(new Event('change'));");
+    WebElement al1 = driver.findElement(By.id("limit-thr-0"));
+    al1.clear();
+    al1.sendKeys("0.3");
+    driver.findElement(By.id("limit-reason")).sendKeys("Chemistry manual rev. 7 (page test)");
+    driver.findElement(By.cssSelector("#limit-form button[type=submit]")).click();
+    wait(60)
+        .until(d -> d.findElement(By.id("status")).getText().contains("recorded, in force now"));
+    wait(60)
+        .until(d -> d.findElement(By.id("limits")).getText().contains("plant's own, version 1"));
+    assertThat(driver.findElement(By.id("limits")).getText()).contains("> 0.300 µS/cm");
+  }
+
+  @Test
+  void acknowledgingFromThePageAddsAHistoryEntry() throws Exception {
+    open(1440, chemistKey, "page-levels");
+    wait(60).until(d -> "loaded".equals(body("events")));
+    By card = By.cssSelector("#excursions article.open[data-point='PL-ECO']");
+    wait(60).until(d -> !d.findElements(card).isEmpty());
+    WebElement excursion = driver.findElement(card);
+    assertThat(excursion.getText()).contains("left of the allowance");
+    String note = "Sampled by hand, polisher bypass closed (page test)";
+    excursion.findElement(By.cssSelector("textarea")).sendKeys(note);
+    excursion.findElement(By.xpath(".//button[text()='Acknowledge']")).click();
+    wait(60)
+        .until(
+            d -> {
+              try {
+                return d.findElement(card)
+                    .findElement(By.cssSelector("ol.history"))
+                    .getText()
+                    .contains(note);
+              } catch (org.openqa.selenium.NoSuchElementException
+                  | StaleElementReferenceException e) {
+                return false;
+              }
+            });
+    assertThat(driver.findElement(card).getText()).contains("Page test chemist (invented)");
+    scrollTo("events");
+    screenshot("events-1440.png");
+    JsonNode rows =
+        JSON.readTree(
+            Http.admin(port)
+                .get("/api/v1/excursions?samplePoint=PL-ECO&parameter=cation_conductivity")
+                .body());
+    List<String> notes = new ArrayList<>();
+    rows.forEach(r -> r.get("acknowledgements").forEach(a -> notes.add(a.get("note").asString())));
+    assertThat(notes).contains(note);
+  }
+
+  @Test
+  void aReadKeySeesNoFormsAndSignsOut() throws Exception {
+    open(1440, readKey, "page-levels");
+    wait(60).until(d -> "loaded".equals(body("events")));
+    assertThat(driver.findElements(By.cssSelector("#events form"))).isEmpty();
+    openPoint("PL-ECO");
+    wait(60).until(d -> d.findElement(By.id("limits")).getText().contains("cation conductivity"));
+    assertThat(driver.findElement(By.id("limit-form")).isDisplayed()).isFalse();
+    driver.findElement(By.id("signout")).click();
+    assertThat(js("return sessionStorage.getItem('kwanta.key')")).isNull();
+    assertThat(js("return localStorage.length")).isEqualTo(0L);
+    assertThat(driver.findElement(By.id("key-form")).isDisplayed()).isTrue();
+  }
+
+  @Test
+  void atPhoneWidthTheBoardIsCardsWithoutSidewaysScroll() throws Exception {
+    open(390, chemistKey, "page-leak");
+    assertThat(js("return document.documentElement.scrollWidth")).isEqualTo(390L);
+    assertThat(js("return getComputedStyle(document.querySelector('#overview thead')).display"))
+        .isEqualTo("none");
+    screenshot("board-390.png");
+    choosePlant("page-levels", "PL-");
+    openPoint("PL-ECO");
+    wait(60).until(d -> "cation_conductivity_25".equals(body("trend")));
+    wait(60).until(d -> "current".equals(body("curve")));
+    assertThat(js("return document.documentElement.scrollWidth")).isEqualTo(390L);
+    scrollTo("trend-form");
+    screenshot("trend-390.png");
+    scrollTo("curve");
+    screenshot("curve-390.png");
+  }
+
+  // ---- the browser
+
+  private void open(int width, String key, String plant) {
+    ChromeOptions options = new ChromeOptions();
+    options.setBinary(CHROMIUM.toFile());
+    options.addArguments(
+        "--headless=new", "--no-sandbox", "--disable-gpu", "--window-size=1440,1000");
+    LoggingPreferences logs = new LoggingPreferences();
+    logs.enable(LogType.BROWSER, Level.ALL);
+    options.setCapability("goog:loggingPrefs", logs);
+    driver =
+        new ChromeDriver(
+            new ChromeDriverService.Builder().usingDriverExecutable(DRIVER.toFile()).build(),
+            options);
+    if (width < 500) { // a window cannot be that narrow: emulate the phone's viewport
+      driver.executeCdpCommand(
+          "Emulation.setDeviceMetricsOverride",
+          Map.of("width", width, "height", 844, "deviceScaleFactor", 1, "mobile", true));
+    }
+    String base = "http://localhost:" + port + "/";
+    driver.get(base);
+    wait(60).until(d -> d.findElement(By.id("key-form")).isDisplayed());
+    driver.findElement(By.id("key")).sendKeys(key);
+    driver.findElement(By.cssSelector("#key-form button")).click();
+    wait(60)
+        .until(
+            d ->
+                d.findElements(By.cssSelector("#plant option[value='" + plant + "']")).size() == 1);
+    choosePlant(plant, plant.equals("page-leak") ? "PG-" : "PL-");
+  }
+
+  /** Chooses a plant and waits for its points on the board. */
+  private void choosePlant(String plant, String prefix) {
+    js(
+        "const s = document.getElementById('plant'); s.value = arguments[0];"
+            + " s.dispatchEvent(new Event('change'));",
+        plant);
+    wait(60)
+        .until(
+            d ->
+                Boolean.TRUE.equals(
+                    js(
+                        "return [...document.querySelectorAll('#overview tbody tr[data-point]')]"
+                            + ".some(r => r.dataset.point.startsWith(arguments[0]))",
+                        prefix)));
+  }
+
+  private WebElement row(String point) {
+    return driver.findElement(By.cssSelector("#overview tbody tr[data-point='" + point + "']"));
+  }
+
+  /** Opens a point's detail; the board is rebuilt every 15 s, so click the button as it is now. */
+  private void openPoint(String point) {
+    wait(60)
+        .until(
+            d -> {
+              try {
+                row(point).findElement(By.cssSelector("button.point")).click();
+                return true;
+              } catch (StaleElementReferenceException stale) {
+                return false;
+              }
+            });
+    wait(60).until(d -> point.equals(body("detail")));
+  }
+
+  private String body(String data) {
+    Object v = js("return document.body.dataset[arguments[0]] || null", data);
+    return v == null ? null : v.toString();
+  }
+
+  private Object js(String script, Object... args) {
+    return ((JavascriptExecutor) driver).executeScript(script, args);
+  }
+
+  private void scrollTo(String id) throws InterruptedException {
+    js("document.getElementById(arguments[0]).scrollIntoView()", id);
+    Thread.sleep(300);
+  }
+
+  private WebDriverWait wait(int seconds) {
+    return new WebDriverWait(driver, Duration.ofSeconds(seconds));
+  }
+
+  private void screenshot(String name) throws Exception {
+    Path dir = Path.of("target", "screenshots");
+    Files.createDirectories(dir);
+    Files.write(dir.resolve(name), ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES));
+  }
+
+  // ---- the data
+
+  private static String key(Http http, String name, String role) throws Exception {
+    HttpResponse<String> r =
+        http.post(
+            "/api/v1/keys",
+            "application/json",
+            "{\"name\":\"" + name + "\",\"role\":\"" + role + "\"}");
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
+    return JSON.readTree(r.body()).get("key").asString();
+  }
+
+  /**
+   * A feedwater point whose cation conductivity has stood at 0.5 µS/cm for an hour: above the
+   * example AL2 threshold of AVT(O) feedwater (0.35 µS/cm), below AL3 (0.65). The plant and the
+   * point carry markup in their names.
+   */
+  private static void seedLevels(Http http) throws Exception {
+    String name = JSON.writeValueAsString(MARKUP);
+    String declaration =
+        "{\"id\":\"page-levels\",\"name\":"
+            + name
+            + ",\"coolingWater\":\"BRACKISH\",\"units\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
+            + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"unit\":\"U\",\"name\":"
+            + name
+            + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+            + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}]}";
+    HttpResponse<String> declared =
+        http.send("PUT", "/api/v1/plants/page-levels", "application/json", declaration);
+    assertThat(declared.statusCode()).as(declared.body()).isIn(200, 201);
+    Instant end = Instant.now().truncatedTo(ChronoUnit.MINUTES);
+    StringBuilder b = new StringBuilder("{\"readings\":[");
+    for (int m = 60; m >= 0; m--) {
+      String t = end.minus(Duration.ofMinutes(m)).toString();
+      b.append(m == 60 ? "" : ",")
+          .append(reading("specific_conductivity", t, 8.9, "uS/cm"))
+          .append(',')
+          .append(reading("cation_conductivity", t, 0.5, "uS/cm"))
+          .append(',')
+          .append(reading("ph", t, 9.66, "[pH]"));
+    }
+    HttpResponse<String> posted =
+        http.post("/api/v1/readings", "application/json", b.append("]}").toString());
+    assertThat(posted.statusCode()).as(posted.body()).isEqualTo(200);
+  }
+
+  private static String reading(String parameter, String time, double value, String unit) {
+    return "{\"samplePoint\":\"PL-ECO\",\"parameter\":\""
+        + parameter
+        + "\",\"time\":\""
+        + time
+        + "\",\"value\":"
+        + value
+        + ",\"unit\":\""
+        + unit
+        + "\""
+        + (parameter.endsWith("conductivity") ? ",\"compensated\":true" : "")
+        + "}";
+  }
+
+  /** The condenser-leak story of the story bench, at a condensate pump and the economizer. */
+  private static void seedLeak(Http http) throws Exception {
     StoryBenchIT.Story leak = StoryBenchIT.leak();
     StoryBenchIT.Story s =
         new StoryBenchIT.Story(
@@ -94,88 +449,5 @@ class PageIT {
       assertThat(http.post("/api/v1/readings", "application/json", batch).statusCode())
           .isEqualTo(200);
     }
-
-    System.setProperty("webdriver.chrome.driver", DRIVER.toString());
-    ChromeOptions options = new ChromeOptions();
-    options.setBinary(CHROMIUM.toFile());
-    options.addArguments(
-        "--headless=new", "--no-sandbox", "--disable-gpu", "--window-size=1440,1100");
-    LoggingPreferences logs = new LoggingPreferences();
-    logs.enable(LogType.BROWSER, Level.ALL);
-    options.setCapability("goog:loggingPrefs", logs);
-    ChromeDriver driver =
-        new ChromeDriver(
-            new ChromeDriverService.Builder().usingDriverExecutable(DRIVER.toFile()).build(),
-            options);
-    try {
-      String base = "http://localhost:" + port + "/";
-      driver.get(base);
-      ((JavascriptExecutor) driver)
-          .executeScript("localStorage.setItem('kwanta.key', arguments[0]);", TestKeys.ADMIN);
-      driver.manage().logs().get(LogType.BROWSER); // drop the 401 of the first load, without a key
-      driver.get(base);
-      WebDriverWait wait = new WebDriverWait(driver, Duration.ofSeconds(20));
-      wait.until(
-          d -> d.findElements(By.cssSelector("#plant option[value='page-leak']")).size() == 1);
-      ((JavascriptExecutor) driver)
-          .executeScript(
-              "const s = document.getElementById('plant'); s.value = 'page-leak';"
-                  + " s.dispatchEvent(new Event('change'));");
-      wait.until(
-          d ->
-              d.findElements(By.cssSelector("#overview tbody tr")).stream()
-                  .anyMatch(r -> r.getText().startsWith("PG-CPD")));
-      WebElement row =
-          driver.findElements(By.cssSelector("#overview tbody tr")).stream()
-              .filter(r -> r.getText().startsWith("PG-CPD"))
-              .findFirst()
-              .orElseThrow();
-      assertThat(row.getText()).contains("COOLING_WATER_INGRESS → process");
-      screenshot(driver, "board-condenser-leak-1440.png");
-      // the table is rebuilt every 15 s: click the row as it is now
-      wait.until(
-          d -> {
-            try {
-              d.findElements(By.cssSelector("#overview tbody tr")).stream()
-                  .filter(r -> r.getText().startsWith("PG-CPD"))
-                  .findFirst()
-                  .orElseThrow()
-                  .click();
-              return true;
-            } catch (org.openqa.selenium.StaleElementReferenceException stale) {
-              return false;
-            }
-          });
-      wait.until(d -> d.findElement(By.id("findings")).getText().contains("COOLING_WATER_INGRESS"));
-      wait.until(d -> !d.findElement(By.id("history")).getText().isBlank());
-      assertThat(driver.findElement(By.id("findings")).getText())
-          .contains("condenser leak")
-          .contains("expected");
-      assertThat(driver.findElement(By.id("history")).getText()).contains("COOLING_WATER_INGRESS");
-      ((JavascriptExecutor) driver)
-          .executeScript("window.scrollTo(0, document.body.scrollHeight);");
-      screenshot(driver, "detail-condenser-leak-1440.png");
-      List<LogEntry> severe =
-          driver.manage().logs().get(LogType.BROWSER).getAll().stream()
-              .filter(e -> e.getLevel().intValue() >= Level.SEVERE.intValue())
-              .toList();
-      assertThat(severe).as("console errors").isEmpty();
-    } catch (RuntimeException | AssertionError e) {
-      screenshot(driver, "failure.png");
-      throw new AssertionError(
-          "page status: "
-              + driver.findElement(By.id("status")).getText()
-              + "; rows: "
-              + driver.findElements(By.cssSelector("#overview tbody tr")).size(),
-          e);
-    } finally {
-      driver.quit();
-    }
-  }
-
-  private static void screenshot(ChromeDriver driver, String name) throws Exception {
-    Path dir = Path.of("target", "screenshots");
-    Files.createDirectories(dir);
-    Files.write(dir.resolve(name), ((TakesScreenshot) driver).getScreenshotAs(OutputType.BYTES));
   }
 }

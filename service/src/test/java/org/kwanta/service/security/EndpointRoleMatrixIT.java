@@ -38,6 +38,8 @@ class EndpointRoleMatrixIT {
   /** Who may call: nobody needs a key (OPEN), or the least role that may. */
   enum Access {
     OPEN,
+    /** any valid key, of whatever role */
+    ANY_KEY,
     INGEST,
     READ,
     CHEMIST,
@@ -56,6 +58,7 @@ class EndpointRoleMatrixIT {
   /** The expectation table, first match wins: the contract of issue 8. */
   private static final List<Row> TABLE =
       List.of(
+          row("GET", "/api/v1/caller", Access.ANY_KEY),
           row("*", "/api/v1/keys/**", Access.ADMIN),
           row("POST", "/api/v1/readings/**", Access.INGEST),
           row("*", "/api/v1/audit/**", Access.CHEMIST),
@@ -182,6 +185,7 @@ class EndpointRoleMatrixIT {
     for (Access role : List.of(Access.INGEST, Access.READ, Access.CHEMIST, Access.ADMIN)) {
       boolean allowed =
           access == Access.OPEN
+              || access == Access.ANY_KEY
               || role == Access.ADMIN
               || role == access
               || role == Access.CHEMIST && access == Access.READ;
