@@ -46,9 +46,16 @@ async function loadPlants() {
   state.plant = select.value;
 }
 
+function reportLink(plant) {
+  const month = new Date().toISOString().slice(0, 7);
+  const q = new URLSearchParams({ plant, month });
+  $('report-link').href = 'report.html?' + q.toString();
+}
+
 async function refresh() {
   const plant = $('plant').value;
   if (!plant || !state.caller) return;
+  reportLink(plant);
   try {
     const o = F.overview(await api.get(F.paths.overview(plant)));
     if ($('plant').value !== plant) return; // another plant was chosen meanwhile

@@ -41,7 +41,7 @@ function clear(node) {
 }
 
 async function get(path) {
-  const key = localStorage.getItem('kwanta.key') || '';
+  const key = sessionStorage.getItem('kwanta.key') || '';
   const headers = { Accept: 'application/json' };
   if (key) headers.Authorization = 'Bearer ' + key;
   const r = await fetch(path, { headers });
@@ -219,7 +219,7 @@ document.addEventListener('DOMContentLoaded', () => {
   $('report-form').addEventListener('submit', (e) => {
     e.preventDefault();
     const key = $('key').value.trim();
-    if (key) localStorage.setItem('kwanta.key', key);
+    if (key) sessionStorage.setItem('kwanta.key', key);
     $('key').value = '';
     const q = new URLSearchParams();
     q.set('plant', $('plant').value.trim());

@@ -304,7 +304,7 @@ class MonthlyReportIT {
       String base = "http://localhost:" + port + "/report.html";
       driver.get(base);
       ((JavascriptExecutor) driver)
-          .executeScript("localStorage.setItem('kwanta.key', arguments[0]);", TestKeys.ADMIN);
+          .executeScript("sessionStorage.setItem('kwanta.key', arguments[0]);", TestKeys.ADMIN);
       driver.manage().logs().get(LogType.BROWSER);
       driver.get(base + "?plant=" + plant + "&month=2026-04");
       WebDriverWait wait = new WebDriverWait(driver, Duration.ofSeconds(30));
