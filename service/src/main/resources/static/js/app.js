@@ -27,6 +27,7 @@ async function signIn() {
     state.caller = F.caller(await api.get(F.paths.caller()));
     showCaller();
     if (!state.caller.read) { status('This key (role ' + state.caller.role + ') cannot read; use a read, chemist or admin key.'); return false; }
+    status(''); // the sign-in prompt is answered
     return true;
   } catch (e) {
     state.caller = null; showCaller();

@@ -3,10 +3,7 @@ package org.kwanta.service.limits;
 import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import java.time.Clock;
-import java.time.Duration;
 import java.time.Instant;
-import java.time.OffsetDateTime;
-import java.time.format.DateTimeParseException;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -15,10 +12,9 @@ import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.security.Callers;
+import org.kwanta.service.security.EffectiveTimes;
 import org.kwanta.service.security.Role;
 import org.kwanta.service.system.BadRequestException;
-import org.kwanta.service.system.ProblemTypes;
-import org.springframework.http.HttpStatus;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.DeleteMapping;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -38,9 +34,6 @@ import org.springframework.web.bind.annotation.RestController;
             + " recalled from the IAPWS technical guidance documents (from memory — verify), not"
             + " the plant's limits: set the plant's own per sample point with PUT.")
 class LimitsController {
-
-  /** How far before now an effectiveFrom still counts as now (clock skew of the client). */
-  private static final Duration PAST_TOLERANCE = Duration.ofMinutes(1);
 
   private final Limits limits;
   private final Clock clock;
@@ -257,34 +250,10 @@ class LimitsController {
       throw BadRequestException.of(
           "A chemist key changes limits with a reason (query parameter reason)");
     }
-    if (value == null) {
-      return now;
-    }
-    Instant t;
-    try {
-      t = OffsetDateTime.parse(value).toInstant();
-    } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
-          "effectiveFrom must be an ISO 8601 time with offset, e.g. 2026-12-01T06:00:00Z");
-    }
-    if (t.isBefore(now.minus(PAST_TOLERANCE))) {
-      if (Callers.role().orElse(null) != Role.ADMIN) {
-        throw new BadRequestException(
-            HttpStatus.FORBIDDEN,
-            ProblemTypes.FORBIDDEN,
-            "Forbidden",
-            "Only an admin key may set limits in force from a past time (" + t + ")",
-            Map.of());
-      }
-      if (blankToNull(reason) == null) {
-        throw BadRequestException.of(
-            "A past effectiveFrom (" + t + ") changes the record: give a reason");
-      }
-    }
-    return t;
+    return EffectiveTimes.effectiveFrom(value, reason, now, "limits");
   }
 
   private static String blankToNull(String s) {
-    return s == null || s.isBlank() ? null : s.strip();
+    return EffectiveTimes.blankToNull(s);
   }
 }

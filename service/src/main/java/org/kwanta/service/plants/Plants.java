@@ -238,11 +238,46 @@ public class Plants {
         : plant.coolingWater().trim().toUpperCase(java.util.Locale.ROOT);
   }
 
-  /** Replaces a sample point's configuration with a new version. Returns the new version number. */
+  /** Replaces a sample point's configuration with a new version in force from now. */
   @Transactional
   public int updateSamplePoint(PlantDeclaration.SamplePointDeclaration declared, String changedBy) {
+    return updateSamplePoint(declared, changedBy, null, null);
+  }
+
+  /**
+   * Replaces a sample point's configuration with a new version, in force from {@code validFrom}
+   * (null: now). Versions are in force one after the other: a version may not start before the one
+   * in force now started.
+   *
+   * @return the new version number
+   * @throws VersionOrderException when validFrom precedes the start of the current version
+   */
+  @Transactional
+  public int updateSamplePoint(
+      PlantDeclaration.SamplePointDeclaration declared,
+      String changedBy,
+      java.time.Instant validFrom,
+      String reason) {
     PlantDeclaration.SamplePointDeclaration p = normalized(declared);
     Optional<PlantDeclaration.SamplePointDeclaration> before = findSamplePoint(p.id());
+    if (validFrom != null) {
+      // The first version is in force from the start of the point's data (whatever its creation
+      // time); a later one from its validFrom. So a change may be back-dated past the first
+      // version's
+      // creation, but never before a later version's start (versions stay in order).
+      Object[] current =
+          jdbc.sql(
+                  """
+                  SELECT version, valid_from FROM sample_point_version WHERE sample_point_id = ?
+                  ORDER BY version DESC LIMIT 1 FOR UPDATE""")
+              .param(p.id())
+              .query((rs, i) -> new Object[] {rs.getInt(1), rs.getTimestamp(2).toInstant()})
+              .single();
+      java.time.Instant currentFrom = (java.time.Instant) current[1];
+      if ((Integer) current[0] > 1 && validFrom.isBefore(currentFrom)) {
+        throw new VersionOrderException(p.id(), validFrom, currentFrom);
+      }
+    }
     Integer version =
         jdbc.sql(
                 """
@@ -267,9 +302,16 @@ public class Plants {
             .single();
     jdbc.sql(
             """
-            INSERT INTO sample_point_version (sample_point_id, version, changed_by, config)
-            VALUES (?, ?, ?, ?::jsonb)""")
-        .params(p.id(), version, changedBy, json.writeValueAsString(p))
+            INSERT INTO sample_point_version
+                (sample_point_id, version, changed_by, config, valid_from, reason)
+            VALUES (?, ?, ?, ?::jsonb, coalesce(?, now()), ?)""")
+        .params(
+            p.id(),
+            version,
+            changedBy,
+            json.writeValueAsString(p),
+            validFrom == null ? null : java.sql.Timestamp.from(validFrom),
+            reason)
         .update();
     audit.record(
         "sample-point.update",
@@ -316,14 +358,32 @@ public class Plants {
       int version,
       java.time.Instant validFrom,
       String changedBy,
+      String reason,
+      java.time.Instant recordedAt,
       PlantDeclaration.SamplePointDeclaration config) {}
+
+  /** A configuration version that would start before the version in force now. */
+  public static final class VersionOrderException extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+
+    VersionOrderException(String point, java.time.Instant from, java.time.Instant currentFrom) {
+      super(
+          "the configuration of "
+              + point
+              + " in force now has been since "
+              + currentFrom
+              + "; a new version cannot be in force from an earlier time ("
+              + from
+              + ")");
+    }
+  }
 
   /** Every version of a sample point's configuration, oldest first. */
   public List<Version> versions(String samplePointId) {
     return jdbc.sql(
             """
-            SELECT version, valid_from, changed_by, config::text FROM sample_point_version
-            WHERE sample_point_id = ? ORDER BY version""")
+            SELECT version, valid_from, changed_by, reason, recorded_at, config::text
+            FROM sample_point_version WHERE sample_point_id = ? ORDER BY version""")
         .param(samplePointId)
         .query(
             (rs, i) ->
@@ -331,7 +391,9 @@ public class Plants {
                     rs.getInt(1),
                     rs.getTimestamp(2).toInstant(),
                     rs.getString(3),
-                    json.readValue(rs.getString(4), PlantDeclaration.SamplePointDeclaration.class)))
+                    rs.getString(4),
+                    rs.getTimestamp(5).toInstant(),
+                    json.readValue(rs.getString(6), PlantDeclaration.SamplePointDeclaration.class)))
         .list();
   }
 

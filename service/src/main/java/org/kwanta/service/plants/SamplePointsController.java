@@ -5,8 +5,11 @@ import io.swagger.v3.oas.annotations.Parameter;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import jakarta.validation.Valid;
 import java.security.Principal;
+import java.time.Clock;
+import java.time.Instant;
 import java.util.List;
 import java.util.Map;
+import org.kwanta.service.security.EffectiveTimes;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
@@ -15,6 +18,7 @@ import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PutMapping;
 import org.springframework.web.bind.annotation.RequestBody;
 import org.springframework.web.bind.annotation.RequestMapping;
+import org.springframework.web.bind.annotation.RequestParam;
 import org.springframework.web.bind.annotation.RestController;
 
 @RestController
@@ -23,9 +27,11 @@ import org.springframework.web.bind.annotation.RestController;
 class SamplePointsController {
 
   private final Plants plants;
+  private final Clock clock;
 
-  SamplePointsController(Plants plants) {
+  SamplePointsController(Plants plants, Clock clock) {
     this.plants = plants;
+    this.clock = clock;
   }
 
   @GetMapping("/sample-points/{samplePointId}")
@@ -53,11 +59,21 @@ class SamplePointsController {
   @Operation(
       summary = "Change a sample point's configuration (a new version; old versions are kept)",
       description =
-          "Evaluations computed after the change use the new version; stored evaluations keep theirs.")
+          "The new version is in force from effectiveFrom (default now). A past effectiveFrom (more"
+              + " than a minute ago) corrects the record: admin keys only, with a reason, and not"
+              + " before the start of the version in force now (409). Limits by treatment regime and"
+              + " location follow the version in force at each reading's time. Evaluations computed"
+              + " after the change use the new version; stored evaluations keep the version they"
+              + " were computed with (configVersion), also after a back-dated change.")
   Map<String, Object> update(
       @PathVariable String samplePointId,
       @Valid @RequestBody PlantDeclaration.SamplePointDeclaration body,
+      @RequestParam(required = false) String effectiveFrom,
+      @RequestParam(required = false) String reason,
       Principal principal) {
+    Instant from =
+        EffectiveTimes.effectiveFrom(
+            effectiveFrom, reason, clock.instant(), "a sample point's configuration");
     if (!samplePointId.equals(body.id())) {
       throw BadRequestException.of("the body's id must be the path's sample point id");
     }
@@ -81,9 +97,20 @@ class SamplePointsController {
           Map.of("problems", problems));
     }
     OperatingPhases.require(check);
-    int version =
-        plants.updateSamplePoint(next, principal == null ? "api" : "key:" + principal.getName());
-    return Map.of("samplePoint", samplePointId, "changed", true, "version", version);
+    int version;
+    try {
+      version =
+          plants.updateSamplePoint(
+              next,
+              principal == null ? "api" : "key:" + principal.getName(),
+              from,
+              EffectiveTimes.blankToNull(reason));
+    } catch (Plants.VersionOrderException e) {
+      throw new BadRequestException(
+          HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), Map.of());
+    }
+    return Map.of(
+        "samplePoint", samplePointId, "changed", true, "version", version, "effectiveFrom", from);
   }
 
   @PutMapping("/plants/{plantId}")

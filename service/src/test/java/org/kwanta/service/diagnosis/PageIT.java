@@ -126,6 +126,8 @@ class PageIT {
         .isEqualTo("PL-ECO");
     assertThat(driver.findElement(By.id("who")).getText())
         .contains("Signed in as Page test chemist (invented), chemist");
+    // the sign-in prompt does not linger once the key is accepted
+    assertThat(driver.findElement(By.id("status")).getText()).doesNotContain("Sign in");
     screenshot("board-1440.png");
   }
 
