@@ -15,6 +15,7 @@ import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Level;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
+import org.kwanta.service.system.MetricNames;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.scheduling.annotation.Scheduled;
@@ -83,7 +84,7 @@ class SampleMetrics {
   private record Latest(Instant time, double value) {}
 
   private static final String[] PARAMETER_CODES =
-      org.kwanta.service.readings.MeasuredParameter.codeArray();
+      org.kwanta.service.ingest.MeasuredParameter.codeArray();
 
   @Scheduled(
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",

@@ -10,7 +10,7 @@ import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
-import org.kwanta.service.evaluations.EvaluationView;
+import org.kwanta.service.ingest.EvaluationView;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.BadRequestException;
 import org.springframework.jdbc.core.simple.JdbcClient;

@@ -43,7 +43,7 @@ class Series {
           String qualityName =
               rs.wasNull()
                   ? null
-                  : org.kwanta.service.readings.ValidReading.Quality.ofCode(q)
+                  : org.kwanta.service.ingest.ValidReading.Quality.ofCode(q)
                       .name()
                       .toLowerCase(java.util.Locale.ROOT);
           return new Point(rs.getTimestamp(1).toInstant(), value, qualityName);

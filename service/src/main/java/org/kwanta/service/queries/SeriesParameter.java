@@ -5,7 +5,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.kwanta.service.readings.MeasuredParameter;
+import org.kwanta.service.ingest.MeasuredParameter;
 
 /**
  * A parameter a series can be asked for: a measured one (stored readings, canonical unit) or a
