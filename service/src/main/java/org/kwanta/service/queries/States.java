@@ -5,11 +5,11 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
 import org.kwanta.service.ingest.EvaluationView;
+import org.kwanta.service.ingest.Evaluations;
 import org.kwanta.service.ingest.MeasuredParameter;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.ingest.ValidReading;
-import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * The latest state of sample points: each parameter's latest reading with its age, the current
@@ -18,13 +18,13 @@ import tools.jackson.databind.json.JsonMapper;
 @Repository
 class States {
 
-  private final JdbcTemplate jdbc;
-  private final JsonMapper json;
+  private final ReadingHistory readings;
+  private final Evaluations evaluations;
   private final CurrentLevels levels;
 
-  States(JdbcTemplate jdbc, JsonMapper json, CurrentLevels levels) {
-    this.jdbc = jdbc;
-    this.json = json;
+  States(ReadingHistory readings, Evaluations evaluations, CurrentLevels levels) {
+    this.readings = readings;
+    this.evaluations = evaluations;
     this.levels = levels;
   }
 
@@ -68,43 +68,31 @@ class States {
       Instant now,
       org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
     List<Latest> latest =
-        jdbc.query(
-            """
-            SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
-            FROM unnest(?::text[]) AS p(code)
-            CROSS JOIN LATERAL (
-              SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
-              WHERE sample_point_id = ? AND parameter = p.code ORDER BY time DESC LIMIT 1) r
-            ORDER BY p.code""",
-            (rs, i) -> {
-              MeasuredParameter p = MeasuredParameter.byCode(rs.getString(1)).orElseThrow();
-              Instant t = rs.getTimestamp(2).toInstant();
-              double temperature = rs.getDouble(5);
-              Double sampleTemperature = rs.wasNull() ? null : temperature;
-              return new Latest(
-                  p.code(),
-                  p.canonicalUnit(),
-                  t,
-                  Duration.between(t, now).toMillis() / 1000.0,
-                  rs.getDouble(3),
-                  ValidReading.Quality.ofCode(rs.getInt(4)).name().toLowerCase(Locale.ROOT),
-                  sampleTemperature,
-                  p.isConductivity() ? rs.getBoolean(6) : null);
-            },
-            (Object) MeasuredParameter.codeArray(),
-            samplePointId);
-    List<LatestEvaluation> evaluation =
-        jdbc.query(
-            "SELECT time, details::text FROM evaluation WHERE sample_point_id = ?"
-                + " ORDER BY time DESC LIMIT 1",
-            (rs, i) -> {
-              Instant t = rs.getTimestamp(1).toInstant();
-              return new LatestEvaluation(
-                  t,
-                  Duration.between(t, now).toMillis() / 1000.0,
-                  json.readValue(rs.getString(2), EvaluationView.class));
-            },
-            samplePointId);
+        readings.latestPerParameter(samplePointId).stream()
+            .map(
+                r -> {
+                  MeasuredParameter p = MeasuredParameter.byCode(r.parameter()).orElseThrow();
+                  return new Latest(
+                      p.code(),
+                      p.canonicalUnit(),
+                      r.time(),
+                      Duration.between(r.time(), now).toMillis() / 1000.0,
+                      r.value(),
+                      ValidReading.Quality.ofCode(r.quality()).name().toLowerCase(Locale.ROOT),
+                      Double.isNaN(r.sampleTemperatureCel()) ? null : r.sampleTemperatureCel(),
+                      p.isConductivity() ? r.compensated() : null);
+                })
+            .toList();
+    LatestEvaluation evaluation =
+        evaluations
+            .latest(samplePointId)
+            .map(
+                e ->
+                    new LatestEvaluation(
+                        e.time(),
+                        Duration.between(e.time(), now).toMillis() / 1000.0,
+                        e.evaluation()))
+            .orElse(null);
     return new State(
         samplePointId,
         name,
@@ -113,7 +101,7 @@ class States {
         now,
         latest,
         levels.of(samplePointId, now),
-        evaluation.isEmpty() ? null : evaluation.get(0),
+        evaluation,
         diagnosis == null
             ? null
             : new Diagnosis(

@@ -15,6 +15,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.ingest.Partitions;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.support.DatabaseTest;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -45,7 +46,7 @@ class ExcursionQueryPlanIT {
     Instant from = to.minus(1, ChronoUnit.DAYS);
     List<String> plan =
         jdbc.queryForList(
-            "EXPLAIN " + ExcursionFinder.CLASSIFY,
+            "EXPLAIN " + ReadingHistory.JUDGED,
             String.class,
             "PH",
             Timestamp.from(from),
