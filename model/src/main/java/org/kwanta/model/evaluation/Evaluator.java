@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.PhSolution;

@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.Instrument;
 
 /**
  * The five demo stories of the fictional Brackenmoor Energy Centre, as invented snapshots (demo

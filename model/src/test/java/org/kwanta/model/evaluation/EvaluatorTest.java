@@ -8,6 +8,8 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.kwanta.model.Instrument;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.SolutionModel;

@@ -8,9 +8,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeSet;
 import org.kwanta.model.OutOfValidityRangeException;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.Evaluator;
-import org.kwanta.model.evaluation.Parameter;
 import org.kwanta.model.evaluation.Reading;
 import org.kwanta.model.evaluation.Snapshot;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
@@ -203,25 +203,18 @@ public final class EvaluationRunner {
     return "sample_temperature".equals(parameter) || engineParameter(parameter) != null;
   }
 
-  private static final int SLOTS = Parameter.values().length + 1;
+  /** One slot per catalogue parameter (the sample temperature has its own). */
+  private static final int SLOTS = Parameter.values().length;
 
-  /** Index of a parameter the evaluation uses (engine parameters, then sample temperature). */
+  /** Index of a parameter the evaluation uses (engine parameters and sample temperature), or -1. */
   private static int slot(String code) {
-    if ("sample_temperature".equals(code)) {
-      return SLOTS - 1;
-    }
-    Parameter p = engineParameter(code);
-    return p == null ? -1 : p.ordinal();
+    Parameter p = Parameter.byCode(code).orElse(null);
+    return p != null && (p.usedByEngine() || p == Parameter.SAMPLE_TEMPERATURE) ? p.ordinal() : -1;
   }
 
+  /** The catalogue parameter with this code when the evaluation engine reads it, else null. */
   static Parameter engineParameter(String code) {
-    return switch (code) {
-      case "specific_conductivity" -> Parameter.SPECIFIC_CONDUCTIVITY;
-      case "cation_conductivity" -> Parameter.CATION_CONDUCTIVITY;
-      case "degassed_cation_conductivity" -> Parameter.DEGASSED_CATION_CONDUCTIVITY;
-      case "ph" -> Parameter.PH;
-      case "sodium" -> Parameter.SODIUM;
-      default -> null;
-    };
+    Parameter p = Parameter.byCode(code).orElse(null);
+    return p != null && p.usedByEngine() ? p : null;
   }
 }

@@ -1,8 +1,8 @@
 package org.kwanta.service.ingest;
 
 import java.util.List;
+import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Evaluation;
-import org.kwanta.model.evaluation.Instrument;
 
 /**
  * What the engine derived for one sample point at one time, units in the field names. Stored as

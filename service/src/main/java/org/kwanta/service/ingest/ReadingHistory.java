@@ -7,6 +7,7 @@ import java.time.Instant;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.jdbc.core.RowCallbackHandler;
@@ -21,7 +22,7 @@ import org.springframework.stereotype.Repository;
 @Repository
 public class ReadingHistory {
 
-  private static final String[] PARAMETER_CODES = MeasuredParameter.codeArray();
+  private static final String[] PARAMETER_CODES = Parameter.codeArray();
 
   private final JdbcTemplate jdbc;
 

@@ -10,6 +10,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
@@ -72,7 +73,7 @@ class ReadingStore {
       "reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
           + " compensated)";
 
-  private static final String[] PARAMETER_CODES = MeasuredParameter.codeArray();
+  private static final String[] PARAMETER_CODES = Parameter.codeArray();
 
   private final JdbcTemplate jdbc;
 

@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
+import org.kwanta.model.Parameter;
 
 /** Checks a batch: every reading is valid, or the batch is refused with every problem listed. */
 final class ReadingValidator {
@@ -49,7 +50,7 @@ final class ReadingValidator {
             new RejectedReading(
                 i, "samplePoint", "unknown sample point '" + abbreviate(point) + "'"));
       }
-      Optional<MeasuredParameter> parameter = MeasuredParameter.byCode(in.parameter());
+      Optional<Parameter> parameter = Parameter.byCode(in.parameter());
       if (in.parameter() == null) {
         rejected.add(new RejectedReading(i, "parameter", "missing"));
       } else if (parameter.isEmpty()) {
@@ -60,7 +61,7 @@ final class ReadingValidator {
                 "unknown parameter '"
                     + abbreviate(in.parameter())
                     + "'; known: "
-                    + MeasuredParameter.codes()));
+                    + Parameter.codes()));
       }
       Instant time = null;
       if (in.time() == null) {
@@ -100,8 +101,8 @@ final class ReadingValidator {
       } else if (in.unit() == null || in.unit().isBlank()) {
         rejected.add(new RejectedReading(i, "unit", "missing; give a UCUM code"));
       } else if (parameter.isPresent()) {
-        MeasuredParameter p = parameter.get();
-        Optional<Double> converted = p.toCanonical(in.value(), in.unit());
+        Parameter p = parameter.get();
+        Optional<Double> converted = Units.toCanonical(p, in.value(), in.unit());
         if (converted.isEmpty()) {
           rejected.add(
               new RejectedReading(
@@ -112,7 +113,7 @@ final class ReadingValidator {
                       + "' is not accepted for "
                       + p.code()
                       + "; accepted (UCUM): "
-                      + String.join(", ", new java.util.TreeSet<>(p.acceptedUnits()))));
+                      + String.join(", ", new java.util.TreeSet<>(Units.accepted(p)))));
         } else {
           canonical = converted.get();
           if (canonical < p.min() || canonical > p.max()) {
@@ -127,7 +128,7 @@ final class ReadingValidator {
                         canonical,
                         p.min(),
                         p.max(),
-                        p.canonicalUnit())));
+                        p.unit())));
           }
         }
       }

@@ -4,6 +4,7 @@ import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
+import org.kwanta.model.Parameter;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 
@@ -31,7 +32,7 @@ public class StoredSeries {
 
     /** The readings of a measured parameter. */
     public static Source readings(String parameterCode) {
-      if (MeasuredParameter.byCode(parameterCode).isEmpty()) {
+      if (Parameter.byCode(parameterCode).isEmpty()) {
         throw new IllegalArgumentException("not a measured parameter: " + parameterCode);
       }
       return new Source("reading", "value", parameterCode);

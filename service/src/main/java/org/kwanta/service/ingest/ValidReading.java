@@ -1,6 +1,7 @@
 package org.kwanta.service.ingest;
 
 import java.time.Instant;
+import org.kwanta.model.Parameter;
 
 /**
  * A checked reading in the canonical unit of its parameter.
@@ -9,7 +10,7 @@ import java.time.Instant;
  */
 public record ValidReading(
     String samplePointId,
-    MeasuredParameter parameter,
+    Parameter parameter,
     Instant time,
     double value,
     Quality quality,

@@ -4,7 +4,7 @@ import java.util.Arrays;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.kwanta.service.ingest.MeasuredParameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.StoredSeries;
 
 /**
@@ -22,10 +22,10 @@ record SeriesParameter(String code, String unit, StoredSeries.Source source) {
   }
 
   static Optional<SeriesParameter> byCode(String code) {
-    Optional<MeasuredParameter> m = MeasuredParameter.byCode(code);
+    Optional<Parameter> m = Parameter.byCode(code);
     if (m.isPresent()) {
       return Optional.of(
-          new SeriesParameter(code, m.get().canonicalUnit(), StoredSeries.Source.readings(code)));
+          new SeriesParameter(code, m.get().unit(), StoredSeries.Source.readings(code)));
     }
     return Arrays.stream(StoredSeries.DerivedColumn.values())
         .filter(d -> d.code().equals(code))
@@ -35,7 +35,7 @@ record SeriesParameter(String code, String unit, StoredSeries.Source source) {
 
   static String codes() {
     return Stream.concat(
-            Arrays.stream(MeasuredParameter.values()).map(MeasuredParameter::code),
+            Arrays.stream(Parameter.values()).map(Parameter::code),
             Arrays.stream(StoredSeries.DerivedColumn.values())
                 .map(StoredSeries.DerivedColumn::code))
         .collect(Collectors.joining(", "));

@@ -4,9 +4,9 @@ import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.EvaluationView;
 import org.kwanta.service.ingest.Evaluations;
-import org.kwanta.service.ingest.MeasuredParameter;
 import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.ingest.ValidReading;
 import org.springframework.stereotype.Repository;
@@ -71,10 +71,10 @@ class States {
         readings.latestPerParameter(samplePointId).stream()
             .map(
                 r -> {
-                  MeasuredParameter p = MeasuredParameter.byCode(r.parameter()).orElseThrow();
+                  Parameter p = Parameter.byCode(r.parameter()).orElseThrow();
                   return new Latest(
                       p.code(),
-                      p.canonicalUnit(),
+                      p.unit(),
                       r.time(),
                       Duration.between(r.time(), now).toMillis() / 1000.0,
                       r.value(),

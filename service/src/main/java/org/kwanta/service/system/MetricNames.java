@@ -11,13 +11,13 @@ import java.util.Set;
  *
  * <p>Labels are bounded: {@code plant}, {@code unit} (the plant's unit or block, e.g. U1, not a
  * unit of measure), {@code sample_point}, {@code parameter} (the codes of {@link
- * org.kwanta.model.limits.Parameter}), and {@code reason} (a fixed list of rejection reasons).
- * Never a value, a time or a key.
+ * org.kwanta.model.Parameter}), and {@code reason} (a fixed list of rejection reasons). Never a
+ * value, a time or a key.
  *
  * <p>Units: times in seconds (Prometheus base unit). Chemistry values are in the parameter's
  * canonical trade unit (µS/cm, µg/kg, mg/kg, pH) as listed by {@link
- * org.kwanta.model.limits.Parameter#unit()}, not in SI base units, so that alert thresholds read as
- * the guidance writes them; the unit is fixed per parameter label value.
+ * org.kwanta.model.Parameter#unit()}, not in SI base units, so that alert thresholds read as the
+ * guidance writes them; the unit is fixed per parameter label value.
  */
 public final class MetricNames {
 

@@ -8,9 +8,10 @@ import java.util.Random;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.junit.jupiter.params.provider.ValueSource;
+import org.kwanta.model.Parameter;
 
 /** Unit conversion on the way in: the same value in another unit is the same stored number. */
-class MeasuredParameterTest {
+class UnitsTest {
 
   @ParameterizedTest
   @CsvSource({
@@ -26,13 +27,13 @@ class MeasuredParameterTest {
     "4560, ng/kg, 4.56"
   })
   void sameValueInAnotherUnitIsTheSameNumber(double value, String unit, double canonical) {
-    MeasuredParameter p =
+    Parameter p =
         switch (unit) {
-          case "K", "[degF]" -> MeasuredParameter.SAMPLE_TEMPERATURE;
-          case "mg/kg", "ng/kg" -> MeasuredParameter.SODIUM;
-          default -> MeasuredParameter.CATION_CONDUCTIVITY;
+          case "K", "[degF]" -> Parameter.SAMPLE_TEMPERATURE;
+          case "mg/kg", "ng/kg" -> Parameter.SODIUM;
+          default -> Parameter.CATION_CONDUCTIVITY;
         };
-    assertThat(p.toCanonical(value, unit)).hasValue(canonical);
+    assertThat(Units.toCanonical(p, value, unit)).hasValue(canonical);
   }
 
   /** Seeded: values of up to 10 significant digits survive a trip through every other unit. */
@@ -51,7 +52,7 @@ class MeasuredParameterTest {
             new BigDecimal(Double.toString(canonical))
                 .scaleByPowerOfTen(Integer.parseInt(unit[1]))
                 .doubleValue();
-        assertThat(MeasuredParameter.SPECIFIC_CONDUCTIVITY.toCanonical(sent, unit[0]))
+        assertThat(Units.toCanonical(Parameter.SPECIFIC_CONDUCTIVITY, sent, unit[0]))
             .as("%s %s", sent, unit[0])
             .hasValue(canonical);
       }
@@ -61,13 +62,21 @@ class MeasuredParameterTest {
   @ParameterizedTest
   @ValueSource(doubles = {0.07, 0.06999999999999999, 123456.789, 1e-30, 0})
   void canonicalUnitKeepsTheValueExactlyAsSent(double value) {
-    assertThat(MeasuredParameter.CATION_CONDUCTIVITY.toCanonical(value, "uS/cm")).hasValue(value);
+    assertThat(Units.toCanonical(Parameter.CATION_CONDUCTIVITY, value, "uS/cm")).hasValue(value);
   }
 
   @ParameterizedTest
   @ValueSource(doubles = {1e-300, -2.5e-7, 9.87654321098765e15, Double.MAX_VALUE})
   void roundingNeverFailsAndKeepsTwelveDigits(double value) {
-    double rounded = MeasuredParameter.significant(value);
+    double rounded = Units.significant(value);
     assertThat(Math.abs(rounded - value)).isLessThanOrEqualTo(Math.abs(value) * 1e-11);
+  }
+
+  @org.junit.jupiter.api.Test
+  void everyParameterAcceptsItsCanonicalUnitAsIs() {
+    for (Parameter p : Parameter.values()) {
+      assertThat(Units.accepted(p)).contains(p.unit());
+      assertThat(Units.toCanonical(p, 1.25, p.unit())).hasValue(1.25);
+    }
   }
 }

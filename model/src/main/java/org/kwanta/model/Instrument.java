@@ -1,4 +1,4 @@
-package org.kwanta.model.evaluation;
+package org.kwanta.model;
 
 /** What a consistency finding points at: an analyser, the sample conditioning, or the process. */
 public enum Instrument {
