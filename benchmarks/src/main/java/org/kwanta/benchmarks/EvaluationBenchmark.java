@@ -62,6 +62,6 @@ public class EvaluationBenchmark {
 
   @Benchmark
   public Evaluation evaluate() {
-    return Evaluator.evaluate(config, snapshot);
+    return Evaluator.DEFAULT.evaluate(config, snapshot);
   }
 }

@@ -154,7 +154,7 @@ final class StoryBench {
         }
         double phCalc = Double.NaN;
         if (p.sc()) {
-          Evaluation e = Evaluator.evaluate(config, new Snapshot(t, h));
+          Evaluation e = Evaluator.DEFAULT.evaluate(config, new Snapshot(t, h));
           phCalc = e.calculatedPh().map(c -> c.rigorous()).orElse(Double.NaN);
         }
         if (m % every != 0) {

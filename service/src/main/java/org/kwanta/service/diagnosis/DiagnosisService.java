@@ -46,6 +46,7 @@ public class DiagnosisService {
 
   private final JdbcClient jdbc;
   private final MinuteSeries minutes;
+  private final EvaluationRunner runner;
   private final ReadingHistory readings;
   private final SamplePointConfigs configs;
   private final IngestService ingest;
@@ -56,6 +57,7 @@ public class DiagnosisService {
   DiagnosisService(
       JdbcClient jdbc,
       MinuteSeries minutes,
+      EvaluationRunner runner,
       ReadingHistory readings,
       SamplePointConfigs configs,
       IngestService ingest,
@@ -64,6 +66,7 @@ public class DiagnosisService {
     this.diagnoser = new Diagnoser(properties.settings());
     this.jdbc = jdbc;
     this.minutes = minutes;
+    this.runner = runner;
     this.readings = readings;
     this.configs = configs;
     this.ingest = ingest;
@@ -242,7 +245,7 @@ public class DiagnosisService {
       Instant first = readings.get(0).time();
       Instant last = readings.get(readings.size() - 1).time();
       List<EvaluationRunner.Result> results =
-          EvaluationRunner.run(
+          runner.run(
               config.get(id),
               readings,
               first,

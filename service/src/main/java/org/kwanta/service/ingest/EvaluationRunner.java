@@ -14,6 +14,7 @@ import org.kwanta.model.evaluation.Evaluator;
 import org.kwanta.model.evaluation.Reading;
 import org.kwanta.model.evaluation.Snapshot;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
+import org.kwanta.service.water.WaterProperties;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -22,11 +23,27 @@ import org.slf4j.LoggerFactory;
  * apart from the input it is given: the same readings always give the same evaluations, whatever
  * order they arrived in.
  */
+@org.springframework.stereotype.Component
 public final class EvaluationRunner {
 
   private static final Logger log = LoggerFactory.getLogger(EvaluationRunner.class);
 
-  private EvaluationRunner() {}
+  /** The engine, with the formulation {@code kwanta.water.ionization} names and its caches. */
+  private final Evaluator evaluator;
+
+  EvaluationRunner(WaterProperties water) {
+    this(new Evaluator(water.ionization()));
+  }
+
+  /** A runner over the given engine (tests, benchmarks). */
+  public EvaluationRunner(Evaluator evaluator) {
+    this.evaluator = evaluator;
+  }
+
+  /** The engine this runner evaluates with. */
+  public Evaluator evaluator() {
+    return evaluator;
+  }
 
   /**
    * A stored reading as the evaluation needs it; {@code sampleTemperatureCel} is NaN when absent.
@@ -50,7 +67,7 @@ public final class EvaluationRunner {
    *     by time; before the bucket of {@code from}, the latest of each parameter per bucket is
    *     enough (see {@link #HISTORY_BUCKETS})
    */
-  public static List<Result> run(
+  public List<Result> run(
       SamplePointConfigs.Versioned config,
       List<StoredReading> readings,
       Instant from,
@@ -139,7 +156,7 @@ public final class EvaluationRunner {
             .add(new Reading(r.time(), r.value(), temperatureK, compensated));
       }
       try {
-        Evaluation e = Evaluator.evaluate(config.config(), new Snapshot(t, history));
+        Evaluation e = evaluator.evaluate(config.config(), new Snapshot(t, history));
         out.add(
             new Result(
                 config.config().id(), t, EvaluationView.from(config.version(), e, dedupe(notes))));

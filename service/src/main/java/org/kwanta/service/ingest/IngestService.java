@@ -39,6 +39,7 @@ public class IngestService {
   private final TransactionTemplate transaction;
   private final IngestMetrics metrics;
   private final RecentReadings recent;
+  private final EvaluationRunner runner;
 
   /** Evaluates sample points of a group in parallel with the group's database writes. */
   private final java.util.concurrent.ExecutorService evaluators =
@@ -70,8 +71,10 @@ public class IngestService {
       IngestLimits limits,
       Clock clock,
       PlatformTransactionManager transactions,
-      IngestMetrics metrics) {
+      IngestMetrics metrics,
+      EvaluationRunner runner) {
     this.metrics = metrics;
+    this.runner = runner;
     this.transaction = new TransactionTemplate(transactions);
     this.configs = configs;
     this.readings = readings;
@@ -545,9 +548,7 @@ public class IngestService {
       java.util.Set<Instant> firstEvaluated) {
     List<EvaluationRunner.Result> all =
         metrics.timeEvaluation(
-            () ->
-                EvaluationRunner.run(
-                    config, history, from, to, limits.historyWindow(), limits.maxAge()));
+            () -> runner.run(config, history, from, to, limits.historyWindow(), limits.maxAge()));
     List<EvaluationRunner.Result> created = new ArrayList<>();
     List<EvaluationRunner.Result> recomputed = new ArrayList<>();
     for (EvaluationRunner.Result x : all) {
