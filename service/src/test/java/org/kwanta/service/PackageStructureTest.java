@@ -4,8 +4,6 @@ import static com.tngtech.archunit.library.dependencies.SlicesRuleDefinition.sli
 import static org.assertj.core.api.Assertions.assertThat;
 
 import com.tngtech.archunit.core.domain.JavaClasses;
-import com.tngtech.archunit.core.importer.ClassFileImporter;
-import com.tngtech.archunit.core.importer.ImportOption;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -21,10 +19,8 @@ import org.junit.jupiter.api.Test;
  */
 class PackageStructureTest {
 
-  private static final JavaClasses SERVICE =
-      new ClassFileImporter()
-          .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
-          .importPackages("org.kwanta.service");
+  /** Imported once for both architecture tests (the import is most of their time). */
+  private static final JavaClasses SERVICE = ArchitectureTest.SERVICE;
 
   @Test
   void featurePackagesAreFreeOfCycles() {
