@@ -2,14 +2,12 @@ package org.kwanta.service.ingest;
 
 import java.sql.Connection;
 import java.sql.PreparedStatement;
-import java.sql.Timestamp;
-import java.time.Instant;
 import java.util.List;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 import tools.jackson.databind.json.JsonMapper;
 
-/** Reads the readings an evaluation needs and writes evaluations (one statement per batch). */
+/** Writes evaluations (one statement per batch, or binary COPY for new ones). */
 @Repository
 public class EvaluationStore {
 
@@ -50,62 +48,6 @@ public class EvaluationStore {
   EvaluationStore(JdbcTemplate jdbc, JsonMapper json) {
     this.jdbc = jdbc;
     this.json = json;
-  }
-
-  /**
-   * The readings an evaluation of the point over [from, to] needs, ordered by time: raw from the
-   * history bucket of {@code from} to {@code to}; before that, back to {@code from − window}, only
-   * the latest reading of each parameter per history bucket (all an evaluation uses of them, see
-   * {@link EvaluationRunner#run}, which also skips bad-quality readings; their times are still
-   * evaluation times, so a reading corrected to bad quality gets its evaluation recomputed).
-   */
-  public List<EvaluationRunner.StoredReading> readings(
-      String samplePointId, Instant from, Instant to, java.time.Duration window) {
-    long bucketMillis = EvaluationRunner.bucketMillis(window);
-    Instant rawFrom =
-        Instant.ofEpochMilli(EvaluationRunner.bucketOf(from, bucketMillis) * bucketMillis);
-    List<EvaluationRunner.StoredReading> out =
-        new java.util.ArrayList<>(
-            jdbc.query(
-                """
-                SELECT DISTINCT ON (parameter, b)
-                       parameter, time, value, quality, sample_temperature_cel, compensated
-                FROM (SELECT r.*, floor(extract(epoch FROM r.time) * 1000 / ?::bigint) AS b
-                      FROM reading r
-                      WHERE r.sample_point_id = ? AND r.time > ? AND r.time < ? AND r.quality < 2) x
-                ORDER BY parameter, b, time DESC""",
-                EvaluationStore::stored,
-                bucketMillis,
-                samplePointId,
-                Timestamp.from(from.minus(window)),
-                Timestamp.from(rawFrom)));
-    out.addAll(
-        jdbc.query(
-            """
-            SELECT parameter, time, value, quality, sample_temperature_cel, compensated FROM reading
-            WHERE sample_point_id = ? AND time >= ? AND time <= ?
-            ORDER BY time, parameter""",
-            EvaluationStore::stored,
-            samplePointId,
-            Timestamp.from(rawFrom),
-            Timestamp.from(to)));
-    out.sort(
-        java.util.Comparator.comparing(EvaluationRunner.StoredReading::time)
-            .thenComparing(EvaluationRunner.StoredReading::parameter));
-    return out;
-  }
-
-  private static EvaluationRunner.StoredReading stored(java.sql.ResultSet rs, int i)
-      throws java.sql.SQLException {
-    double t = rs.getDouble(5);
-    boolean noTemperature = rs.wasNull();
-    return new EvaluationRunner.StoredReading(
-        rs.getString(1),
-        rs.getTimestamp(2).toInstant(),
-        rs.getDouble(3),
-        rs.getShort(4),
-        noTemperature ? Double.NaN : t,
-        rs.getBoolean(6));
   }
 
   /** Upserts evaluations; unchanged ones are left alone. */

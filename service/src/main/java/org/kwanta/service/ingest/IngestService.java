@@ -503,10 +503,13 @@ public class IngestService {
         } else {
           Instant from = e.getValue()[0];
           Instant to = e.getValue()[1].plus(window);
+          // no copy covers it: a cold history of the point, read back after this group's writes
+          RecentReadings.PointHistory cold =
+              recent.cold(from.minus(window), readings.between(point, from.minus(window), to));
           done =
               evaluate(
                   current.get(point),
-                  evaluations.readings(point, from, to, window),
+                  cold.forEvaluation(from, to, window),
                   from,
                   to,
                   java.util.Set.of());

@@ -4,9 +4,7 @@ import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -185,12 +183,5 @@ public class ReadingHistory {
         rs.getShort(4),
         noTemperature ? Double.NaN : t,
         rs.getBoolean(6));
-  }
-
-  /** Latest reading per key, for callers that index by point and parameter. */
-  public static Map<String, PointReading> byPointAndParameter(List<PointReading> readings) {
-    Map<String, PointReading> out = new HashMap<>();
-    readings.forEach(r -> out.put(r.samplePointId() + "|" + r.parameter(), r));
-    return out;
   }
 }

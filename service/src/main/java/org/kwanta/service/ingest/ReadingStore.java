@@ -250,6 +250,19 @@ class ReadingStore {
     return out;
   }
 
+  /** Every stored reading of a point in (after, to], in time order (a cold history). */
+  List<StoredReading> between(String samplePointId, Instant after, Instant to) {
+    return jdbc.query(
+        """
+        SELECT parameter, time, value, quality, sample_temperature_cel, compensated FROM reading
+        WHERE sample_point_id = ? AND time > ? AND time <= ?
+        ORDER BY time, parameter""",
+        ReadingHistory::stored,
+        samplePointId,
+        Timestamp.from(after),
+        Timestamp.from(to));
+  }
+
   /**
    * Inserts readings known to be new (keys absent from the table) with COPY. A key that exists
    * after all fails the statement (and so the transaction): nothing is overwritten silently.

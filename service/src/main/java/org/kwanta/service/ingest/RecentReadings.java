@@ -68,6 +68,19 @@ final class RecentReadings {
     return h;
   }
 
+  /**
+   * A history of a point that is not kept: every stored reading after {@code from} (a backfill the
+   * copy does not reach, or a point without a copy). The same structure and the same rule as a kept
+   * copy, so a cache miss is only a cold history, never a second way of evaluating.
+   */
+  PointHistory cold(Instant from, Collection<StoredReading> loaded) {
+    PointHistory h = new PointHistory(from, bucketMillis);
+    for (StoredReading r : loaded) {
+      h.put(r);
+    }
+    return h;
+  }
+
   /** Drops a point's copy (after a failed transaction, or when it cannot be kept current). */
   void forget(String samplePointId) {
     PointHistory h = points.remove(samplePointId);
@@ -207,10 +220,10 @@ final class RecentReadings {
     }
 
     /**
-     * What an evaluation of [from, to] needs, in the shape {@link EvaluationRunner#run} takes and
-     * {@code EvaluationStore.readings} returns: before the history bucket of {@code from} (back to
-     * {@code from − window}), only the latest good or uncertain reading of each parameter per
-     * bucket; from that bucket to {@code to}, every reading.
+     * What an evaluation of [from, to] needs, in the shape {@link EvaluationRunner#run} takes:
+     * before the history bucket of {@code from} (back to {@code from − window}), only the latest
+     * good or uncertain reading of each parameter per bucket; from that bucket to {@code to}, every
+     * reading.
      */
     List<StoredReading> forEvaluation(Instant from, Instant to, java.time.Duration window) {
       long bucketMillis = EvaluationRunner.bucketMillis(window);

@@ -25,8 +25,8 @@ import org.springframework.stereotype.Component;
  * Per sample point and parameter gauges (latest value, action level, outside the normal range, time
  * in level, instrument in doubt, reading age) and the pH at temperature per sample point, refreshed
  * on a schedule from the stored readings and evaluations ({@code kwanta.metrics.refresh}, default
- * 30 s). The level looks back {@code kwanta.metrics.level-window} (default 8 days, longer than the
- * AL1 allowance), so time in level is capped at that window.
+ * 30 s). The level looks back {@code kwanta.metrics.level-window} (default one day, P1D), so time
+ * in level is capped at that window.
  */
 @Component
 class SampleMetrics {
