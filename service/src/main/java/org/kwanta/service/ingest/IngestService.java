@@ -165,8 +165,10 @@ public class IngestService {
     int corrected;
     int unchanged;
     int evaluations;
-    Outcome outcome;
-    Throwable failure;
+
+    /** Completed by the writer with the batch's outcome or failure. */
+    final java.util.concurrent.CompletableFuture<Outcome> result =
+        new java.util.concurrent.CompletableFuture<>();
 
     Pending(List<ValidReading> readings, int received, int duplicates) {
       this.readings = readings;
@@ -178,7 +180,11 @@ public class IngestService {
     }
 
     boolean done() {
-      return outcome != null || failure != null;
+      return result.isDone();
+    }
+
+    void fail(Throwable e) {
+      result.completeExceptionally(e);
     }
 
     void reset() {
@@ -206,23 +212,25 @@ public class IngestService {
         List<Pending> group = drain();
         if (group.isEmpty()) {
           // cannot happen (every drained batch gets a result); never wait for it forever
-          pending.failure = new IllegalStateException("the batch was lost before it was written");
+          pending.fail(new IllegalStateException("the batch was lost before it was written"));
         }
         write(group);
       }
     } finally {
       combining.unlock();
     }
-    if (pending.failure instanceof RuntimeException e) {
-      throw e;
+    try {
+      return pending.result.join();
+    } catch (java.util.concurrent.CompletionException e) {
+      Throwable cause = e.getCause();
+      if (cause instanceof RuntimeException r) {
+        throw r;
+      }
+      if (cause instanceof Error err) {
+        throw err;
+      }
+      throw new IllegalStateException(cause);
     }
-    if (pending.failure instanceof Error e) {
-      throw e;
-    }
-    if (pending.failure != null) {
-      throw new IllegalStateException(pending.failure);
-    }
-    return pending.outcome;
   }
 
   /**
@@ -296,7 +304,7 @@ public class IngestService {
           || DatabaseOutage.isCause(e)
           || Partitions.isMissingPartition(e)) {
         // a missing partition: every request of the group makes its days and resubmits
-        group.forEach(p -> p.failure = e);
+        group.forEach(p -> p.fail(e));
       } else {
         log.warn(
             "Ingest of {} batch(es) failed on the fast path; retrying each on the plain path: {}",
@@ -311,9 +319,9 @@ public class IngestService {
       return;
     }
     for (Pending p : group) {
-      p.outcome =
+      p.result.complete(
           new Outcome(
-              p.received, p.inserted, p.corrected, p.unchanged, p.duplicates, p.evaluations);
+              p.received, p.inserted, p.corrected, p.unchanged, p.duplicates, p.evaluations));
     }
     try {
       kept.forEach(
@@ -335,8 +343,46 @@ public class IngestService {
   /** What to keep of a point's in-memory copy after the commit (no generation: drop it). */
   private record Kept(Long generation, Instant keepFrom) {}
 
+  /**
+   * Writes a group in the caller's transaction, in four steps: lock the points' heads and pick (or
+   * load) their histories; classify every reading against its history; write the readings while the
+   * evaluations are computed; write the evaluations and count them per batch.
+   */
   private void store(List<Pending> group, Map<String, Kept> kept, boolean fast) {
-    Duration window = limits.historyWindow();
+    GroupWrite w = new GroupWrite(group, limits.historyWindow());
+    lockAndLoad(w, kept, fast);
+    classify(w);
+    writeReadingsWhileEvaluating(w);
+    writeEvaluations(w);
+  }
+
+  /** What the steps of one group's write hand each other. */
+  private static final class GroupWrite {
+    final List<Pending> group;
+    final Duration window;
+    Map<String, SamplePointConfigs.Versioned> current;
+    Map<String, RecentReadings.PointHistory> copies;
+    List<ValidReading> fresh;
+    List<ValidReading> corrections;
+    Map<String, Instant[]> changed;
+    Map<String, java.util.Set<Instant>> newTimes;
+    Map<String, List<EvaluationRunner.Result>> results;
+    List<BinaryCopy> created;
+    List<EvaluationRunner.Result> recomputed;
+
+    GroupWrite(List<Pending> group, Duration window) {
+      this.group = group;
+      this.window = window;
+    }
+  }
+
+  /**
+   * Step 1: locks the group's points' heads in id order (new generations), and per point picks the
+   * in-memory history at the previous generation, loads one, or leaves the point to a cold history.
+   */
+  private void lockAndLoad(GroupWrite w, Map<String, Kept> kept, boolean fast) {
+    List<Pending> group = w.group;
+    Duration window = w.window;
     // what is kept in memory per point: a history window back from its latest reading, and a
     // quarter window more so that slightly late data still finds its history there
     Duration keep = window.plus(window.dividedBy(4));
@@ -389,6 +435,15 @@ public class IngestService {
         .forEach(
             (point, loaded) -> copies.put(point, recent.start(point, toLoad.get(point), loaded)));
 
+    w.current = current;
+    w.copies = copies;
+  }
+
+  /** Step 2: classifies every reading against its point's history: new, correction or unchanged. */
+  private void classify(GroupWrite w) {
+    List<Pending> group = w.group;
+    Map<String, SamplePointConfigs.Versioned> current = w.current;
+    Map<String, RecentReadings.PointHistory> copies = w.copies;
     // classify every reading against the copy: new, correction or unchanged
     List<ValidReading> fresh = new ArrayList<>();
     List<ValidReading> corrections = new ArrayList<>();
@@ -445,6 +500,26 @@ public class IngestService {
       changedPerPoint.forEach(
           (point, n) -> p.changedPerPlant.merge(current.get(point).plantId(), n[0], Integer::sum));
     }
+    w.fresh = fresh;
+    w.corrections = corrections;
+    w.changed = changed;
+    w.newTimes = newTimes;
+  }
+
+  /**
+   * Step 3: writes the readings (COPY for new ones, the upsert for corrections and for points
+   * without a history) while the evaluation threads evaluate the points held in memory; then
+   * evaluates the others on cold histories.
+   */
+  private void writeReadingsWhileEvaluating(GroupWrite w) {
+    List<Pending> group = w.group;
+    Duration window = w.window;
+    Map<String, SamplePointConfigs.Versioned> current = w.current;
+    Map<String, RecentReadings.PointHistory> copies = w.copies;
+    List<ValidReading> fresh = w.fresh;
+    List<ValidReading> corrections = w.corrections;
+    Map<String, Instant[]> changed = w.changed;
+    Map<String, java.util.Set<Instant>> newTimes = w.newTimes;
     // evaluate the points held in memory on the evaluation threads while the readings are written
     Map<String, java.util.concurrent.Future<Evaluated>> running = new TreeMap<>();
     for (Map.Entry<String, Instant[]> e : changed.entrySet()) {
@@ -522,6 +597,18 @@ public class IngestService {
       running.values().forEach(f -> f.cancel(true));
       throw e;
     }
+    w.results = results;
+    w.created = created;
+    w.recomputed = recomputed;
+  }
+
+  /** Step 4: writes the evaluations (COPY at new times, upsert elsewhere), counted per batch. */
+  private void writeEvaluations(GroupWrite w) {
+    List<Pending> group = w.group;
+    Duration window = w.window;
+    List<BinaryCopy> created = w.created;
+    List<EvaluationRunner.Result> recomputed = w.recomputed;
+    Map<String, List<EvaluationRunner.Result>> results = w.results;
     evaluations.copyNew(created);
     evaluations.upsert(recomputed);
     for (Pending p : group) {
