@@ -31,6 +31,7 @@ public final class EvaluationRunner {
   /** The engine, with the formulation {@code kwanta.water.ionization} names and its caches. */
   private final Evaluator evaluator;
 
+  @org.springframework.beans.factory.annotation.Autowired
   EvaluationRunner(WaterProperties water) {
     this(new Evaluator(water.ionization()));
   }
