@@ -7,10 +7,10 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.Evaluator;
-import org.kwanta.model.evaluation.Parameter;
 import org.kwanta.model.evaluation.Reading;
 import org.kwanta.model.evaluation.Regime;
 import org.kwanta.model.evaluation.SamplePointConfig;
@@ -67,6 +67,6 @@ public class EvaluationBenchmark {
 
   @Benchmark
   public Evaluation evaluate() {
-    return Evaluator.evaluate(config, snapshot);
+    return Evaluator.DEFAULT.evaluate(config, snapshot);
   }
 }

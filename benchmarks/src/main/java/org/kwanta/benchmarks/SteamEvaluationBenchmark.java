@@ -37,6 +37,6 @@ public class SteamEvaluationBenchmark {
 
   @Benchmark
   public Evaluation evaluate() {
-    return Evaluator.evaluate(config, snapshot);
+    return Evaluator.DEFAULT.evaluate(config, snapshot);
   }
 }

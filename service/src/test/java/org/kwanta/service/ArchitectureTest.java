@@ -11,7 +11,7 @@ import org.springframework.web.bind.annotation.RestController;
 
 class ArchitectureTest {
 
-  private static final JavaClasses SERVICE =
+  static final JavaClasses SERVICE =
       new ClassFileImporter()
           .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
           .importPackages("org.kwanta.service");

@@ -13,8 +13,8 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
+import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Finding;
-import org.kwanta.model.evaluation.Instrument;
 import org.kwanta.model.evaluation.ReasonCode;
 import org.kwanta.model.evaluation.Regime;
 

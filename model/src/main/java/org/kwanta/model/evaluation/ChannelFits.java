@@ -3,6 +3,7 @@ package org.kwanta.model.evaluation;
 import java.util.EnumMap;
 import java.util.Map;
 import java.util.function.Function;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.Solute;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.Solution;

@@ -7,6 +7,8 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.model.Instrument;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.Conductivity;
 
 /**
@@ -31,7 +33,7 @@ final class Checks {
       SamplePointConfig config, Snapshot snapshot, List<Finding> out) {
     CheckSettings cs = config.checks();
     Map<Parameter, Reading> usable = new EnumMap<>(Parameter.class);
-    for (Parameter p : Parameter.values()) {
+    for (Parameter p : Parameter.engine()) {
       Optional<Reading> latest = snapshot.latest(p);
       if (latest.isEmpty()) {
         continue;
@@ -42,7 +44,7 @@ final class Checks {
         out.add(
             finding(
                 ReasonCode.STALE,
-                p.instrument(),
+                p.instrument().orElseThrow(),
                 "%s: latest reading is %d min old (maximum %d min).",
                 name(p),
                 age.toMinutes(),
@@ -53,11 +55,11 @@ final class Checks {
         out.add(
             finding(
                 ReasonCode.OUT_OF_RANGE,
-                p.instrument(),
+                p.instrument().orElseThrow(),
                 "%s: reading %s %s is missing, non-positive or at the range limit.",
                 name(p),
                 num(r.value()),
-                p.unit()));
+                p.symbol()));
         continue;
       }
       if (p != Parameter.SODIUM
@@ -76,11 +78,11 @@ final class Checks {
         out.add(
             finding(
                 ReasonCode.FLATLINE,
-                p.instrument(),
+                p.instrument().orElseThrow(),
                 "%s: unchanged at %s %s for at least %d min.",
                 name(p),
                 num(r.value()),
-                p.unit(),
+                p.symbol(),
                 cs.flatlineDuration().toMinutes()));
       }
       usable.put(p, r);
@@ -97,6 +99,7 @@ final class Checks {
           v > 0 && v < cs.conductivityRangeMaximum();
       case PH -> v > 0 && v < 14;
       case SODIUM -> v >= 0 && v < cs.sodiumRangeMaximum();
+      default -> false; // not an engine parameter
     };
   }
 
@@ -147,7 +150,7 @@ final class Checks {
         out.add(
             finding(
                 ReasonCode.BELOW_PURE_WATER,
-                e.getKey().instrument(),
+                e.getKey().instrument().orElseThrow(),
                 "%s reads below theoretical pure water at its sample temperature: cell"
                     + " constant, temperature sensor or upstream compensation.",
                 name(e.getKey())));
@@ -534,6 +537,7 @@ final class Checks {
       case DEGASSED_CATION_CONDUCTIVITY -> "DCACE";
       case PH -> "pH";
       case SODIUM -> "Na";
+      default -> p.code();
     };
   }
 

@@ -3,6 +3,7 @@ package org.kwanta.model.evaluation;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.model.Parameter;
 
 /**
  * The evaluation of one sample-point snapshot.

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import org.kwanta.model.OutOfValidityRangeException;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.PhSolution;
 import org.kwanta.model.aqueous.Speciation;
 import org.kwanta.model.aqueous.SpeciationOptions;
@@ -27,10 +28,39 @@ import org.kwanta.model.water.WaterState;
 /**
  * Evaluates a sample-point snapshot: compensated conductivities, the inferred composition with its
  * uncertainty, calculated pH at 25 °C, pH at the operating temperature and pressure, and the
- * consistency checks. A pure function: the same configuration and snapshot always give the same
- * evaluation.
+ * consistency checks. An evaluator carries its formulation (the ionization constant of water used
+ * for the solution models and the operating water) and its caches of solution models and water
+ * states; it is immutable apart from those caches and thread-safe. Evaluating is a pure function:
+ * the same evaluator, configuration and snapshot always give the same evaluation.
+ *
+ * <p>The 25 °C trade formula and the pure-water bound of the degassing check use the R11-07 water
+ * at 25 °C and 0.101325 MPa ({@link #WATER_25}) whatever the formulation.
  */
 public final class Evaluator {
+
+  /** The evaluator with the default ionization constant, IAPWS R11-07. */
+  public static final Evaluator DEFAULT = new Evaluator(IonizationFormulation.R11_07);
+
+  private final IonizationFormulation ionization;
+
+  /** Specific conductivity of pure water at 25 °C with this formulation, µS/cm. */
+  private final double pureWater25;
+
+  /**
+   * An evaluator using the given formulation of the ionization constant of water.
+   *
+   * @param ionization the pKw formulation (IAPWS R11-07 or R11-24)
+   */
+  public Evaluator(IonizationFormulation ionization) {
+    this.ionization = java.util.Objects.requireNonNull(ionization, "ionization");
+    this.pureWater25 =
+        Conductivity.at(Water.at(T25_K, Water.ATMOSPHERIC_PRESSURE_PA, ionization)).pureWater();
+  }
+
+  /** The formulation of the ionization constant of water this evaluator uses. */
+  public IonizationFormulation ionization() {
+    return ionization;
+  }
 
   /** 25 °C, K. */
   static final double T25_K = 298.15;
@@ -51,8 +81,6 @@ public final class Evaluator {
   static final Equilibria EQUILIBRIA_25 = Equilibria.of(WATER_25);
   static final double PURE_WATER_25 = IONS_25.pureWater();
 
-  private Evaluator() {}
-
   /**
    * Evaluates one snapshot.
    *
@@ -62,7 +90,7 @@ public final class Evaluator {
    *     outside the engine's range, a steam sample with no condensate or an amine without a
    *     distribution constant) the 25 °C results stand and {@link Evaluation#notes()} says why
    */
-  public static Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
+  public Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
     List<Finding> findings = new ArrayList<>();
     List<String> notes = new ArrayList<>(1);
     Map<Parameter, Reading> usable = Checks.signals(config, snapshot, findings);
@@ -110,7 +138,7 @@ public final class Evaluator {
         solutions25.put(p, s25);
         double k25;
         if (below.get(p)) {
-          k25 = PURE_WATER_25;
+          k25 = pureWater25;
         } else if (r.compensatedByAnalyser()) {
           k25 = r.value();
         } else {
@@ -211,26 +239,25 @@ public final class Evaluator {
   };
 
   /**
-   * The solution model at a temperature (0.101325 MPa, R11-07) for an alkalizer mix. Models are
-   * immutable and a pure function of (temperature, mix), so they are shared across evaluations and
-   * threads; the cache is keyed by the exact temperature (no rounding, so a cached model is the one
-   * that would be built) and stops growing at {@link #MODEL_CACHE_LIMIT} entries, after which
-   * further models are built per call.
+   * The solution model at a temperature (0.101325 MPa, this evaluator's formulation) for an
+   * alkalizer mix. Models are immutable and a pure function of (temperature, mix), so they are
+   * shared across evaluations and threads; the cache is keyed by the exact temperature (no
+   * rounding, so a cached model is the one that would be built) and stops growing at {@link
+   * #MODEL_CACHE_LIMIT} entries, after which further models are built per call.
    *
    * @throws org.kwanta.model.OutOfValidityRangeException outside 0–100 °C
    */
-  static SolutionModel modelAt(double temperatureK, AlkalizerMix mix) {
+  SolutionModel modelAt(double temperatureK, AlkalizerMix mix) {
     ModelKey key = new ModelKey(temperatureK, mix);
-    SolutionModel m = MODELS.get(key);
+    SolutionModel m = models.get(key);
     if (m != null) {
       return m;
     }
     Conductivity.TEMPERATURE_VALIDITY.check(temperatureK);
-    WaterState w =
-        Water.at(temperatureK, Water.ATMOSPHERIC_PRESSURE_PA, IonizationFormulation.R11_07);
+    WaterState w = Water.at(temperatureK, Water.ATMOSPHERIC_PRESSURE_PA, ionization);
     m = new SolutionModel(Conductivity.at(w), Equilibria.of(w), mix);
-    if (MODELS.size() < MODEL_CACHE_LIMIT) {
-      SolutionModel earlier = MODELS.putIfAbsent(key, m);
+    if (models.size() < MODEL_CACHE_LIMIT) {
+      SolutionModel earlier = models.putIfAbsent(key, m);
       return earlier == null ? m : earlier;
     }
     return m;
@@ -241,33 +268,32 @@ public final class Evaluator {
 
   private record ModelKey(double temperatureK, AlkalizerMix mix) {}
 
-  private static final ConcurrentHashMap<ModelKey, SolutionModel> MODELS =
-      new ConcurrentHashMap<>();
+  private final ConcurrentHashMap<ModelKey, SolutionModel> models = new ConcurrentHashMap<>();
 
   /** Largest number of cached operating water states. */
   static final int WATER_CACHE_LIMIT = 2048;
 
   private record StateKey(double temperatureK, double pressurePa) {}
 
-  private static final ConcurrentHashMap<StateKey, WaterState> OPERATING_WATER =
+  private final ConcurrentHashMap<StateKey, WaterState> operatingWaterStates =
       new ConcurrentHashMap<>();
 
   /**
-   * The water state at an operating point (NaN pressure: saturation), R11-07; cached by the exact
-   * (T, p) like {@link #modelAt}.
+   * The water state at an operating point (NaN pressure: saturation), this evaluator's formulation;
+   * cached by the exact (T, p) like {@link #modelAt}.
    */
-  static WaterState operatingWater(double temperatureK, double pressurePa) {
+  WaterState operatingWater(double temperatureK, double pressurePa) {
     StateKey key = new StateKey(temperatureK, pressurePa);
-    WaterState w = OPERATING_WATER.get(key);
+    WaterState w = operatingWaterStates.get(key);
     if (w != null) {
       return w;
     }
     w =
         Double.isNaN(pressurePa)
-            ? Water.atSaturation(temperatureK, IonizationFormulation.R11_07)
-            : Water.at(temperatureK, pressurePa, IonizationFormulation.R11_07);
-    if (OPERATING_WATER.size() < WATER_CACHE_LIMIT) {
-      OPERATING_WATER.putIfAbsent(key, w);
+            ? Water.atSaturation(temperatureK, ionization)
+            : Water.at(temperatureK, pressurePa, ionization);
+    if (operatingWaterStates.size() < WATER_CACHE_LIMIT) {
+      operatingWaterStates.putIfAbsent(key, w);
     }
     return w;
   }
@@ -319,7 +345,7 @@ public final class Evaluator {
     }
   }
 
-  private static OperatingPh operatingPh(
+  private OperatingPh operatingPh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
     if (config.steam()) {
       return earlyCondensatePh(config, central, perturbed);
@@ -361,7 +387,7 @@ public final class Evaluator {
    * operating pressure (or at the operating temperature on the saturation line when no pressure is
    * declared).
    */
-  private static OperatingPh earlyCondensatePh(
+  private OperatingPh earlyCondensatePh(
       SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
     double p = config.operatingPressurePa();
     double tSat;

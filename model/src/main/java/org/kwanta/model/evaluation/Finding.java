@@ -1,5 +1,7 @@
 package org.kwanta.model.evaluation;
 
+import org.kwanta.model.Instrument;
+
 /**
  * One fired check.
  *

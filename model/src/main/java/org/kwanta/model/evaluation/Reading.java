@@ -1,6 +1,7 @@
 package org.kwanta.model.evaluation;
 
 import java.time.Instant;
+import org.kwanta.model.Parameter;
 
 /**
  * One analyser reading.

@@ -1,5 +1,7 @@
 package org.kwanta.model.evaluation;
 
+import org.kwanta.model.Instrument;
+
 /**
  * Why a consistency check fired. The codes are Kwanta's own; the meaning is one sentence; the
  * suspect is the usual one (signal checks name the analyser of the parameter concerned instead).

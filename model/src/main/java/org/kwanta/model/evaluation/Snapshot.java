@@ -5,6 +5,7 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.model.Parameter;
 
 /**
  * What is known at a sample point at one instant: for each parameter its recent readings, oldest

@@ -3,6 +3,7 @@ package org.kwanta.model.evaluation;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.Species;
 

@@ -1,6 +1,7 @@
 package org.kwanta.model.limits;
 
 import java.util.Objects;
+import org.kwanta.model.Parameter;
 
 /** What a limit profile applies to: treatment regime, kind of sample point, parameter. */
 public record LimitKey(TreatmentRegime regime, CycleLocation location, Parameter parameter) {

@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.kwanta.model.Parameter;
 
 /**
  * The limits of one parameter at one sample point over time: consecutive periods, each with the

@@ -9,6 +9,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Random;
 import java.util.function.DoubleUnaryOperator;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Conductivity;
 import org.kwanta.model.conductivity.Equilibria;
@@ -16,7 +17,6 @@ import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.SolutionModel;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.Evaluator;
-import org.kwanta.model.evaluation.Parameter;
 import org.kwanta.model.evaluation.Reading;
 import org.kwanta.model.evaluation.Regime;
 import org.kwanta.model.evaluation.SamplePointConfig;
@@ -154,7 +154,7 @@ final class StoryBench {
         }
         double phCalc = Double.NaN;
         if (p.sc()) {
-          Evaluation e = Evaluator.evaluate(config, new Snapshot(t, h));
+          Evaluation e = Evaluator.DEFAULT.evaluate(config, new Snapshot(t, h));
           phCalc = e.calculatedPh().map(c -> c.rigorous()).orElse(Double.NaN);
         }
         if (m % every != 0) {

@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.Instrument;
 
 /**
  * The five demo stories of the fictional Brackenmoor Energy Centre, as invented snapshots (demo
@@ -20,7 +21,7 @@ class BrackenmoorStoriesTest {
   @Test
   void normalDayYieldsNoFinding() {
     double[] v = Demo.normalDayReadings();
-    Evaluation e = Evaluator.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.normalDay()));
+    Evaluation e = Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.normalDay()));
     assertThat(v[3]).isBetween(9.6, 9.8);
     assertThat(e.findings()).isEmpty();
     assertThat(e.calculatedPh().orElseThrow().rigorous()).isCloseTo(v[3], within(0.01));
@@ -36,7 +37,7 @@ class BrackenmoorStoriesTest {
    */
   @Test
   void condenserLeakBlamesNoInstrumentInTheInstantChecks() {
-    Evaluation e = Evaluator.evaluate(Demo.u2Cpd(), Demo.snapshot(Demo.condenserLeak()));
+    Evaluation e = Evaluator.DEFAULT.evaluate(Demo.u2Cpd(), Demo.snapshot(Demo.condenserLeak()));
     assertThat(e.findings()).isEmpty();
   }
 
@@ -44,14 +45,16 @@ class BrackenmoorStoriesTest {
   @Test
   void exhaustedColumnIsLeftToTheDiagnosisOverTime() {
     // judged over a day of history with the neighbouring points (StoryBenchTest)
-    Evaluation e = Evaluator.evaluate(Demo.u1MainSteam(), Demo.snapshot(Demo.exhaustedColumn()));
+    Evaluation e =
+        Evaluator.DEFAULT.evaluate(Demo.u1MainSteam(), Demo.snapshot(Demo.exhaustedColumn()));
     assertThat(codes(e)).doesNotContain(ReasonCode.CATION_ABOVE_SPECIFIC);
   }
 
   /** Story 4: drifting pH electrode, Unit 1 feedwater: measured pH wanders from calculated. */
   @Test
   void driftingElectrodePointsAtThePhInstrument() {
-    Evaluation e = Evaluator.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.driftingElectrode()));
+    Evaluation e =
+        Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.driftingElectrode()));
     assertThat(codes(e)).containsExactly(ReasonCode.PH_MEASURED_VS_CALCULATED);
     assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.PH);
   }
@@ -59,7 +62,7 @@ class BrackenmoorStoriesTest {
   /** Story 5: start-up with air in-leakage: CACE high, DCACE normal: carbon dioxide. */
   @Test
   void airInLeakageIsCarbonDioxideNotSalts() {
-    Evaluation e = Evaluator.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.airInLeakage()));
+    Evaluation e = Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.airInLeakage()));
     assertThat(codes(e)).containsExactly(ReasonCode.CARBON_DIOXIDE_INGRESS);
     assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.PROCESS);
     assertThat(e.composition().orElseThrow().carbonDioxideUgPerKg()).isCloseTo(400, within(20.0));

@@ -7,6 +7,7 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.IntToDoubleFunction;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solute;
 import org.kwanta.model.conductivity.Solutes;

@@ -53,7 +53,7 @@ class EvaluationRegressionTest {
       String name, RegressionCases.Case c, Map<String, String> expected) {
     assertThat(expected).as("pinned values for " + name).isNotNull();
     Map<String, String> actual =
-        RegressionCases.flatten(Evaluator.evaluate(c.config(), c.snapshot()));
+        RegressionCases.flatten(Evaluator.DEFAULT.evaluate(c.config(), c.snapshot()));
     assertThat(actual.keySet()).containsExactlyElementsOf(expected.keySet());
     for (Map.Entry<String, String> e : expected.entrySet()) {
       String got = actual.get(e.getKey());
@@ -70,7 +70,7 @@ class EvaluationRegressionTest {
     List<RegressionCases.Case> all = RegressionCases.all();
     List<Evaluation> sequential = new ArrayList<>();
     for (RegressionCases.Case c : all) {
-      sequential.add(Evaluator.evaluate(c.config(), c.snapshot()));
+      sequential.add(Evaluator.DEFAULT.evaluate(c.config(), c.snapshot()));
     }
     ExecutorService pool = Executors.newFixedThreadPool(8);
     try {
@@ -85,7 +85,7 @@ class EvaluationRegressionTest {
                   // each thread walks the cases in its own order, so caches fill concurrently
                   int i = (k + offset + round) % all.size();
                   RegressionCases.Case c = all.get(i);
-                  out.add(Evaluator.evaluate(c.config(), c.snapshot()));
+                  out.add(Evaluator.DEFAULT.evaluate(c.config(), c.snapshot()));
                 }
               }
               return out;

@@ -6,6 +6,7 @@ import java.util.EnumMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solutes;
@@ -74,7 +75,7 @@ final class RegressionCases {
 
   static Snapshot phosphateDrum() {
     double tK = 308.15;
-    SolutionModel m = Evaluator.modelAt(tK, AlkalizerMix.AMMONIA);
+    SolutionModel m = Evaluator.DEFAULT.modelAt(tK, AlkalizerMix.AMMONIA);
     double po4 = 1.5e-3 / 94.971; // 1.5 mg/kg PO4
     double cl = Demo.chloride(20);
     double sc = m.solve(new Solutes(0, 2.8 * po4 + cl, cl, 0, 0, po4)).kappa();

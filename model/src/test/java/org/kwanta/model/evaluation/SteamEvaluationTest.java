@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
 import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.Speciation;
@@ -45,7 +46,7 @@ class SteamEvaluationTest {
   /** The case: main steam at 330 °C and 5 MPa was "internal error"; now it evaluates. */
   @Test
   void mainSteamAt5MPaIsEvaluatedAsItsFirstCondensate() {
-    Evaluation e = Evaluator.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
+    Evaluation e = Evaluator.DEFAULT.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
     assertThat(e.calculatedPh()).isPresent();
     assertThat(e.composition()).isPresent();
     OperatingPh op = e.operatingPh().orElseThrow();
@@ -60,7 +61,7 @@ class SteamEvaluationTest {
   /** 540 °C steam at 16 MPa: accepted, condensing at T_s(16 MPa) ≈ 347 °C. */
   @Test
   void superheatedSteamAt540CIsAccepted() {
-    Evaluation e = Evaluator.evaluate(steam(540, 16, AlkalizerMix.AMMONIA), steamSample());
+    Evaluation e = Evaluator.DEFAULT.evaluate(steam(540, 16, AlkalizerMix.AMMONIA), steamSample());
     assertThat(e.operatingPh().orElseThrow().temperatureK()).isCloseTo(620.5, within(0.1));
   }
 
@@ -94,7 +95,7 @@ class SteamEvaluationTest {
 
   @Test
   void supercriticalSteamHasNoFirstCondensateButKeeps25CResults() {
-    Evaluation e = Evaluator.evaluate(steam(540, 25, AlkalizerMix.AMMONIA), steamSample());
+    Evaluation e = Evaluator.DEFAULT.evaluate(steam(540, 25, AlkalizerMix.AMMONIA), steamSample());
     assertThat(e.operatingPh()).isEmpty();
     assertThat(e.calculatedPh()).isPresent();
     assertThat(e.notes()).singleElement().asString().contains("critical pressure");
@@ -102,7 +103,8 @@ class SteamEvaluationTest {
 
   @Test
   void steamAboveTheCriticalTemperatureNeedsItsPressure() {
-    Evaluation e = Evaluator.evaluate(steam(540, Double.NaN, AlkalizerMix.AMMONIA), steamSample());
+    Evaluation e =
+        Evaluator.DEFAULT.evaluate(steam(540, Double.NaN, AlkalizerMix.AMMONIA), steamSample());
     assertThat(e.operatingPh()).isEmpty();
     assertThat(e.calculatedPh()).isPresent();
     assertThat(e.notes()).singleElement().asString().contains("needs its operating pressure");
@@ -111,7 +113,8 @@ class SteamEvaluationTest {
   @Test
   void amineWithoutDistributionConstantIsNotEvaluatedAtTemperature() {
     Evaluation e =
-        Evaluator.evaluate(steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
+        Evaluator.DEFAULT.evaluate(
+            steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
     assertThat(e.operatingPh()).isEmpty();
     assertThat(e.calculatedPh()).isPresent();
     assertThat(e.notes())
@@ -125,7 +128,7 @@ class SteamEvaluationTest {
   void liquidBeyondTheEngineKeeps25CResults() {
     SamplePointConfig c =
         SamplePointConfig.of("U1-ECO-IN", Regime.AVT_O, AlkalizerMix.AMMONIA, 673.15, 30e6);
-    Evaluation e = Evaluator.evaluate(c, steamSample());
+    Evaluation e = Evaluator.DEFAULT.evaluate(c, steamSample());
     assertThat(e.operatingPh()).isEmpty();
     assertThat(e.calculatedPh()).isPresent();
     assertThat(e.notes()).singleElement().asString().contains("673.15 K");

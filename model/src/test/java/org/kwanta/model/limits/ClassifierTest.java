@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.OptionalDouble;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.Parameter;
 
 /**
  * The state machine: deadband, persistence, values in doubt, calculated values, outside the normal

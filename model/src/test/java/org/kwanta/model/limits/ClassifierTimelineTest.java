@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.Parameter;
 
 /**
  * Classification over limits that change in time: each sample against the profile in force at its

@@ -3,6 +3,7 @@ package org.kwanta.model.limits;
 import java.time.Duration;
 import java.util.List;
 import java.util.OptionalDouble;
+import org.kwanta.model.Parameter;
 
 /**
  * Example profiles for the tests. The numbers are the IAPWS cation-conductivity action levels as

@@ -16,7 +16,7 @@ import org.kwanta.model.conductivity.SolutionModel;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
-import org.kwanta.service.readings.ReadingInput;
+import org.kwanta.service.ingest.ReadingInput;
 
 /**
  * Invented readings for the fictional Brackenmoor plant (demo only, no real plant's data).

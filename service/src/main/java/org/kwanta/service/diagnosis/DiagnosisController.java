@@ -9,7 +9,7 @@ import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
-import org.kwanta.service.readings.IngestRequest;
+import org.kwanta.service.ingest.IngestRequest;
 import org.kwanta.service.system.BadRequestException;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
@@ -82,7 +82,7 @@ class DiagnosisController {
       Double phMeasured,
       Double phCalculated25,
       Double sodiumUgPerKg,
-      List<org.kwanta.service.evaluations.EvaluationView.FindingView> instantChecks,
+      List<org.kwanta.service.ingest.EvaluationView.FindingView> instantChecks,
       List<FindingOut> diagnosis) {}
 
   /** The answer of a what-if run. */

@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.kwanta.model.evaluation.Finding;
-import org.kwanta.service.metrics.MetricNames;
+import org.kwanta.service.system.MetricNames;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.jdbc.core.simple.JdbcClient;

@@ -20,11 +20,12 @@ import org.kwanta.model.diagnosis.CoolingWater;
 import org.kwanta.model.diagnosis.Diagnoser;
 import org.kwanta.model.diagnosis.Minute;
 import org.kwanta.model.evaluation.Finding;
-import org.kwanta.service.evaluations.EvaluationRunner;
-import org.kwanta.service.evaluations.EvaluationView;
-import org.kwanta.service.readings.IngestService;
-import org.kwanta.service.readings.ReadingInput;
-import org.kwanta.service.readings.ValidReading;
+import org.kwanta.service.ingest.EvaluationRunner;
+import org.kwanta.service.ingest.EvaluationView;
+import org.kwanta.service.ingest.IngestService;
+import org.kwanta.service.ingest.ReadingHistory;
+import org.kwanta.service.ingest.ReadingInput;
+import org.kwanta.service.ingest.ValidReading;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.BadRequestException;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -45,6 +46,8 @@ public class DiagnosisService {
 
   private final JdbcClient jdbc;
   private final MinuteSeries minutes;
+  private final EvaluationRunner runner;
+  private final ReadingHistory readings;
   private final SamplePointConfigs configs;
   private final IngestService ingest;
   private final Clock clock;
@@ -54,6 +57,8 @@ public class DiagnosisService {
   DiagnosisService(
       JdbcClient jdbc,
       MinuteSeries minutes,
+      EvaluationRunner runner,
+      ReadingHistory readings,
       SamplePointConfigs configs,
       IngestService ingest,
       Clock clock,
@@ -61,6 +66,8 @@ public class DiagnosisService {
     this.diagnoser = new Diagnoser(properties.settings());
     this.jdbc = jdbc;
     this.minutes = minutes;
+    this.runner = runner;
+    this.readings = readings;
     this.configs = configs;
     this.ingest = ingest;
     this.clock = clock;
@@ -153,14 +160,7 @@ public class DiagnosisService {
     Instant now = clock.instant();
     // every ingest transaction gives the points it wrote a new generation (migration V31): a
     // cached answer is reused only while no new data came in
-    long generations =
-        jdbc.sql(
-                """
-                SELECT coalesce(sum(h.generation), 0) FROM reading_head h
-                JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""")
-            .param(plantId)
-            .query(Long.class)
-            .single();
+    long generations = readings.generations(plantId);
     Current c = current.get(plantId);
     if (c != null
         && c.generations() == generations
@@ -245,7 +245,7 @@ public class DiagnosisService {
       Instant first = readings.get(0).time();
       Instant last = readings.get(readings.size() - 1).time();
       List<EvaluationRunner.Result> results =
-          EvaluationRunner.run(
+          runner.run(
               config.get(id),
               readings,
               first,

@@ -1,6 +1,5 @@
 package org.kwanta.service.diagnosis;
 
-import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -8,7 +7,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import org.kwanta.model.diagnosis.Minute;
-import org.springframework.jdbc.core.simple.JdbcClient;
+import org.kwanta.service.ingest.Evaluations;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.springframework.stereotype.Repository;
 
 /**
@@ -19,10 +19,12 @@ import org.springframework.stereotype.Repository;
 @Repository
 class MinuteSeries {
 
-  private final JdbcClient jdbc;
+  private final Evaluations evaluations;
+  private final ReadingHistory readings;
 
-  MinuteSeries(JdbcClient jdbc) {
-    this.jdbc = jdbc;
+  MinuteSeries(Evaluations evaluations, ReadingHistory readings) {
+    this.evaluations = evaluations;
+    this.readings = readings;
   }
 
   /** Mutable minute while the two queries fill it. */
@@ -41,52 +43,22 @@ class MinuteSeries {
     for (String p : points) {
       rows.put(p, new TreeMap<>());
     }
-    String[] ids = points.toArray(String[]::new);
-    jdbc.sql(
-            """
-            SELECT sample_point_id, date_trunc('minute', time) AS m,
-                   (array_agg(specific_conductivity_25 ORDER BY time DESC)
-                      FILTER (WHERE specific_conductivity_25 IS NOT NULL))[1],
-                   (array_agg(cation_conductivity_25 ORDER BY time DESC)
-                      FILTER (WHERE cation_conductivity_25 IS NOT NULL))[1],
-                   (array_agg(degassed_cation_conductivity_25 ORDER BY time DESC)
-                      FILTER (WHERE degassed_cation_conductivity_25 IS NOT NULL))[1],
-                   (array_agg(calculated_ph_25 ORDER BY time DESC)
-                      FILTER (WHERE calculated_ph_25 IS NOT NULL))[1]
-            FROM evaluation
-            WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?
-            GROUP BY 1, 2""")
-        .params(ids, Timestamp.from(from), Timestamp.from(to))
-        .query(
-            rs -> {
-              Row r =
-                  rows.get(rs.getString(1))
-                      .computeIfAbsent(rs.getTimestamp(2).toInstant(), k -> new Row());
-              r.sc = value(rs, 3);
-              r.cation = value(rs, 4);
-              r.degassed = value(rs, 5);
-              r.calculated = value(rs, 6);
-            });
-    jdbc.sql(
-            """
-            SELECT sample_point_id, date_trunc('minute', time) AS m, parameter,
-                   (array_agg(value ORDER BY time DESC))[1]
-            FROM reading
-            WHERE sample_point_id = ANY (?::text[]) AND parameter IN ('ph', 'sodium')
-              AND quality <> 2 AND time >= ? AND time < ?
-            GROUP BY 1, 2, 3""")
-        .params(ids, Timestamp.from(from), Timestamp.from(to))
-        .query(
-            rs -> {
-              Row r =
-                  rows.get(rs.getString(1))
-                      .computeIfAbsent(rs.getTimestamp(2).toInstant(), k -> new Row());
-              if ("ph".equals(rs.getString(3))) {
-                r.ph = rs.getDouble(4);
-              } else {
-                r.sodium = rs.getDouble(4);
-              }
-            });
+    for (Evaluations.MinuteValues v : evaluations.lastPerMinute(points, from, to)) {
+      Row r = rows.get(v.samplePointId()).computeIfAbsent(v.minute(), k -> new Row());
+      r.sc = v.specificConductivity25();
+      r.cation = v.cationConductivity25();
+      r.degassed = v.degassedCationConductivity25();
+      r.calculated = v.calculatedPh25();
+    }
+    for (ReadingHistory.PointReading v :
+        readings.lastPerMinute(points, List.of("ph", "sodium"), from, to)) {
+      Row r = rows.get(v.samplePointId()).computeIfAbsent(v.time(), k -> new Row());
+      if ("ph".equals(v.parameter())) {
+        r.ph = v.value();
+      } else {
+        r.sodium = v.value();
+      }
+    }
     Map<String, List<Minute>> out = new HashMap<>();
     rows.forEach(
         (id, byMinute) -> {
@@ -98,10 +70,5 @@ class MinuteSeries {
           out.put(id, list);
         });
     return out;
-  }
-
-  private static double value(java.sql.ResultSet rs, int column) throws java.sql.SQLException {
-    double v = rs.getDouble(column);
-    return rs.wasNull() ? Double.NaN : v;
   }
 }

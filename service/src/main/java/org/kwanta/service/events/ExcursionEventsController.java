@@ -11,7 +11,7 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
@@ -112,7 +112,7 @@ class ExcursionEventsController {
   private ExcursionEvents.Member member(ExcursionRef r) {
     Parameter parameter;
     try {
-      parameter = Parameter.ofCode(r.parameter());
+      parameter = Parameter.limitedOfCode(r.parameter());
     } catch (IllegalArgumentException e) {
       throw BadRequestException.of(e.getMessage());
     }

@@ -11,8 +11,9 @@ import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
 import java.util.stream.Collectors;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.TimeWindow;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.operatingstate.OperatingStates;
 import org.kwanta.service.operatingstate.ServiceTime;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -38,8 +39,8 @@ import org.springframework.stereotype.Service;
  * memory — verify): specific, cation and degassed cation conductivity, pH, sodium and dissolved
  * oxygen, at the sample points that declare them or that hold readings of them in the period.
  *
- * <p>One SQL statement per unit, bounded in time on both {@code reading} and {@code evaluation} so
- * that PostgreSQL prunes their daily partitions to the period.
+ * <p>One SQL statement per unit ({@link ReadingHistory#slotCounts}), bounded in time on both {@code
+ * reading} and {@code evaluation} so that PostgreSQL prunes their daily partitions to the period.
  */
 @Service
 public class Availability {
@@ -75,34 +76,18 @@ public class Availability {
     }
   }
 
-  /**
-   * Per sample point and parameter: slots (aligned on ?) holding any reading, and holding a good
-   * one not in doubt, among slots whose start lies in the in-service multirange. Parameters: slot,
-   * origin, slot, origin, from, to (evaluation), points, parameters, from, to (reading), slot,
-   * origin, in-service multirange.
-   */
-  static final String COUNT =
-      """
-      SELECT r.sample_point_id, r.parameter,
-             count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)),
-             count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)) FILTER (
-               WHERE r.quality = 0
-                 AND NOT coalesce(e.suspects && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false))
-      FROM reading r
-      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
-                            AND e.time >= ? AND e.time < ?
-      WHERE r.sample_point_id = ANY(string_to_array(?, ','))
-        AND r.parameter = ANY(string_to_array(?, ','))
-        AND r.time >= ? AND r.time < ?
-        AND date_bin(?::interval, r.time, ?::timestamptz) <@ ?::tstzmultirange
-      GROUP BY r.sample_point_id, r.parameter""";
-
   private final JdbcClient jdbc;
+  private final ReadingHistory readings;
   private final OperatingStates states;
   private final InstrumentCareProperties properties;
 
-  Availability(JdbcClient jdbc, OperatingStates states, InstrumentCareProperties properties) {
+  Availability(
+      JdbcClient jdbc,
+      ReadingHistory readings,
+      OperatingStates states,
+      InstrumentCareProperties properties) {
     this.jdbc = jdbc;
+    this.readings = readings;
     this.states = states;
     this.properties = properties;
   }
@@ -126,28 +111,8 @@ public class Availability {
       long inServiceSlots = slotsInService(service, from, to, slot);
       String points = unit.getValue().stream().map(r -> r[1]).collect(Collectors.joining(","));
       Map<String, long[]> counts = new LinkedHashMap<>();
-      jdbc.sql(COUNT)
-          .params(
-              interval,
-              ts(from),
-              interval,
-              ts(from),
-              ts(from),
-              ts(to),
-              points,
-              core,
-              ts(from),
-              ts(to),
-              interval,
-              ts(from),
-              multirange(service.counted()))
-          .query(
-              (rs, i) ->
-                  Map.entry(
-                      rs.getString(1) + "|" + rs.getString(2),
-                      new long[] {rs.getLong(3), rs.getLong(4)}))
-          .list()
-          .forEach(e -> counts.put(e.getKey(), e.getValue()));
+      counts.putAll(
+          readings.slotCounts(points, core, from, to, interval, multirange(service.counted())));
       for (String[] point : unit.getValue()) {
         for (Parameter p : CORE) {
           long[] c = counts.get(point[1] + "|" + p.code());

@@ -1,7 +1,7 @@
 package org.kwanta.service.instruments;
 
 import java.util.Set;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 
 /** The calibrations and checks of online instruments that the log records, and what each is for. */
 public enum CheckKind {

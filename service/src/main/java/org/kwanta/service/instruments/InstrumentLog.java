@@ -3,7 +3,7 @@ package org.kwanta.service.instruments;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.List;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.audit.AuditLog;
 import org.springframework.jdbc.core.simple.JdbcClient;

@@ -11,7 +11,7 @@ import java.time.Instant;
 import java.time.YearMonth;
 import java.time.ZoneOffset;
 import java.util.List;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.TimeParameters;

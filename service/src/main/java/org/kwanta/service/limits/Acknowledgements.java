@@ -4,7 +4,7 @@ import java.time.Instant;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.audit.AuditLog;
 import org.springframework.stereotype.Service;

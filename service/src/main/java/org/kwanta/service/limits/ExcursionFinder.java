@@ -9,6 +9,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Classifier;
 import org.kwanta.model.limits.CycleLocation;
@@ -17,8 +18,8 @@ import org.kwanta.model.limits.Excursions;
 import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitTimeline;
-import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.Sample;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.operatingstate.OperatingStates;
 import org.kwanta.service.operatingstate.ServiceTime;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -47,12 +48,19 @@ public class ExcursionFinder {
   static final Duration LOOKBACK = Duration.ofDays(8);
 
   private final JdbcClient jdbc;
+  private final ReadingHistory readings;
   private final Limits limits;
   private final Clock clock;
   private final OperatingStates states;
 
-  ExcursionFinder(JdbcClient jdbc, Limits limits, Clock clock, OperatingStates states) {
+  ExcursionFinder(
+      JdbcClient jdbc,
+      ReadingHistory readings,
+      Limits limits,
+      Clock clock,
+      OperatingStates states) {
     this.jdbc = jdbc;
+    this.readings = readings;
     this.limits = limits;
     this.clock = clock;
     this.states = states;
@@ -109,25 +117,6 @@ public class ExcursionFinder {
     }
   }
 
-  /**
-   * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
-   * Both sides carry the time range, so PostgreSQL prunes the daily partitions of both tables (a
-   * bound on the readings alone left every evaluation partition in the plan). Parameters: the
-   * parameter's instrument name, from, to, sample point, parameter code, from, to.
-   */
-  static final String CLASSIFY =
-      """
-      SELECT r.time, r.value,
-             r.quality = 2
-               OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
-             e.calculated_ph_25,
-             coalesce('PH' = ANY(e.suspects), false)
-      FROM reading r
-      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
-                            AND e.time >= ? AND e.time <= ?
-      WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
-      ORDER BY r.time""";
-
   /** A chemist's acknowledgement, by the key that made it. */
   public record Acknowledgement(Instant at, String byKeyId, String byKeyName, String note) {}
 
@@ -152,42 +141,19 @@ public class ExcursionFinder {
 
   private List<Classification> classify(
       Limits.Point point, LimitTimeline limits, Parameter parameter, Instant from, Instant to) {
-    List<Row> rows =
-        jdbc.sql(CLASSIFY)
-            .params(
-                parameter.name(),
-                Timestamp.from(from),
-                Timestamp.from(to),
-                point.id(),
-                parameter.code(),
-                Timestamp.from(from),
-                Timestamp.from(to))
-            .query(
-                (rs, i) -> {
-                  Instant time = rs.getTimestamp(1).toInstant();
-                  double measured = rs.getDouble(2);
-                  boolean inDoubt = rs.getBoolean(3);
-                  double calculated = rs.getDouble(4);
-                  boolean hasCalculated = !rs.wasNull() && Double.isFinite(calculated);
-                  return new Row(
-                      time, measured, inDoubt, hasCalculated ? calculated : null, rs.getBoolean(5));
-                })
-            .list();
+    List<ReadingHistory.Judged> rows =
+        readings.judged(point.id(), parameter.code(), parameter.name(), from, to);
     List<Sample> samples = new ArrayList<>(rows.size());
-    for (Row r : rows) {
+    for (ReadingHistory.Judged r : rows) {
       boolean phFallback =
           limits.at(r.time()).map(p -> usesCalculatedPhFallback(p.key())).orElse(false);
       samples.add(
-          phFallback && r.phSuspected() && r.calculated() != null
-              ? new Sample(r.time(), r.calculated(), true, true)
-              : new Sample(r.time(), r.measured(), r.inDoubt(), false));
+          phFallback && r.phSuspected() && r.calculatedPh25() != null
+              ? new Sample(r.time(), r.calculatedPh25(), true, true)
+              : new Sample(r.time(), r.value(), r.inDoubt(), false));
     }
     return new Classifier(limits).classify(samples);
   }
-
-  /** One stored reading with what its evaluation says about it. */
-  private record Row(
-      Instant time, double measured, boolean inDoubt, Double calculated, boolean phSuspected) {}
 
   /** True for drum water pH: classified on the calculated pH while the electrode is in doubt. */
   static boolean usesCalculatedPhFallback(LimitKey key) {

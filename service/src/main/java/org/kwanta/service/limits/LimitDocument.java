@@ -4,11 +4,11 @@ import java.time.Duration;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import java.util.OptionalDouble;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.NormalRange;
-import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.Side;
 import org.kwanta.model.limits.Threshold;
 
@@ -106,7 +106,7 @@ public record LimitDocument(
 
   Parameter parameterOrThrow() {
     require(parameter != null, "limits: 'parameter' is missing");
-    return Parameter.ofCode(parameter);
+    return Parameter.limitedOfCode(parameter);
   }
 
   private static OptionalDouble optional(Double d) {

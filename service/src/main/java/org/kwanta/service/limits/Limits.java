@@ -8,11 +8,11 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.TreeSet;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
 import org.kwanta.model.limits.LimitTimeline;
-import org.kwanta.model.limits.Parameter;
 import org.kwanta.model.limits.PlantType;
 import org.kwanta.model.limits.TreatmentRegime;
 import org.kwanta.service.audit.AuditLog;
@@ -283,7 +283,7 @@ public class Limits {
     List<RegimeVersion> regimes = regimeVersions(point);
     List<DefaultLimitVersions.Activation> activations = defaultVersions.activations();
     java.util.Map<Parameter, History> out = new java.util.EnumMap<>(Parameter.class);
-    for (Parameter parameter : Parameter.values()) {
+    for (Parameter parameter : Parameter.limited()) {
       History h =
           history(
               point,

@@ -1,7 +1,7 @@
 package org.kwanta.service.limits;
 
 import java.util.Map;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.model.Parameter;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
@@ -24,7 +24,7 @@ final class WebLookups {
 
   static Parameter parameter(String code) {
     try {
-      return Parameter.ofCode(code);
+      return Parameter.limitedOfCode(code);
     } catch (IllegalArgumentException e) {
       throw BadRequestException.of(e.getMessage());
     }

@@ -3,7 +3,6 @@ package org.kwanta.service.metrics;
 import io.micrometer.core.instrument.MeterRegistry;
 import io.micrometer.core.instrument.MultiGauge;
 import io.micrometer.core.instrument.Tags;
-import java.sql.Timestamp;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
@@ -13,10 +12,12 @@ import java.util.List;
 import java.util.Map;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Level;
+import org.kwanta.service.ingest.Evaluations;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
+import org.kwanta.service.system.MetricNames;
 import org.springframework.beans.factory.annotation.Value;
-import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.scheduling.annotation.Scheduled;
 import org.springframework.stereotype.Component;
 
@@ -25,7 +26,7 @@ import org.springframework.stereotype.Component;
  * in level, instrument in doubt, reading age, the deadline of a running excursion) and the pH at
  * temperature per sample point, refreshed on a schedule from the stored readings and evaluations
  * ({@code kwanta.metrics.refresh}, default 30 s). The level looks back {@code
- * kwanta.metrics.level-window} (default one day), so time in level is capped at that window.
+ * kwanta.metrics.level-window} (default one day, P1D), so time in level is capped at that window.
  *
  * <p>The excursion deadline is the one {@code GET /api/v1/excursions} answers (as reported, by
  * {@link ExcursionFinder#find}, which reads 8 days back so that a running excursion is whole): it
@@ -35,7 +36,8 @@ import org.springframework.stereotype.Component;
 @Component
 class SampleMetrics {
 
-  private final JdbcClient jdbc;
+  private final ReadingHistory readings;
+  private final Evaluations evaluations;
   private final Limits limits;
   private final ExcursionFinder finder;
   private final Clock clock;
@@ -54,12 +56,14 @@ class SampleMetrics {
 
   SampleMetrics(
       MeterRegistry registry,
-      JdbcClient jdbc,
+      ReadingHistory readings,
+      Evaluations evaluations,
       Limits limits,
       ExcursionFinder finder,
       Clock clock,
       @Value("${kwanta.metrics.level-window:P1D}") Duration window) {
-    this.jdbc = jdbc;
+    this.readings = readings;
+    this.evaluations = evaluations;
     this.limits = limits;
     this.finder = finder;
     this.clock = clock;
@@ -89,9 +93,6 @@ class SampleMetrics {
 
   private record Latest(Instant time, double value) {}
 
-  private static final String[] PARAMETER_CODES =
-      org.kwanta.service.readings.MeasuredParameter.codeArray();
-
   @Scheduled(
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",
       initialDelayString = "${kwanta.metrics.initial-delay:PT5S}")
@@ -99,54 +100,21 @@ class SampleMetrics {
     Instant now = clock.instant();
     Instant since = now.minus(window);
     Map<String, Latest> latest = new HashMap<>();
-    jdbc.sql(
-            """
-            SELECT s.id, p.code, r.time, r.value
-            FROM sample_point s CROSS JOIN unnest(?::text[]) AS p(code)
-            CROSS JOIN LATERAL (
-              SELECT time, value FROM reading
-              WHERE sample_point_id = s.id AND parameter = p.code AND time >= ?
-              ORDER BY time DESC LIMIT 1) r""")
-        .param(PARAMETER_CODES)
-        .param(Timestamp.from(since))
-        .query(
-            (org.springframework.jdbc.core.RowCallbackHandler)
-                rs -> {
-                  latest.put(
-                      rs.getString(1) + "|" + rs.getString(2),
-                      new Latest(rs.getTimestamp(3).toInstant(), rs.getDouble(4)));
-                });
+    for (ReadingHistory.PointReading r : readings.latestSince(since)) {
+      latest.put(r.samplePointId() + "|" + r.parameter(), new Latest(r.time(), r.value()));
+    }
     Map<String, Double> ph = new HashMap<>();
     Map<String, Double> neutral = new HashMap<>();
-    jdbc.sql(
-            """
-            SELECT s.id, e.ph_at_temperature, e.neutral_ph_at_temperature FROM sample_point s
-            CROSS JOIN LATERAL (
-              SELECT ph_at_temperature, neutral_ph_at_temperature FROM evaluation
-              WHERE sample_point_id = s.id AND time >= ? AND ph_at_temperature IS NOT NULL
-              ORDER BY time DESC LIMIT 1) e""")
-        .param(Timestamp.from(since))
-        .query(
-            (org.springframework.jdbc.core.RowCallbackHandler)
-                rs -> {
-                  ph.put(rs.getString(1), rs.getDouble(2));
-                  double n = rs.getDouble(3);
-                  if (!rs.wasNull()) {
-                    neutral.put(rs.getString(1), n);
-                  }
-                });
-    Map<String, Double> calculated = new HashMap<>();
-    jdbc.sql(
-            """
-            SELECT s.id, e.calculated_ph_25 FROM sample_point s
-            CROSS JOIN LATERAL (
-              SELECT calculated_ph_25 FROM evaluation
-              WHERE sample_point_id = s.id AND time >= ? AND calculated_ph_25 IS NOT NULL
-              ORDER BY time DESC LIMIT 1) e""")
-        .param(Timestamp.from(since))
-        .query(
-            (org.springframework.jdbc.core.RowCallbackHandler)
-                rs -> calculated.put(rs.getString(1), rs.getDouble(2)));
+    evaluations
+        .latestPhAtTemperature(since)
+        .forEach(
+            (point, p) -> {
+              ph.put(point, p.ph());
+              if (!Double.isNaN(p.neutralPh())) {
+                neutral.put(point, p.neutralPh());
+              }
+            });
+    Map<String, Double> calculated = evaluations.latestCalculatedPh(since);
 
     List<MultiGauge.Row<?>> values = new ArrayList<>();
     List<MultiGauge.Row<?>> ages = new ArrayList<>();
@@ -225,7 +193,7 @@ class SampleMetrics {
    */
   private void deadlineRows(
       Limits.Point point,
-      org.kwanta.model.limits.Parameter parameter,
+      org.kwanta.model.Parameter parameter,
       Instant now,
       Tags tags,
       List<MultiGauge.Row<?>> out) {

@@ -4,14 +4,14 @@ import com.fasterxml.jackson.annotation.JsonProperty;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
-import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.CycleLocation;
-import org.kwanta.model.limits.Parameter;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.springframework.core.io.ResourceLoader;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
@@ -88,9 +88,15 @@ public class HoldPoints {
 
   private final List<HoldPoint> holdPoints;
   private final JdbcClient jdbc;
+  private final ReadingHistory readings;
 
-  HoldPoints(StartupProperties properties, ResourceLoader resources, JdbcClient jdbc) {
+  HoldPoints(
+      StartupProperties properties,
+      ResourceLoader resources,
+      JdbcClient jdbc,
+      ReadingHistory readings) {
     this.jdbc = jdbc;
+    this.readings = readings;
     YAMLMapper yaml =
         YAMLMapper.builder().enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES).build();
     try (InputStream in = resources.getResource(properties.location()).getInputStream()) {
@@ -131,23 +137,12 @@ public class HoldPoints {
 
   /** The latest reading that is not of bad quality within RECENT before {@code at}, judged. */
   private Result latest(HoldPoint h, String point, Instant at) {
-    return jdbc.sql(
-            """
-            SELECT time, value FROM reading
-            WHERE sample_point_id = ? AND parameter = ? AND time > ? AND time <= ? AND quality < 2
-            ORDER BY time DESC LIMIT 1""")
-        .params(point, h.parameter(), Timestamp.from(at.minus(RECENT)), Timestamp.from(at))
-        .query(
-            (rs, i) -> {
-              double v = rs.getDouble(2);
-              return new Result(
-                  h,
-                  point,
-                  v,
-                  rs.getTimestamp(1).toInstant(),
-                  h.met(v) ? Status.MET : Status.NOT_MET);
-            })
-        .optional()
+    return readings
+        .latestNotBad(point, h.parameter(), at.minus(RECENT), at)
+        .map(
+            r ->
+                new Result(
+                    h, point, r.value(), r.time(), h.met(r.value()) ? Status.MET : Status.NOT_MET))
         .orElse(new Result(h, point, null, null, Status.NO_DATA));
   }
 }

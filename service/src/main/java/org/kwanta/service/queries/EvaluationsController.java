@@ -3,22 +3,20 @@ package org.kwanta.service.queries;
 import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.Parameter;
 import io.swagger.v3.oas.annotations.tags.Tag;
-import java.sql.Timestamp;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
-import org.kwanta.service.evaluations.EvaluationView;
+import org.kwanta.service.ingest.Evaluations;
+import org.kwanta.service.ingest.Evaluations.Stored;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.BadRequestException;
-import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RequestParam;
 import org.springframework.web.bind.annotation.RestController;
-import tools.jackson.databind.json.JsonMapper;
 
 @RestController
 @Tag(name = "Queries")
@@ -26,20 +24,15 @@ class EvaluationsController {
 
   static final int MAX_LIMIT = 5000;
 
-  private final JdbcClient jdbc;
-  private final JsonMapper json;
+  private final Evaluations stored;
   private final Plants plants;
   private final Clock clock;
 
-  EvaluationsController(JdbcClient jdbc, JsonMapper json, Plants plants, Clock clock) {
-    this.jdbc = jdbc;
-    this.json = json;
+  EvaluationsController(Evaluations stored, Plants plants, Clock clock) {
+    this.stored = stored;
     this.plants = plants;
     this.clock = clock;
   }
-
-  /** One stored evaluation. */
-  record Stored(Instant time, EvaluationView evaluation) {}
 
   /** A page of stored evaluations; {@code next} is the {@code from} of the next page, or null. */
   record Page(
@@ -69,18 +62,7 @@ class EvaluationsController {
     if (!start.isBefore(end)) {
       throw BadRequestException.of("from must be before to");
     }
-    List<Stored> rows =
-        jdbc.sql(
-                """
-                SELECT time, details::text FROM evaluation
-                WHERE sample_point_id = ? AND time >= ? AND time < ? ORDER BY time LIMIT ?""")
-            .params(samplePointId, Timestamp.from(start), Timestamp.from(end), limit + 1)
-            .query(
-                (rs, i) ->
-                    new Stored(
-                        rs.getTimestamp(1).toInstant(),
-                        json.readValue(rs.getString(2), EvaluationView.class)))
-            .list();
+    List<Stored> rows = stored.range(samplePointId, start, end, limit + 1);
     Instant next = null;
     if (rows.size() > limit) {
       next = rows.get(limit).time();

@@ -9,6 +9,7 @@ import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import java.util.Locale;
+import org.kwanta.service.ingest.StoredSeries;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ResponseFormats;
@@ -33,10 +34,10 @@ class SeriesController {
   static final int MAX_BUCKETS = 10_000;
   static final Duration MAX_RANGE = Duration.ofDays(400);
 
-  private final Series series;
+  private final StoredSeries series;
   private final SamplePointConfigs configs;
 
-  SeriesController(Series series, SamplePointConfigs configs) {
+  SeriesController(StoredSeries series, SamplePointConfigs configs) {
     this.series = series;
     this.configs = configs;
   }
@@ -49,8 +50,8 @@ class SeriesController {
       Instant from,
       Instant to,
       Long bucketSeconds,
-      List<Series.Point> points,
-      List<Series.Bucket> buckets,
+      List<StoredSeries.Point> points,
+      List<StoredSeries.Bucket> buckets,
       Instant next) {}
 
   @GetMapping(
@@ -109,15 +110,21 @@ class SeriesController {
       if (n < 1 || n > MAX_LIMIT) {
         throw BadRequestException.of("limit must be in [1, " + MAX_LIMIT + "]");
       }
-      List<Series.Point> points =
+      List<StoredSeries.Point> points =
           series.raw(
-              samplePointId, p, start, end, after == null ? null : instant("after", after), n);
+              samplePointId,
+              p.source(),
+              start,
+              end,
+              after == null ? null : instant("after", after),
+              n);
       Instant next = points.size() == n ? points.get(n - 1).time() : null;
       response =
           new SeriesResponse(
               samplePointId, p.code(), p.unit(), start, end, null, points, null, next);
     } else {
-      List<Series.Bucket> buckets = series.bucketed(samplePointId, p, start, end, size);
+      List<StoredSeries.Bucket> buckets =
+          series.bucketed(samplePointId, p.source(), start, end, size);
       response =
           new SeriesResponse(
               samplePointId, p.code(), p.unit(), start, end, size.toSeconds(), null, buckets, null);

@@ -1,6 +1,7 @@
 package org.kwanta.service.queries;
 
 import java.util.Locale;
+import org.kwanta.service.ingest.StoredSeries;
 
 /** CSV (RFC 4180) of a series; the header names the unit of each column. */
 final class SeriesCsv {
@@ -12,7 +13,7 @@ final class SeriesCsv {
     String unit = r.unit().replace("[", "").replace("]", "").replace("/", "_per_");
     if (r.points() != null) {
       sb.append("time,").append(r.parameter()).append('_').append(unit).append(",quality\r\n");
-      for (Series.Point p : r.points()) {
+      for (StoredSeries.Point p : r.points()) {
         sb.append(p.time())
             .append(',')
             .append(p.value() == null ? "" : p.value().toString())
@@ -30,7 +31,7 @@ final class SeriesCsv {
           .append(",last_")
           .append(unit)
           .append(",count\r\n");
-      for (Series.Bucket b : r.buckets()) {
+      for (StoredSeries.Bucket b : r.buckets()) {
         sb.append(
                 String.format(
                     Locale.ROOT,

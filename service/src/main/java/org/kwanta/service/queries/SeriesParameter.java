@@ -1,11 +1,11 @@
 package org.kwanta.service.queries;
 
 import java.util.Arrays;
-import java.util.Locale;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.kwanta.service.readings.MeasuredParameter;
+import org.kwanta.model.Parameter;
+import org.kwanta.service.ingest.StoredSeries;
 
 /**
  * A parameter a series can be asked for: a measured one (stored readings, canonical unit) or a
@@ -13,51 +13,31 @@ import org.kwanta.service.readings.MeasuredParameter;
  *
  * @param code API code
  * @param unit UCUM unit of the values
- * @param table {@code reading} or {@code evaluation}
- * @param column the value column
+ * @param source where the values are stored
  */
-record SeriesParameter(String code, String unit, String table, String column) {
-
-  enum Derived {
-    SPECIFIC_CONDUCTIVITY_25("uS/cm"),
-    CATION_CONDUCTIVITY_25("uS/cm"),
-    DEGASSED_CATION_CONDUCTIVITY_25("uS/cm"),
-    CALCULATED_PH_25("[pH]"),
-    PH_AT_TEMPERATURE("[pH]"),
-    PH_AT_TEMPERATURE_LOW("[pH]"),
-    PH_AT_TEMPERATURE_HIGH("[pH]"),
-    NEUTRAL_PH_AT_TEMPERATURE("[pH]");
-
-    final String unit;
-
-    Derived(String unit) {
-      this.unit = unit;
-    }
-
-    String code() {
-      return name().toLowerCase(Locale.ROOT);
-    }
-  }
+record SeriesParameter(String code, String unit, StoredSeries.Source source) {
 
   boolean measured() {
-    return "reading".equals(table);
+    return source.measured();
   }
 
   static Optional<SeriesParameter> byCode(String code) {
-    Optional<MeasuredParameter> m = MeasuredParameter.byCode(code);
+    Optional<Parameter> m = Parameter.byCode(code);
     if (m.isPresent()) {
-      return Optional.of(new SeriesParameter(code, m.get().canonicalUnit(), "reading", "value"));
+      return Optional.of(
+          new SeriesParameter(code, m.get().unit(), StoredSeries.Source.readings(code)));
     }
-    return Arrays.stream(Derived.values())
+    return Arrays.stream(StoredSeries.DerivedColumn.values())
         .filter(d -> d.code().equals(code))
         .findFirst()
-        .map(d -> new SeriesParameter(d.code(), d.unit, "evaluation", d.code()));
+        .map(d -> new SeriesParameter(d.code(), d.unit(), StoredSeries.Source.evaluations(d)));
   }
 
   static String codes() {
     return Stream.concat(
-            Arrays.stream(MeasuredParameter.values()).map(MeasuredParameter::code),
-            Arrays.stream(Derived.values()).map(Derived::code))
+            Arrays.stream(Parameter.values()).map(Parameter::code),
+            Arrays.stream(StoredSeries.DerivedColumn.values())
+                .map(StoredSeries.DerivedColumn::code))
         .collect(Collectors.joining(", "));
   }
 }

@@ -1,17 +1,16 @@
 package org.kwanta.service.queries;
 
-import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
-import org.kwanta.service.evaluations.EvaluationView;
-import org.kwanta.service.readings.MeasuredParameter;
-import org.kwanta.service.readings.ValidReading;
+import org.kwanta.model.Parameter;
+import org.kwanta.service.ingest.EvaluationView;
+import org.kwanta.service.ingest.Evaluations;
+import org.kwanta.service.ingest.ReadingHistory;
+import org.kwanta.service.ingest.ValidReading;
 import org.springframework.beans.factory.annotation.Value;
-import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * The latest state of sample points: each parameter's latest reading with its age, the current
@@ -25,41 +24,21 @@ import tools.jackson.databind.json.JsonMapper;
 @Repository
 class States {
 
-  private final JdbcTemplate jdbc;
-  private final JsonMapper json;
+  private final ReadingHistory readings;
+  private final Evaluations evaluations;
   private final CurrentLevels levels;
   private final Duration lookBack;
 
   States(
-      JdbcTemplate jdbc,
-      JsonMapper json,
+      ReadingHistory readings,
+      Evaluations evaluations,
       CurrentLevels levels,
       @Value("${kwanta.queries.latest-look-back:P35D}") Duration lookBack) {
-    this.jdbc = jdbc;
-    this.json = json;
+    this.readings = readings;
+    this.evaluations = evaluations;
     this.levels = levels;
     this.lookBack = lookBack;
   }
-
-  /**
-   * Each parameter's latest reading at a point since a time. Parameters: the parameter codes, the
-   * sample point, the earliest time.
-   */
-  static final String LATEST_READINGS =
-      """
-      SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
-      FROM unnest(?::text[]) AS p(code)
-      CROSS JOIN LATERAL (
-        SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
-        WHERE sample_point_id = ? AND parameter = p.code AND time >= ?
-        ORDER BY time DESC LIMIT 1) r
-      ORDER BY p.code""";
-
-  /** The latest evaluation at a point since a time. Parameters: the sample point, the time. */
-  static final String LATEST_EVALUATION =
-      """
-      SELECT time, details::text FROM evaluation WHERE sample_point_id = ? AND time >= ?
-      ORDER BY time DESC LIMIT 1""";
 
   /** A parameter's latest reading. */
   record Latest(
@@ -102,38 +81,31 @@ class States {
       org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
     Instant since = now.minus(lookBack);
     List<Latest> latest =
-        jdbc.query(
-            LATEST_READINGS,
-            (rs, i) -> {
-              MeasuredParameter p = MeasuredParameter.byCode(rs.getString(1)).orElseThrow();
-              Instant t = rs.getTimestamp(2).toInstant();
-              double temperature = rs.getDouble(5);
-              Double sampleTemperature = rs.wasNull() ? null : temperature;
-              return new Latest(
-                  p.code(),
-                  p.canonicalUnit(),
-                  t,
-                  Duration.between(t, now).toMillis() / 1000.0,
-                  rs.getDouble(3),
-                  ValidReading.Quality.ofCode(rs.getInt(4)).name().toLowerCase(Locale.ROOT),
-                  sampleTemperature,
-                  p.isConductivity() ? rs.getBoolean(6) : null);
-            },
-            (Object) MeasuredParameter.codeArray(),
-            samplePointId,
-            Timestamp.from(since));
-    List<LatestEvaluation> evaluation =
-        jdbc.query(
-            LATEST_EVALUATION,
-            (rs, i) -> {
-              Instant t = rs.getTimestamp(1).toInstant();
-              return new LatestEvaluation(
-                  t,
-                  Duration.between(t, now).toMillis() / 1000.0,
-                  json.readValue(rs.getString(2), EvaluationView.class));
-            },
-            samplePointId,
-            Timestamp.from(since));
+        readings.latestPerParameter(samplePointId, since).stream()
+            .map(
+                r -> {
+                  Parameter p = Parameter.byCode(r.parameter()).orElseThrow();
+                  return new Latest(
+                      p.code(),
+                      p.unit(),
+                      r.time(),
+                      Duration.between(r.time(), now).toMillis() / 1000.0,
+                      r.value(),
+                      ValidReading.Quality.ofCode(r.quality()).name().toLowerCase(Locale.ROOT),
+                      Double.isNaN(r.sampleTemperatureCel()) ? null : r.sampleTemperatureCel(),
+                      p.isConductivity() ? r.compensated() : null);
+                })
+            .toList();
+    LatestEvaluation evaluation =
+        evaluations
+            .latest(samplePointId, since)
+            .map(
+                e ->
+                    new LatestEvaluation(
+                        e.time(),
+                        Duration.between(e.time(), now).toMillis() / 1000.0,
+                        e.evaluation()))
+            .orElse(null);
     return new State(
         samplePointId,
         name,
@@ -142,7 +114,7 @@ class States {
         now,
         latest,
         levels.of(samplePointId, now),
-        evaluation.isEmpty() ? null : evaluation.get(0),
+        evaluation,
         diagnosis == null
             ? null
             : new Diagnosis(

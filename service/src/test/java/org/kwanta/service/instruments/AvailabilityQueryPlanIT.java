@@ -65,7 +65,7 @@ class AvailabilityQueryPlanIT {
     String plan =
         jdbc
             .queryForList(
-                "EXPLAIN " + Availability.COUNT,
+                "EXPLAIN " + org.kwanta.service.ingest.ReadingHistory.SLOT_COUNTS,
                 String.class,
                 "900 seconds",
                 f,

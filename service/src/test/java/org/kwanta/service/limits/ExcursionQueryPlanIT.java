@@ -9,7 +9,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
-import org.kwanta.service.readings.Partitions;
+import org.kwanta.service.ingest.Partitions;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.QueryPlans;
 import org.springframework.beans.factory.annotation.Autowired;
@@ -35,7 +36,7 @@ class ExcursionQueryPlanIT {
     List<String> plan =
         QueryPlans.explain(
             jdbc,
-            ExcursionFinder.CLASSIFY,
+            ReadingHistory.JUDGED,
             "PH",
             Timestamp.from(from),
             Timestamp.from(to),

@@ -14,6 +14,7 @@ import java.util.UUID;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.Http;
+import org.kwanta.service.system.MetricNames;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.web.server.LocalServerPort;
 

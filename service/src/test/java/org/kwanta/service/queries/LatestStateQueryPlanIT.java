@@ -9,8 +9,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
-import org.kwanta.service.readings.MeasuredParameter;
-import org.kwanta.service.readings.Partitions;
+import org.kwanta.model.Parameter;
+import org.kwanta.service.ingest.Evaluations;
+import org.kwanta.service.ingest.Partitions;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.QueryPlans;
 import org.springframework.beans.factory.annotation.Autowired;
@@ -43,14 +45,15 @@ class LatestStateQueryPlanIT {
 
     List<String> readings =
         QueryPlans.explain(
-            jdbc, States.LATEST_READINGS, (Object) MeasuredParameter.codeArray(), "U1-CPD", since);
+            jdbc, ReadingHistory.LATEST_READINGS, (Object) Parameter.codeArray(), "U1-CPD", since);
     Map<String, Set<String>> touched = QueryPlans.partitions(readings);
     assertThat(touched.get("reading"))
         .as(String.join("\n", readings))
         .isNotEmpty()
         .hasSizeLessThanOrEqualTo(MAX_PARTITIONS);
 
-    List<String> evaluation = QueryPlans.explain(jdbc, States.LATEST_EVALUATION, "U1-CPD", since);
+    List<String> evaluation =
+        QueryPlans.explain(jdbc, Evaluations.LATEST_EVALUATION, "U1-CPD", since);
     assertThat(QueryPlans.partitions(evaluation).get("evaluation"))
         .as(String.join("\n", evaluation))
         .isNotEmpty()

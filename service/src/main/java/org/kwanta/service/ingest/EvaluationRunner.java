@@ -1,0 +1,238 @@
+package org.kwanta.service.ingest;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeSet;
+import org.kwanta.model.OutOfValidityRangeException;
+import org.kwanta.model.Parameter;
+import org.kwanta.model.evaluation.Evaluation;
+import org.kwanta.model.evaluation.Evaluator;
+import org.kwanta.model.evaluation.Reading;
+import org.kwanta.model.evaluation.Snapshot;
+import org.kwanta.service.samplepoints.SamplePointConfigs;
+import org.kwanta.service.water.WaterProperties;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+
+/**
+ * Recomputes the evaluations of one sample point over a time range from its stored readings. Pure
+ * apart from the input it is given: the same readings always give the same evaluations, whatever
+ * order they arrived in.
+ */
+@org.springframework.stereotype.Component
+public final class EvaluationRunner {
+
+  private static final Logger log = LoggerFactory.getLogger(EvaluationRunner.class);
+
+  /** The engine, with the formulation {@code kwanta.water.ionization} names and its caches. */
+  private final Evaluator evaluator;
+
+  @org.springframework.beans.factory.annotation.Autowired
+  EvaluationRunner(WaterProperties water) {
+    this(new Evaluator(water.ionization()));
+  }
+
+  /** A runner over the given engine (tests, benchmarks). */
+  public EvaluationRunner(Evaluator evaluator) {
+    this.evaluator = evaluator;
+  }
+
+  /** The engine this runner evaluates with. */
+  public Evaluator evaluator() {
+    return evaluator;
+  }
+
+  /**
+   * A stored reading as the evaluation needs it; {@code sampleTemperatureCel} is NaN when absent.
+   */
+  public record StoredReading(
+      String parameter,
+      Instant time,
+      double value,
+      short quality,
+      double sampleTemperatureCel,
+      boolean compensated) {}
+
+  /** One evaluation to store. */
+  public record Result(String samplePointId, Instant time, EvaluationView view) {}
+
+  /**
+   * Evaluates at every time in [from, to] at which an engine parameter (or the sample temperature)
+   * has a reading.
+   *
+   * @param readings the point's readings from {@code from − historyWindow} to {@code to}, ordered
+   *     by time; before the bucket of {@code from}, the latest of each parameter per bucket is
+   *     enough (see {@link #HISTORY_BUCKETS})
+   */
+  public List<Result> run(
+      SamplePointConfigs.Versioned config,
+      List<StoredReading> readings,
+      Instant from,
+      Instant to,
+      Duration historyWindow,
+      Duration maxAge) {
+    TreeSet<Instant> times = new TreeSet<>();
+    for (StoredReading r : readings) {
+      if (!r.time().isBefore(from) && !r.time().isAfter(to) && relevant(r.parameter())) {
+        times.add(r.time());
+      }
+    }
+    List<Result> out = new ArrayList<>(times.size());
+    long bucketMillis = bucketMillis(historyWindow);
+    // per reading, once: its slot (engine parameter or sample temperature; -1: not used) and bucket
+    int n = readings.size();
+    int[] slot = new int[n];
+    long[] bucket = new long[n];
+    for (int i = 0; i < n; i++) {
+      StoredReading r = readings.get(i);
+      slot[i] = r.quality() == 2 ? -1 : slot(r.parameter());
+      bucket[i] = bucketOf(r.time(), bucketMillis);
+    }
+    long[] lastBucket = new long[SLOTS];
+    List<StoredReading> seen = new ArrayList<>();
+    int start = 0;
+    int end = 0;
+    for (Instant t : times) {
+      Instant windowStart = t.minus(historyWindow);
+      while (start < n && !readings.get(start).time().isAfter(windowStart)) {
+        start++;
+      }
+      while (end < n && !readings.get(end).time().isAfter(t)) {
+        end++;
+      }
+      // The history this evaluation sees: the latest good or uncertain reading of each parameter in
+      // each bucket. So the trend, flat-line and persistence checks cost the same at 1-second or
+      // 1-minute resolution, the database need only return the latest reading per bucket for the
+      // older part of a window, and an evaluation depends only on the stored readings, whatever
+      // their arrival order.
+      java.util.Arrays.fill(lastBucket, Long.MIN_VALUE);
+      seen.clear();
+      for (int i = end - 1; i >= start; i--) {
+        int k = slot[i];
+        if (k >= 0 && lastBucket[k] != bucket[i]) {
+          lastBucket[k] = bucket[i];
+          seen.add(readings.get(i));
+        }
+      }
+      Map<Parameter, List<Reading>> history = new EnumMap<>(Parameter.class);
+      List<String> notes = new ArrayList<>();
+      double lastSampleTemperatureCel = Double.NaN;
+      Instant lastSampleTemperatureTime = null;
+      for (int j = seen.size() - 1; j >= 0; j--) {
+        StoredReading r = seen.get(j);
+        if ("sample_temperature".equals(r.parameter())) {
+          lastSampleTemperatureCel = r.value();
+          lastSampleTemperatureTime = r.time();
+          continue;
+        }
+        Parameter p = engineParameter(r.parameter());
+        if (p == null) {
+          continue;
+        }
+        double temperatureK;
+        boolean compensated = r.compensated();
+        if (!p.isConductivity() || compensated) {
+          temperatureK = 298.15;
+        } else if (!Double.isNaN(r.sampleTemperatureCel())) {
+          temperatureK = r.sampleTemperatureCel() + 273.15;
+        } else if (lastSampleTemperatureTime != null
+            && Duration.between(lastSampleTemperatureTime, r.time()).compareTo(maxAge) <= 0) {
+          temperatureK = lastSampleTemperatureCel + 273.15;
+        } else {
+          if (!r.time().isBefore(t.minus(maxAge))) {
+            notes.add(
+                r.parameter()
+                    + " at "
+                    + r.time()
+                    + " is uncompensated and has no sample temperature: not used");
+          }
+          continue;
+        }
+        history
+            .computeIfAbsent(p, k -> new ArrayList<>())
+            .add(new Reading(r.time(), r.value(), temperatureK, compensated));
+      }
+      try {
+        Evaluation e = evaluator.evaluate(config.config(), new Snapshot(t, history));
+        out.add(
+            new Result(
+                config.config().id(), t, EvaluationView.from(config.version(), e, dedupe(notes))));
+      } catch (OutOfValidityRangeException e) {
+        out.add(
+            new Result(
+                config.config().id(),
+                t,
+                new EvaluationView(
+                    config.version(),
+                    List.of(),
+                    null,
+                    null,
+                    null,
+                    List.of(),
+                    false,
+                    List.of("not evaluated: " + e.getMessage()))));
+      } catch (RuntimeException e) {
+        log.error("Evaluation of {} at {} failed", config.config().id(), t, e);
+        out.add(
+            new Result(
+                config.config().id(),
+                t,
+                new EvaluationView(
+                    config.version(),
+                    List.of(),
+                    null,
+                    null,
+                    null,
+                    List.of(),
+                    false,
+                    List.of("not evaluated: internal error (logged)"))));
+      }
+    }
+    return out;
+  }
+
+  /**
+   * History buckets per window: an evaluation sees at most this many readings (+1) per parameter.
+   */
+  public static final int HISTORY_BUCKETS = 30;
+
+  /**
+   * Bucket length for a history window: window / {@value #HISTORY_BUCKETS}, at least one second.
+   */
+  public static long bucketMillis(Duration historyWindow) {
+    return Math.max(1000, historyWindow.toMillis() / HISTORY_BUCKETS);
+  }
+
+  /** The bucket of a time: floor(epoch millis / bucket millis). */
+  public static long bucketOf(Instant t, long bucketMillis) {
+    return Math.floorDiv(t.toEpochMilli(), bucketMillis);
+  }
+
+  private static List<String> dedupe(List<String> notes) {
+    return notes.isEmpty() ? List.of() : List.copyOf(new java.util.LinkedHashSet<>(notes));
+  }
+
+  /** Whether readings of this parameter make evaluation times. */
+  public static boolean relevant(String parameter) {
+    return "sample_temperature".equals(parameter) || engineParameter(parameter) != null;
+  }
+
+  /** One slot per catalogue parameter (the sample temperature has its own). */
+  private static final int SLOTS = Parameter.values().length;
+
+  /** Index of a parameter the evaluation uses (engine parameters and sample temperature), or -1. */
+  private static int slot(String code) {
+    Parameter p = Parameter.byCode(code).orElse(null);
+    return p != null && (p.usedByEngine() || p == Parameter.SAMPLE_TEMPERATURE) ? p.ordinal() : -1;
+  }
+
+  /** The catalogue parameter with this code when the evaluation engine reads it, else null. */
+  static Parameter engineParameter(String code) {
+    Parameter p = Parameter.byCode(code).orElse(null);
+    return p != null && p.usedByEngine() ? p : null;
+  }
+}

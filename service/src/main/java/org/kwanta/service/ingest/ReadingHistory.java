@@ -1,0 +1,283 @@
+package org.kwanta.service.ingest;
+
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.List;
+import org.kwanta.model.Parameter;
+import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.jdbc.core.RowCallbackHandler;
+import org.springframework.stereotype.Repository;
+
+/**
+ * The read API of the stored readings: the only code outside the ingest's own writer that reads the
+ * {@code reading} and {@code reading_head} tables. Queries, limits, metrics and the diagnosis read
+ * readings through it. Every query bounds the time on the partitioned table it reads, so PostgreSQL
+ * prunes to the days asked for.
+ */
+@Repository
+public class ReadingHistory {
+
+  private static final String[] PARAMETER_CODES = Parameter.codeArray();
+
+  private final JdbcTemplate jdbc;
+
+  ReadingHistory(JdbcTemplate jdbc) {
+    this.jdbc = jdbc;
+  }
+
+  /** A point's latest reading of each parameter, ordered by parameter code. */
+  public List<StoredReading> latestPerParameter(String samplePointId, Instant since) {
+    return jdbc.query(
+        LATEST_READINGS,
+        ReadingHistory::stored,
+        (Object) PARAMETER_CODES,
+        samplePointId,
+        java.sql.Timestamp.from(since));
+  }
+
+  /**
+   * Each parameter's latest reading at a point since a time (a bound the planner prunes daily
+   * partitions by). Parameters: the parameter codes, the sample point, the earliest time.
+   */
+  public static final String LATEST_READINGS =
+      """
+      SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
+      FROM unnest(?::text[]) AS p(code)
+      CROSS JOIN LATERAL (
+        SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
+        WHERE sample_point_id = ? AND parameter = p.code AND time >= ?
+        ORDER BY time DESC LIMIT 1) r
+      ORDER BY p.code""";
+
+  /**
+   * Per sample point and parameter: slots (aligned on ?) holding any reading, and holding a good
+   * one not in doubt, among slots whose start lies in the in-service multirange. Parameters: slot,
+   * origin, slot, origin, from, to (evaluation), points, parameters, from, to (reading), slot,
+   * origin, in-service multirange.
+   */
+  public static final String SLOT_COUNTS =
+      """
+      SELECT r.sample_point_id, r.parameter,
+             count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)),
+             count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)) FILTER (
+               WHERE r.quality = 0
+                 AND NOT coalesce(e.suspects && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false))
+      FROM reading r
+      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+                            AND e.time >= ? AND e.time < ?
+      WHERE r.sample_point_id = ANY(string_to_array(?, ','))
+        AND r.parameter = ANY(string_to_array(?, ','))
+        AND r.time >= ? AND r.time < ?
+        AND date_bin(?::interval, r.time, ?::timestamptz) <@ ?::tstzmultirange
+      GROUP BY r.sample_point_id, r.parameter""";
+
+  /**
+   * Per sample point and parameter ("point|parameter"): the number of slots holding any reading and
+   * the number holding a good reading not in doubt (see {@link #SLOT_COUNTS}).
+   *
+   * @param points sample point ids, comma-separated
+   * @param parameters parameter codes, comma-separated
+   * @param interval the slot as a PostgreSQL interval ("900 seconds")
+   * @param inService the in-service slots' multirange literal
+   */
+  public java.util.Map<String, long[]> slotCounts(
+      String points,
+      String parameters,
+      Instant from,
+      Instant to,
+      String interval,
+      String inService) {
+    java.util.Map<String, long[]> out = new java.util.LinkedHashMap<>();
+    Timestamp f = Timestamp.from(from);
+    Timestamp t = Timestamp.from(to);
+    jdbc.query(
+        SLOT_COUNTS,
+        (RowCallbackHandler)
+            rs ->
+                out.put(
+                    rs.getString(1) + "|" + rs.getString(2),
+                    new long[] {rs.getLong(3), rs.getLong(4)}),
+        interval,
+        f,
+        interval,
+        f,
+        f,
+        t,
+        points,
+        parameters,
+        f,
+        t,
+        interval,
+        f,
+        inService);
+    return out;
+  }
+
+  /**
+   * A point's latest reading of a parameter that is not of bad quality in (after, at], as {time,
+   * value}.
+   */
+  public java.util.Optional<PointReading> latestNotBad(
+      String samplePointId, String parameter, Instant after, Instant at) {
+    return jdbc
+        .query(
+            """
+            SELECT time, value FROM reading
+            WHERE sample_point_id = ? AND parameter = ? AND time > ? AND time <= ? AND quality < 2
+            ORDER BY time DESC LIMIT 1""",
+            (rs, i) ->
+                new PointReading(
+                    samplePointId, parameter, rs.getTimestamp(1).toInstant(), rs.getDouble(2)),
+            samplePointId,
+            parameter,
+            Timestamp.from(after),
+            Timestamp.from(at))
+        .stream()
+        .findFirst();
+  }
+
+  /** A point's reading of one parameter. */
+  public record PointReading(String samplePointId, String parameter, Instant time, double value) {}
+
+  /** Every sample point's latest reading of each parameter at or after {@code since}. */
+  public List<PointReading> latestSince(Instant since) {
+    List<PointReading> out = new java.util.ArrayList<>();
+    jdbc.query(
+        """
+        SELECT s.id, p.code, r.time, r.value
+        FROM sample_point s CROSS JOIN unnest(?::text[]) AS p(code)
+        CROSS JOIN LATERAL (
+          SELECT time, value FROM reading
+          WHERE sample_point_id = s.id AND parameter = p.code AND time >= ?
+          ORDER BY time DESC LIMIT 1) r""",
+        (RowCallbackHandler)
+            rs ->
+                out.add(
+                    new PointReading(
+                        rs.getString(1),
+                        rs.getString(2),
+                        rs.getTimestamp(3).toInstant(),
+                        rs.getDouble(4))),
+        (Object) PARAMETER_CODES,
+        Timestamp.from(since));
+    return out;
+  }
+
+  /**
+   * The last reading of each minute in [from, to) of the given points and parameters, readings of
+   * quality "bad" left out; {@code time} is the start of the minute.
+   */
+  public List<PointReading> lastPerMinute(
+      List<String> samplePointIds, List<String> parameters, Instant from, Instant to) {
+    List<PointReading> out = new java.util.ArrayList<>();
+    jdbc.query(
+        """
+        SELECT sample_point_id, date_trunc('minute', time) AS m, parameter,
+               (array_agg(value ORDER BY time DESC))[1]
+        FROM reading
+        WHERE sample_point_id = ANY (?::text[]) AND parameter = ANY (?::text[])
+          AND quality <> 2 AND time >= ? AND time < ?
+        GROUP BY 1, 2, 3""",
+        (RowCallbackHandler)
+            rs ->
+                out.add(
+                    new PointReading(
+                        rs.getString(1),
+                        rs.getString(3),
+                        rs.getTimestamp(2).toInstant(),
+                        rs.getDouble(4))),
+        samplePointIds.toArray(String[]::new),
+        parameters.toArray(String[]::new),
+        Timestamp.from(from),
+        Timestamp.from(to));
+    return out;
+  }
+
+  /**
+   * The sum of the generations of a plant's points (migration V31): it changes whenever a reading
+   * of the plant is written, so a cached answer built on the plant's readings is current while it
+   * stays the same.
+   */
+  public long generations(String plantId) {
+    Long sum =
+        jdbc.queryForObject(
+            """
+            SELECT coalesce(sum(h.generation), 0) FROM reading_head h
+            JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""",
+            Long.class,
+            plantId);
+    return sum == null ? 0 : sum;
+  }
+
+  /**
+   * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
+   * Both sides carry the time range, so PostgreSQL prunes the daily partitions of both tables (a
+   * bound on the readings alone left every evaluation partition in the plan). Parameters: the
+   * parameter's instrument name, from, to, sample point, parameter code, from, to.
+   */
+  public static final String JUDGED =
+      """
+      SELECT r.time, r.value,
+             r.quality = 2
+               OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
+             e.calculated_ph_25,
+             coalesce('PH' = ANY(e.suspects), false)
+      FROM reading r
+      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+                            AND e.time >= ? AND e.time <= ?
+      WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
+      ORDER BY r.time""";
+
+  /**
+   * A stored reading with what its evaluation says about it.
+   *
+   * @param inDoubt bad quality, or its instrument (or the sample conditioning) suspected
+   * @param calculatedPh25 the evaluation's calculated pH at 25 °C, or null
+   * @param phSuspected the evaluation suspects the pH electrode
+   */
+  public record Judged(
+      Instant time, double value, boolean inDoubt, Double calculatedPh25, boolean phSuspected) {}
+
+  /**
+   * A point's readings of one parameter over [from, to], oldest first, each judged by the
+   * evaluation at its time.
+   *
+   * @param instrument the name of the instrument that measures the parameter
+   */
+  public List<Judged> judged(
+      String samplePointId, String parameter, String instrument, Instant from, Instant to) {
+    return jdbc.query(
+        JUDGED,
+        (rs, i) -> {
+          Instant time = rs.getTimestamp(1).toInstant();
+          double measured = rs.getDouble(2);
+          boolean inDoubt = rs.getBoolean(3);
+          double calculated = rs.getDouble(4);
+          boolean hasCalculated = !rs.wasNull() && Double.isFinite(calculated);
+          return new Judged(
+              time, measured, inDoubt, hasCalculated ? calculated : null, rs.getBoolean(5));
+        },
+        instrument,
+        Timestamp.from(from),
+        Timestamp.from(to),
+        samplePointId,
+        parameter,
+        Timestamp.from(from),
+        Timestamp.from(to));
+  }
+
+  static StoredReading stored(ResultSet rs, int i) throws SQLException {
+    double t = rs.getDouble(5);
+    boolean noTemperature = rs.wasNull();
+    return new StoredReading(
+        rs.getString(1),
+        rs.getTimestamp(2).toInstant(),
+        rs.getDouble(3),
+        rs.getShort(4),
+        noTemperature ? Double.NaN : t,
+        rs.getBoolean(6));
+  }
+}

@@ -1,0 +1,310 @@
+package org.kwanta.service.ingest;
+
+import java.sql.Connection;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.kwanta.model.Parameter;
+import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.stereotype.Repository;
+
+/**
+ * Writes readings: one statement per batch (arrays unnested server-side), inserting new rows,
+ * replacing changed ones and keeping every replaced row in {@code reading_revision}. Identical rows
+ * are left alone.
+ */
+@Repository
+class ReadingStore {
+
+  static final String UPSERT =
+      """
+      WITH incoming AS (
+        SELECT * FROM unnest(?::text[], ?::text[], ?::text[]::timestamptz[], ?::float8[], ?::int2[],
+                             ?::float8[], ?::bool[])
+          AS t(sample_point_id, parameter, time, value, quality, sample_temperature_cel, compensated)
+      ), revised AS (
+        INSERT INTO reading_revision (sample_point_id, parameter, time, old_value, old_quality,
+                                      old_sample_temperature_cel, old_compensated, old_received_at, new_value)
+        SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality, r.sample_temperature_cel,
+               r.compensated, r.received_at, i.value
+        FROM incoming i JOIN reading r USING (sample_point_id, parameter, time)
+        WHERE (r.value, r.quality, r.sample_temperature_cel, r.compensated)
+              IS DISTINCT FROM (i.value, i.quality, i.sample_temperature_cel, i.compensated)
+        RETURNING 1
+      ), upserted AS (
+        INSERT INTO reading AS r (sample_point_id, parameter, time, value, quality, sample_temperature_cel,
+                                  compensated)
+        SELECT * FROM incoming
+        ON CONFLICT (sample_point_id, parameter, time) DO UPDATE
+          SET value = EXCLUDED.value, quality = EXCLUDED.quality,
+              sample_temperature_cel = EXCLUDED.sample_temperature_cel, compensated = EXCLUDED.compensated,
+              received_at = now()
+          WHERE (r.value, r.quality, r.sample_temperature_cel, r.compensated)
+                IS DISTINCT FROM (EXCLUDED.value, EXCLUDED.quality, EXCLUDED.sample_temperature_cel,
+                                  EXCLUDED.compensated)
+        RETURNING 1
+      )
+      SELECT (SELECT count(*) FROM upserted), (SELECT count(*) FROM revised)""";
+
+  static final String LOCK_HEADS =
+      """
+      WITH batch AS (
+        SELECT * FROM unnest(?::text[], ?::timestamptz[]) AS b(sample_point_id, max_time)
+      ), locked AS MATERIALIZED (
+        SELECT h.sample_point_id, h.generation, h.latest_time FROM reading_head h
+        WHERE h.sample_point_id IN (SELECT sample_point_id FROM batch)
+        ORDER BY h.sample_point_id
+        FOR UPDATE
+      )
+      UPDATE reading_head h
+         SET generation = nextval('reading_generation'), latest_time = greatest(h.latest_time, b.max_time)
+      FROM locked l JOIN batch b USING (sample_point_id)
+      WHERE h.sample_point_id = l.sample_point_id
+      RETURNING h.sample_point_id, l.generation, h.generation, l.latest_time""";
+
+  static final String COPY_TARGET =
+      "reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
+          + " compensated)";
+
+  private static final String[] PARAMETER_CODES = Parameter.codeArray();
+
+  private final JdbcTemplate jdbc;
+
+  ReadingStore(JdbcTemplate jdbc) {
+    this.jdbc = jdbc;
+  }
+
+  /** What a batch changed. */
+  record Counts(int inserted, int corrected, int unchanged) {}
+
+  /**
+   * Upserts readings with distinct keys (the caller de-duplicates). Runs in the caller's
+   * transaction.
+   */
+  Counts upsert(List<ValidReading> readings) {
+    int n = readings.size();
+    String[] points = new String[n];
+    String[] parameters = new String[n];
+    String[] times = new String[n];
+    Double[] values = new Double[n];
+    Short[] qualities = new Short[n];
+    Double[] temperatures = new Double[n];
+    Boolean[] compensated = new Boolean[n];
+    for (int i = 0; i < n; i++) {
+      ValidReading r = readings.get(i);
+      points[i] = r.samplePointId();
+      parameters[i] = r.parameter().code();
+      times[i] = r.time().toString();
+      values[i] = r.value();
+      qualities[i] = r.quality().code();
+      temperatures[i] = Double.isNaN(r.sampleTemperatureCel()) ? null : r.sampleTemperatureCel();
+      compensated[i] = r.compensated();
+    }
+    return jdbc.execute(
+        (Connection c) -> {
+          try (PreparedStatement ps = c.prepareStatement(UPSERT)) {
+            ps.setArray(1, c.createArrayOf("text", points));
+            ps.setArray(2, c.createArrayOf("text", parameters));
+            ps.setArray(3, c.createArrayOf("text", times));
+            ps.setArray(4, c.createArrayOf("float8", values));
+            ps.setArray(5, c.createArrayOf("int2", qualities));
+            ps.setArray(6, c.createArrayOf("float8", temperatures));
+            ps.setArray(7, c.createArrayOf("bool", compensated));
+            try (ResultSet rs = ps.executeQuery()) {
+              rs.next();
+              // an update happens exactly where a revision is written (same IS DISTINCT FROM test)
+              int corrected = rs.getInt(2);
+              int inserted = rs.getInt(1) - corrected;
+              return new Counts(inserted, corrected, n - inserted - corrected);
+            }
+          }
+        });
+  }
+
+  /**
+   * A sample point's {@code reading_head} row as locked by an ingest transaction.
+   *
+   * @param previousGeneration the generation before this transaction
+   * @param generation the generation this transaction set
+   * @param previousLatest the latest reading time ingested before, or null when not known
+   */
+  record Head(long previousGeneration, long generation, Instant previousLatest) {}
+
+  /**
+   * Marks the transaction as the ingest's (see migration V31), then locks the heads of the given
+   * points in id order, setting new generations and latest times. Creates missing heads.
+   *
+   * @param maxTimes per sample point, the latest reading time of this batch
+   */
+  Map<String, Head> lockHeads(Map<String, Instant> maxTimes) {
+    jdbc.queryForObject("SELECT set_config('kwanta.writer', 'ingest', true)", String.class);
+    Map<String, Head> heads = lockOnce(maxTimes);
+    if (heads.size() < maxTimes.size()) {
+      // first batch of new points: create their heads, then lock those (not the others again,
+      // which would return this transaction's own generations as the previous ones)
+      Map<String, Instant> missing = new TreeMap<>(maxTimes);
+      missing.keySet().removeAll(heads.keySet());
+      jdbc.update(
+          "INSERT INTO reading_head (sample_point_id, generation) SELECT unnest(?::text[]), 0"
+              + " ON CONFLICT DO NOTHING",
+          (Object) missing.keySet().toArray(String[]::new));
+      heads.putAll(lockOnce(missing));
+    }
+    return heads;
+  }
+
+  private Map<String, Head> lockOnce(Map<String, Instant> maxTimes) {
+    String[] points = maxTimes.keySet().toArray(String[]::new);
+    String[] times = new String[points.length];
+    for (int i = 0; i < points.length; i++) {
+      times[i] = maxTimes.get(points[i]).toString();
+    }
+    Map<String, Head> out = new HashMap<>();
+    jdbc.query(
+        c -> {
+          PreparedStatement ps = c.prepareStatement(LOCK_HEADS);
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("text", times));
+          return ps;
+        },
+        rs -> {
+          Timestamp latest = rs.getTimestamp(4);
+          out.put(
+              rs.getString(1),
+              new Head(rs.getLong(2), rs.getLong(3), latest == null ? null : latest.toInstant()));
+        });
+    return out;
+  }
+
+  /**
+   * The latest stored reading time of a point after {@code after}, or null (one index probe per
+   * parameter). Parameters: the parameter codes, the sample point, {@code after}. The lower bound
+   * lets PostgreSQL prune every daily partition before it (without it, every partition of {@code
+   * reading} was planned and probed, hundreds after a long backfill).
+   */
+  static final String LATEST_STORED =
+      """
+      SELECT max(m) FROM unnest(?::text[]) AS p(code),
+        LATERAL (SELECT max(time) AS m FROM reading
+                 WHERE sample_point_id = ? AND parameter = p.code AND time > ?) x""";
+
+  /**
+   * The latest stored reading time of a point if it is later than {@code after}, else null. The
+   * ingest only needs to know whether the database holds readings beyond its batch.
+   */
+  Instant latestStoredAfter(String samplePointId, Instant after) {
+    String[] codes = PARAMETER_CODES;
+    Timestamp t =
+        jdbc.query(
+            c -> {
+              PreparedStatement ps = c.prepareStatement(LATEST_STORED);
+              ps.setArray(1, c.createArrayOf("text", codes));
+              ps.setString(2, samplePointId);
+              ps.setTimestamp(3, Timestamp.from(after));
+              return ps;
+            },
+            rs -> rs.next() ? rs.getTimestamp(1) : null);
+    return t == null ? null : t.toInstant();
+  }
+
+  /**
+   * Every stored reading of some points, each from its own time. Parameters: the points, their
+   * times, the parameter codes, the earliest of the times (a constant bound the planner prunes by;
+   * the per-point one is known only row by row).
+   */
+  static final String LOAD_SINCE =
+      """
+      SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality,
+             r.sample_temperature_cel, r.compensated
+      FROM unnest(?::text[], ?::timestamptz[]) AS s(sample_point_id, since)
+      CROSS JOIN LATERAL (
+        SELECT * FROM reading x
+        WHERE x.sample_point_id = s.sample_point_id AND x.parameter = ANY (?::text[])
+          AND x.time >= s.since AND x.time >= ?) r""";
+
+  /**
+   * Every stored reading of the given points at or after the given time, per point, in time order.
+   */
+  Map<String, List<StoredReading>> loadSince(Map<String, Instant> since) {
+    Map<String, List<StoredReading>> out = new TreeMap<>();
+    if (since.isEmpty()) {
+      return out;
+    }
+    String[] points = since.keySet().toArray(String[]::new);
+    String[] times = new String[points.length];
+    Instant earliest = Instant.MAX;
+    for (int i = 0; i < points.length; i++) {
+      Instant t = since.get(points[i]);
+      times[i] = t.toString();
+      earliest = t.isBefore(earliest) ? t : earliest;
+      out.put(points[i], new ArrayList<>());
+    }
+    Instant earliestSince = earliest;
+    jdbc.query(
+        c -> {
+          PreparedStatement ps = c.prepareStatement(LOAD_SINCE);
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("text", times));
+          ps.setArray(3, c.createArrayOf("text", PARAMETER_CODES));
+          ps.setTimestamp(4, Timestamp.from(earliestSince));
+          return ps;
+        },
+        rs -> {
+          double t = rs.getDouble(6);
+          boolean noTemperature = rs.wasNull();
+          out.get(rs.getString(1))
+              .add(
+                  new StoredReading(
+                      rs.getString(2),
+                      rs.getTimestamp(3).toInstant(),
+                      rs.getDouble(4),
+                      rs.getShort(5),
+                      noTemperature ? Double.NaN : t,
+                      rs.getBoolean(7)));
+        });
+    return out;
+  }
+
+  /** Every stored reading of a point in (after, to], in time order (a cold history). */
+  List<StoredReading> between(String samplePointId, Instant after, Instant to) {
+    return jdbc.query(
+        """
+        SELECT parameter, time, value, quality, sample_temperature_cel, compensated FROM reading
+        WHERE sample_point_id = ? AND time > ? AND time <= ?
+        ORDER BY time, parameter""",
+        ReadingHistory::stored,
+        samplePointId,
+        Timestamp.from(after),
+        Timestamp.from(to));
+  }
+
+  /**
+   * Inserts readings known to be new (keys absent from the table) with COPY. A key that exists
+   * after all fails the statement (and so the transaction): nothing is overwritten silently.
+   */
+  int copyNew(List<ValidReading> readings) {
+    if (readings.isEmpty()) {
+      return 0;
+    }
+    BinaryCopy rows = new BinaryCopy(readings.size(), 110);
+    for (ValidReading r : readings) {
+      rows.row(7)
+          .text(r.samplePointId())
+          .text(r.parameter().code())
+          .timestamp(r.time())
+          .float8(r.value())
+          .int2(r.quality().code())
+          .float8(r.sampleTemperatureCel())
+          .bool(r.compensated());
+    }
+    Long n = jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));
+    return n == null ? 0 : n.intValue();
+  }
+}

@@ -1,6 +1,0 @@
-package org.kwanta.service.readings;
-
-import java.util.List;
-
-/** A batch of readings, stored whole or not at all. */
-public record IngestRequest(List<ReadingInput> readings) {}
