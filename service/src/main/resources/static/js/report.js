@@ -4,6 +4,9 @@
 
 const SVG = 'http://www.w3.org/2000/svg';
 const LEVELS = ['NORMAL', 'AL1', 'AL2', 'AL3', 'SHUTDOWN'];
+/** The glyphs of the level code (docs/level-code.md), as on the chemist page. */
+const GLYPH = { NORMAL: '○', OUTSIDE_NORMAL: '◇', AL1: '▲', AL2: '◆', AL3: '■', SHUTDOWN: '✖' };
+
 const $ = (id) => document.getElementById(id);
 
 function el(tag, text, cls) {
@@ -59,7 +62,11 @@ function bars(channels) {
   clear(box);
   const width = 600;
   for (const c of channels) {
-    const label = el('div', c.samplePoint + ' · ' + c.parameter + ' (' + num(c.hoursInService, 1) + ' h)', 'small');
+    // the hours per level in words too: nothing is told by colour or hover alone
+    const parts = LEVELS.filter((l) => (c.hoursByLevel[l] || 0) > 0)
+      .map((l) => GLYPH[l] + ' ' + l.replace('_', ' ').toLowerCase().replace(/^al/, 'AL').replace('shutdown', 'SHUTDOWN') + ' ' + num(c.hoursByLevel[l], 1) + ' h');
+    const label = el('div', c.samplePoint + ' · ' + c.parameter + ' (' + num(c.hoursInService, 1) + ' h in service: '
+      + parts.join(' · ') + ')', 'small');
     box.appendChild(label);
     const s = svg('svg', { width, height: 18, viewBox: '0 0 ' + width + ' 18', role: 'img', 'aria-label': label.textContent });
     let x = 0;

@@ -81,7 +81,7 @@ class GrafanaDashboardTest {
     Map<String, String> classes =
         Map.of(
             "normal", "lvl-normal",
-            "outside normal", "lvl-outside",
+            "outside normal", "lvl-outside-normal",
             "AL1", "lvl-al1",
             "AL2", "lvl-al2",
             "AL3", "lvl-al3",
