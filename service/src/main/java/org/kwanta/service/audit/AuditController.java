@@ -2,12 +2,10 @@ package org.kwanta.service.audit;
 
 import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.tags.Tag;
-import java.time.Instant;
-import java.time.OffsetDateTime;
-import java.time.format.DateTimeParseException;
 import java.util.List;
-import java.util.Locale;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.CsvCells;
+import org.kwanta.service.system.ResponseFormats;
+import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -47,8 +45,13 @@ class AuditController {
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
     List<AuditLog.Event> events =
-        log.find(time("from", from), time("to", to), entity, entityId, MAX_ROWS);
-    if (csv(format, accept)) {
+        log.find(
+            TimeParameters.instant("from", from),
+            TimeParameters.instant("to", to),
+            entity,
+            entityId,
+            MAX_ROWS);
+    if (ResponseFormats.csvRequested(format, accept)) {
       StringBuilder sb =
           new StringBuilder("id,at,key_id,key_name,action,entity_type,entity_id,before,after\r\n");
       for (AuditLog.Event e : events) {
@@ -57,13 +60,13 @@ class AuditController {
                     ",",
                     String.valueOf(e.id()),
                     e.at().toString(),
-                    cell(e.keyId()),
-                    cell(e.keyName()),
-                    cell(e.action()),
-                    cell(e.entityType()),
-                    cell(e.entityId()),
-                    cell(e.before() == null ? null : e.before().toString()),
-                    cell(e.after() == null ? null : e.after().toString())))
+                    CsvCells.of(e.keyId()),
+                    CsvCells.of(e.keyName()),
+                    CsvCells.of(e.action()),
+                    CsvCells.of(e.entityType()),
+                    CsvCells.of(e.entityId()),
+                    CsvCells.of(e.before() == null ? null : e.before().toString()),
+                    CsvCells.of(e.after() == null ? null : e.after().toString())))
             .append("\r\n");
       }
       return ResponseEntity.ok()
@@ -72,39 +75,5 @@ class AuditController {
           .body(sb.toString());
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(events);
-  }
-
-  /** RFC 4180 quoting; a leading formula character is neutralised for spreadsheets. */
-  private static String cell(String s) {
-    if (s == null) {
-      return "";
-    }
-    String v = !s.isEmpty() && "=+-@".indexOf(s.charAt(0)) >= 0 ? "'" + s : s;
-    return v.contains(",") || v.contains("\"") || v.contains("\n") || v.contains("\r")
-        ? "\"" + v.replace("\"", "\"\"") + "\""
-        : v;
-  }
-
-  private static Instant time(String name, String value) {
-    if (value == null) {
-      return null;
-    }
-    try {
-      return OffsetDateTime.parse(value).toInstant();
-    } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
-          name + " must be an ISO 8601 time with offset, e.g. 2025-06-12T06:00:00Z");
-    }
-  }
-
-  private static boolean csv(String format, String accept) {
-    if (format != null) {
-      return switch (format.toLowerCase(Locale.ROOT)) {
-        case "csv" -> true;
-        case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
-      };
-    }
-    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
   }
 }

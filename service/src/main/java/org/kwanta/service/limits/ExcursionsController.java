@@ -7,7 +7,6 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
 import java.time.Instant;
-import java.time.format.DateTimeParseException;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -19,6 +18,8 @@ import org.kwanta.model.limits.MonthlyHours;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.operatingstate.OperatingStates;
 import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ResponseFormats;
+import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -86,13 +87,13 @@ class ExcursionsController {
             plant,
             samplePoint,
             parameter == null ? null : WebLookups.parameter(parameter),
-            time("from", from),
-            time("to", to),
+            TimeParameters.instant("from", from),
+            TimeParameters.instant("to", to),
             minLevel == null ? null : level(minLevel),
             open);
     List<ExcursionResponse> rows =
         finder.find(filter, b).stream().limit(MAX_ROWS).map(ExcursionResponse::from).toList();
-    if (csv(format, accept)) {
+    if (ResponseFormats.csvRequested(format, accept)) {
       StringBuilder sb = new StringBuilder(ExcursionResponse.CSV_HEADER);
       rows.forEach(r -> sb.append(r.csvRow()));
       return ResponseEntity.ok()
@@ -140,9 +141,12 @@ class ExcursionsController {
             .history(point, p, b)
             .orElseThrow(
                 () -> WebLookups.notFound("No limits for " + p.code() + " at " + samplePoint));
-    Instant end = time("to", to) == null ? Instant.now() : time("to", to);
+    Instant end =
+        TimeParameters.instant("to", to) == null ? Instant.now() : TimeParameters.instant("to", to);
     Instant start =
-        time("from", from) == null ? end.minus(java.time.Duration.ofDays(366)) : time("from", from);
+        TimeParameters.instant("from", from) == null
+            ? end.minus(java.time.Duration.ofDays(366))
+            : TimeParameters.instant("from", from);
     List<Classification> classified = finder.classify(point, history, p, start, end);
     List<MonthlyHours> hours =
         Excursions.monthlyHours(
@@ -246,28 +250,5 @@ class ExcursionsController {
     } catch (IllegalArgumentException e) {
       throw BadRequestException.of("minLevel must be AL1, AL2, AL3 or SHUTDOWN");
     }
-  }
-
-  private static Instant time(String name, String value) {
-    if (value == null) {
-      return null;
-    }
-    try {
-      return java.time.OffsetDateTime.parse(value).toInstant();
-    } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
-          name + " must be an ISO 8601 time with offset, e.g. 2025-06-12T06:00:00Z");
-    }
-  }
-
-  private static boolean csv(String format, String accept) {
-    if (format != null) {
-      return switch (format.toLowerCase(Locale.ROOT)) {
-        case "csv" -> true;
-        case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
-      };
-    }
-    return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");
   }
 }

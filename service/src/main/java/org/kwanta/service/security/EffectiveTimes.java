@@ -2,11 +2,10 @@ package org.kwanta.service.security;
 
 import java.time.Duration;
 import java.time.Instant;
-import java.time.OffsetDateTime;
-import java.time.format.DateTimeParseException;
 import java.util.Map;
 import org.kwanta.service.system.BadRequestException;
 import org.kwanta.service.system.ProblemTypes;
+import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
 
 /**
@@ -33,13 +32,7 @@ public final class EffectiveTimes {
     if (value == null || value.isBlank()) {
       return now;
     }
-    Instant t;
-    try {
-      t = OffsetDateTime.parse(value.strip()).toInstant();
-    } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
-          "effectiveFrom must be an ISO 8601 time with offset, e.g. 2026-12-01T06:00:00Z");
-    }
+    Instant t = TimeParameters.instant("effectiveFrom", value.strip());
     if (t.isBefore(now.minus(PAST_TOLERANCE))) {
       if (Callers.role().orElse(null) != Role.ADMIN) {
         throw new BadRequestException(
