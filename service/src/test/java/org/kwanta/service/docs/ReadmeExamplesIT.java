@@ -19,7 +19,6 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
-import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.TestKeys;
 import org.springframework.boot.test.web.server.LocalServerPort;
 import tools.jackson.databind.JsonNode;
@@ -34,7 +33,15 @@ import tools.jackson.databind.json.JsonMapper;
  * string equals (or, ending in {@code ...}, starts with) the shown one; a number agrees to the
  * digits shown; a shown {@code "status"} is the expected HTTP status (otherwise 2xx).
  */
-@DatabaseTest
+// A database of its own: the examples run as on a new installation, whatever other tests wrote to
+// the
+// demo plant's points at the same minutes.
+@org.springframework.boot.test.context.SpringBootTest(
+    webEnvironment =
+        org.springframework.boot.test.context.SpringBootTest.WebEnvironment.RANDOM_PORT)
+@org.springframework.test.context.ContextConfiguration(
+    initializers = org.kwanta.service.support.TestDatabase.OwnDatabaseInitializer.class)
+@org.springframework.boot.micrometer.metrics.test.autoconfigure.AutoConfigureMetrics
 class ReadmeExamplesIT {
 
   private static final JsonMapper JSON = JsonMapper.builder().build();

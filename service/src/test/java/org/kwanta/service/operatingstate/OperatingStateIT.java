@@ -61,7 +61,7 @@ class OperatingStateIT {
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5},"
                 + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Main steam\","
                 + "\"cycleLocation\":\"MAIN_STEAM\",\"treatmentRegime\":\"AVT_O\","
-                + "\"operatingTemperatureCel\":25,\"operatingPressureMPa\":16}]}")
+                + "\"operatingTemperatureCel\":540,\"operatingPressureMPa\":16}]}")
             .formatted(plant, cpd, steam);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);

@@ -181,4 +181,30 @@ public final class TestDatabase {
           .applyTo(context.getEnvironment());
     }
   }
+
+  /**
+   * Like {@link Initializer}, on a new empty database of its own on the same server: for a test
+   * that must see the service as a new installation does (the README's examples), whatever the
+   * other tests sharing the server wrote.
+   */
+  public static final class OwnDatabaseInitializer
+      implements ApplicationContextInitializer<ConfigurableApplicationContext> {
+
+    @Override
+    public void initialize(ConfigurableApplicationContext context) {
+      TestDatabase db = get();
+      String url;
+      try {
+        url = db.createScratchDatabase("kwanta_own");
+      } catch (SQLException e) {
+        throw new IllegalStateException("could not create a database of its own", e);
+      }
+      TestPropertyValues.of(
+              "spring.datasource.url=" + url,
+              "spring.datasource.username=" + db.user(),
+              "spring.datasource.password=" + db.password(),
+              TestKeys.ADMIN_KEY_PROPERTY + "=" + TestKeys.ADMIN)
+          .applyTo(context.getEnvironment());
+    }
+  }
 }
