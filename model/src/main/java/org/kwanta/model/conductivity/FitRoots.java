@@ -48,34 +48,57 @@ public final class FitRoots {
    */
   public static Result all(
       SolutionModel model, Solutes known, Solute unknown, double kappaTarget, double upper) {
+    return all(model, known, unknown, kappaTarget, upper, Double.POSITIVE_INFINITY);
+  }
+
+  /**
+   * {@link #all(SolutionModel, Solutes, Solute, double, double)} for a κ known to rise with the
+   * amount beyond {@code risingBeyond} (sodium hydroxide past the acids' last equivalence point
+   * only adds Na⁺ and OH⁻): the scan stops at its first point beyond that amount where κ is above
+   * the target, as no root lies further.
+   *
+   * @param risingBeyond amount beyond which κ rises monotonically, mol/kg
+   */
+  public static Result all(
+      SolutionModel model,
+      Solutes known,
+      Solute unknown,
+      double kappaTarget,
+      double upper,
+      double risingBeyond) {
     Curve c = new Curve(model, known, unknown, kappaTarget);
     double tol = upper * AMOUNT_TOLERANCE;
     List<Solution> roots = new ArrayList<>(2);
     double[] x = new double[SCAN_POINTS + 1];
     double[] f = new double[SCAN_POINTS + 1];
     int lowest = 0;
+    int last = SCAN_POINTS;
     for (int i = 0; i <= SCAN_POINTS; i++) {
       x[i] = upper * i / SCAN_POINTS;
       f[i] = c.applyAsDouble(x[i]);
       if (f[i] < f[lowest]) {
         lowest = i;
       }
+      if (x[i] >= risingBeyond && f[i] > 0) {
+        last = i;
+        break;
+      }
     }
-    for (int i = 0; i < SCAN_POINTS; i++) {
+    for (int i = 0; i < last; i++) {
       if (f[i] == 0) {
         roots.add(c.at(x[i]));
       } else if (f[i] * f[i + 1] < 0) {
         roots.add(c.at(Brent.solve(c, x[i], x[i + 1], tol, BRENT_ITERATIONS)));
       }
     }
-    if (f[SCAN_POINTS] == 0) {
-      roots.add(c.at(x[SCAN_POINTS]));
+    if (f[last] == 0) {
+      roots.add(c.at(x[last]));
     }
     double xLow = x[lowest];
     if (roots.isEmpty() && f[lowest] > 0) {
       // a dip narrower than the scan step: find the least κ between the neighbouring points
       double a = x[Math.max(0, lowest - 1)];
-      double b = x[Math.min(SCAN_POINTS, lowest + 1)];
+      double b = x[Math.min(last, lowest + 1)];
       xLow = golden(c, a, b, tol);
       if (c.applyAsDouble(xLow) < 0) {
         roots.add(c.at(Brent.solve(c, a, xLow, tol, BRENT_ITERATIONS)));

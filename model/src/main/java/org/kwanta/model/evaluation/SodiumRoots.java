@@ -96,7 +96,9 @@ final class SodiumRoots {
         // the change moved the target off the branch: choose afresh below
       }
     }
-    FitRoots.Result r = FitRoots.all(model, known, Solute.SODIUM_HYDROXIDE, kappa, upper);
+    FitRoots.Result r =
+        FitRoots.all(
+            model, known, Solute.SODIUM_HYDROXIDE, kappa, upper, upper / UPPER_EQUIVALENTS);
     double reading = sodiumReadingMolal > 0 ? sodiumReadingMolal : 0;
     int chosen = choose(r.roots(), reading);
     Choice c = new Choice(r.roots(), r.lowest(), chosen, reading > 0, reading, single.kappa());
