@@ -22,6 +22,9 @@ final class SodiumRoots {
   /** Searched amounts go up to this multiple of the acids' equivalents (see {@link #upper}). */
   static final double UPPER_EQUIVALENTS = 4;
 
+  /** Relative half-width of the first bracket of a refit around the central root. */
+  static final double NEAR_BRACKET = 0.1;
+
   private SodiumRoots() {}
 
   /**
@@ -81,19 +84,27 @@ final class SodiumRoots {
       double dip = previous.lowest().solutes().sodium();
       double from = previous.upperBranch() ? dip : 0;
       double to = previous.upperBranch() ? upper : dip;
-      try {
-        Solution s =
-            FitRoots.between(
-                model,
-                known,
-                Solute.SODIUM_HYDROXIDE,
-                kappa,
-                from,
-                to,
-                upper * FitRoots.AMOUNT_TOLERANCE);
-        return new Fit(s, previous);
-      } catch (IllegalArgumentException noSignChange) {
-        // the change moved the target off the branch: choose afresh below
+      // a small change moves the root a little: first a bracket of ±10 % around the central root
+      double x0 = previous.reported().solutes().sodium();
+      double[][] brackets = {
+        {Math.max(from, (1 - NEAR_BRACKET) * x0), Math.min(to, (1 + NEAR_BRACKET) * x0)},
+        {from, to}
+      };
+      for (double[] b : brackets) {
+        try {
+          Solution s =
+              FitRoots.between(
+                  model,
+                  known,
+                  Solute.SODIUM_HYDROXIDE,
+                  kappa,
+                  b[0],
+                  b[1],
+                  upper * FitRoots.AMOUNT_TOLERANCE);
+          return new Fit(s, previous);
+        } catch (IllegalArgumentException noSignChange) {
+          // not in this bracket: the wider one, then afresh below
+        }
       }
     }
     FitRoots.Result r =
