@@ -27,7 +27,8 @@ import org.openjdk.jmh.annotations.State;
  * Forward conductivity of an invented Brackenmoor feedwater (1.0 mg/kg NH₃, 2 µg/kg Cl, 20 µg/kg
  * CO₂; demo data): the three channels with each ion's share at 25 °C. And, for the cost of the
  * inverse over all roots, the evaluation of phosphate boiler water whose specific conductivity lies
- * below its cation conductivity (SC 3.82, CACE 4.06 µS/cm, Na 630 µg/kg).
+ * below its cation conductivity (SC 3.82, CACE 4.06 µS/cm, Na 630 µg/kg), against the same
+ * phosphate at Na:PO₄ 3.0 (SC above CACE: one root).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SampleTime)
@@ -37,6 +38,7 @@ public class ConductivityBenchmark {
   private Solutes feedwater;
   private SamplePointConfig drum;
   private Snapshot twoRoots;
+  private Snapshot oneRoot;
 
   @Setup
   public void setUp() {
@@ -50,11 +52,22 @@ public class ConductivityBenchmark {
     h.put(Parameter.CATION_CONDUCTIVITY, List.of(Reading.raw(now, 4.06, 298.15)));
     h.put(Parameter.SODIUM, List.of(Reading.raw(now, 630, 298.15)));
     twoRoots = new Snapshot(now, h);
+    // the same phosphate at Na:PO4 3.0 (SC 4.84 µS/cm above CACE): one root, for comparison
+    Map<Parameter, List<Reading>> one = new EnumMap<>(Parameter.class);
+    one.put(Parameter.SPECIFIC_CONDUCTIVITY, List.of(Reading.raw(now, 4.84, 298.15)));
+    one.put(Parameter.CATION_CONDUCTIVITY, List.of(Reading.raw(now, 4.06, 298.15)));
+    one.put(Parameter.SODIUM, List.of(Reading.raw(now, 726, 298.15)));
+    oneRoot = new Snapshot(now, one);
   }
 
   @Benchmark
   public ForwardConductivity.Channels forward() {
     return ForwardConductivity.of(feedwater, AlkalizerMix.AMMONIA, 298.15);
+  }
+
+  @Benchmark
+  public Evaluation phosphateOneRoot() {
+    return Evaluator.evaluate(drum, oneRoot);
   }
 
   @Benchmark
