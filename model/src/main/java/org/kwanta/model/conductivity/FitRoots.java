@@ -31,11 +31,19 @@ public final class FitRoots {
   /**
    * The roots and the solution of least κ found.
    *
-   * @param roots the solutions with κ equal to the target, by increasing amount (empty: none)
+   * @param roots the solutions with κ equal to the target, by increasing amount (empty: none); with
+   *     a preferred amount, only the root of the bracket nearest to it
    * @param lowest the solution of the lowest κ found on [0, upper] (the closest approach when there
    *     is no root)
+   * @param count how many roots there are (the brackets found)
    */
-  public record Result(List<Solution> roots, Solution lowest) {}
+  public record Result(List<Solution> roots, Solution lowest, int count) {
+
+    /** Whether every root was solved. */
+    public boolean complete() {
+      return roots.size() == count;
+    }
+  }
 
   /**
    * All roots of κ(amount) = target for amounts in [0, upper].
@@ -66,6 +74,24 @@ public final class FitRoots {
       double kappaTarget,
       double upper,
       double risingBeyond) {
+    return all(model, known, unknown, kappaTarget, upper, risingBeyond, 0);
+  }
+
+  /**
+   * {@link #all(SolutionModel, Solutes, Solute, double, double, double)} solving only the root
+   * whose bracket lies nearest (on a log scale) to a preferred amount, when there are several (the
+   * others are counted, not solved).
+   *
+   * @param preferred the preferred amount, mol/kg (≤ 0: solve every root)
+   */
+  public static Result all(
+      SolutionModel model,
+      Solutes known,
+      Solute unknown,
+      double kappaTarget,
+      double upper,
+      double risingBeyond,
+      double preferred) {
     Curve c = new Curve(model, known, unknown, kappaTarget);
     double tol = upper * AMOUNT_TOLERANCE;
     List<Solution> roots = new ArrayList<>(2);
@@ -84,28 +110,64 @@ public final class FitRoots {
         break;
       }
     }
+    List<double[]> brackets = new ArrayList<>(2);
     for (int i = 0; i < last; i++) {
       if (f[i] == 0) {
-        roots.add(c.at(x[i]));
+        brackets.add(new double[] {x[i], x[i]});
       } else if (f[i] * f[i + 1] < 0) {
-        roots.add(c.at(Brent.solve(c, x[i], x[i + 1], tol, BRENT_ITERATIONS)));
+        brackets.add(new double[] {x[i], x[i + 1]});
       }
     }
     if (f[last] == 0) {
-      roots.add(c.at(x[last]));
+      brackets.add(new double[] {x[last], x[last]});
     }
     double xLow = x[lowest];
-    if (roots.isEmpty() && f[lowest] > 0) {
+    Solution low = null;
+    if (brackets.isEmpty() && f[lowest] > 0) {
       // a dip narrower than the scan step: find the least κ between the neighbouring points
       double a = x[Math.max(0, lowest - 1)];
       double b = x[Math.min(last, lowest + 1)];
       xLow = golden(c, a, b, tol);
-      if (c.applyAsDouble(xLow) < 0) {
-        roots.add(c.at(Brent.solve(c, a, xLow, tol, BRENT_ITERATIONS)));
-        roots.add(c.at(Brent.solve(c, xLow, b, tol, BRENT_ITERATIONS)));
+      low = c.at(xLow);
+      if (low.kappa() < kappaTarget) {
+        brackets.add(new double[] {a, xLow});
+        brackets.add(new double[] {xLow, b});
       }
     }
-    return new Result(List.copyOf(roots), c.at(xLow));
+    if (low == null) {
+      low = c.at(xLow);
+    }
+    int only = preferred > 0 && brackets.size() > 1 ? nearest(brackets, preferred) : -1;
+    for (int k = 0; k < brackets.size(); k++) {
+      if (only < 0 || k == only) {
+        double[] b = brackets.get(k);
+        roots.add(
+            b[0] == b[1] ? c.at(b[0]) : c.at(Brent.solve(c, b[0], b[1], tol, BRENT_ITERATIONS)));
+      }
+    }
+    return new Result(List.copyOf(roots), low, brackets.size());
+  }
+
+  /** Index of the bracket nearest to an amount on a log scale (0 inside it). */
+  private static int nearest(List<double[]> brackets, double amount) {
+    int best = 0;
+    double bestDistance = Double.POSITIVE_INFINITY;
+    for (int k = 0; k < brackets.size(); k++) {
+      double[] b = brackets.get(k);
+      double d;
+      if (amount >= b[0] && amount <= b[1]) {
+        d = 0;
+      } else if (amount > b[1]) {
+        d = b[1] > 0 ? Math.log(amount / b[1]) : Double.MAX_VALUE;
+      } else {
+        d = Math.log(b[0] / amount);
+      }
+      if (d < bestDistance) {
+        bestDistance = d;
+        best = k;
+      }
+    }
+    return best;
   }
 
   /**

@@ -22,6 +22,13 @@ final class SodiumRoots {
   /** Searched amounts go up to this multiple of the acids' equivalents (see {@link #upper}). */
   static final double UPPER_EQUIVALENTS = 4;
 
+  /**
+   * A chosen root farther than this (relative) from the sodium reading has every root refined
+   * before the choice is final (below it only the chosen root is; the finding's threshold, three
+   * sodium tolerances, is above it with the default ±10 %).
+   */
+  static final double RECHECK_RELATIVE = 0.1;
+
   /** Relative half-width of the first bracket of a refit around the central root. */
   static final double NEAR_BRACKET = 0.1;
 
@@ -36,6 +43,8 @@ final class SodiumRoots {
    * @param bySodiumReading whether the sodium reading chose the root
    * @param sodiumReadingMolal the sodium reading, mol/kg (0 when absent)
    * @param background the acids' conductivity, µS/cm (the solution with no sodium)
+   * @param rootCount how many sodium amounts fit (the roots list holds only the chosen one when the
+   *     sodium reading chose and matched it, so the other was not refined)
    */
   record Choice(
       List<Solution> roots,
@@ -43,16 +52,19 @@ final class SodiumRoots {
       int chosen,
       boolean bySodiumReading,
       double sodiumReadingMolal,
-      double background) {
+      double background,
+      int rootCount) {
 
     /** The reported solution: the chosen root, or the closest approach. */
     Solution reported() {
       return chosen < 0 ? lowest : roots.get(chosen);
     }
 
-    /** Whether the chosen root is the higher one. */
+    /** Whether the chosen root is the higher one of two. */
     boolean upperBranch() {
-      return chosen >= 0 && chosen == roots.size() - 1 && roots.size() > 1;
+      return chosen >= 0
+          && rootCount > 1
+          && reported().solutes().sodium() > lowest.solutes().sodium();
     }
   }
 
@@ -79,7 +91,7 @@ final class SodiumRoots {
       // above the acids' conductivity κ rises with sodium: one root
       return new Fit(single, null);
     }
-    if (previous != null && previous.chosen() >= 0 && previous.roots().size() == 2) {
+    if (previous != null && previous.chosen() >= 0 && previous.rootCount() == 2) {
       // refit on the branch the central fit chose
       double dip = previous.lowest().solutes().sodium();
       double from = previous.upperBranch() ? dip : 0;
@@ -107,12 +119,19 @@ final class SodiumRoots {
         }
       }
     }
-    FitRoots.Result r =
-        FitRoots.all(
-            model, known, Solute.SODIUM_HYDROXIDE, kappa, upper, upper / UPPER_EQUIVALENTS);
     double reading = sodiumReadingMolal > 0 ? sodiumReadingMolal : 0;
-    int chosen = choose(r.roots(), reading);
-    Choice c = new Choice(r.roots(), r.lowest(), chosen, reading > 0, reading, single.kappa());
+    double rising = upper / UPPER_EQUIVALENTS;
+    // with a sodium reading only the root nearest to it is refined
+    FitRoots.Result r =
+        FitRoots.all(model, known, Solute.SODIUM_HYDROXIDE, kappa, upper, rising, reading);
+    if (!r.complete()
+        && Math.abs(r.roots().get(0).solutes().sodium() / reading - 1) > RECHECK_RELATIVE) {
+      // the reading is far from the root it chose: refine all, for the choice and the finding
+      r = FitRoots.all(model, known, Solute.SODIUM_HYDROXIDE, kappa, upper, rising);
+    }
+    int chosen = r.complete() ? choose(r.roots(), reading) : 0;
+    Choice c =
+        new Choice(r.roots(), r.lowest(), chosen, reading > 0, reading, single.kappa(), r.count());
     return new Fit(c.reported(), c);
   }
 
@@ -147,7 +166,7 @@ final class SodiumRoots {
               null));
       return;
     }
-    if (roots.size() < 2) {
+    if (choice.rootCount() < 2) {
       return;
     }
     StringBuilder both = new StringBuilder();
@@ -156,6 +175,13 @@ final class SodiumRoots {
         both.append(" or ");
       }
       both.append(String.format(Locale.ROOT, "Na %s µg/kg (pH25 %.2f)", num(ugPerKg(r)), r.pH()));
+    }
+    if (roots.size() < choice.rootCount()) {
+      both.append(
+          String.format(
+              Locale.ROOT,
+              " or an amount across the dip at Na %s µg/kg",
+              num(ugPerKg(choice.lowest()))));
     }
     if (!choice.bySodiumReading()) {
       out.add(
