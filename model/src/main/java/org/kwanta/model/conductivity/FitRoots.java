@@ -97,11 +97,13 @@ public final class FitRoots {
     List<Solution> roots = new ArrayList<>(2);
     double[] x = new double[SCAN_POINTS + 1];
     double[] f = new double[SCAN_POINTS + 1];
+    Solution[] at = new Solution[SCAN_POINTS + 1];
     int lowest = 0;
     int last = SCAN_POINTS;
     for (int i = 0; i <= SCAN_POINTS; i++) {
       x[i] = upper * i / SCAN_POINTS;
-      f[i] = c.applyAsDouble(x[i]);
+      at[i] = c.at(x[i]);
+      f[i] = at[i].kappa() - kappaTarget;
       if (f[i] < f[lowest]) {
         lowest = i;
       }
@@ -135,7 +137,7 @@ public final class FitRoots {
       }
     }
     if (low == null) {
-      low = c.at(xLow);
+      low = at[lowest];
     }
     int only = preferred > 0 && brackets.size() > 1 ? nearest(brackets, preferred) : -1;
     for (int k = 0; k < brackets.size(); k++) {

@@ -85,14 +85,10 @@ final class SodiumRoots {
       Solution hint,
       double sodiumReadingMolal,
       Choice previous) {
-    Solution single = model.fit(known, Solute.SODIUM_HYDROXIDE, kappa, hint);
     double upper = upper(known);
-    if (single.solutes().sodium() > 0 || !(single.kappa() > kappa) || upper <= 0) {
-      // above the acids' conductivity κ rises with sodium: one root
-      return new Fit(single, null);
-    }
-    if (previous != null && previous.chosen() >= 0 && previous.rootCount() == 2) {
-      // refit on the branch the central fit chose
+    if (upper > 0 && previous != null && previous.chosen() >= 0 && previous.rootCount() == 2) {
+      // refit on the branch the central fit chose (on the upper branch a target moved above the
+      // acids' conductivity keeps its one root there)
       double dip = previous.lowest().solutes().sodium();
       double from = previous.upperBranch() ? dip : 0;
       double to = previous.upperBranch() ? upper : dip;
@@ -118,6 +114,11 @@ final class SodiumRoots {
           // not in this bracket: the wider one, then afresh below
         }
       }
+    }
+    Solution single = model.fit(known, Solute.SODIUM_HYDROXIDE, kappa, hint);
+    if (single.solutes().sodium() > 0 || !(single.kappa() > kappa) || upper <= 0) {
+      // above the acids' conductivity κ rises with sodium: one root
+      return new Fit(single, null);
     }
     double reading = sodiumReadingMolal > 0 ? sodiumReadingMolal : 0;
     double rising = upper / UPPER_EQUIVALENTS;
