@@ -25,12 +25,20 @@ final class ChannelFits {
    * The fitted amounts and the per-channel solutions (each channel's fitted amounts are its
    * solution's solutes).
    */
-  record Result(Solutes all, Map<Parameter, Solution> channelSolutions) {}
+  record Result(
+      Solutes all, Map<Parameter, Solution> channelSolutions, SodiumRoots.Choice sodiumChoice) {
+
+    /** A fit with no choice between sodium roots. */
+    Result(Solutes all, Map<Parameter, Solution> channelSolutions) {
+      this(all, channelSolutions, null);
+    }
+  }
 
   /**
    * @param regime the treatment
-   * @param sodiumMolal sodium from the sodium analyser, mol/kg (used in volatile regimes; NaN or 0
-   *     when absent)
+   * @param sodiumMolal sodium from the sodium analyser, mol/kg (NaN or 0 when absent): a solute in
+   *     volatile regimes; for phosphate and caustic water it chooses between the sodium amounts
+   *     that fit specific conductivity when there are two ({@link SodiumRoots})
    * @param values conductivity per channel, µS/cm, at the temperature of its model
    * @param models the solution model each channel is fitted with
    */
@@ -129,19 +137,27 @@ final class ChannelFits {
     }
     double na = regime.isVolatile() && sodiumMolal > 0 ? sodiumMolal : 0;
     Solutes all = new Solutes(0, na, acid, 0, co2, phosphate);
+    SodiumRoots.Choice choice = null;
     Double sc = values.get(Parameter.SPECIFIC_CONDUCTIVITY);
     if (sc != null) {
       SolutionModel m = models.apply(Parameter.SPECIFIC_CONDUCTIVITY);
       Solution hint = near.get(Parameter.SPECIFIC_CONDUCTIVITY);
-      Solution s =
-          switch (regime) {
-            case AVT_R, AVT_O, OT -> m.fit(all, Solute.ALKALIZER, sc, hint);
-            case PHOSPHATE, CAUSTIC -> m.fit(all, Solute.SODIUM_HYDROXIDE, sc, hint);
-            case MAKE_UP -> m.fit(Solutes.NONE, Solute.SODIUM_CHLORIDE, sc, hint);
-          };
+      Solution s;
+      switch (regime) {
+        case AVT_R, AVT_O, OT -> s = m.fit(all, Solute.ALKALIZER, sc, hint);
+        case PHOSPHATE, CAUSTIC -> {
+          SodiumRoots.Fit f =
+              SodiumRoots.fit(
+                  m, all, sc, hint, sodiumMolal, central == null ? null : central.sodiumChoice());
+          s = f.solution();
+          choice = f.choice();
+        }
+        case MAKE_UP -> s = m.fit(Solutes.NONE, Solute.SODIUM_CHLORIDE, sc, hint);
+        default -> throw new IllegalStateException(regime.name());
+      }
       all = s.solutes();
       solutions.put(Parameter.SPECIFIC_CONDUCTIVITY, s);
     }
-    return new Result(all, solutions);
+    return new Result(all, solutions, choice);
   }
 }

@@ -156,6 +156,10 @@ public final class Evaluator {
                 below.get(p)));
       }
       Checks.belowPureWater(below, findings);
+      Double scValue = rawValues.get(Parameter.SPECIFIC_CONDUCTIVITY);
+      if (scValue != null) {
+        SodiumRoots.findings(fitted.sodiumChoice(), scValue, config.tolerances(), findings);
+      }
 
       // uncertainty: each 25 °C value perturbed by its tolerance, refitted at 25 °C (the
       // channels before the perturbed one in the fitting chain keep their central amounts)

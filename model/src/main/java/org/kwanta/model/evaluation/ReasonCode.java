@@ -19,6 +19,15 @@ public enum ReasonCode {
       "Specific conductivity is below a quarter of the cation conductivity excess over pure"
           + " water, which no solution can produce.",
       Instrument.SPECIFIC_CONDUCTIVITY),
+  TWO_COMPOSITIONS_FIT(
+      "Phosphate or caustic water: specific conductivity lies below the conductivity of the acids"
+          + " the cation channel found, so two sodium amounts fit it; without a sodium reading the"
+          + " alkaline one is reported.",
+      Instrument.PROCESS),
+  NO_CONSISTENT_COMPOSITION(
+      "Phosphate or caustic water: no sodium amount gives the specific conductivity read with the"
+          + " acids of the cation channel, or the sodium reading matches neither amount that does.",
+      Instrument.SPECIFIC_CONDUCTIVITY),
   DEGASSED_ABOVE_CATION(
       "Degassed cation conductivity exceeds cation conductivity beyond tolerance, although"
           + " degassing can only remove acids.",
