@@ -84,7 +84,8 @@ def main():
     times.sort()
     print("overview of %d points, %d requests: time to first byte median %.1f ms, p90 %.1f ms, max %.1f ms"
           % (a.points, len(times), statistics.median(times), times[int(0.9 * (len(times) - 1))], times[-1]))
-    print("first request (every point read afresh, as after new readings of all): %.1f ms" % cold)
+    print("first request: %.1f ms (every point read afresh if the service had not cached the plant:"
+          " a fresh start, or new readings of every point)" % cold)
     print("size: %d bytes gzip (Content-Encoding %s), %d bytes plain" % (sizes[-1], enc, plain))
 
 
