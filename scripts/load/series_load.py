@@ -6,7 +6,8 @@
    the derived series, for a test plant it declares through the API. Partitions are created with the service's
    naming (reading_pYYYYMMDD, evaluation_pYYYYMMDD).
 2. Asks --requests random one-day series (measured or derived parameter) with maxPoints=1000 and reports the
-   latency percentiles.
+   latency percentiles. With --range-days N each request asks for the N days ending at the end of the filled
+   data instead (--range-days 90: the page's longest trend, a 90-day trend over 30 days of 10 s data).
 
   python3 scripts/load/series_load.py --db "host=127.0.0.1 port=5432 dbname=kwanta_bench user=postgres"
 Use --skip-fill to query data filled by an earlier run (the plant id is printed).
@@ -40,6 +41,7 @@ def main():
     ap.add_argument("--days", type=int, default=30)
     ap.add_argument("--points", type=int, default=20)
     ap.add_argument("--requests", type=int, default=300)
+    ap.add_argument("--range-days", type=int, default=0, help="ask N days ending at the data's end")
     ap.add_argument("--skip-fill", metavar="PLANT_TAG")
     args = ap.parse_args()
     u = urllib.parse.urlparse(args.base_url)
@@ -102,10 +104,13 @@ def main():
     for _ in range(args.requests):
         p = rnd.choice(points)
         par = rnd.choice(PARAMS + DERIVED)
-        d0 = start + timedelta(days=rnd.randrange(args.days))
+        if args.range_days:
+            d0, d1 = end - timedelta(days=args.range_days), end
+        else:
+            d0 = start + timedelta(days=rnd.randrange(args.days))
+            d1 = d0 + timedelta(days=1)
         q = urllib.parse.urlencode({"parameter": par, "from": d0.isoformat().replace("+00:00", "Z"),
-                                    "to": (d0 + timedelta(days=1)).isoformat().replace("+00:00", "Z"),
-                                    "maxPoints": 1000})
+                                    "to": d1.isoformat().replace("+00:00", "Z"), "maxPoints": 1000})
         t0 = time.monotonic()
         conn.request("GET", f"/api/v1/sample-points/{p}/series?{q}", headers=headers)
         r = conn.getresponse()
@@ -117,7 +122,8 @@ def main():
             sys.exit("more than 1000 buckets")
     latencies.sort()
     pct = lambda q: latencies[min(len(latencies) - 1, int(len(latencies) * q))] * 1000
-    print(f"{args.requests} one-day series (10 s data, maxPoints=1000): p50 {pct(0.5):.1f} ms, p95 {pct(0.95):.1f} ms,"
+    what = f"{args.range_days}-day" if args.range_days else "one-day"
+    print(f"{args.requests} {what} series (10 s data, maxPoints=1000): p50 {pct(0.5):.1f} ms, p95 {pct(0.95):.1f} ms,"
           f" max {latencies[-1] * 1000:.1f} ms; errors {errors}")
 
 

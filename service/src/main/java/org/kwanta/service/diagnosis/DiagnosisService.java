@@ -77,7 +77,10 @@ public class DiagnosisService {
   public record PointDiagnosis(Instant time, List<Finding> findings) {}
 
   private record Current(
-      Instant computedAt, long generations, Map<String, PointDiagnosis> byPoint) {}
+      Instant computedAt,
+      long generations,
+      Map<String, Diagnoser.Point> points,
+      Map<String, PointDiagnosis> byPoint) {}
 
   /** The points of a plant as the diagnosis sees them. */
   Map<String, Diagnoser.Point> points(String plantId) {
@@ -153,8 +156,9 @@ public class DiagnosisService {
 
   /**
    * The current diagnosis of every point of a plant: the findings at each point's latest minute
-   * with data in the last hour. Computed for the whole plant at once and reused for {@link
-   * #CURRENT_TTL} while no new readings of the plant arrive.
+   * with data in the last hour. Computed for the whole plant at once and reused while no new
+   * readings of the plant arrive: as is for {@link #CURRENT_TTL}, then checked against the plant's
+   * points (a changed declaration recomputes) and cut to the points with data in the last hour.
    */
   public Map<String, PointDiagnosis> current(String plantId) {
     Instant now = clock.instant();
@@ -168,6 +172,24 @@ public class DiagnosisService {
       return c.byPoint();
     }
     Map<String, Diagnoser.Point> points = points(plantId);
+    if (c != null && c.generations() == generations && c.points().equals(points)) {
+      // No new reading and the same points since it was computed: the diagnosis at each point's
+      // latest minute depends only on the minutes up to it (Diagnoser is a pure function of
+      // them), so it is the same; only the points whose latest minute has left the last hour
+      // drop out. The 200-point board spent seconds recomputing this every CURRENT_TTL.
+      Instant cutOff = now.minus(Duration.ofHours(1));
+      Map<String, PointDiagnosis> kept = new HashMap<>();
+      c.byPoint()
+          .forEach(
+              (id, d) -> {
+                if (!d.time().isBefore(cutOff)) {
+                  kept.put(id, d);
+                }
+              });
+      Map<String, PointDiagnosis> result = Map.copyOf(kept);
+      current.put(plantId, new Current(now, generations, points, result));
+      return result;
+    }
     Instant start = now.minus(diagnoser.settings().lookback()).minus(Duration.ofHours(1));
     Map<String, List<Minute>> series =
         minutes.load(List.copyOf(points.keySet()), start, now.plusSeconds(60));
@@ -191,7 +213,7 @@ public class DiagnosisService {
       }
     }
     Map<String, PointDiagnosis> result = Map.copyOf(out);
-    current.put(plantId, new Current(now, generations, result));
+    current.put(plantId, new Current(now, generations, points, result));
     return result;
   }
 

@@ -213,6 +213,22 @@ public class ReadingHistory {
   }
 
   /**
+   * The generation of each point of a plant (migration V31), by point id; a point never written is
+   * absent. A point's generation changes whenever a reading of it is written, so a cached answer
+   * built on that point's readings and evaluations is current while it stays the same.
+   */
+  public java.util.Map<String, Long> generationsByPoint(String plantId) {
+    java.util.Map<String, Long> out = new java.util.HashMap<>();
+    jdbc.query(
+        """
+        SELECT h.sample_point_id, h.generation FROM reading_head h
+        JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""",
+        (RowCallbackHandler) rs -> out.put(rs.getString(1), rs.getLong(2)),
+        plantId);
+    return out;
+  }
+
+  /**
    * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
    * Both sides carry the time range, so PostgreSQL prunes the daily partitions of both tables (a
    * bound on the readings alone left every evaluation partition in the plan). Parameters: the

@@ -250,6 +250,36 @@ public class Limits {
   private record RegimeVersion(
       Instant from, String regime, String location, Double temperatureCel, Double pressureMPa) {}
 
+  /**
+   * A fingerprint of everything the limits in force at a plant's points depend on at time {@code
+   * now}: the points' rows, their own limit versions and configuration versions (those in effect by
+   * {@code now} counted apart, so a version taking effect later changes it when it does) and the
+   * activations of the shipped defaults. Equal fingerprints mean {@link #inForce} and {@link
+   * #histories} answer the same; a cache of answers built on the limits (the board's levels) is
+   * current while it stays the same.
+   */
+  public String stamp(String plantId, Instant now) {
+    java.sql.Timestamp t = java.sql.Timestamp.from(now);
+    return jdbc.sql(
+            """
+            SELECT concat_ws('|',
+              (SELECT md5(string_agg(s::text, ',' ORDER BY s.id)) || ':' || max(p.plant_type)
+                 FROM sample_point s JOIN plant p ON p.id = s.plant_id WHERE s.plant_id = ?),
+              (SELECT count(*) || ':' || count(*) FILTER (WHERE l.effective_from <= ?) || ':'
+                      || coalesce(max(l.recorded_at)::text, '')
+                 FROM limit_version l JOIN sample_point s ON s.id = l.sample_point_id
+                 WHERE s.plant_id = ?),
+              (SELECT count(*) || ':' || count(*) FILTER (WHERE v.valid_from <= ?) || ':'
+                      || coalesce(sum(v.version), 0)
+                 FROM sample_point_version v JOIN sample_point s ON s.id = v.sample_point_id
+                 WHERE s.plant_id = ?),
+              (SELECT count(*) || ':' || count(*) FILTER (WHERE a.effective_from <= ?)
+                 FROM limit_defaults_activation a))""")
+        .params(plantId, t, plantId, t, plantId, t)
+        .query(String.class)
+        .single();
+  }
+
   /** Every profile in force at a point now, one per parameter that has limits. */
   public List<Effective> inForce(Point point) {
     Instant now = clock.instant();

@@ -65,6 +65,7 @@ class StateController {
     PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
     Instant now = clock.instant();
     Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(plant.id());
+    States.Freshness freshness = states.freshness(plant.id(), now);
     return new Overview(
         plant.id(),
         plant.name(),
@@ -72,7 +73,8 @@ class StateController {
         plant.samplePoints().stream()
             .map(
                 p ->
-                    states.of(
+                    states.cachedOf(
+                        freshness,
                         p.id(),
                         p.name(),
                         p.cycleLocation(),
