@@ -16,10 +16,12 @@ import org.kwanta.service.system.BadRequestException;
 
 /**
  * Reads a CSV batch (RFC 4180 with a header row). Columns: {@code sample_point, parameter, time,
- * value, unit} and optionally {@code quality, sample_temperature_cel, compensated}, in any order. A
- * UTF-8 byte-order mark before the header is skipped; blank lines are ignored. Numbers are plain
- * decimals ({@code 9.6}, {@code -1.5e-3}): Java's hexadecimal and type-suffixed forms ({@code
- * 0x1p3}, {@code 9.6d}) are refused. Every rejection carries the file line where its row starts.
+ * value, unit} and optionally {@code quality, sample_temperature_cel, compensated} and, for grab
+ * and lab results, {@code source, sample_id, lab_method, censored, density_temperature_cel}, in any
+ * order; a value written {@code <2} is censored below 2. A UTF-8 byte-order mark before the header
+ * is skipped; blank lines are ignored. Numbers are plain decimals ({@code 9.6}, {@code -1.5e-3}):
+ * Java's hexadecimal and type-suffixed forms ({@code 0x1p3}, {@code 9.6d}) are refused. Every
+ * rejection carries the file line where its row starts.
  */
 final class CsvReadings {
 
