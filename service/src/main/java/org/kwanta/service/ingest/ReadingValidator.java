@@ -210,6 +210,20 @@ final class ReadingValidator {
       }
       return;
     }
+    if (in.quality() != null && !"good".equalsIgnoreCase(in.quality().trim())) {
+      rejected.add(
+          new RejectedReading(
+              i,
+              "quality",
+              "grab and lab results carry no quality: omit it, or leave the result out"));
+    }
+    if (in.sampleTemperatureCel() != null || Boolean.FALSE.equals(in.compensated())) {
+      rejected.add(
+          new RejectedReading(
+              i,
+              in.sampleTemperatureCel() != null ? "sampleTemperatureCel" : "compensated",
+              "grab and lab conductivities are entered at 25 °C (as the lab reports them)"));
+    }
     if (in.source() != null && !"grab".equals(in.source()) && !"lab".equals(in.source())) {
       rejected.add(
           new RejectedReading(

@@ -175,4 +175,21 @@ class LabResultsIT {
     assertThat(r.statusCode()).isEqualTo(400);
     assertThat(r.body()).contains("/api/v1/lab-results");
   }
+
+  @Test
+  void aLabResultWithAQualityOrAnUncompensatedConductivityIsRefused() {
+    HttpResponse<String> r =
+        http.post(
+            "/api/v1/lab-results",
+            "application/json",
+            ("{\"readings\":[{\"samplePoint\":\"%s\",\"parameter\":\"sodium\",\"time\":\"%s\","
+                    + "\"value\":3.0,\"unit\":\"ug/kg\",\"quality\":\"bad\"},"
+                    + "{\"samplePoint\":\"%s\",\"parameter\":\"specific_conductivity\","
+                    + "\"time\":\"%s\",\"value\":5.0,\"unit\":\"uS/cm\","
+                    + "\"sampleTemperatureCel\":30}]}")
+                .formatted(
+                    point, Instant.now().minusSeconds(60), point, Instant.now().minusSeconds(60)));
+    assertThat(r.statusCode()).isEqualTo(400);
+    assertThat(r.body()).contains("carry no quality").contains("at 25 °C");
+  }
 }
