@@ -32,9 +32,15 @@ class LabResultsController {
   private final IngestLimits limits;
   private final LabResults results;
   private final JdbcClient jdbc;
+  private final java.time.Clock clock;
 
   LabResultsController(
-      IngestService ingest, IngestLimits limits, LabResults results, JdbcClient jdbc) {
+      IngestService ingest,
+      IngestLimits limits,
+      LabResults results,
+      JdbcClient jdbc,
+      java.time.Clock clock) {
+    this.clock = clock;
     this.ingest = ingest;
     this.limits = limits;
     this.results = results;
@@ -137,11 +143,9 @@ class LabResultsController {
                       BadRequestException.of(
                           "unknown parameter '" + parameter + "'; known: " + Parameter.codes()));
     }
-    Instant end = TimeParameters.instant("to", to);
-    end = end == null ? Instant.now().plusSeconds(300) : end;
-    Instant start = TimeParameters.instant("from", from);
-    start = start == null ? end.minus(java.time.Duration.ofDays(31)) : start;
-    return results.between(samplePoint, p, start, end).stream()
+    TimeParameters.Range range =
+        TimeParameters.range(from, to, clock.instant(), java.time.Duration.ofDays(31));
+    return results.between(samplePoint, p, range.from(), range.to()).stream()
         .map(LabResultResponse::from)
         .toList();
   }

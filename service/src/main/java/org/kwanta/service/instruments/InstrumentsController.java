@@ -223,12 +223,11 @@ class InstrumentsController {
       @RequestParam(required = false) String from,
       @RequestParam(required = false) String to) {
     requirePoint(samplePoint);
-    Instant end = TimeParameters.instant("to", to);
-    end = end == null ? clock.instant().plusSeconds(300) : end;
-    Instant start = TimeParameters.instant("from", from);
-    start = start == null ? end.minus(java.time.Duration.ofDays(31)) : start;
+    TimeParameters.Range range =
+        TimeParameters.range(from, to, clock.instant(), java.time.Duration.ofDays(31));
     return grabs
-        .between(samplePoint, parameter == null ? null : parameter(parameter), start, end)
+        .between(
+            samplePoint, parameter == null ? null : parameter(parameter), range.from(), range.to())
         .stream()
         .map(GrabComparisonResponse::from)
         .toList();
