@@ -108,7 +108,7 @@ class LabResultsIT {
   }
 
   @Test
-  void aCensoredResultStaysCensoredFromJsonAndFromCsv() {
+  void aCensoredResultStaysCensoredFromJsonAndFromCsvAndInTheSeries() {
     Instant t = Instant.now().truncatedTo(ChronoUnit.MINUTES).minusSeconds(7200);
     post(
         "application/json",
@@ -126,6 +126,19 @@ class LabResultsIT {
     assertThat(copper.get("censored").asString()).isEqualTo("below");
     assertThat(copper.get("value").asDouble()).isEqualTo(2.0);
     assertThat(copper.get("display").asString()).isEqualTo("< 2.0 ug/kg");
+    JsonNode series =
+        JSON.readTree(
+            http.get(
+                    "/api/v1/sample-points/"
+                        + point
+                        + "/series?parameter=copper&from="
+                        + t.minusSeconds(3600)
+                        + "&to="
+                        + t.plusSeconds(3600))
+                .body());
+    assertThat(series.get("points")).isEmpty();
+    assertThat(series.get("labResults").get(0).get("censored").asString()).isEqualTo("below");
+    assertThat(series.get("labResults").get(0).get("value").asDouble()).isEqualTo(2.0);
     JsonNode chloride = list("chloride").get(0);
     assertThat(chloride.get("censored").asString()).isEqualTo("below");
     assertThat(chloride.get("value").asDouble()).isEqualTo(0.5);
