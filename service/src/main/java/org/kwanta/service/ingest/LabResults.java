@@ -11,6 +11,7 @@ import java.util.Map;
 import org.kwanta.model.Parameter;
 import org.kwanta.model.water.Water;
 import org.kwanta.service.audit.Actor;
+import org.kwanta.service.audit.AuditLog;
 import org.springframework.context.ApplicationEventPublisher;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
@@ -20,8 +21,9 @@ import org.springframework.transaction.annotation.Transactional;
  * Grab and lab results (table {@code lab_result}): stored apart from the online readings, so they
  * never become a point's current online value, never count for stale-data alarms and are not fed to
  * the evaluation engine (which judges online readings only). Written by {@link IngestService#lab};
- * read here. After a write, in the same transaction, a {@link Stored} event names what was written
- * (the instrument care compares online instruments with it).
+ * read here. Every entry and correction is audited (the value before and after). After a write, in
+ * the same transaction, a {@link Stored} event names what was written (the instrument care compares
+ * online instruments with it).
  */
 @Repository
 public class LabResults {
@@ -89,10 +91,12 @@ public class LabResults {
 
   private final JdbcClient jdbc;
   private final ApplicationEventPublisher events;
+  private final AuditLog audit;
 
-  LabResults(JdbcClient jdbc, ApplicationEventPublisher events) {
+  LabResults(JdbcClient jdbc, ApplicationEventPublisher events, AuditLog audit) {
     this.jdbc = jdbc;
     this.events = events;
+    this.audit = audit;
   }
 
   /** The mass-per-volume units a lab result may be sent in, with their mass in ug. */
@@ -206,6 +210,15 @@ public class LabResults {
     int corrected = 0;
     List<LabResult> changed = new ArrayList<>();
     for (LabResult r : distinct.values()) {
+      LabResult before =
+          jdbc.sql(
+                  SELECT
+                      + " WHERE sample_point_id = ? AND parameter = ? AND time = ? AND source = ?"
+                      + " FOR UPDATE")
+              .params(r.samplePoint(), r.parameter().code(), Timestamp.from(r.time()), r.source())
+              .query((rs, i) -> row(rs))
+              .optional()
+              .orElse(null);
       List<Boolean> written =
           jdbc.sql(
                   """
@@ -245,6 +258,12 @@ public class LabResults {
               .list();
       if (!written.isEmpty()) {
         changed.add(r);
+        audit.record(
+            before == null ? "lab-result.enter" : "lab-result.correct",
+            "lab-result",
+            r.samplePoint() + "/" + r.parameter().code() + "/" + r.time() + "/" + r.source(),
+            before,
+            r);
         if (written.get(0)) {
           inserted++;
         } else {

@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 import java.net.http.HttpResponse;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
+import java.util.List;
 import java.util.Locale;
 import java.util.UUID;
 import org.junit.jupiter.api.BeforeEach;
@@ -105,6 +106,23 @@ class LabResultsIT {
     assertThat(iron.get("enteredBy").asString()).isNotBlank();
     assertThat(list("silica").get(0).get("value").asDouble())
         .isCloseTo(0.05 * 1e6 / RHO_20_PYTHON_IAPWS, within(1e-6));
+
+    // a correction keeps the value before in the audit log
+    JsonNode corrected =
+        post(
+            "application/json",
+            ("{\"readings\":[{\"samplePoint\":\"%s\",\"parameter\":\"iron\",\"time\":\"%s\","
+                    + "\"value\":12.0,\"unit\":\"ug/kg\",\"sampleId\":\"S-1\"}]}")
+                .formatted(point, t));
+    assertThat(corrected.get("corrected").asInt()).isEqualTo(1);
+    JsonNode audit =
+        JSON.readTree(
+            http.get("/api/v1/audit?entity=lab-result&entityId=" + point + "/iron/" + t + "/lab")
+                .body());
+    List<String> actions = new java.util.ArrayList<>();
+    audit.forEach(e -> actions.add(e.get("action").asString()));
+    assertThat(actions).containsExactly("lab-result.enter", "lab-result.correct");
+    assertThat(audit.get(1).toString()).contains("12.3").contains("12.0");
   }
 
   @Test
