@@ -192,8 +192,19 @@ function render(r) {
       { text: c.checksInPeriod, num: true }]);
   }
 
-  const note = r.grabVsOnline.note || '';
-  $('grab').textContent = note.charAt(0).toUpperCase() + note.slice(1);
+  const g = r.grabVsOnline;
+  const note = g.note || '';
+  $('grab').textContent = note.charAt(0).toUpperCase() + note.slice(1)
+    + (g.comparisons.length ? '. Tolerances: ' + g.toleranceSource + '.' : '');
+  $('grab').className = g.available ? '' : 'unavailable';
+  const grabs = $('grabs').tBodies[0];
+  clear(grabs);
+  for (const c of g.comparisons) {
+    row(grabs, [c.samplePoint, c.parameter, c.grabTime, c.grab + ' ' + c.unit,
+      { text: c.onlineValue, num: true }, { text: c.deviation.toPrecision(3), num: true },
+      { text: '± ' + c.tolerance, num: true }, c.verdict]);
+  }
+  $('grabs').hidden = g.comparisons.length === 0;
 }
 
 async function load() {

@@ -50,6 +50,24 @@ public enum Parameter {
   IRON("ug/kg", Quantity.MASS_FRACTION, null, false, true, 0, 1e7),
   /** Total copper. */
   COPPER("ug/kg", Quantity.MASS_FRACTION, null, false, true, 0, 1e7),
+  /** Dissolved iron (after filtration, as the lab method states); total iron is {@link #IRON}. */
+  IRON_DISSOLVED("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Dissolved copper (after filtration); total copper is {@link #COPPER}. */
+  COPPER_DISSOLVED("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Ammonia as NH3. */
+  AMMONIA("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Amine (the treatment's amine; which one, the lab method says). */
+  AMINE("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Reducing agent: hydrazine or carbohydrazide (which one, the lab method says). */
+  REDUCING_AGENT("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Total organic carbon, as C. */
+  TOC("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Acetate. */
+  ACETATE("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Formate. */
+  FORMATE("ug/kg", Quantity.MASS_FRACTION, null, false, false, 0, 1e7),
+  /** Oxidation-reduction potential against the electrode's reference (the method says which). */
+  ORP("mV", Quantity.POTENTIAL, null, false, false, -2000, 2000),
   /** Phosphate as PO4. */
   PHOSPHATE("ug/kg", Quantity.MASS_FRACTION, null, false, true, 0, 1e7),
   /** Sample temperature at the analysers (the evaluation compensates conductivities with it). */
@@ -64,7 +82,9 @@ public enum Parameter {
     /** Mass fraction (canonical µg/kg); volumetric units are never guessed into it. */
     MASS_FRACTION,
     /** Temperature (canonical °C). */
-    TEMPERATURE
+    TEMPERATURE,
+    /** Electrode potential (canonical mV). */
+    POTENTIAL
   }
 
   private static final Map<String, Parameter> BY_CODE =

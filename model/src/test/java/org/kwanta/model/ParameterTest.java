@@ -21,9 +21,16 @@ class ParameterTest {
   }
 
   @Test
-  void limitsTakeEveryParameterButTheSampleTemperature() {
-    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 1);
-    assertThat(Parameter.limited()).doesNotContain(Parameter.SAMPLE_TEMPERATURE);
+  void limitsTakeTheAnalysedSpeciesButNotTheSampleTemperatureNorTheLabOnlyParameters() {
+    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 10);
+    assertThat(Parameter.limited())
+        .doesNotContain(
+            Parameter.SAMPLE_TEMPERATURE,
+            Parameter.AMMONIA,
+            Parameter.REDUCING_AGENT,
+            Parameter.TOC,
+            Parameter.ORP,
+            Parameter.IRON_DISSOLVED);
     assertThatThrownBy(() -> Parameter.limitedOfCode("sample_temperature"))
         .hasMessageContaining("Unknown parameter 'sample_temperature'");
   }

@@ -16,15 +16,26 @@ import org.kwanta.service.system.BadRequestException;
 
 /**
  * Reads a CSV batch (RFC 4180 with a header row). Columns: {@code sample_point, parameter, time,
- * value, unit} and optionally {@code quality, sample_temperature_cel, compensated}, in any order. A
- * UTF-8 byte-order mark before the header is skipped; blank lines are ignored. Numbers are plain
- * decimals ({@code 9.6}, {@code -1.5e-3}): Java's hexadecimal and type-suffixed forms ({@code
- * 0x1p3}, {@code 9.6d}) are refused. Every rejection carries the file line where its row starts.
+ * value, unit} and optionally {@code quality, sample_temperature_cel, compensated} and, for grab
+ * and lab results, {@code source, sample_id, lab_method, censored, density_temperature_cel}, in any
+ * order; a value written {@code <2} is censored below 2. A UTF-8 byte-order mark before the header
+ * is skipped; blank lines are ignored. Numbers are plain decimals ({@code 9.6}, {@code -1.5e-3}):
+ * Java's hexadecimal and type-suffixed forms ({@code 0x1p3}, {@code 9.6d}) are refused. Every
+ * rejection carries the file line where its row starts.
  */
 final class CsvReadings {
 
   static final Set<String> REQUIRED = Set.of("sample_point", "parameter", "time", "value", "unit");
-  static final Set<String> OPTIONAL = Set.of("quality", "sample_temperature_cel", "compensated");
+  static final Set<String> OPTIONAL =
+      Set.of(
+          "quality",
+          "sample_temperature_cel",
+          "compensated",
+          "source",
+          "sample_id",
+          "lab_method",
+          "censored",
+          "density_temperature_cel");
 
   private CsvReadings() {}
 
@@ -95,8 +106,22 @@ final class CsvReadings {
           index++;
           continue;
         }
-        Double value = number(record, "value", index, rejected);
+        // a lab's "<2" is a result below the detection limit 2 (censored), never the number 2
+        String censored = text(record, "censored");
+        String valueText = text(record, "value");
+        boolean below = valueText != null && valueText.startsWith("<");
+        if (below) {
+          censored = censored == null ? "below" : censored;
+        }
+        Double value =
+            number(
+                record,
+                "value",
+                below ? valueText.substring(1).trim() : valueText,
+                index,
+                rejected);
         Double temperature = number(record, "sample_temperature_cel", index, rejected);
+        Double densityTemperature = number(record, "density_temperature_cel", index, rejected);
         Boolean compensated = bool(record, "compensated", index, rejected);
         readings.add(
             new ReadingInput(
@@ -107,7 +132,12 @@ final class CsvReadings {
                 text(record, "unit"),
                 text(record, "quality"),
                 temperature,
-                compensated));
+                compensated,
+                text(record, "source"),
+                text(record, "sample_id"),
+                text(record, "lab_method"),
+                censored,
+                densityTemperature));
         index++;
       }
     } catch (IOException | UncheckedIOException e) {
@@ -149,8 +179,12 @@ final class CsvReadings {
 
   private static Double number(
       CSVRecord record, String column, int index, List<RejectedReading> rejected) {
-    String v = text(record, column);
-    if (v == null) {
+    return number(record, column, text(record, column), index, rejected);
+  }
+
+  private static Double number(
+      CSVRecord record, String column, String v, int index, List<RejectedReading> rejected) {
+    if (v == null || v.isEmpty()) {
       return null;
     }
     if (!isDecimal(v)) {

@@ -11,6 +11,7 @@ import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
 import java.util.TreeSet;
+import org.kwanta.service.audit.Actor;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.DatabaseOutage;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -72,7 +73,9 @@ public class IngestService {
       Clock clock,
       PlatformTransactionManager transactions,
       IngestMetrics metrics,
-      EvaluationRunner runner) {
+      EvaluationRunner runner,
+      LabResults labResults) {
+    this.labResults = labResults;
     this.metrics = metrics;
     this.runner = runner;
     this.transaction = new TransactionTemplate(transactions);
@@ -84,6 +87,44 @@ public class IngestService {
     this.limits = limits;
     this.validator = new ReadingValidator(limits, clock);
     this.recent = new RecentReadings(limits.recentReadings(), limits.historyWindow());
+  }
+
+  private final LabResults labResults;
+
+  /**
+   * Validates and stores a batch of grab and lab results (all or nothing): mass-per-volume values
+   * converted to ug/kg first ({@link LabResults#convert}), then the checks of online readings plus
+   * those of source, sample id, method and censoring. Who entered them is {@code by}.
+   */
+  public LabResults.Outcome lab(
+      List<ReadingInput> inputs, List<RejectedReading> alreadyRejected, Actor by) {
+    if (inputs == null || inputs.isEmpty()) {
+      throw new InvalidBatchException(
+          List.of(new RejectedReading(0, null, "batch has no results")));
+    }
+    if (inputs.size() > limits.maxBatchSize()) {
+      throw new BatchTooLargeException(inputs.size(), limits.maxBatchSize());
+    }
+    LabResults.Converted converted = LabResults.convert(inputs);
+    Set<String> named = new TreeSet<>();
+    for (ReadingInput in : inputs) {
+      if (in != null && in.samplePoint() != null && in.samplePoint().length() <= 64) {
+        named.add(in.samplePoint());
+      }
+    }
+    ReadingValidator.Outcome checked =
+        validator.validate(converted.inputs(), configs.existing(named), true);
+    List<RejectedReading> all = new ArrayList<>(alreadyRejected);
+    Set<Integer> parsedBad = new TreeSet<>();
+    alreadyRejected.forEach(r -> parsedBad.add(r.index()));
+    converted.rejected().stream().filter(r -> !parsedBad.contains(r.index())).forEach(all::add);
+    checked.rejected().stream().filter(r -> !parsedBad.contains(r.index())).forEach(all::add);
+    if (!all.isEmpty()) {
+      all.sort(java.util.Comparator.comparingInt(RejectedReading::index));
+      throw new InvalidBatchException(all);
+    }
+    return labResults.write(
+        inputs, converted.inputs(), checked.valid(), converted.conversions(), by);
   }
 
   /** The outcome of an accepted batch. */

@@ -29,6 +29,15 @@ final class ReadingValidator {
   record Outcome(List<ValidReading> valid, List<RejectedReading> rejected) {}
 
   Outcome validate(List<ReadingInput> inputs, Set<String> knownSamplePoints) {
+    return validate(inputs, knownSamplePoints, false);
+  }
+
+  /**
+   * Checks a batch of online readings ({@code lab} false: a grab or lab source is refused, with a
+   * pointer to the lab endpoint) or of grab and lab results ({@code lab} true: source grab or lab,
+   * sample id, method and censoring checked).
+   */
+  Outcome validate(List<ReadingInput> inputs, Set<String> knownSamplePoints, boolean lab) {
     List<ValidReading> valid = new ArrayList<>(inputs.size());
     List<RejectedReading> rejected = new ArrayList<>();
     Instant now = clock.instant();
@@ -164,6 +173,7 @@ final class ReadingValidator {
         rejected.add(
             new RejectedReading(i, "compensated", "only conductivities can be compensated"));
       }
+      checkSource(in, i, lab, rejected);
       boolean compensated =
           in.compensated() != null ? in.compensated() : in.sampleTemperatureCel() == null;
       if (rejected.size() == before) {
@@ -173,6 +183,67 @@ final class ReadingValidator {
       }
     }
     return new Outcome(valid, rejected);
+  }
+
+  private static void checkSource(
+      ReadingInput in, int i, boolean lab, List<RejectedReading> rejected) {
+    if (!lab) {
+      if (in.notOnline()) {
+        rejected.add(
+            new RejectedReading(
+                i,
+                "source",
+                "'"
+                    + abbreviate(in.source())
+                    + "' is not an online reading: grab and lab results go to POST"
+                    + " /api/v1/lab-results"));
+      } else if (in.sampleId() != null
+          || in.labMethod() != null
+          || in.censored() != null
+          || in.densityTemperatureCel() != null) {
+        rejected.add(
+            new RejectedReading(
+                i,
+                "source",
+                "sampleId, labMethod, censored and densityTemperatureCel belong to grab and lab"
+                    + " results (POST /api/v1/lab-results)"));
+      }
+      return;
+    }
+    if (in.quality() != null && !"good".equalsIgnoreCase(in.quality().trim())) {
+      rejected.add(
+          new RejectedReading(
+              i,
+              "quality",
+              "grab and lab results carry no quality: omit it, or leave the result out"));
+    }
+    if (in.sampleTemperatureCel() != null || Boolean.FALSE.equals(in.compensated())) {
+      rejected.add(
+          new RejectedReading(
+              i,
+              in.sampleTemperatureCel() != null ? "sampleTemperatureCel" : "compensated",
+              "grab and lab conductivities are entered at 25 °C (as the lab reports them)"));
+    }
+    if (in.source() != null && !"grab".equals(in.source()) && !"lab".equals(in.source())) {
+      rejected.add(
+          new RejectedReading(
+              i, "source", "must be grab or lab here, not '" + abbreviate(in.source()) + "'"));
+    }
+    if (in.sampleId() != null && (in.sampleId().isBlank() || in.sampleId().length() > 64)) {
+      rejected.add(new RejectedReading(i, "sampleId", "1 to 64 characters"));
+    }
+    if (in.labMethod() != null && (in.labMethod().isBlank() || in.labMethod().length() > 200)) {
+      rejected.add(new RejectedReading(i, "labMethod", "1 to 200 characters"));
+    }
+    if (in.censored() != null && !"below".equals(in.censored())) {
+      rejected.add(
+          new RejectedReading(
+              i,
+              "censored",
+              "only 'below' (below the detection limit, the value being the limit), not '"
+                  + abbreviate(in.censored())
+                  + "'"));
+    }
   }
 
   private static String abbreviate(String s) {

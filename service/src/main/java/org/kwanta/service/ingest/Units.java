@@ -38,7 +38,9 @@ final class Units {
               Map.of(
                   "Cel", Conversions.IDENTITY,
                   "K", k -> k - 273.15,
-                  "[degF]", f -> (f - 32) * 5 / 9)));
+                  "[degF]", f -> (f - 32) * 5 / 9),
+              Parameter.Quantity.POTENTIAL,
+              Map.of("mV", Conversions.IDENTITY, "V", v -> v * 1e3)));
 
   /** Accepted unit codes (UCUM) for a parameter. */
   static java.util.Set<String> accepted(Parameter p) {

@@ -19,12 +19,22 @@ public enum CheckKind {
   CATION_RESIN_CHANGE(
       Set.of(Parameter.CATION_CONDUCTIVITY, Parameter.DEGASSED_CATION_CONDUCTIVITY)),
   /** Dissolved-oxygen sensor: zero and span. */
-  DISSOLVED_OXYGEN_ZERO_SPAN(Set.of(Parameter.DISSOLVED_OXYGEN));
+  DISSOLVED_OXYGEN_ZERO_SPAN(Set.of(Parameter.DISSOLVED_OXYGEN)),
+  /**
+   * The online value compared with a grab or lab result at the same point (logged by the service,
+   * {@link GrabComparisons}); not a scheduled check, so never due.
+   */
+  GRAB_COMPARISON(GrabComparisons.TOLERANCES.keySet());
 
   private final Set<Parameter> parameters;
 
   CheckKind(Set<Parameter> parameters) {
     this.parameters = parameters;
+  }
+
+  /** Whether the check has an interval and is due (every kind but the grab comparison). */
+  public boolean scheduled() {
+    return this != GRAB_COMPARISON;
   }
 
   /** Whether this check is made on an instrument of the parameter. */

@@ -56,7 +56,7 @@ public class CheckSchedule {
     List<Due> out = new ArrayList<>();
     for (Instrument instrument : instruments(plant, checks)) {
       for (CheckKind kind : CheckKind.values()) {
-        if (!kind.appliesTo(instrument.parameter())) {
+        if (!kind.scheduled() || !kind.appliesTo(instrument.parameter())) {
           continue;
         }
         InstrumentLog.Check lastDone = null;

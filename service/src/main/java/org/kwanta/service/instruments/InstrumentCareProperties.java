@@ -34,6 +34,8 @@ public record InstrumentCareProperties(
           case SODIUM_CALIBRATION -> sodiumCalibration;
           case CATION_RESIN_CHANGE -> cationResinChange;
           case DISSOLVED_OXYGEN_ZERO_SPAN -> dissolvedOxygenZeroSpan;
+          case GRAB_COMPARISON ->
+              throw new IllegalArgumentException("a grab comparison has no interval");
         };
     if (d != null) {
       return d;

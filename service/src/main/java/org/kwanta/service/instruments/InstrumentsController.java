@@ -37,6 +37,7 @@ class InstrumentsController {
   private final InstrumentLog log;
   private final CheckSchedule schedule;
   private final Availability availability;
+  private final GrabComparisons grabs;
   private final JdbcClient jdbc;
   private final Clock clock;
 
@@ -44,8 +45,10 @@ class InstrumentsController {
       InstrumentLog log,
       CheckSchedule schedule,
       Availability availability,
+      GrabComparisons grabs,
       JdbcClient jdbc,
       Clock clock) {
+    this.grabs = grabs;
     this.log = log;
     this.schedule = schedule;
     this.availability = availability;
@@ -135,6 +138,10 @@ class InstrumentsController {
   CheckResponse record(@PathVariable String samplePoint, @Valid @RequestBody CheckRequest r) {
     requirePoint(samplePoint);
     Parameter p = parameter(r.parameter());
+    if (!r.kind().scheduled()) {
+      throw BadRequestException.of(
+          r.kind() + " is logged by the service when a grab or lab result is entered");
+    }
     if (!r.kind().appliesTo(p)) {
       throw BadRequestException.of(r.kind() + " is not a check of a " + p.code() + " instrument");
     }
@@ -159,6 +166,70 @@ class InstrumentsController {
     requirePoint(samplePoint);
     return log.checks(samplePoint, parameter == null ? null : parameter(parameter)).stream()
         .map(CheckResponse::from)
+        .toList();
+  }
+
+  /** One comparison of an online instrument with a grab or lab result. */
+  record GrabComparisonResponse(
+      String samplePoint,
+      String parameter,
+      String unit,
+      Instant grabTime,
+      String source,
+      String sampleId,
+      double grabValue,
+      String censored,
+      Instant onlineTime,
+      double onlineValue,
+      double deviation,
+      double tolerance,
+      String toleranceSource,
+      boolean withinTolerance,
+      boolean inDoubtBefore,
+      GrabComparisons.Verdict verdict) {
+    static GrabComparisonResponse from(GrabComparisons.Comparison c) {
+      return new GrabComparisonResponse(
+          c.samplePoint(),
+          c.parameter().code(),
+          c.parameter().unit(),
+          c.grabTime(),
+          c.source(),
+          c.sampleId(),
+          c.grabValue(),
+          c.censored(),
+          c.onlineTime(),
+          c.onlineValue(),
+          c.deviation(),
+          c.tolerance(),
+          GrabComparisons.TOLERANCE_SOURCE,
+          c.withinTolerance(),
+          c.inDoubtBefore(),
+          c.verdict());
+    }
+  }
+
+  @GetMapping("/api/v1/sample-points/{samplePoint}/grab-comparisons")
+  @Operation(
+      summary = "Online instruments against grab and lab results over time, oldest first",
+      description =
+          "For each grab or lab result in [from, to) (default the last 31 days) of a parameter with"
+              + " a tolerance (ph, the conductivities, sodium, silica, dissolved_oxygen): the online"
+              + " value at its time (latest in the 15 minutes up to it), deviation online − grab,"
+              + " tolerance (common practice, no source), whether the instrument was in doubt"
+              + " before and the verdict: CLEARED, CONFIRMED, AGREES or DISAGREES.")
+  List<GrabComparisonResponse> grabComparisons(
+      @PathVariable String samplePoint,
+      @RequestParam(required = false) String parameter,
+      @RequestParam(required = false) String from,
+      @RequestParam(required = false) String to) {
+    requirePoint(samplePoint);
+    TimeParameters.Range range =
+        TimeParameters.range(from, to, clock.instant(), java.time.Duration.ofDays(31));
+    return grabs
+        .between(
+            samplePoint, parameter == null ? null : parameter(parameter), range.from(), range.to())
+        .stream()
+        .map(GrabComparisonResponse::from)
         .toList();
   }
 

@@ -9,6 +9,7 @@ import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import java.util.Locale;
+import org.kwanta.service.ingest.LabResults;
 import org.kwanta.service.ingest.StoredSeries;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
 import org.kwanta.service.system.BadRequestException;
@@ -37,7 +38,10 @@ class SeriesController {
   private final StoredSeries series;
   private final SamplePointConfigs configs;
 
-  SeriesController(StoredSeries series, SamplePointConfigs configs) {
+  private final LabResults labResults;
+
+  SeriesController(StoredSeries series, SamplePointConfigs configs, LabResults labResults) {
+    this.labResults = labResults;
     this.series = series;
     this.configs = configs;
   }
@@ -52,7 +56,14 @@ class SeriesController {
       Long bucketSeconds,
       List<StoredSeries.Point> points,
       List<StoredSeries.Bucket> buckets,
-      Instant next) {}
+      Instant next,
+      List<LabPoint> labResults) {}
+
+  /**
+   * A grab or lab result beside an online series (never part of {@code points} or {@code buckets});
+   * {@code censored} "below": below the detection limit {@code value}.
+   */
+  record LabPoint(Instant time, String source, double value, String censored, String sampleId) {}
 
   @GetMapping(
       value = "/series",
@@ -65,7 +76,8 @@ class SeriesController {
               + " max, last and count. Derived parameters: specific_conductivity_25,"
               + " cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25,"
               + " ph_at_temperature (and _low, _high), neutral_ph_at_temperature. CSV with Accept: text/csv"
-              + " or format=csv.")
+              + " or format=csv. JSON of a measured parameter: also `labResults`, the grab and lab"
+              + " results in the range (apart from the online points; censored ones marked).")
   ResponseEntity<?> series(
       @Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId,
       @Parameter(example = "cation_conductivity") @RequestParam String parameter,
@@ -121,13 +133,31 @@ class SeriesController {
       Instant next = points.size() == n ? points.get(n - 1).time() : null;
       response =
           new SeriesResponse(
-              samplePointId, p.code(), p.unit(), start, end, null, points, null, next);
+              samplePointId,
+              p.code(),
+              p.unit(),
+              start,
+              end,
+              null,
+              points,
+              null,
+              next,
+              labPoints(samplePointId, p, start, end));
     } else {
       List<StoredSeries.Bucket> buckets =
           series.bucketed(samplePointId, p.source(), start, end, size);
       response =
           new SeriesResponse(
-              samplePointId, p.code(), p.unit(), start, end, size.toSeconds(), null, buckets, null);
+              samplePointId,
+              p.code(),
+              p.unit(),
+              start,
+              end,
+              size.toSeconds(),
+              null,
+              buckets,
+              null,
+              labPoints(samplePointId, p, start, end));
     }
     if (csv) {
       return ResponseEntity.ok()
@@ -138,6 +168,16 @@ class SeriesController {
           .body(SeriesCsv.write(response));
     }
     return ResponseEntity.ok().contentType(MediaType.APPLICATION_JSON).body(response);
+  }
+
+  /** The grab and lab results of a measured parameter in [from, to); null for derived ones. */
+  private List<LabPoint> labPoints(String point, SeriesParameter p, Instant from, Instant to) {
+    if (!p.measured()) {
+      return null;
+    }
+    return labResults.between(point, org.kwanta.model.Parameter.ofCode(p.code()), from, to).stream()
+        .map(r -> new LabPoint(r.time(), r.source(), r.value(), r.censored(), r.sampleId()))
+        .toList();
   }
 
   private static Duration bucketSize(String bucket, Integer maxPoints, Instant start, Instant end) {

@@ -74,8 +74,45 @@ public record Report(
       String status,
       int checksInPeriod) {}
 
-  /** The comparison of online instruments with grab samples: not available yet. */
-  public record GrabVsOnline(boolean available, String note) {}
+  /**
+   * Online instruments against grab and lab results in the period: per instrument a summary, and
+   * every comparison (a result below its detection limit keeps {@code censored} "below" and shows
+   * as "&lt; limit").
+   */
+  public record GrabVsOnline(
+      boolean available,
+      String note,
+      String toleranceSource,
+      List<GrabAgreement> instruments,
+      List<GrabRow> comparisons) {}
+
+  /** One instrument's agreement with grab results in the period. */
+  public record GrabAgreement(
+      String samplePoint,
+      String parameter,
+      String unit,
+      int comparisons,
+      int withinTolerance,
+      double meanDeviation,
+      double maxAbsDeviation,
+      String lastVerdict) {}
+
+  /** One comparison (deviation = online − grab, canonical unit). */
+  public record GrabRow(
+      String samplePoint,
+      String parameter,
+      String unit,
+      Instant grabTime,
+      String source,
+      String sampleId,
+      double grabValue,
+      String censored,
+      String grab,
+      double onlineValue,
+      double deviation,
+      double tolerance,
+      boolean withinTolerance,
+      String verdict) {}
 
   /** The chemistry performance index (docs/report.md). */
   public record Index(

@@ -78,6 +78,26 @@ final class ReportCsv {
         String.valueOf(r.grabVsOnline().available()),
         "");
     row(sb, "grab_vs_online", "", "", "note", r.grabVsOnline().note(), "");
+    for (Report.GrabRow g : r.grabVsOnline().comparisons()) {
+      String at = g.grabTime().toString();
+      row(sb, "grab_vs_online", g.samplePoint(), g.parameter(), "grab " + at, g.grab(), g.unit());
+      row(
+          sb,
+          "grab_vs_online",
+          g.samplePoint(),
+          g.parameter(),
+          "online " + at,
+          num(g.onlineValue()),
+          g.unit());
+      row(
+          sb,
+          "grab_vs_online",
+          g.samplePoint(),
+          g.parameter(),
+          "deviation " + at + " (tolerance " + num(g.tolerance()) + ", " + g.verdict() + ")",
+          num(g.deviation()),
+          g.unit());
+    }
     row(sb, "index", "", "", "chemistry_performance_index", num(r.index().value()), "1");
     row(sb, "index", "", "", "chemistry_score", num(r.index().chemistryScore()), "1");
     row(sb, "index", "", "", "availability_score", num(r.index().availabilityScore()), "1");

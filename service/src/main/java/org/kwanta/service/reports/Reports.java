@@ -16,6 +16,7 @@ import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.MonthlyHours;
 import org.kwanta.service.instruments.Availability;
 import org.kwanta.service.instruments.CheckSchedule;
+import org.kwanta.service.instruments.GrabComparisons;
 import org.kwanta.service.instruments.InstrumentLog;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
@@ -45,9 +46,9 @@ class Reports {
       "Advisory. Default limits are examples recalled from IAPWS guidance (from memory — verify);"
           + " the plant's own limits and procedures govern.";
 
-  static final String GRAB_VS_ONLINE =
-      "not yet available: lab and grab results are not stored yet, so online instruments cannot"
-          + " be compared with them";
+  static final String NO_GRABS =
+      "no grab or lab result in the period had an online value to compare with (compared: ph, the"
+          + " conductivities, sodium, silica, dissolved_oxygen)";
 
   private final JdbcClient jdbc;
   private final Limits limits;
@@ -56,6 +57,7 @@ class Reports {
   private final Availability availability;
   private final CheckSchedule schedule;
   private final InstrumentLog log;
+  private final GrabComparisons grabs;
   private final Clock clock;
 
   Reports(
@@ -66,7 +68,9 @@ class Reports {
       Availability availability,
       CheckSchedule schedule,
       InstrumentLog log,
+      GrabComparisons grabs,
       Clock clock) {
+    this.grabs = grabs;
     this.jdbc = jdbc;
     this.limits = limits;
     this.finder = finder;
@@ -187,7 +191,7 @@ class Reports {
         events(plant, from, to),
         instruments,
         calibration,
-        new Report.GrabVsOnline(false, GRAB_VS_ONLINE),
+        grabVsOnline(plant, from, to),
         new Report.Index(
             index.index(),
             index.chemistryScore(),
@@ -256,5 +260,60 @@ class Reports {
 
   private static double hours(Duration d) {
     return d.toMillis() / 3_600_000.0;
+  }
+
+  /** The grab vs online section: every comparison in [from, to) and a summary per instrument. */
+  Report.GrabVsOnline grabVsOnline(String plant, Instant from, Instant to) {
+    List<GrabComparisons.Comparison> all = grabs.plantBetween(plant, from, to);
+    List<Report.GrabRow> rows =
+        all.stream()
+            .map(
+                c ->
+                    new Report.GrabRow(
+                        c.samplePoint(),
+                        c.parameter().code(),
+                        c.parameter().unit(),
+                        c.grabTime(),
+                        c.source(),
+                        c.sampleId(),
+                        c.grabValue(),
+                        c.censored(),
+                        (c.censored() == null ? "" : "< ") + c.grabValue(),
+                        c.onlineValue(),
+                        c.deviation(),
+                        c.tolerance(),
+                        c.withinTolerance(),
+                        c.verdict().name()))
+            .toList();
+    java.util.Map<String, List<GrabComparisons.Comparison>> byInstrument =
+        new java.util.TreeMap<>();
+    for (GrabComparisons.Comparison c : all) {
+      byInstrument
+          .computeIfAbsent(
+              c.samplePoint() + "\u0000" + c.parameter().code(), k -> new java.util.ArrayList<>())
+          .add(c);
+    }
+    List<Report.GrabAgreement> instruments = new java.util.ArrayList<>();
+    for (List<GrabComparisons.Comparison> cs : byInstrument.values()) {
+      GrabComparisons.Comparison first = cs.get(0);
+      instruments.add(
+          new Report.GrabAgreement(
+              first.samplePoint(),
+              first.parameter().code(),
+              first.parameter().unit(),
+              cs.size(),
+              (int) cs.stream().filter(GrabComparisons.Comparison::withinTolerance).count(),
+              cs.stream().mapToDouble(GrabComparisons.Comparison::deviation).average().orElse(0),
+              cs.stream().mapToDouble(c -> Math.abs(c.deviation())).max().orElse(0),
+              cs.get(cs.size() - 1).verdict().name()));
+    }
+    String note =
+        rows.isEmpty()
+            ? NO_GRABS
+            : rows.size()
+                + " grab or lab results compared with the online instrument at their point"
+                + " (online value: the latest in the 15 minutes up to the grab; deviation = online"
+                + " − grab)";
+    return new Report.GrabVsOnline(true, note, GrabComparisons.TOLERANCE_SOURCE, instruments, rows);
   }
 }

@@ -120,6 +120,8 @@ class SecurityConfiguration {
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.POST, "/api/v1/sample-points/*/instrument-checks")
                     .hasRole(CHEMIST)
+                    .requestMatchers(HttpMethod.POST, "/api/v1/lab-results")
+                    .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.DELETE, "/api/v1/sample-points/*/limits/*")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.GET, "/api/**")

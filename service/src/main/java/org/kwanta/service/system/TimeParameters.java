@@ -24,6 +24,25 @@ public final class TimeParameters {
     }
   }
 
+  /** A time range [from, to). */
+  public record Range(Instant from, Instant to) {}
+
+  /**
+   * The range of optional {@code from} and {@code to} parameters: {@code to} defaults to five
+   * minutes after {@code now} (the ingest's future skew), {@code from} to {@code span} before
+   * {@code to}; {@code from} after {@code to} is a 400.
+   */
+  public static Range range(String from, String to, Instant now, java.time.Duration span) {
+    Instant end = instant("to", to);
+    end = end == null ? now.plusSeconds(300) : end;
+    Instant start = instant("from", from);
+    start = start == null ? end.minus(span) : start;
+    if (start.isAfter(end)) {
+      throw BadRequestException.of("from " + start + " lies after to " + end);
+    }
+    return new Range(start, end);
+  }
+
   /** A calendar month {@code YYYY-MM}. */
   public static YearMonth month(String name, String value) {
     try {

@@ -238,8 +238,9 @@ class MonthlyReportIT {
             "CELL_CONSTANT_CHECK IN_DATE 2026-09-30T09:00:00Z 1",
             "CATION_RESIN_CHANGE IN_DATE 2026-05-03T09:30:00Z 1");
 
-    assertThat(report.get("grabVsOnline").get("available").asBoolean()).isFalse();
-    assertThat(report.get("grabVsOnline").get("note").asString()).startsWith("not yet available");
+    assertThat(report.get("grabVsOnline").get("available").asBoolean()).isTrue();
+    assertThat(report.get("grabVsOnline").get("note").asString())
+        .startsWith("no grab or lab result in the period");
 
     HttpResponse<String> csv =
         http.get("/api/v1/plants/" + plant + "/reports/monthly?month=2026-04&format=csv");
@@ -249,7 +250,7 @@ class MonthlyReportIT {
         .contains("hours_in_service," + cpd + ",cation_conductivity,AL2,2.000000,h")
         .contains("availability," + cpd + ",cation_conductivity,availability,0.984848,1")
         .contains("index,,,chemistry_performance_index,99.454545,1")
-        .contains("grab_vs_online,,,available,false,");
+        .contains("grab_vs_online,,,available,true,");
 
     HttpResponse<String> hours =
         http.get(
@@ -311,7 +312,7 @@ class MonthlyReportIT {
       wait.until(d -> d.findElement(By.id("index")).getText().startsWith("99.45"));
       wait.until(d -> !d.findElements(By.cssSelector("#trends polyline")).isEmpty());
       assertThat(driver.findElement(By.id("grab")).getText())
-          .startsWith("Not yet available: lab and grab results are not stored yet");
+          .startsWith("No grab or lab result in the period");
       assertThat(driver.findElements(By.cssSelector("#bars rect"))).hasSize(3);
       assertThat(driver.findElement(By.id("channels")).getText())
           .contains("654.00")

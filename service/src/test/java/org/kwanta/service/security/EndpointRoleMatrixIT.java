@@ -68,6 +68,7 @@ class EndpointRoleMatrixIT {
           row("DELETE", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("POST", "/api/v1/plants/*/units/*/operating-states", Access.CHEMIST),
           row("POST", "/api/v1/sample-points/*/instrument-checks", Access.CHEMIST),
+          row("POST", "/api/v1/lab-results", Access.CHEMIST),
           row("GET", "/api/**", Access.READ),
           row("HEAD", "/api/**", Access.READ),
           row("POST", "/api/v1/chemistry/**", Access.READ),
@@ -161,7 +162,9 @@ class EndpointRoleMatrixIT {
         .anyMatch(
             s -> s.startsWith("POST /api/v1/plants/matrix-x/units/matrix-x/operating-states "))
         .anyMatch(s -> s.startsWith("GET /api/v1/plants/matrix-x/reports/monthly "))
-        .anyMatch(s -> s.startsWith("POST /api/v1/sample-points/matrix-x/instrument-checks "));
+        .anyMatch(s -> s.startsWith("POST /api/v1/sample-points/matrix-x/instrument-checks "))
+        .anyMatch(s -> s.startsWith("POST /api/v1/lab-results -> CHEMIST"))
+        .anyMatch(s -> s.startsWith("GET /api/v1/sample-points/matrix-x/lab-results -> READ"));
   }
 
   /** Six callers on one endpoint; returns the number of checks. */
