@@ -7,7 +7,7 @@ import org.kwanta.model.aqueous.SpeciationReport;
 import org.kwanta.model.aqueous.SpeciationResult;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 
 /** The engine calls behind the endpoints, with the request-size bounds. Stateless. */
 final class Calculations {
@@ -23,18 +23,18 @@ final class Calculations {
   /** The temperatures of a request: exactly one of a single value and a list. */
   static List<Double> temperatures(Double single, List<Double> list) {
     if ((single == null) == (list == null)) {
-      throw BadRequestException.of("give exactly one of temperatureCel and temperaturesCel");
+      throw ProblemException.of("give exactly one of temperatureCel and temperaturesCel");
     }
     if (single != null) {
       return List.of(single);
     }
     if (list.isEmpty() || list.size() > MAX_TEMPERATURES) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "temperaturesCel must hold 1 to " + MAX_TEMPERATURES + " values, not " + list.size());
     }
     for (int i = 0; i < list.size(); i++) {
       if (list.get(i) == null) {
-        throw BadRequestException.of("temperaturesCel[" + i + "] is null");
+        throw ProblemException.of("temperaturesCel[" + i + "] is null");
       }
     }
     return list;
@@ -53,18 +53,18 @@ final class Calculations {
   static SpeciationCurveResponse curve(
       SpeciationInputs.Parsed in, Double fromCel, Double toCel, Double stepCel) {
     if (fromCel == null || toCel == null || stepCel == null) {
-      throw BadRequestException.of("fromCel, toCel and stepCel are required");
+      throw ProblemException.of("fromCel, toCel and stepCel are required");
     }
     if (!(stepCel > 0)
         || !Double.isFinite(stepCel)
         || !Double.isFinite(fromCel)
         || !Double.isFinite(toCel)
         || toCel < fromCel) {
-      throw BadRequestException.of("need finite fromCel <= toCel and stepCel > 0");
+      throw ProblemException.of("need finite fromCel <= toCel and stepCel > 0");
     }
     double rows = Math.floor((toCel - fromCel) / stepCel + 1e-9) + 1;
     if (rows > MAX_CURVE_ROWS) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "curve of " + (long) rows + " rows exceeds the limit of " + MAX_CURVE_ROWS);
     }
     // Both ends are checked before any work, so a range reaching past 350 °C fails at once.

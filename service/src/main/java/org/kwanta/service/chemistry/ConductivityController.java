@@ -113,12 +113,11 @@ class ConductivityController {
     Parsed in = parse(request.composition());
     CoolingWater kind = coolingWater(request.coolingWater());
     if (request.sodiumUgPerKg() == null) {
-      throw org.kwanta.service.system.BadRequestException.of("sodiumUgPerKg is required");
+      throw org.kwanta.service.system.ProblemException.of("sodiumUgPerKg is required");
     }
     double na = finite(request.sodiumUgPerKg(), "sodiumUgPerKg");
     if (na < 0) {
-      throw org.kwanta.service.system.BadRequestException.of(
-          "sodiumUgPerKg must be ≥ 0, not " + na);
+      throw org.kwanta.service.system.ProblemException.of("sodiumUgPerKg must be ≥ 0, not " + na);
     }
     double t =
         request.temperatureCel() == null ? 25 : finite(request.temperatureCel(), "temperatureCel");
@@ -143,7 +142,7 @@ class ConductivityController {
                 .filter(ForwardConductivity::isModelled)
                 .map(SpeciationInputs::apiName)
                 .toList();
-        throw org.kwanta.service.system.BadRequestException.of(
+        throw org.kwanta.service.system.ProblemException.of(
             SpeciationInputs.apiName(c)
                 + " is not in the conductivity model; it knows "
                 + String.join(", ", known));
@@ -155,7 +154,7 @@ class ConductivityController {
 
   private static double finite(double v, String field) {
     if (!Double.isFinite(v)) {
-      throw org.kwanta.service.system.BadRequestException.of(field + " must be a finite number");
+      throw org.kwanta.service.system.ProblemException.of(field + " must be a finite number");
     }
     return v;
   }
@@ -175,7 +174,7 @@ class ConductivityController {
     }
     List<String> known =
         Arrays.stream(CoolingWater.values()).map(ConductivityController::apiName).toList();
-    throw org.kwanta.service.system.BadRequestException.of(
+    throw org.kwanta.service.system.ProblemException.of(
         "coolingWater must be one of " + String.join(", ", known) + ", not '" + name + "'");
   }
 }

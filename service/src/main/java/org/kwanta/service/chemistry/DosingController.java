@@ -13,7 +13,7 @@ import org.kwanta.model.aqueous.Dosing;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.water.WaterProperties;
 import org.springframework.http.MediaType;
 import org.springframework.web.bind.annotation.PostMapping;
@@ -83,7 +83,7 @@ class DosingController {
     double target;
     WaterState location = at25;
     if ((r.targetPh25() == null) == (r.targetMarginOverNeutral() == null)) {
-      throw BadRequestException.of("give exactly one of targetPh25 and targetMarginOverNeutral");
+      throw ProblemException.of("give exactly one of targetPh25 and targetMarginOverNeutral");
     }
     if (r.targetPh25() != null) {
       basis = Dosing.Basis.PH_25;
@@ -92,7 +92,7 @@ class DosingController {
       basis = Dosing.Basis.MARGIN_OVER_NEUTRAL;
       target = finite(r.targetMarginOverNeutral(), "targetMarginOverNeutral");
       if (r.temperatureCel() == null) {
-        throw BadRequestException.of("temperatureCel is required with targetMarginOverNeutral");
+        throw ProblemException.of("temperatureCel is required with targetMarginOverNeutral");
       }
       location = in.water(r.temperatureCel());
     }
@@ -102,7 +102,7 @@ class DosingController {
     } catch (org.kwanta.model.OutOfValidityRangeException e) {
       throw e; // 422 naming the range, from the problem handler
     } catch (IllegalArgumentException e) {
-      throw new BadRequestException(
+      throw new ProblemException(
           org.springframework.http.HttpStatus.UNPROCESSABLE_CONTENT,
           org.kwanta.service.system.ProblemTypes.OUT_OF_VALIDITY_RANGE,
           "Target not reachable",
@@ -114,14 +114,14 @@ class DosingController {
 
   private static Map<Component, Double> mix(List<DosingRequest.AlkalizerPart> parts) {
     if (parts == null || parts.isEmpty()) {
-      throw BadRequestException.of("alkalizers is required: a list of {component, massPart}");
+      throw ProblemException.of("alkalizers is required: a list of {component, massPart}");
     }
     Map<Component, Double> mass = new EnumMap<>(Component.class);
     for (int index = 0; index < parts.size(); index++) {
       int i = index;
       DosingRequest.AlkalizerPart p = parts.get(i);
       if (p == null || p.component() == null) {
-        throw BadRequestException.of("alkalizers[" + i + "].component is required");
+        throw ProblemException.of("alkalizers[" + i + "].component is required");
       }
       String n = p.component().trim().toLowerCase(java.util.Locale.ROOT).replace('-', '_');
       Component c =
@@ -130,7 +130,7 @@ class DosingController {
               .findFirst()
               .orElseThrow(
                   () ->
-                      BadRequestException.of(
+                      ProblemException.of(
                           "alkalizers["
                               + i
                               + "]: '"
@@ -143,10 +143,10 @@ class DosingController {
                                       .toList())));
       double part = p.massPart() == null ? 1 : p.massPart();
       if (!(part > 0) || Double.isInfinite(part)) {
-        throw BadRequestException.of("alkalizers[" + i + "].massPart must be > 0");
+        throw ProblemException.of("alkalizers[" + i + "].massPart must be > 0");
       }
       if (mass.put(c, part) != null) {
-        throw BadRequestException.of("alkalizers[" + i + "]: " + n + " is listed twice");
+        throw ProblemException.of("alkalizers[" + i + "]: " + n + " is listed twice");
       }
     }
     return AlkalizerMix.byMass(mass).molarFractions();
@@ -154,7 +154,7 @@ class DosingController {
 
   private static double finite(double v, String field) {
     if (!Double.isFinite(v)) {
-      throw BadRequestException.of(field + " must be a finite number");
+      throw ProblemException.of(field + " must be a finite number");
     }
     return v;
   }

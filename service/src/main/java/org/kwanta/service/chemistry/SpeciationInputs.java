@@ -24,7 +24,7 @@ import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Phase;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.kwanta.service.water.IonizationNames;
 import org.springframework.http.HttpStatus;
@@ -74,7 +74,7 @@ final class SpeciationInputs {
      */
     WaterState water(double temperatureCel) {
       if (!Double.isFinite(temperatureCel)) {
-        throw BadRequestException.of("temperature must be a finite number");
+        throw ProblemException.of("temperature must be a finite number");
       }
       double k = Speciation.TEMPERATURE_RANGE.check(temperatureCel + 273.15);
       if (pressureMPa == null) {
@@ -97,7 +97,7 @@ final class SpeciationInputs {
 
   static Parsed parse(Choices c, IonizationFormulation defaultIonization) {
     if (c.composition() == null) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "composition is required: a list of {component, amount, unit} (empty for pure water)");
     }
     Composition.Builder builder = Composition.builder();
@@ -106,15 +106,15 @@ final class SpeciationInputs {
     for (int i = 0; i < c.composition().size(); i++) {
       AmountInput a = c.composition().get(i);
       if (a == null) {
-        throw BadRequestException.of("composition[" + i + "] is null");
+        throw ProblemException.of("composition[" + i + "] is null");
       }
       Component component = component(a.component(), i);
       AmountUnit unit = unit(a.unit(), i);
       if (a.amount() == null) {
-        throw BadRequestException.of("composition[" + i + "].amount is required");
+        throw ProblemException.of("composition[" + i + "].amount is required");
       }
       if (!seen.add(component)) {
-        throw BadRequestException.of(
+        throw ProblemException.of(
             "composition[" + i + "]: " + apiName(component) + " is listed twice");
       }
       double molal = unit.toMolPerKg(component, a.amount());
@@ -127,7 +127,7 @@ final class SpeciationInputs {
       totals.add(ComponentTotal.of(component, a.amount(), unit, molal));
     }
     if (c.pressureMPa() != null && !Double.isFinite(c.pressureMPa())) {
-      throw BadRequestException.of("pressureMPa must be a finite number");
+      throw ProblemException.of("pressureMPa must be a finite number");
     }
     SpeciationOptions options =
         new SpeciationOptions(
@@ -175,7 +175,7 @@ final class SpeciationInputs {
     Map<String, Object> props = new LinkedHashMap<>();
     props.put("field", "composition[" + index + "].component");
     props.put("knownComponents", known);
-    throw new BadRequestException(
+    throw new ProblemException(
         HttpStatus.BAD_REQUEST,
         ProblemTypes.BAD_REQUEST,
         "Unknown component",
@@ -194,7 +194,7 @@ final class SpeciationInputs {
             () -> {
               List<String> known =
                   Arrays.stream(AmountUnit.values()).map(AmountUnit::ucum).toList();
-              return new BadRequestException(
+              return new ProblemException(
                   HttpStatus.BAD_REQUEST,
                   ProblemTypes.BAD_REQUEST,
                   "Unknown unit",
@@ -216,7 +216,7 @@ final class SpeciationInputs {
       case "davies" -> ActivityModel.DAVIES;
       case "bdot", "b_dot" -> ActivityModel.B_DOT;
       default ->
-          throw BadRequestException.of("activityModel must be davies or bdot, not '" + name + "'");
+          throw ProblemException.of("activityModel must be davies or bdot, not '" + name + "'");
     };
   }
 
@@ -228,7 +228,7 @@ final class SpeciationInputs {
       case "liquid" -> SampleOrigin.LIQUID;
       case "condensed_steam" -> SampleOrigin.CONDENSED_STEAM;
       default ->
-          throw BadRequestException.of(
+          throw ProblemException.of(
               "sampleOrigin must be liquid or condensed_steam, not '" + name + "'");
     };
   }
@@ -243,7 +243,7 @@ final class SpeciationInputs {
       }
     }
     List<String> known = ConstantSets.all().stream().map(ConstantSet::id).toList();
-    throw new BadRequestException(
+    throw new ProblemException(
         HttpStatus.BAD_REQUEST,
         ProblemTypes.BAD_REQUEST,
         "Unknown constant set",

@@ -3,7 +3,7 @@ package org.kwanta.service.chemistry;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 import org.springframework.stereotype.Component;
@@ -33,7 +33,7 @@ class StrictJson {
 
   <T> T read(String body, Class<T> type) {
     if (body == null || body.isBlank()) {
-      throw BadRequestException.of("request body is required (JSON)");
+      throw ProblemException.of("request body is required (JSON)");
     }
     try {
       return mapper.readValue(body, type);
@@ -45,7 +45,7 @@ class StrictJson {
           e.getKnownPropertyIds() == null
               ? List.of()
               : e.getKnownPropertyIds().stream().map(String::valueOf).sorted().toList());
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.BAD_REQUEST,
           ProblemTypes.BAD_REQUEST,
           "Unknown field",
@@ -53,7 +53,7 @@ class StrictJson {
           props);
     } catch (JacksonException e) {
       String where = path(e);
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "malformed JSON"
               + (where.isEmpty() ? "" : " at '" + where + "'")
               + ": "

@@ -10,7 +10,7 @@ import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.List;
 import org.kwanta.service.ingest.IngestRequest;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PostMapping;
@@ -101,7 +101,7 @@ class DiagnosisController {
       @Parameter(example = "U2-CPD") @PathVariable String samplePointId,
       @RequestBody IngestRequest body) {
     if (body == null || body.readings() == null) {
-      throw BadRequestException.of("body must be {\"readings\": [...]}");
+      throw ProblemException.of("body must be {\"readings\": [...]}");
     }
     List<WhatIfMinuteOut> minutes =
         diagnosis.whatIf(samplePointId, body.readings()).stream()
@@ -130,7 +130,7 @@ class DiagnosisController {
     try {
       return OffsetDateTime.parse(value).toInstant();
     } catch (DateTimeParseException e) {
-      throw BadRequestException.of(name + " must be an ISO 8601 time with an offset: " + value);
+      throw ProblemException.of(name + " must be an ISO 8601 time with an offset: " + value);
     }
   }
 }

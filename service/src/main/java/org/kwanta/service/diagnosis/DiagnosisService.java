@@ -27,7 +27,7 @@ import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.ingest.ReadingInput;
 import org.kwanta.service.ingest.ValidReading;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
 
@@ -114,7 +114,7 @@ public class DiagnosisService {
         .param(samplePointId)
         .query(String.class)
         .optional()
-        .orElseThrow(() -> BadRequestException.notFound("sample point", samplePointId));
+        .orElseThrow(() -> ProblemException.notFound("sample point", samplePointId));
   }
 
   /** The point, every point upstream of it, and the points it feeds directly. */
@@ -140,8 +140,7 @@ public class DiagnosisService {
   /** The diagnosis of a stored point, minute by minute over [from, to]. */
   public List<Diagnoser.Diagnosed> overTime(String samplePointId, Instant from, Instant to) {
     if (to.isBefore(from) || Duration.between(from, to).compareTo(MAX_RANGE) > 0) {
-      throw BadRequestException.of(
-          "from must be before to, at most " + MAX_RANGE.toDays() + " days");
+      throw ProblemException.of("from must be before to, at most " + MAX_RANGE.toDays() + " days");
     }
     Map<String, Diagnoser.Point> points = points(plantOf(samplePointId));
     List<String> ids = related(points, samplePointId);
@@ -248,7 +247,7 @@ public class DiagnosisService {
           .add(IngestService.asStored(r));
     }
     if (!byPoint.containsKey(samplePointId)) {
-      throw BadRequestException.of("no readings of sample point " + samplePointId);
+      throw ProblemException.of("no readings of sample point " + samplePointId);
     }
     Map<String, Diagnoser.Point> points = points(plant);
     Map<String, SamplePointConfigs.Versioned> config = configs.current(byPoint.keySet());
@@ -258,7 +257,7 @@ public class DiagnosisService {
     for (Map.Entry<String, List<EvaluationRunner.StoredReading>> e : byPoint.entrySet()) {
       String id = e.getKey();
       if (!points.containsKey(id)) {
-        throw BadRequestException.of("sample point " + id + " is not of plant " + plant);
+        throw ProblemException.of("sample point " + id + " is not of plant " + plant);
       }
       List<EvaluationRunner.StoredReading> readings = e.getValue();
       readings.sort(

@@ -15,7 +15,7 @@ import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -114,14 +114,14 @@ class ExcursionEventsController {
     try {
       parameter = Parameter.limitedOfCode(r.parameter());
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(e.getMessage());
+      throw ProblemException.of(e.getMessage());
     }
     Limits.Point point =
         limits.points(null, r.samplePoint()).stream()
             .findFirst()
-            .orElseThrow(() -> BadRequestException.notFound("sample point", r.samplePoint()));
+            .orElseThrow(() -> ProblemException.notFound("sample point", r.samplePoint()));
     if (!finder.exists(point, parameter, r.start())) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.NOT_FOUND,
           ProblemTypes.NOT_FOUND,
           "Not found",
@@ -135,15 +135,15 @@ class ExcursionEventsController {
     return Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
   }
 
-  private static BadRequestException notFound(long id) {
-    return BadRequestException.notFound("excursion event", String.valueOf(id));
+  private static ProblemException notFound(long id) {
+    return ProblemException.notFound("excursion event", String.valueOf(id));
   }
 
   private static CauseCategory cause(String name) {
     try {
       return CauseCategory.valueOf(name.strip().toUpperCase(Locale.ROOT));
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "causeCategory must be one of " + java.util.Arrays.toString(CauseCategory.values()));
     }
   }
@@ -152,7 +152,7 @@ class ExcursionEventsController {
     try {
       return EventStatus.valueOf(name.strip().toUpperCase(Locale.ROOT));
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "status must be one of " + java.util.Arrays.toString(EventStatus.values()));
     }
   }

@@ -1,12 +1,12 @@
 package org.kwanta.service.ingest;
 
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 
 /** More readings in one request than allowed. */
-public class BatchTooLargeException extends BadRequestException {
+public class BatchTooLargeException extends ProblemException {
 
   private static final long serialVersionUID = 1L;
 

@@ -12,7 +12,7 @@ import java.util.Set;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 
 /**
  * Reads a CSV batch (RFC 4180 with a header row). Columns: {@code sample_point, parameter, time,
@@ -69,7 +69,7 @@ final class CsvReadings {
               .sorted()
               .toList();
       if (!missing.isEmpty() || !unknown.isEmpty()) {
-        throw BadRequestException.of(
+        throw ProblemException.of(
             "CSV header (line 1): "
                 + (missing.isEmpty() ? "" : "missing columns " + missing + " ")
                 + (unknown.isEmpty() ? "" : "unknown columns " + unknown + " ")
@@ -143,12 +143,12 @@ final class CsvReadings {
     } catch (IOException | UncheckedIOException e) {
       // the body is already in memory, so a read error is a format error (e.g. an unclosed quote)
       Throwable cause = e instanceof UncheckedIOException u ? u.getCause() : e;
-      throw BadRequestException.of("malformed CSV: " + cause.getMessage());
+      throw ProblemException.of("malformed CSV: " + cause.getMessage());
     } catch (IllegalStateException | IllegalArgumentException e) {
-      if (e instanceof BadRequestException) {
+      if (e instanceof ProblemException) {
         throw e;
       }
-      throw BadRequestException.of("malformed CSV: " + e.getMessage());
+      throw ProblemException.of("malformed CSV: " + e.getMessage());
     }
     int[] rowLines = java.util.Arrays.copyOf(lines, readings.size());
     return new Parsed(

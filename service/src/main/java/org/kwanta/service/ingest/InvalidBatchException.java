@@ -2,7 +2,7 @@ package org.kwanta.service.ingest;
 
 import java.util.List;
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 
@@ -10,7 +10,7 @@ import org.springframework.http.HttpStatus;
  * A batch with at least one invalid reading: nothing of it is stored; the body lists every
  * rejection.
  */
-public class InvalidBatchException extends BadRequestException {
+public class InvalidBatchException extends ProblemException {
 
   private static final long serialVersionUID = 1L;
 

@@ -7,7 +7,7 @@ import java.time.Instant;
 import java.util.List;
 import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -132,7 +132,7 @@ class LabResultsController {
             .query(Integer.class)
             .single()
         == 0) {
-      throw BadRequestException.notFound("sample point", samplePoint);
+      throw ProblemException.notFound("sample point", samplePoint);
     }
     Parameter p = null;
     if (parameter != null) {
@@ -140,7 +140,7 @@ class LabResultsController {
           Parameter.byCode(parameter)
               .orElseThrow(
                   () ->
-                      BadRequestException.of(
+                      ProblemException.of(
                           "unknown parameter '" + parameter + "'; known: " + Parameter.codes()));
     }
     TimeParameters.Range range =

@@ -1,7 +1,7 @@
 package org.kwanta.service.ingest;
 
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 
@@ -10,7 +10,7 @@ import org.springframework.http.HttpStatus;
  * kwanta.ingest.max-new-days-per-request}): each new day is a partition of the readings and one of
  * the evaluations, and a backfill over a year of days would stall other ingest while they are made.
  */
-public class TooManyNewDaysException extends BadRequestException {
+public class TooManyNewDaysException extends ProblemException {
 
   private static final long serialVersionUID = 1L;
 

@@ -13,7 +13,7 @@ import java.time.ZoneOffset;
 import java.util.List;
 import org.kwanta.model.Parameter;
 import org.kwanta.service.audit.Actor;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
 import org.springframework.jdbc.core.simple.JdbcClient;
@@ -139,14 +139,14 @@ class InstrumentsController {
     requirePoint(samplePoint);
     Parameter p = parameter(r.parameter());
     if (!r.kind().scheduled()) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           r.kind() + " is logged by the service when a grab or lab result is entered");
     }
     if (!r.kind().appliesTo(p)) {
-      throw BadRequestException.of(r.kind() + " is not a check of a " + p.code() + " instrument");
+      throw ProblemException.of(r.kind() + " is not a check of a " + p.code() + " instrument");
     }
     if (r.performedAt().isAfter(clock.instant().plusSeconds(300))) {
-      throw BadRequestException.of("performedAt " + r.performedAt() + " lies in the future");
+      throw ProblemException.of("performedAt " + r.performedAt() + " lies in the future");
     }
     Actor by = Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
     List<InstrumentLog.Result> results =
@@ -294,7 +294,7 @@ class InstrumentsController {
     try {
       return Parameter.ofCode(code);
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(e.getMessage());
+      throw ProblemException.of(e.getMessage());
     }
   }
 
@@ -304,14 +304,14 @@ class InstrumentsController {
             .query(Integer.class)
             .single()
         == 0) {
-      throw BadRequestException.notFound("sample point", id);
+      throw ProblemException.notFound("sample point", id);
     }
   }
 
   private void requirePlant(String id) {
     if (jdbc.sql("SELECT count(*) FROM plant WHERE id = ?").param(id).query(Integer.class).single()
         == 0) {
-      throw BadRequestException.notFound("plant", id);
+      throw ProblemException.notFound("plant", id);
     }
   }
 }

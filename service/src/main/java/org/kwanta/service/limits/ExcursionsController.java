@@ -17,7 +17,7 @@ import org.kwanta.model.limits.Level;
 import org.kwanta.model.limits.MonthlyHours;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.operatingstate.OperatingStates;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ResponseFormats;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
@@ -225,7 +225,7 @@ class ExcursionsController {
     if (value.equalsIgnoreCase("all")) {
       return true;
     }
-    throw BadRequestException.of("time must be in-service or all");
+    throw ProblemException.of("time must be in-service or all");
   }
 
   private static ExcursionFinder.Basis basis(String value) {
@@ -237,7 +237,7 @@ class ExcursionsController {
         return b;
       }
     }
-    throw BadRequestException.of("basis must be as-reported or recomputed");
+    throw ProblemException.of("basis must be as-reported or recomputed");
   }
 
   private static Level level(String name) {
@@ -248,7 +248,7 @@ class ExcursionsController {
       }
       return level;
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of("minLevel must be AL1, AL2, AL3 or SHUTDOWN");
+      throw ProblemException.of("minLevel must be AL1, AL2, AL3 or SHUTDOWN");
     }
   }
 }

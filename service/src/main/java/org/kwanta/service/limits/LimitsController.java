@@ -14,7 +14,7 @@ import org.kwanta.service.audit.Actor;
 import org.kwanta.service.security.Callers;
 import org.kwanta.service.security.EffectiveTimes;
 import org.kwanta.service.security.Role;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.DeleteMapping;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -202,7 +202,7 @@ class LimitsController {
       @RequestParam(required = false) String reason) {
     Parameter p = WebLookups.parameter(parameter);
     if (body.parameter() != null && !body.parameter().equals(p.code())) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "Body parameter '" + body.parameter() + "' differs from the path's '" + p.code() + "'");
     }
     Instant from = effectiveFrom(effectiveFrom, reason);
@@ -211,7 +211,7 @@ class LimitsController {
           limits.override(
               WebLookups.point(limits, id), p, body, from, blankToNull(reason), Actor.currentId()));
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(e.getMessage());
+      throw ProblemException.of(e.getMessage());
     }
   }
 
@@ -247,7 +247,7 @@ class LimitsController {
   private Instant effectiveFrom(String value, String reason) {
     Instant now = clock.instant();
     if (Callers.role().orElse(null) == Role.CHEMIST && blankToNull(reason) == null) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "A chemist key changes limits with a reason (query parameter reason)");
     }
     return EffectiveTimes.effectiveFrom(value, reason, now, "limits");

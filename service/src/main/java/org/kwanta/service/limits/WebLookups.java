@@ -2,7 +2,7 @@ package org.kwanta.service.limits;
 
 import java.util.Map;
 import org.kwanta.model.Parameter;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 
@@ -11,8 +11,8 @@ final class WebLookups {
 
   private WebLookups() {}
 
-  static BadRequestException notFound(String detail) {
-    return new BadRequestException(
+  static ProblemException notFound(String detail) {
+    return new ProblemException(
         HttpStatus.NOT_FOUND, ProblemTypes.NOT_FOUND, "Not found", detail, Map.of());
   }
 
@@ -26,7 +26,7 @@ final class WebLookups {
     try {
       return Parameter.limitedOfCode(code);
     } catch (IllegalArgumentException e) {
-      throw BadRequestException.of(e.getMessage());
+      throw ProblemException.of(e.getMessage());
     }
   }
 }

@@ -11,7 +11,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import org.kwanta.service.audit.Actor;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -103,7 +103,7 @@ class OperatingStateController {
       @PathVariable String plant, @PathVariable String unit, @Valid @RequestBody StateRequest r) {
     requireUnit(plant, unit);
     if (r.since().isAfter(clock.instant().plus(Duration.ofMinutes(5)))) {
-      throw BadRequestException.of("since " + r.since() + " lies in the future");
+      throw ProblemException.of("since " + r.since() + " lies in the future");
     }
     Actor by = Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
     return EntryResponse.from(states.record(plant, unit, r.state(), r.since(), r.note(), by));
@@ -124,7 +124,7 @@ class OperatingStateController {
     Instant start = TimeParameters.instant("from", from);
     start = start == null ? end.minus(Duration.ofDays(31)) : start;
     if (!start.isBefore(end)) {
-      throw BadRequestException.of("from must lie before to");
+      throw ProblemException.of("from must lie before to");
     }
     ServiceTime t = states.serviceTime(plant, unit, start, end);
     Map<String, Double> byState = new TreeMap<>();
@@ -226,7 +226,7 @@ class OperatingStateController {
 
   private void requireUnit(String plant, String unit) {
     if (!states.unitExists(plant, unit)) {
-      throw BadRequestException.notFound("unit", plant + "/" + unit);
+      throw ProblemException.notFound("unit", plant + "/" + unit);
     }
   }
 

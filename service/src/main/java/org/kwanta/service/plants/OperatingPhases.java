@@ -9,7 +9,7 @@ import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 
@@ -50,7 +50,7 @@ final class OperatingPhases {
   static void require(PlantDeclaration plant) {
     List<String> conflicts = conflicts(plant);
     if (!conflicts.isEmpty()) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.UNPROCESSABLE_CONTENT,
           ProblemTypes.VALIDATION,
           "Cycle location contradicts the operating state",

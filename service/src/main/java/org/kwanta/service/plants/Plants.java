@@ -214,7 +214,7 @@ public class Plants {
         insertSamplePoint(plant.id(), p, changedBy);
         inserted.add(p.id());
       } else if (!owner.get().equals(plant.id())) {
-        throw new org.kwanta.service.system.BadRequestException(
+        throw new org.kwanta.service.system.ProblemException(
             org.springframework.http.HttpStatus.CONFLICT,
             org.kwanta.service.system.ProblemTypes.CONFLICT,
             "Conflict",

@@ -4,7 +4,7 @@ import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import jakarta.validation.Valid;
 import java.util.List;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -37,7 +37,7 @@ class PlantsController {
   @Operation(summary = "Declare a new plant with its units and sample points")
   PlantDeclaration create(@Valid @RequestBody PlantDeclaration plant) {
     if (plants.exists(plant.id())) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.CONFLICT,
           ProblemTypes.CONFLICT,
           "Conflict",
@@ -46,7 +46,7 @@ class PlantsController {
     }
     List<String> problems = Plants.problems(plant);
     if (!problems.isEmpty()) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.BAD_REQUEST,
           ProblemTypes.BAD_REQUEST,
           "Invalid plant declaration",
@@ -61,6 +61,6 @@ class PlantsController {
   @GetMapping("/{plantId}")
   @Operation(summary = "A plant with its units and sample points")
   PlantDeclaration get(@PathVariable String plantId) {
-    return plants.find(plantId).orElseThrow(() -> BadRequestException.notFound("plant", plantId));
+    return plants.find(plantId).orElseThrow(() -> ProblemException.notFound("plant", plantId));
   }
 }

@@ -10,7 +10,7 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Map;
 import org.kwanta.service.security.EffectiveTimes;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.GetMapping;
@@ -75,7 +75,7 @@ class SamplePointsController {
         EffectiveTimes.effectiveFrom(
             effectiveFrom, reason, clock.instant(), "a sample point's configuration");
     if (!samplePointId.equals(body.id())) {
-      throw BadRequestException.of("the body's id must be the path's sample point id");
+      throw ProblemException.of("the body's id must be the path's sample point id");
     }
     PlantDeclaration.SamplePointDeclaration current =
         plants.findSamplePoint(samplePointId).orElseThrow(() -> notFound(samplePointId));
@@ -89,7 +89,7 @@ class SamplePointsController {
             plantId, plantId, plants.find(plantId).orElseThrow().units(), List.of(next));
     List<String> problems = Plants.problems(check);
     if (!problems.isEmpty()) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.BAD_REQUEST,
           ProblemTypes.BAD_REQUEST,
           "Invalid sample point",
@@ -106,7 +106,7 @@ class SamplePointsController {
               from,
               EffectiveTimes.blankToNull(reason));
     } catch (Plants.VersionOrderException e) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), Map.of());
     }
     return Map.of(
@@ -124,11 +124,11 @@ class SamplePointsController {
       @Valid @RequestBody PlantDeclaration plant,
       Principal principal) {
     if (!plantId.equals(plant.id())) {
-      throw BadRequestException.of("the body's id must be the path's plant id");
+      throw ProblemException.of("the body's id must be the path's plant id");
     }
     List<String> problems = Plants.problems(plant);
     if (!problems.isEmpty()) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.BAD_REQUEST,
           ProblemTypes.BAD_REQUEST,
           "Invalid plant declaration",
@@ -139,7 +139,7 @@ class SamplePointsController {
     return plants.apply(plant, principal == null ? "api" : "key:" + principal.getName());
   }
 
-  private static BadRequestException notFound(String id) {
-    return BadRequestException.notFound("sample point", id);
+  private static ProblemException notFound(String id) {
+    return ProblemException.notFound("sample point", id);
   }
 }

@@ -12,7 +12,7 @@ import java.util.List;
 import org.kwanta.service.ingest.Evaluations;
 import org.kwanta.service.ingest.Evaluations.Stored;
 import org.kwanta.service.plants.Plants;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RequestParam;
@@ -52,15 +52,15 @@ class EvaluationsController {
       @RequestParam(required = false) String to,
       @RequestParam(defaultValue = "1000") int limit) {
     if (plants.findSamplePoint(samplePointId).isEmpty()) {
-      throw BadRequestException.notFound("sample point", samplePointId);
+      throw ProblemException.notFound("sample point", samplePointId);
     }
     if (limit < 1 || limit > MAX_LIMIT) {
-      throw BadRequestException.of("limit must be in 1.." + MAX_LIMIT);
+      throw ProblemException.of("limit must be in 1.." + MAX_LIMIT);
     }
     Instant end = to == null ? clock.instant() : instant("to", to);
     Instant start = from == null ? end.minus(Duration.ofHours(1)) : instant("from", from);
     if (!start.isBefore(end)) {
-      throw BadRequestException.of("from must be before to");
+      throw ProblemException.of("from must be before to");
     }
     List<Stored> rows = stored.range(samplePointId, start, end, limit + 1);
     Instant next = null;
@@ -75,7 +75,7 @@ class EvaluationsController {
     try {
       return OffsetDateTime.parse(value).toInstant();
     } catch (DateTimeParseException e) {
-      throw BadRequestException.of(name + " must be an ISO 8601 time with an offset: " + value);
+      throw ProblemException.of(name + " must be an ISO 8601 time with an offset: " + value);
     }
   }
 }

@@ -12,7 +12,7 @@ import java.util.Locale;
 import org.kwanta.service.ingest.LabResults;
 import org.kwanta.service.ingest.StoredSeries;
 import org.kwanta.service.samplepoints.SamplePointConfigs;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ResponseFormats;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -95,13 +95,13 @@ class SeriesController {
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
     if (configs.existing(List.of(samplePointId)).isEmpty()) {
-      throw BadRequestException.notFound("sample point", samplePointId);
+      throw ProblemException.notFound("sample point", samplePointId);
     }
     SeriesParameter p =
         SeriesParameter.byCode(parameter)
             .orElseThrow(
                 () ->
-                    BadRequestException.of(
+                    ProblemException.of(
                         "unknown parameter '"
                             + parameter
                             + "'; known: "
@@ -109,10 +109,10 @@ class SeriesController {
     Instant start = instant("from", from);
     Instant end = instant("to", to);
     if (!end.isAfter(start)) {
-      throw BadRequestException.of("'to' must be after 'from'");
+      throw ProblemException.of("'to' must be after 'from'");
     }
     if (Duration.between(start, end).compareTo(MAX_RANGE) > 0) {
-      throw BadRequestException.of("range longer than " + MAX_RANGE.toDays() + " days");
+      throw ProblemException.of("range longer than " + MAX_RANGE.toDays() + " days");
     }
     boolean csv = ResponseFormats.csvRequested(format, accept);
     Duration size = bucketSize(bucket, maxPoints, start, end);
@@ -120,7 +120,7 @@ class SeriesController {
     if (size == null) {
       int n = limit == null ? DEFAULT_LIMIT : limit;
       if (n < 1 || n > MAX_LIMIT) {
-        throw BadRequestException.of("limit must be in [1, " + MAX_LIMIT + "]");
+        throw ProblemException.of("limit must be in [1, " + MAX_LIMIT + "]");
       }
       List<StoredSeries.Point> points =
           series.raw(
@@ -186,19 +186,19 @@ class SeriesController {
       try {
         d = Duration.parse(bucket.toUpperCase(Locale.ROOT));
       } catch (DateTimeParseException e) {
-        throw BadRequestException.of("bucket must be an ISO 8601 duration such as PT1M");
+        throw ProblemException.of("bucket must be an ISO 8601 duration such as PT1M");
       }
       if (d.toSeconds() < 1) {
-        throw BadRequestException.of("bucket must be at least one second");
+        throw ProblemException.of("bucket must be at least one second");
       }
       if (Duration.between(start, end).dividedBy(d) > MAX_BUCKETS) {
-        throw BadRequestException.of("more than " + MAX_BUCKETS + " buckets; use a larger bucket");
+        throw ProblemException.of("more than " + MAX_BUCKETS + " buckets; use a larger bucket");
       }
       return d;
     }
     if (maxPoints != null) {
       if (maxPoints < 1 || maxPoints > MAX_BUCKETS) {
-        throw BadRequestException.of("maxPoints must be in [1, " + MAX_BUCKETS + "]");
+        throw ProblemException.of("maxPoints must be in [1, " + MAX_BUCKETS + "]");
       }
       long seconds = Duration.between(start, end).toSeconds();
       long perBucket = Math.max(1, (seconds + maxPoints - 1) / maxPoints);
@@ -224,7 +224,7 @@ class SeriesController {
     try {
       return OffsetDateTime.parse(value).toInstant();
     } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "'" + name + "' must be ISO 8601 with an offset, e.g. 2026-11-30T00:00:00Z");
     }
   }

@@ -10,7 +10,7 @@ import java.util.Map;
 import org.kwanta.service.diagnosis.DiagnosisService;
 import org.kwanta.service.plants.PlantDeclaration;
 import org.kwanta.service.plants.Plants;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RestController;
@@ -84,7 +84,7 @@ class StateController {
             .toList());
   }
 
-  static BadRequestException notFound(String what, String id) {
-    return BadRequestException.notFound(what, id);
+  static ProblemException notFound(String what, String id) {
+    return ProblemException.notFound(what, id);
   }
 }

@@ -6,7 +6,7 @@ import java.time.Instant;
 import java.time.Year;
 import java.time.YearMonth;
 import java.time.ZoneOffset;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ResponseFormats;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.MediaType;
@@ -82,7 +82,7 @@ class ReportsController {
             .param(plant)
             .query(String.class)
             .optional()
-            .orElseThrow(() -> BadRequestException.notFound("plant", plant));
+            .orElseThrow(() -> ProblemException.notFound("plant", plant));
     Report report = reports.build(plant, name, period, label, from, to);
     if (ResponseFormats.csvRequested(format, accept)) {
       return ResponseEntity.ok()

@@ -3,7 +3,7 @@ package org.kwanta.service.security;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.kwanta.service.system.TimeParameters;
 import org.springframework.http.HttpStatus;
@@ -35,7 +35,7 @@ public final class EffectiveTimes {
     Instant t = TimeParameters.instant("effectiveFrom", value.strip());
     if (t.isBefore(now.minus(PAST_TOLERANCE))) {
       if (Callers.role().orElse(null) != Role.ADMIN) {
-        throw new BadRequestException(
+        throw new ProblemException(
             HttpStatus.FORBIDDEN,
             ProblemTypes.FORBIDDEN,
             "Forbidden",
@@ -43,7 +43,7 @@ public final class EffectiveTimes {
             Map.of());
       }
       if (blankToNull(reason) == null) {
-        throw BadRequestException.of(
+        throw ProblemException.of(
             "A past effectiveFrom (" + t + ") changes the record: give a reason");
       }
     }

@@ -10,7 +10,7 @@ import jakarta.validation.constraints.Size;
 import java.time.Instant;
 import java.util.List;
 import java.util.Map;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ProblemTypes;
 import org.springframework.http.HttpStatus;
 import org.springframework.web.bind.annotation.DeleteMapping;
@@ -61,13 +61,13 @@ class KeysController {
     try {
       return keys.revoke(id).orElseThrow(() -> notFound(id));
     } catch (ApiKeys.LastAdminKeyException e) {
-      throw new BadRequestException(
+      throw new ProblemException(
           HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), Map.of());
     }
   }
 
-  private static BadRequestException notFound(String id) {
-    return BadRequestException.notFound("key", id);
+  private static ProblemException notFound(String id) {
+    return ProblemException.notFound("key", id);
   }
 
   /**

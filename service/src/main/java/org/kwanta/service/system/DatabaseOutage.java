@@ -23,7 +23,7 @@ public class DatabaseOutage {
 
   private final Duration retryAfter;
 
-  DatabaseOutage(LimitsProperties limits) {
+  DatabaseOutage(HttpLimitsProperties limits) {
     this.retryAfter = limits.retryAfter();
   }
 

@@ -26,12 +26,12 @@ import org.springframework.http.HttpStatus;
 import org.springframework.web.filter.OncePerRequestFilter;
 
 /**
- * Bounds the ingest requests in progress to {@code kwanta.limits.max-concurrent-ingests}, and keeps
+ * Bounds the ingest requests in progress to {@code kwanta.http.max-concurrent-ingests}, and keeps
  * slow or greedy clients from taking every slot:
  *
  * <ul>
  *   <li>the whole body is read <em>before</em> a slot is taken, within {@code
- *       kwanta.limits.ingest-body-read-timeout} (408 when a client sends too slowly), so a client
+ *       kwanta.http.ingest-body-read-timeout} (408 when a client sends too slowly), so a client
  *       trickling bytes holds a web thread, never an ingest slot;
  *   <li>bodies being read are bounded too ({@code 4 × max-concurrent-ingests}, at most half of them
  *       per key), so slow uploads cannot hold unbounded memory;
@@ -66,7 +66,7 @@ final class IngestConcurrencyFilter extends OncePerRequestFilter {
   private final ConcurrentHashMap<String, Long> lastSeen = new ConcurrentHashMap<>();
 
   IngestConcurrencyFilter(
-      LimitsProperties limits, ProblemResponses problems, MeterRegistry meters) {
+      HttpLimitsProperties limits, ProblemResponses problems, MeterRegistry meters) {
     int max = limits.maxConcurrentIngests();
     this.permits = new Semaphore(max);
     this.readsPerKey = READS_PER_SLOT * max;

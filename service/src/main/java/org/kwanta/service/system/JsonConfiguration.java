@@ -19,7 +19,7 @@ import tools.jackson.databind.type.LogicalType;
 
 /**
  * The application's JSON mapper with tighter parser limits than Jackson's defaults (strings of 20
- * million characters, nesting 500 deep): {@code kwanta.limits.max-json-string-length} and {@code
+ * million characters, nesting 500 deep): {@code kwanta.http.max-json-string-length} and {@code
  * max-json-nesting-depth}, numbers of at most 100 digits. Spring Boot's customizers ({@code
  * spring.jackson.*}, e.g. unknown fields rejected) still apply. Parsing fails with 400 past a
  * limit. Strict about types and repeated fields: {@link #strict}. JSON has no NaN or infinity: a
@@ -32,7 +32,7 @@ class JsonConfiguration {
   @Bean
   @Scope("prototype")
   JsonMapper.Builder kwantaJsonMapperBuilder(
-      List<JsonMapperBuilderCustomizer> customizers, LimitsProperties limits) {
+      List<JsonMapperBuilderCustomizer> customizers, HttpLimitsProperties limits) {
     JsonMapper.Builder builder =
         JsonMapper.builder(
             JsonFactory.builder().streamReadConstraints(streamReadConstraints(limits)).build());
@@ -88,7 +88,7 @@ class JsonConfiguration {
                     .setCoercion(CoercionInputShape.Integer, CoercionAction.Fail));
   }
 
-  static StreamReadConstraints streamReadConstraints(LimitsProperties limits) {
+  static StreamReadConstraints streamReadConstraints(HttpLimitsProperties limits) {
     return StreamReadConstraints.builder()
         .maxStringLength(limits.maxJsonStringLength())
         .maxNestingDepth(limits.maxJsonNestingDepth())

@@ -29,7 +29,7 @@ class LimitsConfiguration {
 
   @Bean
   FilterRegistrationBean<RequestBodyLimitFilter> requestBodyLimitFilter(
-      LimitsProperties limits, ProblemResponses problems) {
+      HttpLimitsProperties limits, ProblemResponses problems) {
     FilterRegistrationBean<RequestBodyLimitFilter> registration =
         new FilterRegistrationBean<>(new RequestBodyLimitFilter(limits, problems));
     registration.setOrder(AFTER_SECURITY);
@@ -38,7 +38,7 @@ class LimitsConfiguration {
 
   @Bean
   FilterRegistrationBean<IngestConcurrencyFilter> ingestConcurrencyFilter(
-      LimitsProperties limits, ProblemResponses problems, MeterRegistry meters) {
+      HttpLimitsProperties limits, ProblemResponses problems, MeterRegistry meters) {
     FilterRegistrationBean<IngestConcurrencyFilter> registration =
         new FilterRegistrationBean<>(new IngestConcurrencyFilter(limits, problems, meters));
     registration.setOrder(AFTER_SECURITY + 1);

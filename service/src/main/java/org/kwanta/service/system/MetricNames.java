@@ -92,7 +92,7 @@ public final class MetricNames {
   public static final String INGEST_BATCH_DURATION = "kwanta.ingest.batch.duration";
 
   /**
-   * Ingest requests being processed now (bounded by {@code kwanta.limits.max-concurrent-ingests}).
+   * Ingest requests being processed now (bounded by {@code kwanta.http.max-concurrent-ingests}).
    */
   public static final String INGEST_IN_FLIGHT = "kwanta.ingest.in_flight";
 

@@ -2,7 +2,7 @@ package org.kwanta.service.system;
 
 import java.io.IOException;
 
-/** A request body longer than its limit ({@link LimitsProperties}); answered 413. */
+/** A request body longer than its limit ({@link HttpLimitsProperties}); answered 413. */
 public class PayloadTooLargeException extends IOException {
 
   private static final long serialVersionUID = 1L;

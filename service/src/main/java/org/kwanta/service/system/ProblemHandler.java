@@ -75,8 +75,8 @@ class ProblemHandler extends ResponseEntityExceptionHandler {
     return problem(problem);
   }
 
-  @ExceptionHandler(BadRequestException.class)
-  ResponseEntity<ProblemDetail> badRequest(BadRequestException e) {
+  @ExceptionHandler(ProblemException.class)
+  ResponseEntity<ProblemDetail> badRequest(ProblemException e) {
     ProblemDetail problem = ProblemDetail.forStatusAndDetail(e.status(), e.getMessage());
     problem.setType(e.type());
     problem.setTitle(e.title());

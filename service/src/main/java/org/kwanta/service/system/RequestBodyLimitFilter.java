@@ -27,7 +27,7 @@ final class RequestBodyLimitFilter extends OncePerRequestFilter {
   private final long maxIngestBody;
   private final ProblemResponses problems;
 
-  RequestBodyLimitFilter(LimitsProperties limits, ProblemResponses problems) {
+  RequestBodyLimitFilter(HttpLimitsProperties limits, ProblemResponses problems) {
     this.maxBody = limits.maxBodySize().toBytes();
     this.maxIngestBody = limits.maxIngestBodySize().toBytes();
     this.problems = problems;

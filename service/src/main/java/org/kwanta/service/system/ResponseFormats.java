@@ -15,14 +15,14 @@ public final class ResponseFormats {
    *
    * @param format the {@code format} query parameter ({@code json} or {@code csv}), may be null
    * @param accept the Accept header, may be null
-   * @throws BadRequestException a format other than json or csv
+   * @throws ProblemException a format other than json or csv
    */
   public static boolean csvRequested(String format, String accept) {
     if (format != null) {
       return switch (format.trim().toLowerCase(Locale.ROOT)) {
         case "csv" -> true;
         case "json" -> false;
-        default -> throw BadRequestException.of("format must be json or csv");
+        default -> throw ProblemException.of("format must be json or csv");
       };
     }
     return accept != null && accept.toLowerCase(Locale.ROOT).contains("text/csv");

@@ -19,7 +19,7 @@ public final class TimeParameters {
     try {
       return OffsetDateTime.parse(value).toInstant();
     } catch (DateTimeParseException e) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           name + " must be an ISO 8601 time with offset, e.g. 2026-04-12T06:00:00Z; was " + value);
     }
   }
@@ -38,7 +38,7 @@ public final class TimeParameters {
     Instant start = instant("from", from);
     start = start == null ? end.minus(span) : start;
     if (start.isAfter(end)) {
-      throw BadRequestException.of("from " + start + " lies after to " + end);
+      throw ProblemException.of("from " + start + " lies after to " + end);
     }
     return new Range(start, end);
   }
@@ -48,7 +48,7 @@ public final class TimeParameters {
     try {
       return YearMonth.parse(value);
     } catch (DateTimeParseException | NullPointerException e) {
-      throw BadRequestException.of(name + " must be a month YYYY-MM, e.g. 2026-04; was " + value);
+      throw ProblemException.of(name + " must be a month YYYY-MM, e.g. 2026-04; was " + value);
     }
   }
 
@@ -57,7 +57,7 @@ public final class TimeParameters {
     try {
       return Year.parse(value);
     } catch (DateTimeParseException | NullPointerException e) {
-      throw BadRequestException.of(name + " must be a year YYYY, e.g. 2026; was " + value);
+      throw ProblemException.of(name + " must be a year YYYY, e.g. 2026; was " + value);
     }
   }
 }

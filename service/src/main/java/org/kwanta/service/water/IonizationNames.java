@@ -2,7 +2,7 @@ package org.kwanta.service.water;
 
 import java.util.Locale;
 import org.kwanta.model.water.IonizationFormulation;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 
 /** The API names of the pKw formulations: as accepted in requests and as shown in results. */
 public final class IonizationNames {
@@ -14,7 +14,7 @@ public final class IonizationNames {
    *
    * @param name the name given, may be null or blank
    * @param fallback the formulation when no name is given
-   * @throws BadRequestException an unknown name
+   * @throws ProblemException an unknown name
    */
   public static IonizationFormulation parse(String name, IonizationFormulation fallback) {
     if (name == null || name.isBlank()) {
@@ -24,7 +24,7 @@ public final class IonizationNames {
       case "R11_07" -> IonizationFormulation.R11_07;
       case "R11_24" -> IonizationFormulation.R11_24;
       default ->
-          throw BadRequestException.of("ionization must be R11-07 or R11-24, not '" + name + "'");
+          throw ProblemException.of("ionization must be R11-07 or R11-24, not '" + name + "'");
     };
   }
 

@@ -8,7 +8,7 @@ import java.util.List;
 import org.kwanta.model.water.IonizationFormulation;
 import org.kwanta.model.water.Water;
 import org.kwanta.model.water.WaterState;
-import org.kwanta.service.system.BadRequestException;
+import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ResponseFormats;
 import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
@@ -78,11 +78,11 @@ class WaterController {
       @org.springframework.web.bind.annotation.RequestHeader(value = "Accept", required = false)
           String accept) {
     if (!(stepCel > 0) || !Double.isFinite(fromCel) || !Double.isFinite(toCel) || toCel < fromCel) {
-      throw BadRequestException.of("need finite fromCel <= toCel and stepCel > 0");
+      throw ProblemException.of("need finite fromCel <= toCel and stepCel > 0");
     }
     double rows = Math.floor((toCel - fromCel) / stepCel + 1e-9) + 1;
     if (rows > MAX_TABLE_ROWS) {
-      throw BadRequestException.of(
+      throw ProblemException.of(
           "table of " + (long) rows + " rows exceeds the limit of " + MAX_TABLE_ROWS);
     }
     IonizationFormulation f = formulation(ionization);
@@ -103,18 +103,18 @@ class WaterController {
       return Water.atSaturation(kelvin, f);
     }
     if (!Double.isFinite(pressureMPa)) {
-      throw BadRequestException.of("pressureMPa must be a finite number");
+      throw ProblemException.of("pressureMPa must be a finite number");
     }
     return Water.at(kelvin, pressureMPa * 1e6, f);
   }
 
   private static double kelvin(Double celsius, Double kelvin) {
     if ((celsius == null) == (kelvin == null)) {
-      throw BadRequestException.of("give exactly one of temperatureCel and temperatureK");
+      throw ProblemException.of("give exactly one of temperatureCel and temperatureK");
     }
     double k = celsius != null ? celsius + 273.15 : kelvin;
     if (!Double.isFinite(k)) {
-      throw BadRequestException.of("temperature must be a finite number");
+      throw ProblemException.of("temperature must be a finite number");
     }
     return k;
   }

@@ -52,7 +52,7 @@ class OperationsDocTest {
     assertThat(settings)
         .contains(
             "kwanta.ingest.max-batch-size",
-            "kwanta.limits.max-ingest-body-size",
+            "kwanta.http.max-ingest-body-size",
             "kwanta.security.scrape-key-file",
             "kwanta.diagnosis.instrument-persistence",
             "kwanta.metrics.level-window",

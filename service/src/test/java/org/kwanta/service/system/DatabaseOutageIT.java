@@ -64,7 +64,7 @@ class DatabaseOutageIT {
                 "--spring.datasource.url=" + url,
                 "--spring.datasource.username=postgres",
                 "--" + TestKeys.ADMIN_KEY_PROPERTY + "=" + TestKeys.ADMIN,
-                "--kwanta.limits.retry-after=1s");
+                "--kwanta.http.retry-after=1s");
     ExecutorService clients = Executors.newFixedThreadPool(CLIENTS);
     try {
       int port = Integer.parseInt(app.getEnvironment().getProperty("local.server.port"));

@@ -29,7 +29,7 @@ import org.springframework.web.bind.annotation.RestController;
  * endpoint here is a stand-in under {@code /api/v1/readings/}, so the bound is tested on its own.
  */
 @DatabaseTest
-@TestPropertySource(properties = "kwanta.limits.max-concurrent-ingests=2")
+@TestPropertySource(properties = "kwanta.http.max-concurrent-ingests=2")
 @Import(LimitsIT.StandInIngest.class)
 class LimitsIT {
 

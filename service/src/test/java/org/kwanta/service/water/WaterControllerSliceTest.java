@@ -7,7 +7,7 @@ import static org.springframework.test.web.servlet.result.MockMvcResultMatchers.
 
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.system.DatabaseOutage;
-import org.kwanta.service.system.LimitsProperties;
+import org.kwanta.service.system.HttpLimitsProperties;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.context.properties.EnableConfigurationProperties;
 import org.springframework.boot.webmvc.test.autoconfigure.AutoConfigureMockMvc;
@@ -22,7 +22,7 @@ import org.springframework.test.web.servlet.MockMvc;
  */
 @WebMvcTest(WaterController.class)
 @AutoConfigureMockMvc(addFilters = false)
-@EnableConfigurationProperties({WaterProperties.class, LimitsProperties.class})
+@EnableConfigurationProperties({WaterProperties.class, HttpLimitsProperties.class})
 @Import(DatabaseOutage.class)
 class WaterControllerSliceTest {
 

@@ -6,9 +6,9 @@ import org.springframework.boot.context.properties.bind.DefaultValue;
 import org.springframework.util.unit.DataSize;
 
 /**
- * Limits on request size and load ({@code kwanta.limits.*}), applied before a request reaches its
- * controller. Limits on the readings themselves (batch size, future skew, past horizon) belong to
- * ingest: {@code kwanta.ingest.*}.
+ * Limits on request size and load ({@code kwanta.http.*}; {@code kwanta.limits.*} is the chemistry
+ * limits), applied before a request reaches its controller. Limits on the readings themselves
+ * (batch size, future skew, past horizon) belong to ingest: {@code kwanta.ingest.*}.
  *
  * @param maxBodySize largest request body outside ingest; larger: 413
  * @param maxIngestBodySize largest request body on {@code POST /api/v1/readings/**}; larger: 413
@@ -19,8 +19,8 @@ import org.springframework.util.unit.DataSize;
  * @param ingestBodyReadTimeout the whole body of an ingest request must arrive within this time,
  *     read before an ingest slot is taken; slower: 408
  */
-@ConfigurationProperties("kwanta.limits")
-public record LimitsProperties(
+@ConfigurationProperties("kwanta.http")
+public record HttpLimitsProperties(
     @DefaultValue("1MB") DataSize maxBodySize,
     @DefaultValue("16MB") DataSize maxIngestBodySize,
     @DefaultValue("4") int maxConcurrentIngests,
@@ -29,7 +29,7 @@ public record LimitsProperties(
     @DefaultValue("64") int maxJsonNestingDepth,
     @DefaultValue("30s") Duration ingestBodyReadTimeout) {
 
-  public LimitsProperties {
+  public HttpLimitsProperties {
     require(maxBodySize.toBytes() > 0, "max-body-size must be positive");
     require(maxIngestBodySize.toBytes() > 0, "max-ingest-body-size must be positive");
     require(maxConcurrentIngests > 0, "max-concurrent-ingests must be positive");
@@ -43,7 +43,7 @@ public record LimitsProperties(
 
   private static void require(boolean condition, String message) {
     if (!condition) {
-      throw new IllegalArgumentException("kwanta.limits." + message);
+      throw new IllegalArgumentException("kwanta.http." + message);
     }
   }
 }

@@ -5,10 +5,10 @@ import java.util.Map;
 import org.springframework.http.HttpStatus;
 
 /**
- * A request the service refuses, with the problem type, title and any extra properties for the
- * body.
+ * A request the service refuses, answered as a problem detail (RFC 9457) of any 4xx status (400,
+ * 403, 404, 409, 422...), with the problem type, title and any extra properties for the body.
  */
-public class BadRequestException extends RuntimeException {
+public class ProblemException extends RuntimeException {
 
   private static final long serialVersionUID = 1L;
 
@@ -17,7 +17,7 @@ public class BadRequestException extends RuntimeException {
   private final String title;
   private final transient Map<String, Object> properties;
 
-  public BadRequestException(
+  public ProblemException(
       HttpStatus status, URI type, String title, String detail, Map<String, Object> properties) {
     super(detail);
     this.status = status;
@@ -27,8 +27,8 @@ public class BadRequestException extends RuntimeException {
   }
 
   /** 404: no {@code what} (e.g. "sample point") with that id. */
-  public static BadRequestException notFound(String what, String id) {
-    return new BadRequestException(
+  public static ProblemException notFound(String what, String id) {
+    return new ProblemException(
         HttpStatus.NOT_FOUND,
         ProblemTypes.NOT_FOUND,
         "Not found",
@@ -37,8 +37,8 @@ public class BadRequestException extends RuntimeException {
   }
 
   /** 400 with the generic bad-request type. */
-  public static BadRequestException of(String detail) {
-    return new BadRequestException(
+  public static ProblemException of(String detail) {
+    return new ProblemException(
         HttpStatus.BAD_REQUEST, ProblemTypes.BAD_REQUEST, "Bad request", detail, Map.of());
   }
 
