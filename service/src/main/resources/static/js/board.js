@@ -7,7 +7,7 @@ import { badge, rank, CODE, STALE } from './levels.js';
 /** What a finding means, in plain words (codes: docs/diagnosis.md, docs/conductivity-and-checks.md). */
 const PLAIN = {
   COOLING_WATER_INGRESS: 'Cooling water is getting in: a condenser leak',
-  INGRESS_SUSPECTED: 'Contamination is getting in (source not clear)',
+  INGRESS_SUSPECTED: 'Contamination is getting in (no sodium rise here to name its source)',
   CARBON_DIOXIDE_INGRESS: 'Carbon dioxide is getting in: air in-leakage',
   CATION_COLUMN_EXHAUSTED: 'The cation column is exhausted: the reading is not the water',
   SODIUM_WITHOUT_CATION_RISE: 'The sodium analyser reads high alone: check it',
@@ -61,7 +61,14 @@ function diagnosisCell(p) {
   if (p.findings.length === 0) return el('span', { class: 'quiet' }, 'Nothing found: the channels agree with each other and their baselines');
   return el('ul', { class: 'plain findings' }, p.findings.map((f) => el('li', { class: f.pointsAt === 'process' ? 'process' : 'instrument' },
     el('strong', {}, plain(f.code)), el('br'),
+    origin(f) ? el('small', {}, origin(f)) : null, origin(f) ? el('br') : null,
     el('small', {}, 'points at ' + pointsAtWords(f.pointsAt) + (f.instant ? ' (instant check)' : '') + ' · ' + f.code))));
+}
+
+/** Where a process finding says the change first appeared along the cycle (docs/diagnosis.md). */
+function origin(f) {
+  const m = /first seen upstream at ([^\s,.(]+)(?: \(([^)]*)\))?/.exec(f.explanation || '');
+  return m ? 'first seen upstream at ' + m[1] + (m[2] ? ' (' + m[2] + ')' : '') : null;
 }
 
 function phCell(p) {
