@@ -10,8 +10,9 @@ import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solutes;
 
 /**
- * The channel rises of a cooling-water leak (internal consistency: the diagnosis's own {@link
- * Ingress} rise, and the reference notes' pure-NaCl figures).
+ * The channel rises of a cooling-water leak. Internal consistency only (no outside value): the
+ * diagnosis's own {@link Ingress} rise, and the chloride the {@link CoolingWater} proportions give
+ * per sodium (their published sources are cited in {@code CoolingWater}).
  */
 class LeakChannelsTest {
 
