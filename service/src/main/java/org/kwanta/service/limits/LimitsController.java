@@ -209,7 +209,12 @@ class LimitsController {
     try {
       return ProfileResponse.of(
           limits.override(
-              WebLookups.point(limits, id), p, body, from, blankToNull(reason), Actor.currentId()));
+              WebLookups.point(limits, id),
+              p,
+              body,
+              from,
+              EffectiveTimes.blankToNull(reason),
+              Actor.currentId()));
     } catch (IllegalArgumentException e) {
       throw ProblemException.of(e.getMessage());
     }
@@ -232,7 +237,7 @@ class LimitsController {
             WebLookups.point(limits, id),
             WebLookups.parameter(parameter),
             from,
-            blankToNull(reason),
+            EffectiveTimes.blankToNull(reason),
             Actor.currentId());
     Map<String, Object> body = new LinkedHashMap<>();
     body.put("removed", version.isPresent());
@@ -246,14 +251,10 @@ class LimitsController {
    */
   private Instant effectiveFrom(String value, String reason) {
     Instant now = clock.instant();
-    if (Callers.role().orElse(null) == Role.CHEMIST && blankToNull(reason) == null) {
+    if (Callers.role().orElse(null) == Role.CHEMIST && EffectiveTimes.blankToNull(reason) == null) {
       throw ProblemException.of(
           "A chemist key changes limits with a reason (query parameter reason)");
     }
     return EffectiveTimes.effectiveFrom(value, reason, now, "limits");
-  }
-
-  private static String blankToNull(String s) {
-    return EffectiveTimes.blankToNull(s);
   }
 }

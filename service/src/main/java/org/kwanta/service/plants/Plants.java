@@ -265,17 +265,17 @@ public class Plants {
       // time); a later one from its validFrom. So a change may be back-dated past the first
       // version's
       // creation, but never before a later version's start (versions stay in order).
-      Object[] current =
+      record Current(int version, java.time.Instant from) {}
+      Current current =
           jdbc.sql(
                   """
                   SELECT version, valid_from FROM sample_point_version WHERE sample_point_id = ?
                   ORDER BY version DESC LIMIT 1 FOR UPDATE""")
               .param(p.id())
-              .query((rs, i) -> new Object[] {rs.getInt(1), rs.getTimestamp(2).toInstant()})
+              .query((rs, i) -> new Current(rs.getInt(1), rs.getTimestamp(2).toInstant()))
               .single();
-      java.time.Instant currentFrom = (java.time.Instant) current[1];
-      if ((Integer) current[0] > 1 && validFrom.isBefore(currentFrom)) {
-        throw new VersionOrderException(p.id(), validFrom, currentFrom);
+      if (current.version() > 1 && validFrom.isBefore(current.from())) {
+        throw new VersionOrderException(p.id(), validFrom, current.from());
       }
     }
     Integer version =
