@@ -21,7 +21,9 @@ import org.springframework.stereotype.Component;
  * another version than the last one recorded, that version is recorded as in force from then on;
  * earlier times keep the version that was in force then, read from {@code
  * limits/defaults-v<version>.yaml} on the class path. The first activation also covers every
- * earlier time.
+ * earlier time. A database migrated without readings starts with no activation (V54), so in a new
+ * installation the version of the first start judges everything, a historian's backfill included; a
+ * database that held data when limits became versions (V35) keeps version 1 before its upgrade.
  */
 @Component
 class DefaultLimitVersions {
@@ -55,7 +57,7 @@ class DefaultLimitVersions {
     }
   }
 
-  /** The activations, oldest first; never empty once the migrations ran. */
+  /** The activations, oldest first; never empty (this build's version is recorded first). */
   List<Activation> activations() {
     if (!registered) {
       register();

@@ -136,8 +136,8 @@ class ChemistryRecordIT {
   }
 
   /**
-   * The version of the shipped defaults this build brings (in force from the test database's
-   * start).
+   * The version of the shipped defaults this build brings: the test database is fresh, so its first
+   * start recorded this version as the first activation, which covers every earlier time (V54).
    */
   private static final int DEFAULTS_VERSION_NOW = 3;
 
@@ -167,7 +167,7 @@ class ChemistryRecordIT {
     assertThat(before).hasSize(1);
     assertThat(before.get(0).get("highestLevel").asString()).isEqualTo("AL3");
     assertThat(before.get(0).get("limitsOrigin").asString()).isEqualTo("DEFAULT");
-    assertThat(before.get(0).get("limitsVersion").asInt()).isEqualTo(1);
+    assertThat(before.get(0).get("limitsVersion").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
     assertThat(before.get(0).get("basis").asString()).isEqualTo("as-reported");
     // Before any change, today's limits judge last week as last week's did: both bases agree.
     // Today's
@@ -593,26 +593,24 @@ class ChemistryRecordIT {
                 "SELECT plant_type FROM plant WHERE id = ?", String.class, conventional))
         .isEqualTo("CONVENTIONAL_DRUM");
 
-    // The history: version 1 (the conventional range for every plant) before this build's defaults
-    // version came into force in the test database, the HRSG range from then on.
+    // The history of a fresh database: this build's defaults from the beginning (an upgraded
+    // database keeps the older version before the upgrade: DefaultsVersion3IT).
     JsonNode periods =
         JSON.readTree(http.get("/api/v1/sample-points/" + hrsg + "-FW/limits/ph/history").body())
             .get("periods");
-    assertThat(periods).hasSize(2);
-    assertThat(periods.get(0).get("limits").get("version").asInt()).isEqualTo(1);
+    assertThat(periods).hasSize(1);
+    assertThat(periods.get(0).get("limits").get("version").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
     assertThat(periods.get(0).get("limits").get("limits").get("normal").get("high").asDouble())
-        .isEqualTo(9.6);
-    assertThat(periods.get(1).get("limits").get("version").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
-    assertThat(periods.get(1).get("limits").get("limits").get("normal").get("high").asDouble())
         .isEqualTo(10.0);
   }
 
   @Test
-  void excursionsBeforeThisBuildsDefaultsCameIntoForceAreUnchanged() {
+  void aBackfillIntoAFreshDatabaseIsJudgedByTheDefaultsOfItsFirstStart() {
     String hrsg = plantOfType("HRSG");
     String cpd = hrsg + "-CPD";
-    // Last week, an hour of condensate sodium at 3 µg/kg: version 1 has no action levels for it,
-    // versions 2 and 3 put it at AL1 (> 2, from memory — verify).
+    // Last week, before this (fresh) test database's first start, an hour of condensate sodium at
+    // 3 µg/kg: version 1 has no action levels for it, versions 2 and 3 put it at AL1 (> 2, from
+    // memory — verify). The first activation covers the backfill: reported as the board judges it.
     List<String> readings = new ArrayList<>();
     for (int m = 0; m <= 60; m++) {
       readings.add(
@@ -626,12 +624,13 @@ class ChemistryRecordIT {
             "{\"readings\":[" + String.join(",", readings) + "]}");
     assertThat(in.statusCode()).as(in.body()).isEqualTo(200);
     String query = "/api/v1/excursions?samplePoint=" + cpd + "&parameter=sodium" + window();
-    HttpResponse<String> reported = http.get(query);
-    assertThat(reported.statusCode()).as(reported.body()).isEqualTo(200);
-    assertThat(JSON.readTree(reported.body())).isEmpty();
-    JsonNode recomputed = JSON.readTree(http.get(query + "&basis=recomputed").body());
-    assertThat(recomputed).hasSize(1);
-    assertThat(recomputed.get(0).get("highestLevel").asString()).isEqualTo("AL1");
-    assertThat(recomputed.get(0).get("limitsVersion").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
+    for (String basis : List.of("", "&basis=recomputed")) {
+      HttpResponse<String> r = http.get(query + basis);
+      assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+      JsonNode e = JSON.readTree(r.body());
+      assertThat(e).as(basis).hasSize(1);
+      assertThat(e.get(0).get("highestLevel").asString()).isEqualTo("AL1");
+      assertThat(e.get(0).get("limitsVersion").asInt()).isEqualTo(DEFAULTS_VERSION_NOW);
+    }
   }
 }

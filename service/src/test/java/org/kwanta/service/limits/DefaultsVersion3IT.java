@@ -52,12 +52,13 @@ class DefaultsVersion3IT {
         .locations("classpath:db/migration")
         .load()
         .migrate();
-    // Version 2 in force here since two weeks ago (the migration recorded version 1 as the first).
+    // An upgraded database: version 1 first (it covers earlier times), version 2 in force since two
+    // weeks ago (the migrations record no activation in a database without readings, V54).
     try (Connection c = java.sql.DriverManager.getConnection(url, db.user(), db.password());
         Statement s = c.createStatement()) {
       s.execute(
           "INSERT INTO limit_defaults_activation (version, effective_from)"
-              + " VALUES (2, now() - interval '14 days')");
+              + " VALUES (1, now() - interval '60 days'), (2, now() - interval '14 days')");
     }
   }
 
