@@ -134,10 +134,11 @@ class ExcursionsIT {
     assertThat(r.headers().firstValue("Content-Type").orElseThrow()).startsWith("text/csv");
     String[] lines = r.body().split("\r\n");
     assertThat(lines[0]).startsWith("plant,unit,sample_point,parameter,value_unit");
-    // Cation conductivity has action levels at a condensate point; sodium there has none by
-    // default.
-    assertThat(lines).hasSize(2);
+    // The shipped defaults (version 3) give a condensate point action levels for cation
+    // conductivity and for sodium, so the leak shows in both, one row each, sorted by parameter.
+    assertThat(lines).hasSize(3);
     assertThat(lines[1]).contains(point).contains("cation_conductivity").contains(",AL3,");
+    assertThat(lines[2]).contains(point).contains("sodium").contains(",AL2,");
   }
 
   @Test
