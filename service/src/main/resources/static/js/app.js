@@ -8,6 +8,7 @@ import { legend } from './levels.js';
 import * as board from './board.js';
 import * as events from './events.js';
 import * as detail from './detail.js';
+import * as entry from './entry.js';
 
 const state = { caller: null, points: [], plant: null, open: null };
 
@@ -71,6 +72,7 @@ async function refresh() {
     $('status').dataset.kind = 'board';
   }
   events.refresh(plant, state.points, state.caller, status);
+  entry.show(plant, state.caller, state.points, status, (point) => { if (state.open === point) detail.redraw(); });
 }
 
 function openPoint(p) {
@@ -101,6 +103,7 @@ $('signout').addEventListener('click', () => {
   $('board-summary').textContent = '';
   $('detail').hidden = true;
   events.clear();
+  entry.clear();
   status('Signed out. The key is gone from this tab.');
 });
 $('plant').addEventListener('change', () => {
