@@ -66,6 +66,7 @@ async function refresh() {
     $('board-summary').textContent = board.summary(o.points);
     $('as-of').textContent = 'as of ' + when(o.asOf);
     document.body.dataset.loaded = 'board';
+    if (!performance.getEntriesByName('board-shown').length) performance.mark('board-shown'); // first paint figures (PageIT)
     if ($('status').dataset.kind === 'board') status('');
   } catch (e) {
     status('Could not load the board (' + e.message + ').');

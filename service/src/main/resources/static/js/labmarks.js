@@ -53,9 +53,12 @@ export function plugin(marks) {
         c.textAlign = 'center';
         c.textBaseline = 'middle';
         c.lineJoin = 'round';
+        let drawn = 0;
         for (const m of marks) {
           const x = u.valToPos(m.t, 'x', true), y = u.valToPos(m.value, 'y', true);
-          if (!Number.isFinite(x) || !Number.isFinite(y) || x < x0 - 1 || x > x1 + 1) continue;
+          const outside = x < x0 - 1 || x > x1 + 1 || y < u.bbox.top - 1 || y > u.bbox.top + u.bbox.height + 1;
+          if (!Number.isFinite(x) || !Number.isFinite(y) || outside) continue;
+          drawn++;
           const k = MARK[kind(m)];
           const glyph = m.below ? MARK.below.glyph : k.glyph;
           c.lineWidth = 3 * r;
@@ -65,6 +68,7 @@ export function plugin(marks) {
           c.fillText(glyph, x, y);
         }
         c.restore();
+        document.body.dataset.labmarksDrawn = String(drawn); // inside the plot, for the browser test
       }],
     },
   };
