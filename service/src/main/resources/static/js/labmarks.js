@@ -89,10 +89,11 @@ export function list(marks, unitCode) {
       el('span', { class: 'mark mark-' + k, 'aria-hidden': 'true' }, MARK[k].glyph), ' ' + MARK[k].word)));
   const shown = marks.slice().sort((a, b) => b.t - a.t).slice(0, 12);
   const items = shown.map((m) => el('li', { 'data-source': m.source, 'data-below': m.below ? 'yes' : 'no' },
-    el('span', { class: 'mark mark-' + (m.below ? 'below' : kind(m)), 'aria-hidden': 'true' }, m.below ? MARK.below.glyph : MARK[kind(m)].glyph),
+    el('span', { class: 'mark mark-' + kind(m), 'aria-hidden': 'true' }, m.below ? MARK.below.glyph : MARK[kind(m)].glyph),
     ' ' + when(new Date(m.t * 1000).toISOString()) + ': ' + (m.below ? '< ' : '') + sig(m.value) + ' ' + u + ' (' + MARK[kind(m)].word
       + (m.below ? ', below the detection limit' : '') + (m.sampleId ? ', sample ' + m.sampleId : '') + ')'));
+  const more = marks.length - shown.length;
   target.replaceChildren(key,
     el('ul', { class: 'plain labmarks', 'aria-label': 'Grab and lab results in this window' }, items),
-    marks.length > shown.length ? el('p', { class: 'note' }, (marks.length - shown.length) + ' older results in this window are drawn but not listed.') : null);
+    ...(more > 0 ? [el('p', { class: 'note' }, more + ' older results in this window are drawn but not listed.')] : []));
 }
