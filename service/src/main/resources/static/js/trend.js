@@ -145,7 +145,7 @@ async function draw() {
   labmarks.list(marks, main.unit);
   $('trend-caption').textContent = parameterName(parameter) + ' at ' + p.id + ', ' + when(new Date(from * 1000).toISOString())
     + ' – ' + when(new Date(to * 1000).toISOString()) + ' (' + zone.name + '), buckets of '
-    + (main.bucketSeconds >= 3600 ? (main.bucketSeconds / 3600).toFixed(1) + ' h' : Math.round((main.bucketSeconds || 0) / 60) + ' min') + '.'
+    + (main.bucketSeconds >= 3600 ? (main.bucketSeconds / 3600).toFixed(1) + ' h' : main.bucketSeconds >= 60 ? Math.round(main.bucketSeconds / 60) + ' min' : (main.bucketSeconds || 0) + ' s') + '.'
     + (history ? '' : ' No limits for this parameter here.');
   document.body.dataset.trend = parameter;
 }
