@@ -4,7 +4,7 @@
 'use strict';
 import * as E from './entryfields.js';
 import * as api from './api.js';
-import { $, el, when, parameterName, unit } from './dom.js';
+import { $, el, when, parameterName, unit, localInput } from './dom.js';
 
 /** Parameters a lab or a grab sample reports, in the order a chemist looks for them. */
 const LAB_PARAMETERS = ['cation_conductivity', 'specific_conductivity', 'degassed_cation_conductivity', 'ph', 'sodium', 'chloride',
@@ -25,12 +25,8 @@ function instant(value) {
 /** A time field follows now until the user edits it. */
 function nowUnlessEdited(id) {
   const f = $(id);
-  if (!f.dataset.edited) f.value = localNow();
+  if (!f.dataset.edited) f.value = localInput(new Date());
   if (!f.dataset.watched) { f.addEventListener('input', () => { f.dataset.edited = '1'; }); f.dataset.watched = '1'; }
-}
-function localNow() {
-  const d = new Date();
-  return new Date(d.getTime() - d.getTimezoneOffset() * 60000).toISOString().slice(0, 16);
 }
 
 function labForm() {
