@@ -65,3 +65,9 @@ export const parameterShort = (p) => SHORT[p] || parameterName(p);
 const REGIME = { AVT_R: 'AVT(R), all-volatile reducing', AVT_O: 'AVT(O), all-volatile oxidizing', OT: 'oxygenated treatment', PT: 'phosphate treatment', CT: 'caustic treatment', MAKE_UP: 'make-up water' };
 export const regimeName = (r) => REGIME[r] || String(r || '–');
 export const words = (s) => String(s || '').toLowerCase().replace(/_/g, ' ');
+
+/** A time as the value of a datetime-local input: the browser's local time, to the minute. */
+export function localInput(date) {
+  const d = new Date(date.getTime() - date.getTimezoneOffset() * 60000);
+  return d.toISOString().slice(0, 16);
+}

@@ -96,7 +96,8 @@ export const findingMinutes = (j) => j.minutes.map((m) => ({ time: m.time, findi
 
 /** GET .../series: bucket starts (s since epoch) and min, mean, max; or raw points. */
 export function series(j) {
-  const out = { unit: j.unit, bucketSeconds: j.bucketSeconds, t: [], mean: [], min: [], max: [] };
+  // lab: the grab and lab results as sent (a measured series only), mapped by entryfields.labPoint
+  const out = { unit: j.unit, bucketSeconds: j.bucketSeconds, t: [], mean: [], min: [], max: [], lab: j.labResults || null };
   if (j.buckets) {
     for (const b of j.buckets) {
       out.t.push(Date.parse(b.start) / 1000);

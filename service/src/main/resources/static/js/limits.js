@@ -3,7 +3,7 @@
 'use strict';
 import * as F from './fields.js';
 import * as api from './api.js';
-import { $, el, sig, when, unit, parameterName } from './dom.js';
+import { $, el, sig, when, unit, parameterName, localInput } from './dom.js';
 import { badge } from './levels.js';
 
 let ctx = null; // { p, caller, status, now: [profiles] }
@@ -34,11 +34,6 @@ function fillForm() {
     numberInput('limit-normal-low', 'Normal from' + u, l.normal ? l.normal.low : null),
     numberInput('limit-normal-high', 'Normal to' + u, l.normal ? l.normal.high : null),
     ...l.thresholds.map((t, i) => numberInput('limit-thr-' + i, t.level + ' ' + (t.side === 'HIGH' ? 'above' : 'below') + u, t.value)));
-}
-
-function localInput(date) {
-  const d = new Date(date.getTime() - date.getTimezoneOffset() * 60000);
-  return d.toISOString().slice(0, 16);
 }
 
 export async function open(p, caller, status) {

@@ -5,6 +5,7 @@
 import * as F from './fields.js';
 import * as api from './api.js';
 import { $, el, unit, parameterName, zone, when } from './dom.js';
+import * as labmarks from './labmarks.js';
 
 const uPlot = window.uPlot;
 const MIN_SPAN = 3600, MAX_SPAN = 90 * 86400, POINTS = 400;
@@ -88,6 +89,7 @@ async function draw() {
     ctx.status('Could not load the trend (' + e.message + ').');
     return;
   }
+  const marks = await labmarks.forSeries(p.id, parameter, main.lab, from, to);
   const t = main.t;
   const align = (s) => { const m = new Map(s.t.map((x, i) => [x, s.mean[i]])); return t.map((x) => m.has(x) ? m.get(x) : null); };
   const u = unit(main.unit);
@@ -129,7 +131,8 @@ async function draw() {
   const opts = {
     width, height: width < 500 ? 260 : 340,
     tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), zone.name),
-    scales: { x: { time: true, range: () => [from, to] }, y: { auto: true }, y2: { auto: true } },
+    scales: { x: { time: true, range: () => [from, to] }, y: marks.length ? { auto: true, range: labmarks.yRange(marks) } : { auto: true }, y2: { auto: true } },
+    plugins: [labmarks.plugin(marks)],
     series, bands, axes,
     cursor: { drag: { x: true, y: false }, points: { show: false } },
     legend: { live: true },
@@ -139,9 +142,10 @@ async function draw() {
   target.replaceChildren();
   ctx.chart = t.length ? new uPlot(opts, data, target) : null;
   if (!t.length) target.append(el('p', {}, 'No data in this window.'));
+  labmarks.list(marks, main.unit);
   $('trend-caption').textContent = parameterName(parameter) + ' at ' + p.id + ', ' + when(new Date(from * 1000).toISOString())
     + ' – ' + when(new Date(to * 1000).toISOString()) + ' (' + zone.name + '), buckets of '
-    + (main.bucketSeconds >= 3600 ? (main.bucketSeconds / 3600).toFixed(1) + ' h' : Math.round((main.bucketSeconds || 0) / 60) + ' min') + '.'
+    + (main.bucketSeconds >= 3600 ? (main.bucketSeconds / 3600).toFixed(1) + ' h' : main.bucketSeconds >= 60 ? Math.round(main.bucketSeconds / 60) + ' min' : (main.bucketSeconds || 0) + ' s') + '.'
     + (history ? '' : ' No limits for this parameter here.');
   document.body.dataset.trend = parameter;
 }
