@@ -22,7 +22,7 @@ class ParameterTest {
 
   @Test
   void limitsTakeTheAnalysedSpeciesButNotTheSampleTemperatureNorTheLabOnlyParameters() {
-    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 10);
+    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 16);
     assertThat(Parameter.limited())
         .doesNotContain(
             Parameter.SAMPLE_TEMPERATURE,
@@ -30,7 +30,13 @@ class ParameterTest {
             Parameter.REDUCING_AGENT,
             Parameter.TOC,
             Parameter.ORP,
-            Parameter.IRON_DISSOLVED);
+            Parameter.IRON_DISSOLVED,
+            Parameter.LOAD,
+            Parameter.DRUM_PRESSURE,
+            Parameter.FEEDWATER_FLOW,
+            Parameter.STEAM_FLOW,
+            Parameter.MAKE_UP_FLOW,
+            Parameter.OPERATING_STATE);
     assertThatThrownBy(() -> Parameter.limitedOfCode("sample_temperature"))
         .hasMessageContaining("Unknown parameter 'sample_temperature'");
   }
@@ -42,6 +48,11 @@ class ParameterTest {
     assertThat(Parameter.PH.symbol()).isEqualTo("pH");
     assertThat(Parameter.SAMPLE_TEMPERATURE.unit()).isEqualTo("Cel");
     assertThat(Parameter.CATION_CONDUCTIVITY.unit()).isEqualTo("uS/cm");
+    // process values: UCUM MW, MPa, kg/s; a dimensionless code as the annotation {state}
+    assertThat(Parameter.LOAD.unit()).isEqualTo("MW");
+    assertThat(Parameter.DRUM_PRESSURE.unit()).isEqualTo("MPa");
+    assertThat(Parameter.MAKE_UP_FLOW.unit()).isEqualTo("kg/s");
+    assertThat(Parameter.OPERATING_STATE.unit()).isEqualTo("{state}");
   }
 
   @Test

@@ -138,6 +138,17 @@ final class ReadingValidator {
                         p.min(),
                         p.max(),
                         p.unit())));
+          } else if (p.quantity() == Parameter.Quantity.STATE_CODE
+              && org.kwanta.model.OperatingStateCode.of(canonical).isEmpty()) {
+            rejected.add(
+                new RejectedReading(
+                    i,
+                    "value",
+                    p.code()
+                        + " "
+                        + canonical
+                        + " is not a state code: 1 in service, 2 start-up, 3 shut down,"
+                        + " 4 layup wet, 5 layup dry"));
           }
         }
       }
