@@ -148,11 +148,13 @@ public class ReadingHistory {
       String plant, String block, String parameter, Instant from, Instant to) {
     return jdbc.query(
         """
-        (SELECT r.sample_point_id, r.time, r.value FROM reading r
-         JOIN sample_point s ON s.id = r.sample_point_id
-         WHERE s.plant_id = ? AND s.unit_id = ? AND r.parameter = ? AND r.quality < 2
-           AND r.time <= ?
-         ORDER BY r.time DESC, r.sample_point_id DESC LIMIT 1)
+        (SELECT x.sample_point_id, x.time, x.value FROM sample_point s
+         CROSS JOIN LATERAL (
+           SELECT r.sample_point_id, r.time, r.value FROM reading r
+           WHERE r.sample_point_id = s.id AND r.parameter = ? AND r.quality < 2 AND r.time <= ?
+           ORDER BY r.time DESC LIMIT 1) x
+         WHERE s.plant_id = ? AND s.unit_id = ?
+         ORDER BY x.time DESC, x.sample_point_id DESC LIMIT 1)
         UNION ALL
         (SELECT r.sample_point_id, r.time, r.value FROM reading r
          JOIN sample_point s ON s.id = r.sample_point_id
@@ -162,10 +164,10 @@ public class ReadingHistory {
         (rs, i) ->
             new PointReading(
                 rs.getString(1), parameter, rs.getTimestamp(2).toInstant(), rs.getDouble(3)),
-        plant,
-        block,
         parameter,
         Timestamp.from(from),
+        plant,
+        block,
         plant,
         block,
         parameter,
