@@ -206,6 +206,17 @@ public enum Parameter {
     return max;
   }
 
+  /**
+   * True for the process values a historian reports (load, drum pressure, flows, operating state):
+   * online readings only, never grab or lab results.
+   */
+  public boolean isProcessValue() {
+    return quantity == Quantity.POWER
+        || quantity == Quantity.PRESSURE
+        || quantity == Quantity.MASS_FLOW
+        || quantity == Quantity.STATE_CODE;
+  }
+
   /** True for the three conductivities. */
   public boolean isConductivity() {
     return quantity == Quantity.CONDUCTIVITY;

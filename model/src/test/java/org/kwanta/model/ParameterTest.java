@@ -64,4 +64,16 @@ class ParameterTest {
     }
     assertThat(Parameter.byCode("turbidity")).isEmpty();
   }
+
+  @Test
+  void processValuesAreTheSixHistorianParameters() {
+    assertThat(java.util.Arrays.stream(Parameter.values()).filter(Parameter::isProcessValue))
+        .containsExactly(
+            Parameter.LOAD,
+            Parameter.DRUM_PRESSURE,
+            Parameter.FEEDWATER_FLOW,
+            Parameter.STEAM_FLOW,
+            Parameter.MAKE_UP_FLOW,
+            Parameter.OPERATING_STATE);
+  }
 }

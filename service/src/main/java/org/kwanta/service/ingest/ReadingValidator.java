@@ -185,6 +185,14 @@ final class ReadingValidator {
             new RejectedReading(i, "compensated", "only conductivities can be compensated"));
       }
       checkSource(in, i, lab, rejected);
+      if (lab && parameter.isPresent() && parameter.get().isProcessValue()) {
+        rejected.add(
+            new RejectedReading(
+                i,
+                "parameter",
+                parameter.get().code()
+                    + " is a process value: the historian sends it to POST /api/v1/readings"));
+      }
       boolean compensated =
           in.compensated() != null ? in.compensated() : in.sampleTemperatureCel() == null;
       if (rejected.size() == before) {

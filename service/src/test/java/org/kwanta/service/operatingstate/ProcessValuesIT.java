@@ -214,6 +214,27 @@ class ProcessValuesIT {
     assertThat(series.body()).contains("170");
   }
 
+  /** A process value in a lab CSV is refused: the historian sends it as an online reading. */
+  @Test
+  void aLabCsvWithAProcessValueIsRefused() {
+    Instant t = Instant.now().truncatedTo(ChronoUnit.MINUTES).minusSeconds(3600);
+    HttpResponse<String> r =
+        http.post(
+            "/api/v1/lab-results",
+            "text/csv",
+            "sample_point,parameter,time,value,unit,source,sample_id\n"
+                + drum
+                + ",drum_pressure,"
+                + t
+                + ",16,MPa,lab,L-1\n"
+                + drum
+                + ",silica,"
+                + t
+                + ",4,ug/kg,lab,L-1\n");
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(400);
+    assertThat(r.body()).contains("drum_pressure is a process value").doesNotContain("silica");
+  }
+
   private void ingestCationConductivity(Instant day) {
     List<String> readings = new ArrayList<>();
     for (int m = 0; m < 720; m += 5) {
