@@ -71,7 +71,31 @@ public enum Parameter {
   /** Phosphate as PO4. */
   PHOSPHATE("ug/kg", Quantity.MASS_FRACTION, null, false, true, 0, 1e7),
   /** Sample temperature at the analysers (the evaluation compensates conductivities with it). */
-  SAMPLE_TEMPERATURE("Cel", Quantity.TEMPERATURE, null, false, false, -10, 400);
+  SAMPLE_TEMPERATURE("Cel", Quantity.TEMPERATURE, null, false, false, -10, 400),
+  /**
+   * Electrical load of the block (a process value from the historian), MW; negative while the block
+   * draws its auxiliary power from the grid.
+   */
+  LOAD("MW", Quantity.POWER, null, false, false, -500, 5000),
+  /**
+   * Drum pressure, absolute (a process value from the historian), MPa. The evaluation of a
+   * drum-water or saturated-steam sample point takes its recent value as the operating pressure
+   * (saturation temperature by IAPWS-IF97). Gauge pressures are not accepted: UCUM has no gauge
+   * unit, so a historian converts before sending.
+   */
+  DRUM_PRESSURE("MPa", Quantity.PRESSURE, null, false, false, 0, 30),
+  /** Feedwater mass flow (a process value from the historian), kg/s. */
+  FEEDWATER_FLOW("kg/s", Quantity.MASS_FLOW, null, false, false, -50, 5000),
+  /** Main steam mass flow (a process value from the historian), kg/s. */
+  STEAM_FLOW("kg/s", Quantity.MASS_FLOW, null, false, false, -50, 5000),
+  /** Make-up water mass flow (a process value from the historian), kg/s. */
+  MAKE_UP_FLOW("kg/s", Quantity.MASS_FLOW, null, false, false, -50, 5000),
+  /**
+   * The block's operating state as the historian reports it: a whole-number code ({@link
+   * OperatingStateCode}: 1 in service, 2 start-up, 3 shut down, 4 layup wet, 5 layup dry). UCUM
+   * writes a dimensionless code as an annotation, {@code {state}}.
+   */
+  OPERATING_STATE("{state}", Quantity.STATE_CODE, null, false, false, 1, 5);
 
   /** The kind of quantity: it decides the units a value may be sent in. */
   public enum Quantity {
@@ -84,7 +108,15 @@ public enum Parameter {
     /** Temperature (canonical °C). */
     TEMPERATURE,
     /** Electrode potential (canonical mV). */
-    POTENTIAL
+    POTENTIAL,
+    /** Electrical power (canonical MW). */
+    POWER,
+    /** Absolute pressure (canonical MPa). */
+    PRESSURE,
+    /** Mass flow (canonical kg/s). */
+    MASS_FLOW,
+    /** A whole-number state code (canonical {@code {state}}; see {@link OperatingStateCode}). */
+    STATE_CODE
   }
 
   private static final Map<String, Parameter> BY_CODE =
@@ -172,6 +204,17 @@ public enum Parameter {
   /** Highest plausible value, canonical unit. */
   public double max() {
     return max;
+  }
+
+  /**
+   * True for the process values a historian reports (load, drum pressure, flows, operating state):
+   * online readings only, never grab or lab results.
+   */
+  public boolean isProcessValue() {
+    return quantity == Quantity.POWER
+        || quantity == Quantity.PRESSURE
+        || quantity == Quantity.MASS_FLOW
+        || quantity == Quantity.STATE_CODE;
   }
 
   /** True for the three conductivities. */

@@ -22,7 +22,7 @@ class ParameterTest {
 
   @Test
   void limitsTakeTheAnalysedSpeciesButNotTheSampleTemperatureNorTheLabOnlyParameters() {
-    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 10);
+    assertThat(Parameter.limited()).hasSize(Parameter.values().length - 16);
     assertThat(Parameter.limited())
         .doesNotContain(
             Parameter.SAMPLE_TEMPERATURE,
@@ -31,6 +31,7 @@ class ParameterTest {
             Parameter.TOC,
             Parameter.ORP,
             Parameter.IRON_DISSOLVED);
+    assertThat(Parameter.limited()).noneMatch(Parameter::isProcessValue);
     assertThatThrownBy(() -> Parameter.limitedOfCode("sample_temperature"))
         .hasMessageContaining("Unknown parameter 'sample_temperature'");
   }
@@ -42,6 +43,11 @@ class ParameterTest {
     assertThat(Parameter.PH.symbol()).isEqualTo("pH");
     assertThat(Parameter.SAMPLE_TEMPERATURE.unit()).isEqualTo("Cel");
     assertThat(Parameter.CATION_CONDUCTIVITY.unit()).isEqualTo("uS/cm");
+    // process values: UCUM MW, MPa, kg/s; a dimensionless code as the annotation {state}
+    assertThat(Parameter.LOAD.unit()).isEqualTo("MW");
+    assertThat(Parameter.DRUM_PRESSURE.unit()).isEqualTo("MPa");
+    assertThat(Parameter.MAKE_UP_FLOW.unit()).isEqualTo("kg/s");
+    assertThat(Parameter.OPERATING_STATE.unit()).isEqualTo("{state}");
   }
 
   @Test
@@ -52,5 +58,17 @@ class ParameterTest {
       assertThat(p.min()).isLessThan(p.max());
     }
     assertThat(Parameter.byCode("turbidity")).isEmpty();
+  }
+
+  @Test
+  void processValuesAreTheSixHistorianParameters() {
+    assertThat(java.util.Arrays.stream(Parameter.values()).filter(Parameter::isProcessValue))
+        .containsExactly(
+            Parameter.LOAD,
+            Parameter.DRUM_PRESSURE,
+            Parameter.FEEDWATER_FLOW,
+            Parameter.STEAM_FLOW,
+            Parameter.MAKE_UP_FLOW,
+            Parameter.OPERATING_STATE);
   }
 }

@@ -31,14 +31,23 @@ public final class EvaluationRunner {
   /** The engine, with the formulation {@code kwanta.water.ionization} names and its caches. */
   private final Evaluator evaluator;
 
+  /** How old a drum-pressure reading may be to set the operating state ({@code kwanta.process}). */
+  private final Duration drumPressureMaxAge;
+
   @org.springframework.beans.factory.annotation.Autowired
-  EvaluationRunner(WaterProperties water) {
-    this(new Evaluator(water.ionization()));
+  EvaluationRunner(WaterProperties water, ProcessValueProperties process) {
+    this(new Evaluator(water.ionization()), process.drumPressureMaxAge());
   }
 
-  /** A runner over the given engine (tests, benchmarks). */
+  /** A runner over the given engine (tests, benchmarks), drum pressures up to 10 minutes old. */
   public EvaluationRunner(Evaluator evaluator) {
+    this(evaluator, ProcessValueProperties.DEFAULT_DRUM_PRESSURE_MAX_AGE);
+  }
+
+  /** A runner over the given engine and maximum age of a drum-pressure reading. */
+  public EvaluationRunner(Evaluator evaluator, Duration drumPressureMaxAge) {
     this.evaluator = evaluator;
+    this.drumPressureMaxAge = drumPressureMaxAge;
   }
 
   /** The engine this runner evaluates with. */
@@ -122,11 +131,18 @@ public final class EvaluationRunner {
       List<String> notes = new ArrayList<>();
       double lastSampleTemperatureCel = Double.NaN;
       Instant lastSampleTemperatureTime = null;
+      double drumPressureMPa = Double.NaN;
+      Instant drumPressureTime = null;
       for (int j = seen.size() - 1; j >= 0; j--) {
         StoredReading r = seen.get(j);
         if ("sample_temperature".equals(r.parameter())) {
           lastSampleTemperatureCel = r.value();
           lastSampleTemperatureTime = r.time();
+          continue;
+        }
+        if (DRUM_PRESSURE.equals(r.parameter())) {
+          drumPressureMPa = r.value();
+          drumPressureTime = r.time();
           continue;
         }
         Parameter p = engineParameter(r.parameter());
@@ -156,11 +172,22 @@ public final class EvaluationRunner {
             .computeIfAbsent(p, k -> new ArrayList<>())
             .add(new Reading(r.time(), r.value(), temperatureK, compensated));
       }
+      OperatingCondition.Choice operating =
+          OperatingCondition.choose(
+              config.config(),
+              config.cycleLocation(),
+              drumPressureMPa,
+              drumPressureTime,
+              t,
+              drumPressureMaxAge,
+              notes);
       try {
-        Evaluation e = evaluator.evaluate(config.config(), new Snapshot(t, history));
+        Evaluation e = evaluator.evaluate(operating.config(), new Snapshot(t, history));
         out.add(
             new Result(
-                config.config().id(), t, EvaluationView.from(config.version(), e, dedupe(notes))));
+                config.config().id(),
+                t,
+                EvaluationView.from(config.version(), e, dedupe(notes), operating.condition())));
       } catch (OutOfValidityRangeException e) {
         out.add(
             new Result(
@@ -221,13 +248,30 @@ public final class EvaluationRunner {
     return "sample_temperature".equals(parameter) || engineParameter(parameter) != null;
   }
 
+  /** The drum pressure's code: read by the evaluation (operating state) but makes no times. */
+  static final String DRUM_PRESSURE = Parameter.DRUM_PRESSURE.code();
+
+  /**
+   * Whether an evaluation reads this parameter: those that make evaluation times and the drum
+   * pressure (a change of it re-evaluates the times after it, as any stored reading does, but a
+   * drum-pressure reading alone makes no evaluation).
+   */
+  public static boolean readByEvaluation(String parameter) {
+    return relevant(parameter) || DRUM_PRESSURE.equals(parameter);
+  }
+
   /** One slot per catalogue parameter (the sample temperature has its own). */
   private static final int SLOTS = Parameter.values().length;
 
   /** Index of a parameter the evaluation uses (engine parameters and sample temperature), or -1. */
   private static int slot(String code) {
     Parameter p = Parameter.byCode(code).orElse(null);
-    return p != null && (p.usedByEngine() || p == Parameter.SAMPLE_TEMPERATURE) ? p.ordinal() : -1;
+    return p != null
+            && (p.usedByEngine()
+                || p == Parameter.SAMPLE_TEMPERATURE
+                || p == Parameter.DRUM_PRESSURE)
+        ? p.ordinal()
+        : -1;
   }
 
   /** The catalogue parameter with this code when the evaluation engine reads it, else null. */

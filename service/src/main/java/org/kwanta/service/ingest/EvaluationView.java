@@ -64,7 +64,11 @@ public record EvaluationView(
   /**
    * pH at the sample point's operating temperature and pressure, with its band; for a steam sample
    * the pH of its first condensate at the saturation temperature ({@code basis} EARLY_CONDENSATE),
-   * with the assumptions and distribution constants in {@code notes}.
+   * with the assumptions and distribution constants in {@code notes}. {@code
+   * operatingConditionSource}: MEASURED when a recent drum-pressure reading of the point set the
+   * operating state (its value and time in {@code measuredDrumPressureMPa} and {@code measuredAt}),
+   * CONFIGURED when the point's configured state was used (null in evaluations stored before the
+   * field existed: configured).
    */
   public record PhAtTemperature(
       double temperatureCel,
@@ -75,7 +79,10 @@ public record EvaluationView(
       double neutralPh,
       String formulation,
       String basis,
-      List<String> notes) {}
+      List<String> notes,
+      String operatingConditionSource,
+      Double measuredDrumPressureMPa,
+      java.time.Instant measuredAt) {}
 
   /** A consistency-check result. */
   public record FindingView(String code, String suspect, String explanation) {}
@@ -90,6 +97,12 @@ public record EvaluationView(
           + " speciation above";
 
   public static EvaluationView from(int configVersion, Evaluation e, List<String> notes) {
+    return from(configVersion, e, notes, OperatingCondition.CONFIGURED);
+  }
+
+  /** The view of an evaluation whose operating state came from {@code condition}. */
+  public static EvaluationView from(
+      int configVersion, Evaluation e, List<String> notes, OperatingCondition condition) {
     List<Compensated> compensated =
         e.compensated().values().stream()
             .sorted(java.util.Comparator.comparing(c -> c.parameter().ordinal()))
@@ -144,7 +157,10 @@ public record EvaluationView(
                             ? FORMULATION_EARLY_CONDENSATE
                             : FORMULATION,
                         o.basis().name(),
-                        o.notes()))
+                        o.notes(),
+                        condition.source().name(),
+                        condition.drumPressureMPa(),
+                        condition.measuredAt()))
             .orElse(null);
     List<FindingView> findings =
         e.findings().stream()

@@ -139,6 +139,42 @@ public class ReadingHistory {
         .findFirst();
   }
 
+  /**
+   * The readings of one parameter (not of bad quality) at every sample point of a plant block: the
+   * latest at or before {@code from} (the value in force at the start) and every one in (from, to),
+   * by time, then sample point id.
+   */
+  public List<PointReading> blockReadings(
+      String plant, String block, String parameter, Instant from, Instant to) {
+    return jdbc.query(
+        """
+        (SELECT x.sample_point_id, x.time, x.value FROM sample_point s
+         CROSS JOIN LATERAL (
+           SELECT r.sample_point_id, r.time, r.value FROM reading r
+           WHERE r.sample_point_id = s.id AND r.parameter = ? AND r.quality < 2 AND r.time <= ?
+           ORDER BY r.time DESC LIMIT 1) x
+         WHERE s.plant_id = ? AND s.unit_id = ?
+         ORDER BY x.time DESC, x.sample_point_id DESC LIMIT 1)
+        UNION ALL
+        (SELECT r.sample_point_id, r.time, r.value FROM reading r
+         JOIN sample_point s ON s.id = r.sample_point_id
+         WHERE s.plant_id = ? AND s.unit_id = ? AND r.parameter = ? AND r.quality < 2
+           AND r.time > ? AND r.time < ?)
+        ORDER BY 2, 1""",
+        (rs, i) ->
+            new PointReading(
+                rs.getString(1), parameter, rs.getTimestamp(2).toInstant(), rs.getDouble(3)),
+        parameter,
+        Timestamp.from(from),
+        plant,
+        block,
+        plant,
+        block,
+        parameter,
+        Timestamp.from(from),
+        Timestamp.from(to));
+  }
+
   /** A point's reading of one parameter. */
   public record PointReading(String samplePointId, String parameter, Instant time, double value) {}
 

@@ -138,6 +138,17 @@ final class ReadingValidator {
                         p.min(),
                         p.max(),
                         p.unit())));
+          } else if (p.quantity() == Parameter.Quantity.STATE_CODE
+              && org.kwanta.model.OperatingStateCode.of(canonical).isEmpty()) {
+            rejected.add(
+                new RejectedReading(
+                    i,
+                    "value",
+                    p.code()
+                        + " "
+                        + canonical
+                        + " is not a state code: 1 in service, 2 start-up, 3 shut down,"
+                        + " 4 layup wet, 5 layup dry"));
           }
         }
       }
@@ -174,6 +185,14 @@ final class ReadingValidator {
             new RejectedReading(i, "compensated", "only conductivities can be compensated"));
       }
       checkSource(in, i, lab, rejected);
+      if (lab && parameter.isPresent() && parameter.get().isProcessValue()) {
+        rejected.add(
+            new RejectedReading(
+                i,
+                "parameter",
+                parameter.get().code()
+                    + " is a process value: the historian sends it to POST /api/v1/readings"));
+      }
       boolean compensated =
           in.compensated() != null ? in.compensated() : in.sampleTemperatureCel() == null;
       if (rejected.size() == before) {

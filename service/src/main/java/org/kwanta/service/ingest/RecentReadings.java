@@ -178,7 +178,7 @@ final class RecentReadings {
         readings.remove(r);
         readings.add(r);
       }
-      if (!EvaluationRunner.relevant(r.parameter())) {
+      if (!EvaluationRunner.readByEvaluation(r.parameter())) {
         return;
       }
       long b = EvaluationRunner.bucketOf(r.time(), bucketMillis);

@@ -40,7 +40,24 @@ final class Units {
                   "K", k -> k - 273.15,
                   "[degF]", f -> (f - 32) * 5 / 9),
               Parameter.Quantity.POTENTIAL,
-              Map.of("mV", Conversions.IDENTITY, "V", v -> v * 1e3)));
+              Map.of("mV", Conversions.IDENTITY, "V", v -> v * 1e3),
+              Parameter.Quantity.POWER,
+              Map.of("MW", Conversions.IDENTITY, "kW", v -> v / 1e3, "W", v -> v / 1e6),
+              // absolute pressure only: UCUM has no gauge unit (bar is 0.1 MPa, UCUM "bar")
+              Parameter.Quantity.PRESSURE,
+              Map.of(
+                  "MPa", Conversions.IDENTITY,
+                  "kPa", v -> v / 1e3,
+                  "Pa", v -> v / 1e6,
+                  "bar", v -> v / 10),
+              Parameter.Quantity.MASS_FLOW,
+              // t/h: UCUM "t/h", 1000 kg per 3600 s
+              Map.of(
+                  "kg/s", Conversions.IDENTITY,
+                  "kg/h", v -> v / 3600,
+                  "t/h", v -> v / 3.6),
+              Parameter.Quantity.STATE_CODE,
+              Map.of("{state}", Conversions.IDENTITY)));
 
   /** Accepted unit codes (UCUM) for a parameter. */
   static java.util.Set<String> accepted(Parameter p) {

@@ -29,7 +29,9 @@ import org.springframework.web.bind.annotation.RestController;
     name = "Operating state",
     description =
         "What a unit was doing (IN_SERVICE, START_UP, SHUT_DOWN, LAYUP_WET, LAYUP_DRY), entered by a"
-            + " chemist, append-only. Only in-service time counts towards excursion hours, hours per"
+            + " chemist (append-only) or sent by the historian as the reading operating_state (codes"
+            + " 1-5 in that order) at any sample point of the block; at the same instant the chemist"
+            + " wins, and each span of the timeline names its source. Only in-service time counts towards excursion hours, hours per"
             + " level and instrument availability; time before a unit's first recorded state counts"
             + " as in service. Start-up hold points are examples recalled from IAPWS guidance (from"
             + " memory — verify); the plant's start-up procedure governs.")
@@ -76,8 +78,12 @@ class OperatingStateController {
     }
   }
 
-  /** One stretch of the timeline; state null: no state recorded yet (counted as in service). */
-  record SpanResponse(OperatingState state, Instant start, Instant end, double hours) {}
+  /**
+   * One stretch of the timeline; state null: no state recorded yet (counted as in service). source:
+   * CHEMIST or HISTORIAN (null with no state).
+   */
+  record SpanResponse(
+      OperatingState state, Instant start, Instant end, double hours, ServiceTime.Source source) {}
 
   record TimelineResponse(
       String plant,
@@ -138,7 +144,11 @@ class OperatingStateController {
             .map(
                 s ->
                     new SpanResponse(
-                        s.state(), s.start(), s.end(), hours(Duration.between(s.start(), s.end()))))
+                        s.state(),
+                        s.start(),
+                        s.end(),
+                        hours(Duration.between(s.start(), s.end())),
+                        s.source()))
             .toList(),
         byState,
         hours(t.unrecorded()),

@@ -9,18 +9,22 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.model.OperatingStateCode;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.TimeWindow;
 import org.kwanta.service.audit.Actor;
 import org.kwanta.service.audit.AuditLog;
+import org.kwanta.service.ingest.ReadingHistory;
 import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Repository;
 import org.springframework.transaction.annotation.Transactional;
 
 /**
  * The operating-state record of plant units (table {@code unit_operating_state}, append-only): what
- * a chemist entered, and the timeline it makes. The state at a time is that of the entry with the
- * latest {@code since} not after it; of entries with the same {@code since}, the latest entered
- * wins (a correction).
+ * a chemist entered, and the timeline it makes together with the historian's {@code
+ * operating_state} readings of the block's sample points. The state at a time is that of the entry
+ * with the latest {@code since} not after it; of entries with the same {@code since}, the latest
+ * entered wins (a correction).
  */
 @Repository
 public class OperatingStates {
@@ -37,12 +41,17 @@ public class OperatingStates {
       String keyId,
       String keyName) {}
 
+  /** What started a span: a state and who reported it. */
+  private record Mark(OperatingState state, ServiceTime.Source source) {}
+
   private final JdbcClient jdbc;
   private final AuditLog audit;
+  private final ReadingHistory readings;
 
-  OperatingStates(JdbcClient jdbc, AuditLog audit) {
+  OperatingStates(JdbcClient jdbc, AuditLog audit, ReadingHistory readings) {
     this.jdbc = jdbc;
     this.audit = audit;
+    this.readings = readings;
   }
 
   /** Whether the plant has this unit. */
@@ -105,39 +114,76 @@ public class OperatingStates {
         .map(ServiceTime.Span::state);
   }
 
-  /** The unit's time over [from, to) by state, with the windows that count as in service. */
+  /**
+   * The unit's time over [from, to) by state, with the windows that count as in service: the
+   * chemist's entries merged with the block's historian readings of {@code operating_state}.
+   */
   public ServiceTime serviceTime(String plant, String unit, Instant from, Instant to) {
-    return timeline(entries(plant, unit), from, to);
+    return timeline(entries(plant, unit), historianStates(plant, unit, from, to), from, to);
+  }
+
+  /**
+   * The block's {@code operating_state} readings (any of its sample points, quality not bad) that
+   * bear on [from, to): the one in force at {@code from} and every later one before {@code to}.
+   */
+  List<ReadingHistory.PointReading> historianStates(
+      String plant, String block, Instant from, Instant to) {
+    return readings.blockReadings(plant, block, Parameter.OPERATING_STATE.code(), from, to);
   }
 
   /**
    * The timeline of a unit's entries over [from, to) (entries sorted by since, then entry order).
    */
   static ServiceTime timeline(List<Entry> entries, Instant from, Instant to) {
-    // the effective entry per `since`: the latest entered
-    Map<Instant, OperatingState> bySince = new LinkedHashMap<>();
+    return timeline(entries, List.of(), from, to);
+  }
+
+  /**
+   * The timeline of a block over [from, to) from the chemist's entries (sorted by since, then entry
+   * order) and the historian's state readings (sorted by time, then sample point): each entry or
+   * reading says "from this instant the block was in this state". At the same instant the chemist
+   * wins over the historian (and of two chemist entries the later entered, of two readings the last
+   * by sample point id). A reading whose value is not a state code is skipped (the ingest refuses
+   * those). Each span names the source of the entry or reading that started it.
+   */
+  static ServiceTime timeline(
+      List<Entry> entries, List<ReadingHistory.PointReading> historian, Instant from, Instant to) {
+    // the effective mark per instant: historian first, so a chemist entry at the same instant wins
+    java.util.TreeMap<Instant, Mark> bySince = new java.util.TreeMap<>();
+    for (ReadingHistory.PointReading r : historian) {
+      OperatingStateCode.of(r.value())
+          .ifPresent(
+              c ->
+                  bySince.put(
+                      r.time(),
+                      new Mark(OperatingState.valueOf(c.name()), ServiceTime.Source.HISTORIAN)));
+    }
     for (Entry e : entries) {
-      bySince.put(e.since(), e.state());
+      bySince.put(e.since(), new Mark(e.state(), ServiceTime.Source.CHEMIST));
     }
     List<ServiceTime.Span> spans = new ArrayList<>();
     OperatingState state = null;
+    ServiceTime.Source source = null;
     Instant start = from;
-    for (Map.Entry<Instant, OperatingState> e : bySince.entrySet()) {
+    for (Map.Entry<Instant, Mark> e : bySince.entrySet()) {
+      Mark m = e.getValue();
       if (!e.getKey().isAfter(from)) {
-        state = e.getValue();
+        state = m.state();
+        source = m.source();
         continue;
       }
       if (!e.getKey().isBefore(to)) {
         break;
       }
-      if (e.getValue() != state) {
-        spans.add(new ServiceTime.Span(state, start, e.getKey()));
-        state = e.getValue();
+      if (m.state() != state) {
+        spans.add(new ServiceTime.Span(state, start, e.getKey(), source));
+        state = m.state();
+        source = m.source();
         start = e.getKey();
       }
     }
     if (to.isAfter(start)) {
-      spans.add(new ServiceTime.Span(state, start, to));
+      spans.add(new ServiceTime.Span(state, start, to, source));
     }
     List<TimeWindow> counted = new ArrayList<>();
     Map<OperatingState, Duration> byState = new EnumMap<>(OperatingState.class);

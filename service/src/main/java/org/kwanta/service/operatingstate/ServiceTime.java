@@ -27,8 +27,19 @@ public record ServiceTime(
     Map<OperatingState, Duration> byState,
     Duration unrecorded) {
 
-  /** One stretch of constant state; {@code state} null: no state recorded yet. */
-  public record Span(OperatingState state, Instant start, Instant end) {}
+  /**
+   * One stretch of constant state; {@code state} null: no state recorded yet. {@code source}: who
+   * reported the state that started it (null with no state).
+   */
+  public record Span(OperatingState state, Instant start, Instant end, Source source) {}
+
+  /** Who reported a state. */
+  public enum Source {
+    /** Entered by a chemist through the API (wins at the same instant). */
+    CHEMIST,
+    /** An {@code operating_state} reading from the historian. */
+    HISTORIAN
+  }
 
   /** The in-service time (counted windows) in total. */
   public Duration inService() {

@@ -30,4 +30,40 @@ class EvaluationViewJsonTest {
         JsonMapper.builder().build().readValue(stored, EvaluationView.CalculatedPh.class);
     assertThat(c.tradeFormula()).isNull();
   }
+
+  /**
+   * A pH at temperature stored before the operating condition was recorded reads back with no
+   * source (configured); a measured one keeps its drum pressure and time.
+   */
+  @Test
+  void phAtTemperatureWithoutOperatingConditionReadsBackAsNulls() {
+    JsonMapper json = JsonMapper.builder().build();
+    String stored =
+        "{\"temperatureCel\":330.0,\"pressureMPa\":12.85,\"ph\":7.1,\"low\":7.0,\"high\":7.2,"
+            + "\"neutralPh\":5.7,\"formulation\":\"f\",\"basis\":\"LIQUID\",\"notes\":[]}";
+    EvaluationView.PhAtTemperature old =
+        json.readValue(stored, EvaluationView.PhAtTemperature.class);
+    assertThat(old.operatingConditionSource()).isNull();
+    assertThat(old.measuredDrumPressureMPa()).isNull();
+    assertThat(old.measuredAt()).isNull();
+    EvaluationView.PhAtTemperature measured =
+        new EvaluationView.PhAtTemperature(
+            311.0,
+            10.0,
+            7.2,
+            7.1,
+            7.3,
+            5.6,
+            "f",
+            "LIQUID",
+            java.util.List.of(),
+            "MEASURED",
+            10.0,
+            java.time.Instant.parse("2026-12-01T10:00:00Z"));
+    String written = json.writeValueAsString(measured);
+    assertThat(written)
+        .contains("\"operatingConditionSource\":\"MEASURED\"")
+        .contains("\"measuredAt\":\"2026-12-01T10:00:00Z\"");
+    assertThat(json.readValue(written, EvaluationView.PhAtTemperature.class)).isEqualTo(measured);
+  }
 }

@@ -23,7 +23,12 @@ class RecentReadingsTest {
   private static final Duration WINDOW = Duration.ofMinutes(60);
   private static final Instant T0 = Instant.parse("2026-01-05T08:00:00Z");
   private static final String[] PARAMETERS = {
-    "specific_conductivity", "cation_conductivity", "ph", "sample_temperature", "silica"
+    "specific_conductivity",
+    "cation_conductivity",
+    "ph",
+    "sample_temperature",
+    "silica",
+    "drum_pressure"
   };
 
   /** The rule, written plainly over a full list (the oracle). */
@@ -36,7 +41,7 @@ class RecentReadingsTest {
     java.util.Map<String, StoredReading> latest = new java.util.TreeMap<>();
     for (StoredReading r : all) {
       boolean old = r.time().isAfter(oldFrom) && r.time().isBefore(rawFrom);
-      if (old && r.quality() < 2 && EvaluationRunner.relevant(r.parameter())) {
+      if (old && r.quality() < 2 && EvaluationRunner.readByEvaluation(r.parameter())) {
         String key = r.parameter() + '|' + EvaluationRunner.bucketOf(r.time(), bucketMillis);
         StoredReading was = latest.get(key);
         if (was == null || r.time().isAfter(was.time())) {

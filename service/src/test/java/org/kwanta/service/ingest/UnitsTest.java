@@ -24,13 +24,20 @@ class UnitsTest {
     "300.15, K, 27",
     "80.6, [degF], 27",
     "0.0123, mg/kg, 12.3",
-    "4560, ng/kg, 4.56"
+    "4560, ng/kg, 4.56",
+    "160, bar, 16",
+    "16000, kPa, 16",
+    "612, t/h, 170",
+    "250000, kW, 250"
   })
   void sameValueInAnotherUnitIsTheSameNumber(double value, String unit, double canonical) {
     Parameter p =
         switch (unit) {
           case "K", "[degF]" -> Parameter.SAMPLE_TEMPERATURE;
           case "mg/kg", "ng/kg" -> Parameter.SODIUM;
+          case "bar", "kPa" -> Parameter.DRUM_PRESSURE;
+          case "t/h" -> Parameter.STEAM_FLOW;
+          case "kW" -> Parameter.LOAD;
           default -> Parameter.CATION_CONDUCTIVITY;
         };
     assertThat(Units.toCanonical(p, value, unit)).hasValue(canonical);

@@ -51,4 +51,31 @@ class TimelineTest {
         .isEqualTo(OperatingState.LAYUP_DRY);
     assertThat(t.counted()).isEmpty();
   }
+
+  private static org.kwanta.service.ingest.ReadingHistory.PointReading historian(
+      double code, int hour) {
+    return new org.kwanta.service.ingest.ReadingHistory.PointReading(
+        "U1-DRUM", "operating_state", T0.plus(Duration.ofHours(hour)), code);
+  }
+
+  @Test
+  void historianStatesMergeWithTheChemistsAndTheChemistWinsAtTheSameInstant() {
+    List<OperatingStates.Entry> entries =
+        List.of(entry(1, OperatingState.START_UP, 6), entry(2, OperatingState.IN_SERVICE, 12));
+    List<org.kwanta.service.ingest.ReadingHistory.PointReading> readings =
+        List.of(
+            historian(3, -2), // shut down before the period: in force at its start
+            historian(1, 6), // same instant as the chemist's START_UP: the chemist wins
+            historian(2, 8), // still starting up: the span goes on, started by the chemist
+            historian(1, 10), // the historian reports in service first
+            historian(2.5, 11)); // not a code: skipped
+    ServiceTime t = OperatingStates.timeline(entries, readings, T0, T0.plus(Duration.ofHours(24)));
+    assertThat(t.spans())
+        .extracting(
+            s ->
+                s.state() + " " + Duration.between(s.start(), s.end()).toHours() + " " + s.source())
+        .containsExactly("SHUT_DOWN 6 HISTORIAN", "START_UP 4 CHEMIST", "IN_SERVICE 14 HISTORIAN");
+    assertThat(t.inService()).isEqualTo(Duration.ofHours(14));
+    assertThat(t.unrecorded()).isZero();
+  }
 }
