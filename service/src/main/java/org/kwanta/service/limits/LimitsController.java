@@ -70,7 +70,9 @@ class LimitsController {
 
   /**
    * The shipped defaults: {@code profiles} apply to any plant type; {@code byPlantType} lists the
-   * entries that apply only to plants of a type and win there over {@code profiles}.
+   * entries that apply only to plants of a type and win there over {@code profiles}; {@code
+   * byCoolingWater} the entries that apply only to plants that declare that cooling water and win
+   * there over every other entry.
    */
   record DefaultsResponse(
       int version,
@@ -78,6 +80,7 @@ class LimitsController {
       List<ProfileResponse> profiles,
       java.util.Map<String, List<ProfileResponse>> byPlantType,
       List<BandedResponse> byDrumPressure,
+      java.util.Map<String, List<ProfileResponse>> byCoolingWater,
       List<LimitCatalog.Guidance> guidance) {}
 
   /**
@@ -108,7 +111,24 @@ class LimitsController {
                         b.band().upTo(),
                         ProfileResponse.of(b.profile(), "DEFAULT", catalog.version(), null)))
             .toList(),
+        byCoolingWater(catalog),
         catalog.guidance());
+  }
+
+  private static java.util.Map<String, List<ProfileResponse>> byCoolingWater(LimitCatalog catalog) {
+    java.util.Map<String, List<ProfileResponse>> out = new java.util.LinkedHashMap<>();
+    for (org.kwanta.model.diagnosis.CoolingWater water :
+        org.kwanta.model.diagnosis.CoolingWater.values()) {
+      List<ProfileResponse> list =
+          catalog.profiles(water).stream()
+              .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
+              .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
+              .toList();
+      if (!list.isEmpty()) {
+        out.put(water.name(), list);
+      }
+    }
+    return out;
   }
 
   private static java.util.Map<String, List<ProfileResponse>> byPlantType(LimitCatalog catalog) {
