@@ -191,8 +191,8 @@ class DefaultsVersion3IT {
     assertThat(limitsNow(v2, "D3-HP-DRUM", "silica")).isNull();
     contexts.remove(0).close();
 
-    // The release with version 3 on the same database.
-    Http v3 = start(null);
+    // The release with version 3 on the same database (version 4 ships now: DefaultsVersion4IT).
+    Http v3 = start("limits/defaults-v3.yaml");
     Record after = record(v3, day);
 
     // As reported: identical, byte for byte.
