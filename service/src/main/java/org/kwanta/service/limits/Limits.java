@@ -190,20 +190,9 @@ public class Limits {
                     PlantType.ofNullable(rs.getString(6)),
                     rs.getObject(7, Double.class),
                     rs.getObject(8, Double.class),
-                    coolingWater(rs.getString(9))))
+                    // Stored as validated by the plant declaration (as the diagnosis reads it).
+                    rs.getString(9) == null ? null : CoolingWater.valueOf(rs.getString(9))))
         .list();
-  }
-
-  /** A declared cooling water; null, blank or a name this build does not know: none. */
-  private static CoolingWater coolingWater(String name) {
-    if (name == null || name.isBlank()) {
-      return null;
-    }
-    try {
-      return CoolingWater.valueOf(name.strip().toUpperCase(java.util.Locale.ROOT));
-    } catch (IllegalArgumentException unknown) {
-      return null;
-    }
   }
 
   /**
