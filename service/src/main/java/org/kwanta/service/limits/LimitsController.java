@@ -97,11 +97,8 @@ class LimitsController {
     return new DefaultsResponse(
         catalog.version(),
         catalog.notice(),
-        catalog.profiles().stream()
-            .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-            .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-            .toList(),
-        byPlantType(catalog),
+        sorted(catalog.profiles(), catalog.version()),
+        by(org.kwanta.model.limits.PlantType.values(), catalog::profiles, catalog.version()),
         catalog.banded().stream()
             .map(
                 b ->
@@ -111,36 +108,29 @@ class LimitsController {
                         b.band().upTo(),
                         ProfileResponse.of(b.profile(), "DEFAULT", catalog.version(), null)))
             .toList(),
-        byCoolingWater(catalog),
+        by(org.kwanta.model.diagnosis.CoolingWater.values(), catalog::profiles, catalog.version()),
         catalog.guidance());
   }
 
-  private static java.util.Map<String, List<ProfileResponse>> byCoolingWater(LimitCatalog catalog) {
-    java.util.Map<String, List<ProfileResponse>> out = new java.util.LinkedHashMap<>();
-    for (org.kwanta.model.diagnosis.CoolingWater water :
-        org.kwanta.model.diagnosis.CoolingWater.values()) {
-      List<ProfileResponse> list =
-          catalog.profiles(water).stream()
-              .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-              .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-              .toList();
-      if (!list.isEmpty()) {
-        out.put(water.name(), list);
-      }
-    }
-    return out;
+  /** The shipped profiles sorted by key, as the defaults response lists them. */
+  private static List<ProfileResponse> sorted(
+      java.util.Collection<LimitProfile> profiles, int version) {
+    return profiles.stream()
+        .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
+        .map(p -> ProfileResponse.of(p, "DEFAULT", version, null))
+        .toList();
   }
 
-  private static java.util.Map<String, List<ProfileResponse>> byPlantType(LimitCatalog catalog) {
+  /** The entries that apply only under each of some conditions (plant types, cooling waters). */
+  private static <K extends Enum<K>> java.util.Map<String, List<ProfileResponse>> by(
+      K[] conditions,
+      java.util.function.Function<K, java.util.Collection<LimitProfile>> profiles,
+      int version) {
     java.util.Map<String, List<ProfileResponse>> out = new java.util.LinkedHashMap<>();
-    for (org.kwanta.model.limits.PlantType type : org.kwanta.model.limits.PlantType.values()) {
-      List<ProfileResponse> list =
-          catalog.profiles(type).stream()
-              .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-              .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-              .toList();
+    for (K condition : conditions) {
+      List<ProfileResponse> list = sorted(profiles.apply(condition), version);
       if (!list.isEmpty()) {
-        out.put(type.name(), list);
+        out.put(condition.name(), list);
       }
     }
     return out;

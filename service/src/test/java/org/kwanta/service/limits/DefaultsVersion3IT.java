@@ -48,11 +48,6 @@ class DefaultsVersion3IT {
     releases.close();
   }
 
-  /** A release of the service on this database, with the given defaults file (null: this one's). */
-  private Http start(String defaultsFile) {
-    return releases.start(defaultsFile);
-  }
-
   private static final String PLANT =
       """
       {"id":"defaults3","name":"Defaults v3 test plant (fictional)",
@@ -137,7 +132,7 @@ class DefaultsVersion3IT {
     Instant day = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(7, ChronoUnit.DAYS);
 
     // The release with version 2: the plant, last week's readings, the record.
-    Http v2 = start("limits/defaults-v2.yaml");
+    Http v2 = releases.start("limits/defaults-v2.yaml");
     HttpResponse<String> created = v2.post("/api/v1/plants", "application/json", PLANT);
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
     HttpResponse<String> in =
@@ -156,7 +151,7 @@ class DefaultsVersion3IT {
     releases.stopOldest();
 
     // The release with version 3 on the same database (version 4 ships now: DefaultsVersion4IT).
-    Http v3 = start("limits/defaults-v3.yaml");
+    Http v3 = releases.start("limits/defaults-v3.yaml");
     Record after = record(v3, day);
 
     // As reported: identical, byte for byte.

@@ -49,11 +49,6 @@ class DefaultsVersion4IT {
     releases.close();
   }
 
-  /** A release of the service on this database, with the given defaults file (null: this one's). */
-  private Http start(String defaultsFile) {
-    return releases.start(defaultsFile);
-  }
-
   private static final String PLANT =
       """
       {"id":"defaults4","name":"Defaults v4 test plant (fictional)","coolingWater":"SEA",
@@ -128,7 +123,7 @@ class DefaultsVersion4IT {
     Instant twoDaysAgo = today.minus(2, ChronoUnit.DAYS);
 
     // The release with version 3: the plant, last week's readings, the record.
-    Http v3 = start("limits/defaults-v3.yaml");
+    Http v3 = releases.start("limits/defaults-v3.yaml");
     HttpResponse<String> created = v3.post("/api/v1/plants", "application/json", PLANT);
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
     ingest(v3, sodiumHour(lastWeek));
@@ -143,7 +138,7 @@ class DefaultsVersion4IT {
     releases.sql(
         "INSERT INTO limit_defaults_activation (version, effective_from)"
             + " VALUES (4, now() - interval '3 days')");
-    Http v4 = start(null);
+    Http v4 = releases.start(null);
     Record after = record(v4, lastWeek);
 
     // Before the activation, as reported: identical, byte for byte.
