@@ -12,7 +12,7 @@ import org.springframework.core.io.ClassPathResource;
 class DefaultLimitsConfiguration {
 
   /** The current version of the shipped defaults. */
-  static final String DEFAULTS = "limits/defaults-v3.yaml";
+  static final String DEFAULTS = "limits/defaults-v4.yaml";
 
   @Bean
   LimitCatalog defaultLimits(@Value("${kwanta.limits.defaults:" + DEFAULTS + "}") String resource)

@@ -9,6 +9,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.kwanta.model.Parameter;
+import org.kwanta.model.diagnosis.CoolingWater;
 import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
@@ -33,11 +34,13 @@ public final class LimitCatalog {
 
   /**
    * One entry: the same limits for several regimes and locations; optionally only for some plant
-   * types and/or for a band of drum pressure.
+   * types and/or for a band of drum pressure, or (version 4 on) only for plants of some cooling
+   * waters.
    */
   record Entry(
       List<PlantType> plantTypes,
       PressureBand drumPressureMPa,
+      List<CoolingWater> coolingWaters,
       List<TreatmentRegime> regimes,
       List<CycleLocation> locations,
       String parameter,
@@ -105,6 +108,7 @@ public final class LimitCatalog {
   private final Map<LimitKey, LimitProfile> profiles;
   private final Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType;
   private final List<Banded> banded;
+  private final Map<CoolingWater, Map<LimitKey, LimitProfile>> byCoolingWater;
   private final List<Guidance> guidance;
 
   private LimitCatalog(
@@ -113,12 +117,14 @@ public final class LimitCatalog {
       Map<LimitKey, LimitProfile> profiles,
       Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType,
       List<Banded> banded,
+      Map<CoolingWater, Map<LimitKey, LimitProfile>> byCoolingWater,
       List<Guidance> guidance) {
     this.version = version;
     this.notice = notice;
     this.profiles = profiles;
     this.byPlantType = byPlantType;
     this.banded = banded;
+    this.byCoolingWater = byCoolingWater;
     this.guidance = guidance;
   }
 
@@ -128,8 +134,8 @@ public final class LimitCatalog {
    * @throws IllegalArgumentException naming the entry when an entry is incomplete, has a value
    *     without a source, a unit that is not the parameter's canonical unit, thresholds out of
    *     order, repeats a (regime, location, parameter) of an earlier entry, has a drum pressure
-   *     band that is not a band or overlaps another of the same key and plant types, or guidance
-   *     without a source
+   *     band that is not a band or overlaps another of the same key and plant types, names cooling
+   *     waters together with plant types or a band, or guidance without a source
    */
   public static LimitCatalog read(InputStream in) throws IOException {
     YAMLMapper mapper =
@@ -141,6 +147,8 @@ public final class LimitCatalog {
     Map<LimitKey, LimitProfile> profiles = new LinkedHashMap<>();
     Map<PlantType, Map<LimitKey, LimitProfile>> byPlantType = new EnumMap<>(PlantType.class);
     List<Banded> banded = new java.util.ArrayList<>();
+    Map<CoolingWater, Map<LimitKey, LimitProfile>> byCoolingWater =
+        new EnumMap<>(CoolingWater.class);
     for (Entry e : file.profiles()) {
       LimitDocument doc =
           new LimitDocument(
@@ -157,6 +165,16 @@ public final class LimitCatalog {
         throw new IllegalArgumentException(
             "Limits for " + parameter.code() + ": 'plantTypes' must be omitted or not empty");
       }
+      if (e.coolingWaters() != null
+          && (e.coolingWaters().isEmpty()
+              || e.plantTypes() != null
+              || e.drumPressureMPa() != null)) {
+        throw new IllegalArgumentException(
+            "Limits for "
+                + parameter.code()
+                + ": 'coolingWaters' must not be empty and cannot be combined with 'plantTypes'"
+                + " or 'drumPressureMPa'");
+      }
       if (e.drumPressureMPa() != null) {
         PressureBand b = e.drumPressureMPa();
         if ((b.above() == null && b.upTo() == null)
@@ -170,6 +188,18 @@ public final class LimitCatalog {
       for (TreatmentRegime regime : e.regimes()) {
         for (CycleLocation location : e.locations()) {
           LimitKey key = new LimitKey(regime, location, parameter);
+          if (e.coolingWaters() != null) {
+            for (CoolingWater water : e.coolingWaters()) {
+              if (byCoolingWater
+                      .computeIfAbsent(water, w -> new LinkedHashMap<>())
+                      .put(key, doc.toProfile(key))
+                  != null) {
+                throw new IllegalArgumentException(
+                    "Limits for " + key + " (" + water + " cooling water) are given twice");
+              }
+            }
+            continue;
+          }
           if (e.drumPressureMPa() != null) {
             Banded add =
                 new Banded(
@@ -213,6 +243,8 @@ public final class LimitCatalog {
     }
     Map<PlantType, Map<LimitKey, LimitProfile>> specific = new EnumMap<>(PlantType.class);
     byPlantType.forEach((t, m) -> specific.put(t, Map.copyOf(m)));
+    Map<CoolingWater, Map<LimitKey, LimitProfile>> cooled = new EnumMap<>(CoolingWater.class);
+    byCoolingWater.forEach((w, m) -> cooled.put(w, Map.copyOf(m)));
     List<Guidance> guidance = file.guidance() == null ? List.of() : List.copyOf(file.guidance());
     for (Guidance g : guidance) {
       if (g.topic() == null
@@ -233,6 +265,7 @@ public final class LimitCatalog {
         Map.copyOf(profiles),
         Map.copyOf(specific),
         List.copyOf(banded),
+        Map.copyOf(cooled),
         guidance);
   }
 
@@ -281,6 +314,22 @@ public final class LimitCatalog {
    * matches no band.
    */
   public Optional<LimitProfile> find(LimitKey key, PlantType plantType, Double drumPressureMPa) {
+    return find(key, plantType, drumPressureMPa, null);
+  }
+
+  /**
+   * The profile for a key at a plant of a type, a drum pressure and a cooling water: an entry for
+   * that cooling water if there is one, otherwise as {@link #find(LimitKey, PlantType, Double)}. A
+   * null cooling water (the plant declares none) matches no cooling-water entry.
+   */
+  public Optional<LimitProfile> find(
+      LimitKey key, PlantType plantType, Double drumPressureMPa, CoolingWater coolingWater) {
+    if (coolingWater != null) {
+      LimitProfile cooled = byCoolingWater.getOrDefault(coolingWater, Map.of()).get(key);
+      if (cooled != null) {
+        return Optional.of(cooled);
+      }
+    }
     PlantType type = plantType == null ? PlantType.CONVENTIONAL_DRUM : plantType;
     for (Banded b : banded) {
       if (b.appliesTo(key, type, drumPressureMPa, true)) {
@@ -312,6 +361,14 @@ public final class LimitCatalog {
   /** Every profile that applies to any plant type. */
   public Collection<LimitProfile> profiles() {
     return profiles.values();
+  }
+
+  /**
+   * Every profile that applies only to plants with a cooling water (in addition to {@link
+   * #profiles()}; version 4 on).
+   */
+  public Collection<LimitProfile> profiles(CoolingWater coolingWater) {
+    return byCoolingWater.getOrDefault(coolingWater, Map.of()).values();
   }
 
   /** Every profile that applies only to plants of a type (in addition to {@link #profiles()}). */

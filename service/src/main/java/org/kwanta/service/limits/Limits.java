@@ -9,6 +9,7 @@ import java.util.Objects;
 import java.util.Optional;
 import java.util.TreeSet;
 import org.kwanta.model.Parameter;
+import org.kwanta.model.diagnosis.CoolingWater;
 import org.kwanta.model.limits.CycleLocation;
 import org.kwanta.model.limits.LimitKey;
 import org.kwanta.model.limits.LimitProfile;
@@ -49,6 +50,7 @@ public class Limits {
    *
    * @param operatingTemperatureCel the configured operating temperature, °C (null: none)
    * @param operatingPressureMPa the configured operating pressure, MPa (null: none)
+   * @param coolingWater the plant's declared cooling water (null: none declared)
    */
   public record Point(
       String id,
@@ -58,7 +60,30 @@ public class Limits {
       String treatmentRegime,
       PlantType plantType,
       Double operatingTemperatureCel,
-      Double operatingPressureMPa) {
+      Double operatingPressureMPa,
+      CoolingWater coolingWater) {
+
+    /** A point of a plant that declares no cooling water. */
+    public Point(
+        String id,
+        String plant,
+        String unit,
+        String cycleLocation,
+        String treatmentRegime,
+        PlantType plantType,
+        Double operatingTemperatureCel,
+        Double operatingPressureMPa) {
+      this(
+          id,
+          plant,
+          unit,
+          cycleLocation,
+          treatmentRegime,
+          plantType,
+          operatingTemperatureCel,
+          operatingPressureMPa,
+          null);
+    }
 
     /** A point of a plant that declares no plant type (a conventional drum plant). */
     public Point(
@@ -149,7 +174,7 @@ public class Limits {
     return jdbc.sql(
             """
             SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type,
-                   s.operating_temperature_cel, s.operating_pressure_mpa
+                   s.operating_temperature_cel, s.operating_pressure_mpa, p.cooling_water
             FROM sample_point s JOIN plant p ON p.id = s.plant_id
             WHERE (?::text IS NULL OR s.plant_id = ?) AND (?::text IS NULL OR s.id = ?)
             ORDER BY s.id""")
@@ -164,7 +189,9 @@ public class Limits {
                     rs.getString(5),
                     PlantType.ofNullable(rs.getString(6)),
                     rs.getObject(7, Double.class),
-                    rs.getObject(8, Double.class)))
+                    rs.getObject(8, Double.class),
+                    // Stored as validated by the plant declaration (as the diagnosis reads it).
+                    rs.getString(9) == null ? null : CoolingWater.valueOf(rs.getString(9))))
         .list();
   }
 
@@ -264,6 +291,7 @@ public class Limits {
             """
             SELECT concat_ws('|',
               (SELECT md5(string_agg(s::text, ',' ORDER BY s.id)) || ':' || max(p.plant_type)
+                      || ':' || coalesce(max(p.cooling_water), '')
                  FROM sample_point s JOIN plant p ON p.id = s.plant_id WHERE s.plant_id = ?),
               (SELECT count(*) || ':' || count(*) FILTER (WHERE l.effective_from <= ?) || ':'
                       || coalesce(max(l.recorded_at)::text, '')
@@ -371,7 +399,10 @@ public class Limits {
         e =
             Point.key(regimeName, location, parameter)
                 .flatMap(
-                    k -> defaultVersions.catalog(version).find(k, point.plantType(), drumPressure))
+                    k ->
+                        defaultVersions
+                            .catalog(version)
+                            .find(k, point.plantType(), drumPressure, point.coolingWater()))
                 .map(p -> new Effective(point, p, Origin.DEFAULT, version, from));
       }
       if (e.isPresent() ? e.get().sameAs(previous) : previousEmpty) {

@@ -70,7 +70,9 @@ class LimitsController {
 
   /**
    * The shipped defaults: {@code profiles} apply to any plant type; {@code byPlantType} lists the
-   * entries that apply only to plants of a type and win there over {@code profiles}.
+   * entries that apply only to plants of a type and win there over {@code profiles}; {@code
+   * byCoolingWater} the entries that apply only to plants that declare that cooling water and win
+   * there over every other entry.
    */
   record DefaultsResponse(
       int version,
@@ -78,6 +80,7 @@ class LimitsController {
       List<ProfileResponse> profiles,
       java.util.Map<String, List<ProfileResponse>> byPlantType,
       List<BandedResponse> byDrumPressure,
+      java.util.Map<String, List<ProfileResponse>> byCoolingWater,
       List<LimitCatalog.Guidance> guidance) {}
 
   /**
@@ -94,11 +97,8 @@ class LimitsController {
     return new DefaultsResponse(
         catalog.version(),
         catalog.notice(),
-        catalog.profiles().stream()
-            .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-            .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-            .toList(),
-        byPlantType(catalog),
+        sorted(catalog.profiles(), catalog.version()),
+        by(org.kwanta.model.limits.PlantType.values(), catalog::profiles, catalog.version()),
         catalog.banded().stream()
             .map(
                 b ->
@@ -108,19 +108,29 @@ class LimitsController {
                         b.band().upTo(),
                         ProfileResponse.of(b.profile(), "DEFAULT", catalog.version(), null)))
             .toList(),
+        by(org.kwanta.model.diagnosis.CoolingWater.values(), catalog::profiles, catalog.version()),
         catalog.guidance());
   }
 
-  private static java.util.Map<String, List<ProfileResponse>> byPlantType(LimitCatalog catalog) {
+  /** The shipped profiles sorted by key, as the defaults response lists them. */
+  private static List<ProfileResponse> sorted(
+      java.util.Collection<LimitProfile> profiles, int version) {
+    return profiles.stream()
+        .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
+        .map(p -> ProfileResponse.of(p, "DEFAULT", version, null))
+        .toList();
+  }
+
+  /** The entries that apply only under each of some conditions (plant types, cooling waters). */
+  private static <K extends Enum<K>> java.util.Map<String, List<ProfileResponse>> by(
+      K[] conditions,
+      java.util.function.Function<K, java.util.Collection<LimitProfile>> profiles,
+      int version) {
     java.util.Map<String, List<ProfileResponse>> out = new java.util.LinkedHashMap<>();
-    for (org.kwanta.model.limits.PlantType type : org.kwanta.model.limits.PlantType.values()) {
-      List<ProfileResponse> list =
-          catalog.profiles(type).stream()
-              .sorted(java.util.Comparator.comparing((LimitProfile p) -> p.key().toString()))
-              .map(p -> ProfileResponse.of(p, "DEFAULT", catalog.version(), null))
-              .toList();
+    for (K condition : conditions) {
+      List<ProfileResponse> list = sorted(profiles.apply(condition), version);
       if (!list.isEmpty()) {
-        out.put(type.name(), list);
+        out.put(condition.name(), list);
       }
     }
     return out;

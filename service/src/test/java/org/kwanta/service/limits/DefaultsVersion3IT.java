@@ -3,24 +3,15 @@ package org.kwanta.service.limits;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.net.http.HttpResponse;
-import java.sql.Connection;
-import java.sql.Statement;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.flywaydb.core.Flyway;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
-import org.kwanta.service.KwantaApplication;
 import org.kwanta.service.support.Http;
-import org.kwanta.service.support.TestDatabase;
-import org.kwanta.service.support.TestKeys;
-import org.springframework.boot.builder.SpringApplicationBuilder;
-import org.springframework.boot.web.server.context.WebServerApplicationContext;
-import org.springframework.context.ConfigurableApplicationContext;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -40,53 +31,21 @@ class DefaultsVersion3IT {
 
   private static final JsonMapper JSON = JsonMapper.builder().build();
 
-  private String url;
-  private final List<ConfigurableApplicationContext> contexts = new ArrayList<>();
+  private Releases releases;
 
   @BeforeEach
   void database() throws Exception {
-    TestDatabase db = TestDatabase.get();
-    url = db.createScratchDatabase("defaults3");
-    Flyway.configure()
-        .dataSource(url, db.user(), db.password())
-        .locations("classpath:db/migration")
-        .load()
-        .migrate();
+    releases = new Releases("defaults3");
     // An upgraded database: version 1 first (it covers earlier times), version 2 in force since two
     // weeks ago (the migrations record no activation in a database without readings, V54).
-    try (Connection c = java.sql.DriverManager.getConnection(url, db.user(), db.password());
-        Statement s = c.createStatement()) {
-      s.execute(
-          "INSERT INTO limit_defaults_activation (version, effective_from)"
-              + " VALUES (1, now() - interval '60 days'), (2, now() - interval '14 days')");
-    }
+    releases.sql(
+        "INSERT INTO limit_defaults_activation (version, effective_from)"
+            + " VALUES (1, now() - interval '60 days'), (2, now() - interval '14 days')");
   }
 
   @AfterEach
   void dropDatabase() throws Exception {
-    for (ConfigurableApplicationContext c : contexts) {
-      c.close();
-    }
-    TestDatabase.get().dropDatabase(url);
-  }
-
-  /** A release of the service on this database, with the given defaults file (null: this one's). */
-  private Http start(String defaultsFile) {
-    TestDatabase db = TestDatabase.get();
-    List<String> args = new ArrayList<>();
-    args.add("--server.port=0");
-    args.add("--spring.datasource.url=" + url);
-    args.add("--spring.datasource.username=" + db.user());
-    args.add("--spring.datasource.password=" + db.password());
-    args.add("--" + TestKeys.ADMIN_KEY_PROPERTY + "=" + TestKeys.ADMIN);
-    args.add("--kwanta.demo.load-plant=false");
-    if (defaultsFile != null) {
-      args.add("--kwanta.limits.defaults=" + defaultsFile);
-    }
-    ConfigurableApplicationContext context =
-        new SpringApplicationBuilder(KwantaApplication.class).run(args.toArray(String[]::new));
-    contexts.add(context);
-    return Http.admin(((WebServerApplicationContext) context).getWebServer().getPort());
+    releases.close();
   }
 
   private static final String PLANT =
@@ -173,7 +132,7 @@ class DefaultsVersion3IT {
     Instant day = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(7, ChronoUnit.DAYS);
 
     // The release with version 2: the plant, last week's readings, the record.
-    Http v2 = start("limits/defaults-v2.yaml");
+    Http v2 = releases.start("limits/defaults-v2.yaml");
     HttpResponse<String> created = v2.post("/api/v1/plants", "application/json", PLANT);
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
     HttpResponse<String> in =
@@ -189,10 +148,10 @@ class DefaultsVersion3IT {
     assertThat(before.degassedRecomputed()).isEmpty();
     assertThat(before.evaluations().get("evaluations")).isNotEmpty();
     assertThat(limitsNow(v2, "D3-HP-DRUM", "silica")).isNull();
-    contexts.remove(0).close();
+    releases.stopOldest();
 
-    // The release with version 3 on the same database.
-    Http v3 = start(null);
+    // The release with version 3 on the same database (version 4 ships now: DefaultsVersion4IT).
+    Http v3 = releases.start("limits/defaults-v3.yaml");
     Record after = record(v3, day);
 
     // As reported: identical, byte for byte.

@@ -134,7 +134,7 @@ class ExcursionsIT {
     assertThat(r.headers().firstValue("Content-Type").orElseThrow()).startsWith("text/csv");
     String[] lines = r.body().split("\r\n");
     assertThat(lines[0]).startsWith("plant,unit,sample_point,parameter,value_unit");
-    // The shipped defaults (version 3) give a condensate point action levels for cation
+    // The shipped defaults (version 4) give a condensate point action levels for cation
     // conductivity and for sodium, so the leak shows in both, one row each, sorted by parameter.
     assertThat(lines).hasSize(3);
     assertThat(lines[1]).contains(point).contains("cation_conductivity").contains(",AL3,");
@@ -213,7 +213,7 @@ class ExcursionsIT {
     JsonNode defaults = JSON.readTree(http.get("/api/v1/limits/defaults").body());
     assertThat(defaults.get("notice").asString()).contains("not this plant's limits");
     assertThat(defaults.get("profiles").size()).isGreaterThan(40);
-    assertThat(defaults.get("version").asInt()).isEqualTo(3);
+    assertThat(defaults.get("version").asInt()).isEqualTo(4);
     assertThat(defaults.get("byPlantType").get("HRSG").toString()).contains("9.6").contains("HRSG");
     // Version 3: drum-water silica by drum pressure band, and guidance without a parameter.
     JsonNode firstBand = defaults.get("byDrumPressure").get(0);
@@ -221,5 +221,10 @@ class ExcursionsIT {
     assertThat(firstBand.get("limits").get("limits").get("parameter").asString())
         .isEqualTo("silica");
     assertThat(defaults.get("guidance").toString()).contains("Na:PO4").contains("source");
+    // Version 4: condensate sodium for sea- and brackish-water cooled plants.
+    assertThat(defaults.get("byCoolingWater").get("SEA").toString())
+        .contains("CONDENSATE")
+        .contains("\"parameter\":\"sodium\"")
+        .contains("from memory — verify");
   }
 }

@@ -44,18 +44,25 @@ class LimitCatalogTest {
     }
   }
 
-  /** Every profile of a catalog: for any plant type, for each plant type, and pressure-banded. */
-  private static List<LimitProfile> all(LimitCatalog catalog) {
+  /**
+   * Every profile of a catalog: for any plant type, for each plant type, for each cooling water,
+   * and pressure-banded.
+   */
+  static List<LimitProfile> all(LimitCatalog catalog) {
     List<LimitProfile> out = new java.util.ArrayList<>(catalog.profiles());
     for (PlantType type : PlantType.values()) {
       out.addAll(catalog.profiles(type));
+    }
+    for (org.kwanta.model.diagnosis.CoolingWater water :
+        org.kwanta.model.diagnosis.CoolingWater.values()) {
+      out.addAll(catalog.profiles(water));
     }
     catalog.banded().forEach(b -> out.add(b.profile()));
     return out;
   }
 
   /** A source text says how far it can be trusted: recalled (verify) or retrieved from a page. */
-  private static boolean trustStated(String source) {
+  static boolean trustStated(String source) {
     return source.contains("from memory — verify") || source.contains("RETRIEVED");
   }
 
@@ -66,7 +73,7 @@ class LimitCatalogTest {
   @Test
   void defaultsLoadAndSayTheyAreExamples() throws IOException {
     LimitCatalog catalog = defaults();
-    assertThat(catalog.version()).isEqualTo(3);
+    assertThat(catalog.version()).isEqualTo(4);
     assertThat(catalog.notice())
         .contains("from memory — verify")
         .contains("not this plant's limits");
@@ -241,7 +248,7 @@ class LimitCatalogTest {
 
   @Test
   void drumWaterSilicaFollowsTheAsmeDrumPressureBands() throws IOException {
-    LimitCatalog v3 = defaults();
+    LimitCatalog v3 = version(3);
     // ASME CRTD-Vol. 34 table, boiler water silica, mg/l, as copied at the page the file
     // names:
     // 0-2.07 MPa < 150, 2.08-3.10 < 90, 3.11-4.14 < 40, 4.15-5.17 < 30, 5.18-6.21 < 20,
@@ -257,7 +264,7 @@ class LimitCatalogTest {
         assertThat(p.normal().source()).contains("ASME CRTD-Vol. 34").contains("RETRIEVED");
       }
     }
-    // Above the table, and with no known drum pressure: no default.
+    // Above the table, and with no known drum pressure: no default in version 3.
     assertThat(v3.find(AVT_DRUM_SILICA, PlantType.CONVENTIONAL_DRUM, 15.0)).isEmpty();
     assertThat(v3.find(AVT_DRUM_SILICA, PlantType.CONVENTIONAL_DRUM, null)).isEmpty();
     assertThat(v3.find(AVT_DRUM_SILICA)).isEmpty();
@@ -268,7 +275,7 @@ class LimitCatalogTest {
   @Test
   void version3CarriesVersion2sEntriesOver() throws IOException {
     LimitCatalog v2 = version(2);
-    LimitCatalog v3 = defaults();
+    LimitCatalog v3 = version(3);
     for (LimitProfile p : v2.profiles()) {
       if (p.key().parameter() == Parameter.DEGASSED_CATION_CONDUCTIVITY) {
         // v3 adds action levels in steam; the normal range stays.
@@ -287,7 +294,7 @@ class LimitCatalogTest {
   @Test
   void steamDegassedCationConductivityHasTheSteamActionLevelsInVersion3() throws IOException {
     LimitProfile p =
-        defaults()
+        version(3)
             .find(
                 new LimitKey(
                     TreatmentRegime.AVT_O,
@@ -300,7 +307,7 @@ class LimitCatalogTest {
 
   @Test
   void makeUpWaterHasConductivityAndSilicaInVersion3() throws IOException {
-    LimitCatalog v3 = defaults();
+    LimitCatalog v3 = version(3);
     LimitKey conductivity =
         new LimitKey(
             TreatmentRegime.MAKE_UP, CycleLocation.MAKE_UP, Parameter.SPECIFIC_CONDUCTIVITY);
