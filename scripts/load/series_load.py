@@ -58,8 +58,8 @@ def main():
     points = [f"S{tag}-{i:02d}" for i in range(args.points)]
     if not args.skip_fill:
         plant = {"id": f"series-{tag}", "name": "Series load plant (invented)",
-                 "units": [{"id": "U1", "name": "Unit 1"}],
-                 "samplePoints": [{"id": p, "unit": "U1", "name": p, "cycleLocation": "FEEDWATER",
+                 "blocks": [{"id": "U1", "name": "Unit 1"}],
+                 "samplePoints": [{"id": p, "block": "U1", "name": p, "cycleLocation": "FEEDWATER",
                                    "treatmentRegime": "AVT_O", "operatingTemperatureCel": 155} for p in points]}
         conn.request("POST", "/api/v1/plants", json.dumps(plant), headers)
         r = conn.getresponse()

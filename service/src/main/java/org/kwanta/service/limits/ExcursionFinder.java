@@ -99,8 +99,8 @@ public class ExcursionFinder {
    * An excursion at one sample point and parameter, with its acknowledgements, oldest first.
    *
    * @param limits the limits in force at the excursion's start (on the basis asked for)
-   * @param inService the part of the excursion (up to now, when running) that fell in time the unit
-   *     was in service ({@link ServiceTime#counted()}): excursion hours count only this
+   * @param inService the part of the excursion (up to now, when running) that fell in time the
+   *     block was in service ({@link ServiceTime#counted()}): excursion hours count only this
    */
   public record Found(
       Limits.Effective limits,
@@ -174,7 +174,7 @@ public class ExcursionFinder {
     for (Limits.Point point : limits.points(filter.plant(), filter.samplePoint())) {
       Map<String, List<Acknowledgement>> acks = acknowledgements(point.id());
       ServiceTime service =
-          states.serviceTime(point.plant(), point.unit(), from.minus(LOOKBACK), to);
+          states.serviceTime(point.plant(), point.block(), from.minus(LOOKBACK), to);
       for (Map.Entry<Parameter, Limits.History> entry : histories(point, basis, now).entrySet()) {
         Parameter parameter = entry.getKey();
         if (filter.parameter() != null && filter.parameter() != parameter) {

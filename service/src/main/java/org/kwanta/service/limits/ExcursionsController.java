@@ -120,8 +120,8 @@ class ExcursionsController {
       summary = "Cumulative hours per action level per calendar month (UTC)",
       description =
           "NORMAL, AL1, AL2, AL3, SHUTDOWN; time outside the normal range but below AL1 counts as"
-              + " NORMAL here (it is not excursion time). Only time the unit was in service counts"
-              + " (time=in-service, the default: IN_SERVICE time and time before the unit's first"
+              + " NORMAL here (it is not excursion time). Only time the block was in service counts"
+              + " (time=in-service, the default: IN_SERVICE time and time before the block's first"
               + " recorded state); time=all counts every hour. Each row and the header"
               + " Kwanta-Time-Counted say which. Example:"
               + " ?samplePoint=U2-CPD&parameter=cation_conductivity")
@@ -152,7 +152,7 @@ class ExcursionsController {
         Excursions.monthlyHours(
             classified,
             end,
-            all ? null : states.serviceTime(point.plant(), point.unit(), start, end).counted());
+            all ? null : states.serviceTime(point.plant(), point.block(), start, end).counted());
     String counted = all ? "all" : "in-service";
     return ResponseEntity.ok()
         .header(BASIS_HEADER, b.code())

@@ -53,7 +53,7 @@ public class Limits {
   public record Point(
       String id,
       String plant,
-      String unit,
+      String block,
       String cycleLocation,
       String treatmentRegime,
       PlantType plantType,
@@ -62,19 +62,19 @@ public class Limits {
 
     /** A point of a plant that declares no plant type (a conventional drum plant). */
     public Point(
-        String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
-      this(id, plant, unit, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
+        String id, String plant, String block, String cycleLocation, String treatmentRegime) {
+      this(id, plant, block, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
     }
 
     /** A point without operating conditions. */
     public Point(
         String id,
         String plant,
-        String unit,
+        String block,
         String cycleLocation,
         String treatmentRegime,
         PlantType plantType) {
-      this(id, plant, unit, cycleLocation, treatmentRegime, plantType, null, null);
+      this(id, plant, block, cycleLocation, treatmentRegime, plantType, null, null);
     }
 
     /**
@@ -148,7 +148,7 @@ public class Limits {
   public List<Point> points(String plant, String samplePoint) {
     return jdbc.sql(
             """
-            SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type,
+            SELECT s.id, s.plant_id, s.block_id, s.cycle_location, s.treatment_regime, p.plant_type,
                    s.operating_temperature_cel, s.operating_pressure_mpa
             FROM sample_point s JOIN plant p ON p.id = s.plant_id
             WHERE (?::text IS NULL OR s.plant_id = ?) AND (?::text IS NULL OR s.id = ?)

@@ -86,7 +86,7 @@ class SamplePointsController {
     String plantId = plants.plantOf(samplePointId);
     PlantDeclaration check =
         new PlantDeclaration(
-            plantId, plantId, plants.find(plantId).orElseThrow().units(), List.of(next));
+            plantId, plantId, plants.find(plantId).orElseThrow().blocks(), List.of(next));
     List<String> problems = Plants.problems(check);
     if (!problems.isEmpty()) {
       throw new ProblemException(

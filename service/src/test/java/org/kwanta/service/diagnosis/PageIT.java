@@ -370,8 +370,8 @@ class PageIT {
     String declaration =
         "{\"id\":\"page-levels\",\"name\":"
             + name
-            + ",\"coolingWater\":\"BRACKISH\",\"units\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
-            + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"unit\":\"U\",\"name\":"
+            + ",\"coolingWater\":\"BRACKISH\",\"blocks\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
+            + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"block\":\"U\",\"name\":"
             + name
             + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
             + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}]}";

@@ -39,8 +39,8 @@ class AvailabilityQueryPlanIT {
     String point = "A" + tag + "-CPD";
     String body =
         ("{\"id\":\"plan-%s\",\"name\":\"Plan test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
                 + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);

@@ -61,18 +61,18 @@ class ChemistryRecordIT {
     other = "R" + tag + "-U1-CPD";
     String body =
         ("{\"id\":\"record-%s\",\"name\":\"Record test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"},{\"id\":\"U2\",\"name\":\"Unit 2\"}],"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"},{\"id\":\"U2\",\"name\":\"Unit 2\"}],"
                 + "\"samplePoints\":[%s,%s]}")
             .formatted(tag, samplePoint(point, "U2"), samplePoint(other, "U1"));
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
   }
 
-  private static String samplePoint(String id, String unit) {
-    return ("{\"id\":\"%s\",\"unit\":\"%s\",\"name\":\"Condensate pump discharge\","
+  private static String samplePoint(String id, String block) {
+    return ("{\"id\":\"%s\",\"block\":\"%s\",\"name\":\"Condensate pump discharge\","
             + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
             + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}")
-        .formatted(id, unit);
+        .formatted(id, block);
   }
 
   /** The leak of last week at both points. */
@@ -541,18 +541,18 @@ class ChemistryRecordIT {
   private String plantOfType(String plantType) {
     String id = "type-" + UUID.randomUUID().toString().substring(0, 8);
     String fw =
-        ("{\"id\":\"%s-FW\",\"unit\":\"U1\",\"name\":\"Economizer inlet\","
+        ("{\"id\":\"%s-FW\",\"block\":\"U1\",\"name\":\"Economizer inlet\","
                 + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
                 + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15.0}")
             .formatted(id);
     String cpd =
-        ("{\"id\":\"%s-CPD\",\"unit\":\"U1\",\"name\":\"Condensate pump discharge\","
+        ("{\"id\":\"%s-CPD\",\"block\":\"U1\",\"name\":\"Condensate pump discharge\","
                 + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}")
             .formatted(id);
     String body =
         ("{\"id\":\"%s\",\"name\":\"Plant type test (fictional)\",%s"
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s,%s]}")
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s,%s]}")
             .formatted(
                 id, plantType == null ? "" : "\"plantType\":\"" + plantType + "\",", fw, cpd);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

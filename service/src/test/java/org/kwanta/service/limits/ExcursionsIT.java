@@ -40,8 +40,8 @@ class ExcursionsIT {
     point = "L" + tag + "-U2-CPD";
     String body =
         ("{\"id\":\"leak-%s\",\"name\":\"Condenser leak test (fictional)\","
-                + "\"units\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
+                + "\"blocks\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
                 + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
@@ -133,7 +133,7 @@ class ExcursionsIT {
     assertThat(r.statusCode()).isEqualTo(200);
     assertThat(r.headers().firstValue("Content-Type").orElseThrow()).startsWith("text/csv");
     String[] lines = r.body().split("\r\n");
-    assertThat(lines[0]).startsWith("plant,unit,sample_point,parameter,value_unit");
+    assertThat(lines[0]).startsWith("plant,block,sample_point,parameter,value_unit");
     // The shipped defaults (version 3) give a condensate point action levels for cation
     // conductivity and for sodium, so the leak shows in both, one row each, sorted by parameter.
     assertThat(lines).hasSize(3);

@@ -49,7 +49,7 @@ class RegimeChangeIT {
             "/api/v1/plants",
             "application/json",
             ("{\"id\":\"regime-%s\",\"name\":\"Regime change test (invented)\","
-                    + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s]}")
+                    + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s]}")
                 .formatted(tag, samplePoint("AVT_O")));
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
     List<String> readings = new ArrayList<>();
@@ -71,7 +71,7 @@ class RegimeChangeIT {
   }
 
   private String samplePoint(String regime) {
-    return ("{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Economizer inlet\","
+    return ("{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Economizer inlet\","
             + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"%s\","
             + "\"operatingTemperatureCel\":250,\"operatingPressureMPa\":18}")
         .formatted(point, regime);

@@ -106,10 +106,10 @@ class BoardLevelsIT {
     feed = "B" + tag + "-FEED";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Board levels test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"drum\",\"cycleLocation\":\"DRUM_WATER\","
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"drum\",\"cycleLocation\":\"DRUM_WATER\","
                 + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150},"
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"feed\",\"cycleLocation\":\"FEEDWATER\","
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"feed\",\"cycleLocation\":\"FEEDWATER\","
                 + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}")
             .formatted(plant, drum, feed);
     HttpResponse<String> created = http.post("/api/v1/plants", "application/json", body);
