@@ -85,7 +85,7 @@ def main():
                                      interval '10 s') t""")
             psql(args.db, f"""
                 INSERT INTO evaluation (sample_point_id, time, config_version, cation_conductivity_25,
-                                        ph_at_temperature, suspect, finding_codes, details)
+                                        ph_at_temperature, instrument_in_doubt, finding_codes, details)
                 SELECT p, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}', '{{}}'
                 FROM unnest(ARRAY{points}::text[]) p,
                      generate_series('{d0.isoformat()}'::timestamptz,

@@ -66,7 +66,7 @@ class DiagnosisMetrics {
                       MetricNames.BLOCK, p.block(),
                       MetricNames.SAMPLE_POINT, p.id(),
                       MetricNames.CODE, f.code().name(),
-                      MetricNames.POINTS_AT, f.suspect().name().toLowerCase(Locale.ROOT)),
+                      MetricNames.POINTS_AT, f.pointsAt().name().toLowerCase(Locale.ROOT)),
                   1));
         }
       }

@@ -148,7 +148,7 @@ public class ExcursionFinder {
       boolean phFallback =
           limits.at(r.time()).map(p -> usesCalculatedPhFallback(p.key())).orElse(false);
       samples.add(
-          phFallback && r.phSuspected() && r.calculatedPh25() != null
+          phFallback && r.phElectrodeInDoubt() && r.calculatedPh25() != null
               ? new Sample(r.time(), r.calculatedPh25(), true, true)
               : new Sample(r.time(), r.value(), r.inDoubt(), false));
     }

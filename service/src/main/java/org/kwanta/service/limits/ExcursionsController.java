@@ -167,14 +167,13 @@ class ExcursionsController {
   }
 
   /**
-   * An acknowledgement by a chemist. {@code by} is accepted for compatibility with earlier clients
-   * and ignored: who acknowledged is the API key of the request.
+   * An acknowledgement by a chemist. Who acknowledged is the API key of the request, never the
+   * body: a {@code by} field is an unknown field, refused with 400 like any other.
    */
   record AcknowledgementRequest(
       @NotBlank @Size(max = 64) String samplePoint,
       @NotBlank @Size(max = 64) String parameter,
       @NotNull Instant start,
-      @Size(max = 200) String by,
       @NotBlank @Size(max = 4000) String note) {}
 
   @PostMapping("/acknowledgements")
@@ -183,7 +182,7 @@ class ExcursionsController {
       description =
           "The excursion (as reported) is named by sample point, parameter and its start time."
               + " Every acknowledgement is kept; who made it is the API key of the request (a"
-              + " 'by' in the body is ignored).")
+              + " 'by' in the body is refused with 400).")
   ResponseEntity<Map<String, Object>> acknowledge(@Valid @RequestBody AcknowledgementRequest r) {
     Parameter parameter = WebLookups.parameter(r.parameter());
     Limits.Point point = WebLookups.point(limits, r.samplePoint());

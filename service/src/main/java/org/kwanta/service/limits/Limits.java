@@ -101,10 +101,10 @@ public class Limits {
     }
 
     static Optional<LimitKey> key(String regime, String location, Parameter parameter) {
+      // the trade form (AVT(O)) and the constant's name (AVT_O) both find the regime's limits
+      Optional<TreatmentRegime> r = TreatmentRegime.ofCode(regime);
       try {
-        return Optional.of(
-            new LimitKey(
-                TreatmentRegime.valueOf(regime), CycleLocation.valueOf(location), parameter));
+        return r.map(t -> new LimitKey(t, CycleLocation.valueOf(location), parameter));
       } catch (IllegalArgumentException | NullPointerException e) {
         return Optional.empty();
       }

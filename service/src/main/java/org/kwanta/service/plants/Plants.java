@@ -404,7 +404,7 @@ public class Plants {
         p.block(),
         p.name(),
         p.cycleLocation(),
-        p.treatmentRegime(),
+        org.kwanta.model.limits.TreatmentRegime.canonical(p.treatmentRegime()),
         p.operatingTemperatureCel(),
         p.operatingPressureMPa(),
         alkalizer(p),

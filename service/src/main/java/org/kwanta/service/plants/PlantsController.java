@@ -58,9 +58,9 @@ class PlantsController {
     return plant;
   }
 
-  @GetMapping("/{plantId}")
+  @GetMapping("/{plant}")
   @Operation(summary = "A plant with its blocks and sample points")
-  PlantDeclaration get(@PathVariable String plantId) {
+  PlantDeclaration get(@PathVariable("plant") String plantId) {
     return plants.find(plantId).orElseThrow(() -> ProblemException.notFound("plant", plantId));
   }
 }

@@ -373,7 +373,7 @@ class PageIT {
             + ",\"coolingWater\":\"BRACKISH\",\"blocks\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
             + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"block\":\"U\",\"name\":"
             + name
-            + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+            + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\","
             + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}]}";
     HttpResponse<String> declared =
         http.send("PUT", "/api/v1/plants/page-levels", "application/json", declaration);

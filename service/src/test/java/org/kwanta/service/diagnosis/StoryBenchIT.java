@@ -217,7 +217,7 @@ class StoryBenchIT {
           .append(p.id())
           .append("\",\"block\":\"U\",\"name\":\"")
           .append(p.id())
-          .append("\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\",")
+          .append("\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\",")
           .append("\"operatingTemperatureCel\":150")
           .append(p.upstream() == null ? "" : ",\"upstream\":[\"" + p.upstream() + "\"]")
           .append("}");

@@ -44,7 +44,7 @@ class SteamPointIT {
         ("{\"id\":\"steam-%s\",\"name\":\"Steam point test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"S%s\","
                 + "\"block\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":%s,"
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":%s,"
                 + "\"operatingPressureMPa\":%s}]}")
             .formatted(tag, tag, location, celsius, mpa);
     return http.post("/api/v1/plants", "application/json", body);

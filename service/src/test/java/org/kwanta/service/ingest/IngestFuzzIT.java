@@ -226,7 +226,7 @@ class IngestFuzzIT {
       sp.put("block", "U1");
       sp.put("name", "Fuzz point " + i);
       sp.put("cycleLocation", "FEEDWATER");
-      sp.put("treatmentRegime", "AVT_O");
+      sp.put("treatmentRegime", "AVT(O)");
       sp.put("operatingTemperatureCel", 155);
       sp.put("operatingPressureMPa", 15);
     }

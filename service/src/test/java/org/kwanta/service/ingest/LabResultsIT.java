@@ -51,7 +51,7 @@ class LabResultsIT {
         ("{\"id\":\"lab-%s\",\"name\":\"Lab test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
                 + "\"block\":\"U1\",\"name\":\"Economiser inlet\",\"cycleLocation\":\"FEEDWATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

@@ -31,7 +31,7 @@ final class TestPlants {
                     String.format(
                         Locale.ROOT,
                         "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Test feedwater %s\","
-                            + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+                            + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\","
                             + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}",
                         id,
                         id))

@@ -41,7 +41,7 @@ class AvailabilityQueryPlanIT {
         ("{\"id\":\"plan-%s\",\"name\":\"Plan test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
                 + "\"block\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
     assertThat(http.post("/api/v1/plants", "application/json", body).statusCode()).isEqualTo(201);

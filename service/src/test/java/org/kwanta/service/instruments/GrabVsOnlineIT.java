@@ -46,7 +46,7 @@ class GrabVsOnlineIT {
         ("{\"id\":\"%s\",\"name\":\"Grab test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
                 + "\"block\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(plant, point);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

@@ -46,7 +46,7 @@ class LevelRulesIT {
         ("{\"id\":\"rules-%s\",\"name\":\"Level rules test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
                 + "\"block\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":%s}]}")
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":%s}]}")
             .formatted(tag, point, location, temperatureCel);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);

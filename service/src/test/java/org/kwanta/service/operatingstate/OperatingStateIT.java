@@ -57,10 +57,10 @@ class OperatingStateIT {
         ("{\"id\":\"%s\",\"name\":\"Operating state test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
                 + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5},"
                 + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Main steam\","
-                + "\"cycleLocation\":\"MAIN_STEAM\",\"treatmentRegime\":\"AVT_O\","
+                + "\"cycleLocation\":\"MAIN_STEAM\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":540,\"operatingPressureMPa\":16}]}")
             .formatted(plant, cpd, steam);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

@@ -40,7 +40,7 @@ class RegistryIT {
     String body =
         """
         {"id":"FW-ECO-IN","block":"U1","name":"Economizer inlet","cycleLocation":"FEEDWATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":160,"operatingPressureMPa":14,
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":160,"operatingPressureMPa":14,
          "alkalizer":"MORPHOLINE"}""";
     HttpResponse<String> r =
         http.send("PUT", "/api/v1/sample-points/FW-ECO-IN", "application/json", body);

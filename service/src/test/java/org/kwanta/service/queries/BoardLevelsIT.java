@@ -108,9 +108,9 @@ class BoardLevelsIT {
         ("{\"id\":\"%s\",\"name\":\"Board levels test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
                 + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"drum\",\"cycleLocation\":\"DRUM_WATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150},"
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150},"
                 + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"feed\",\"cycleLocation\":\"FEEDWATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}")
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}]}")
             .formatted(plant, drum, feed);
     HttpResponse<String> created = http.post("/api/v1/plants", "application/json", body);
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);

@@ -41,7 +41,7 @@ class QueriesIT {
             + "\"samplePoints\":[{\"id\":\""
             + point
             + "\",\"block\":\"U1\",\"name\":\"p\",\"cycleLocation\":\"FEEDWATER\","
-            + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}";
+            + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}]}";
     assertThat(http.post("/api/v1/plants", "application/json", plant).statusCode()).isEqualTo(201);
     start = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(1, ChronoUnit.DAYS);
     List<String> readings = new ArrayList<>();

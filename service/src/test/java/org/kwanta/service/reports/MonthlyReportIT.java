@@ -102,7 +102,7 @@ class MonthlyReportIT {
         ("{\"id\":\"%s\",\"name\":\"Report test (fictional)\","
                 + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
                 + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5,"
                 + "\"parameters\":[\"cation_conductivity\"]}]}")
             .formatted(plant, cpd);
