@@ -105,7 +105,9 @@ record SpeciationResponse(
    * @param highConstantSet the set that gave {@code high}
    * @param members every evaluated set (absent from the curve's rows)
    */
-  @Schema(name = "PhAtTemperature", description = "pH at temperature with its band")
+  @Schema(
+      name = "SpeciationPhAtTemperature",
+      description = "pH at temperature with its band (bandFrom CONSTANT_SETS)")
   @JsonInclude(JsonInclude.Include.NON_NULL)
   record PhAtTemperature(
       @Schema(example = "5.945") double ph,

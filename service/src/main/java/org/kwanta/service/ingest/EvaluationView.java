@@ -1,6 +1,7 @@
 package org.kwanta.service.ingest;
 
 import com.fasterxml.jackson.annotation.JsonAlias;
+import io.swagger.v3.oas.annotations.media.Schema;
 import java.util.List;
 import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Evaluation;
@@ -76,6 +77,10 @@ public record EvaluationView(
    * instruments' tolerances ({@code bandFrom} INSTRUMENT_TOLERANCES; rows stored before the field
    * existed read back with it).
    */
+  @Schema(
+      name = "EvaluationPhAtTemperature",
+      description =
+          "pH at the operating temperature with its band (bandFrom INSTRUMENT_TOLERANCES)")
   public record PhAtTemperature(
       double temperatureCel,
       double pressureMPa,

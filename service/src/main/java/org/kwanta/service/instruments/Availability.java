@@ -31,7 +31,7 @@ import org.springframework.stereotype.Service;
  * </pre>
  *
  * A reading is good when its quality is "good" (not uncertain, not bad); it is in doubt when the
- * stored evaluation at its time suspects its own instrument or the sample conditioning (as {@code
+ * stored evaluation at its time points at its own instrument or the sample conditioning (as {@code
  * limits/ExcursionFinder} reads it). A slot is in service when its start lies in the block's
  * in-service windows ({@link ServiceTime#counted()}).
  *

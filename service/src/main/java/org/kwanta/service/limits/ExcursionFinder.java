@@ -33,11 +33,11 @@ import org.springframework.stereotype.Service;
  * the readings arrived in.
  *
  * <p>Every value is classified at its level. Its instrument is in doubt when its reading has
- * quality "bad", or when the evaluation at that time suspects the parameter's own instrument or the
- * sample conditioning; the doubt is carried beside the level and never changes it.
+ * quality "bad", or when the evaluation at that time points at the parameter's own instrument or
+ * the sample conditioning; the doubt is carried beside the level and never changes it.
  *
  * <p>Drum water pH fallback: for pH at a DRUM_WATER sample point, when the evaluation at that time
- * suspects the pH electrode and has a pH at 25 °C calculated from the conductivities, that
+ * points at the pH electrode and has a pH at 25 °C calculated from the conductivities, that
  * calculated pH is classified in place of the measured one (marked as calculated, and in doubt).
  * Without a calculated pH the measured value is classified, in doubt.
  */
