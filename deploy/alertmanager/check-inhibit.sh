@@ -34,11 +34,11 @@ URL="http://127.0.0.1:$AM_PORT"
 for _ in $(seq 1 30); do curl -fsS "$URL/-/ready" >/dev/null 2>&1 && break; sleep 1; done
 
 add() { amtool --alertmanager.url="$URL" alert add "$@" plant=brackenmoor severity=critical; }
-add alertname=KwantaActionLevel3 unit=U2 sample_point=U2-CPD parameter=cation_conductivity \
+add alertname=KwantaActionLevel3 block=U2 sample_point=U2-CPD parameter=cation_conductivity \
   --annotation=summary="U2-CPD cation_conductivity at Action Level 3"
-add alertname=KwantaActionLevel1 unit=U2 sample_point=U2-CPD parameter=cation_conductivity \
+add alertname=KwantaActionLevel1 block=U2 sample_point=U2-CPD parameter=cation_conductivity \
   --annotation=summary="U2-CPD cation_conductivity at Action Level 1"
-add alertname=KwantaActionLevel1 unit=U1 sample_point=U1-CPD parameter=sodium \
+add alertname=KwantaActionLevel1 block=U1 sample_point=U1-CPD parameter=sodium \
   --annotation=summary="U1-CPD sodium at Action Level 1"
 
 for _ in $(seq 1 20); do

@@ -49,8 +49,8 @@ def main():
     a = ap.parse_args()
     ids = ["BL-%03d" % i for i in range(a.points)]
     if not a.skip_fill:
-        decl = {"id": a.plant, "name": "Board load plant (invented)", "units": [{"id": "U", "name": "Unit"}],
-                "samplePoints": [{"id": p, "unit": "U", "name": "Load point " + p, "cycleLocation": "FEEDWATER",
+        decl = {"id": a.plant, "name": "Board load plant (invented)", "blocks": [{"id": "U", "name": "Unit"}],
+                "samplePoints": [{"id": p, "block": "U", "name": "Load point " + p, "cycleLocation": "FEEDWATER",
                                   "treatmentRegime": "AVT_O", "operatingTemperatureCel": 155,
                                   "operatingPressureMPa": 15} for p in ids]}
         s, _, d, _ = request(a.base_url, a.api_key, "PUT", "/api/v1/plants/" + a.plant, decl)

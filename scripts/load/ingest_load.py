@@ -130,9 +130,9 @@ def main():
     tag = uuid.uuid4().hex[:8]
     points = [f"L{tag}-{i:02d}" for i in range(args.points)]
     plant = {
-        "id": f"load-{tag}", "name": "Load-test plant (invented)", "units": [{"id": "U1", "name": "Unit 1"}],
+        "id": f"load-{tag}", "name": "Load-test plant (invented)", "blocks": [{"id": "U1", "name": "Unit 1"}],
         "samplePoints": [
-            {"id": p, "unit": "U1", "name": p, "cycleLocation": "FEEDWATER", "treatmentRegime": "AVT_O",
+            {"id": p, "block": "U1", "name": p, "cycleLocation": "FEEDWATER", "treatmentRegime": "AVT_O",
              "operatingTemperatureCel": 155, "operatingPressureMPa": 15} for p in points],
     }
     status, body = admin.request("POST", "/api/v1/plants", json.dumps(plant))

@@ -46,8 +46,8 @@ def main():
     tag = uuid.uuid4().hex[:6]
     points = [f"P{tag}-{i:03d}" for i in range(args.points)]
     plant = {"id": f"scrape-{tag}", "name": "Scrape benchmark plant (invented)",
-             "units": [{"id": "U1", "name": "Unit 1"}],
-             "samplePoints": [{"id": p, "unit": "U1", "name": p, "cycleLocation": "FEEDWATER",
+             "blocks": [{"id": "U1", "name": "Unit 1"}],
+             "samplePoints": [{"id": p, "block": "U1", "name": p, "cycleLocation": "FEEDWATER",
                                "treatmentRegime": "AVT_O", "operatingTemperatureCel": 155} for p in points]}
     status, body = call("POST", "/api/v1/plants", json.dumps(plant))
     if status != 201:

@@ -58,8 +58,8 @@ def main():
     points = [f"S{tag}-{i:02d}" for i in range(args.points)]
     if not args.skip_fill:
         plant = {"id": f"series-{tag}", "name": "Series load plant (invented)",
-                 "units": [{"id": "U1", "name": "Unit 1"}],
-                 "samplePoints": [{"id": p, "unit": "U1", "name": p, "cycleLocation": "FEEDWATER",
+                 "blocks": [{"id": "U1", "name": "Unit 1"}],
+                 "samplePoints": [{"id": p, "block": "U1", "name": p, "cycleLocation": "FEEDWATER",
                                    "treatmentRegime": "AVT_O", "operatingTemperatureCel": 155} for p in points]}
         conn.request("POST", "/api/v1/plants", json.dumps(plant), headers)
         r = conn.getresponse()
@@ -85,7 +85,7 @@ def main():
                                      interval '10 s') t""")
             psql(args.db, f"""
                 INSERT INTO evaluation (sample_point_id, time, config_version, cation_conductivity_25,
-                                        ph_at_temperature, suspect, finding_codes, details)
+                                        ph_at_temperature, instrument_in_doubt, finding_codes, details)
                 SELECT p, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}', '{{}}'
                 FROM unnest(ARRAY{points}::text[]) p,
                      generate_series('{d0.isoformat()}'::timestamptz,

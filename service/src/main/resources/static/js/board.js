@@ -7,7 +7,7 @@ import { badge, rank, CODE, STALE } from './levels.js';
 /** What a finding means, in plain words (codes: docs/diagnosis.md, docs/conductivity-and-checks.md). */
 const PLAIN = {
   COOLING_WATER_INGRESS: 'Cooling water is getting in: a condenser leak',
-  INGRESS_SUSPECTED: 'Contamination is getting in (no sodium rise here to name its source)',
+  CONTAMINANT_INGRESS: 'Contamination is getting in (no sodium rise here to name its source)',
   CARBON_DIOXIDE_INGRESS: 'Carbon dioxide is getting in: air in-leakage',
   CATION_COLUMN_EXHAUSTED: 'The cation column is exhausted: the reading is not the water',
   SODIUM_WITHOUT_CATION_RISE: 'The sodium analyser reads high alone: check it',

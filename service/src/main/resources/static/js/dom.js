@@ -62,7 +62,7 @@ const SHORT = { specific_conductivity: 'SC', cation_conductivity: 'CACE', degass
 export const parameterShort = (p) => SHORT[p] || parameterName(p);
 
 /** Treatment regimes and places in the cycle in words. */
-const REGIME = { AVT_R: 'AVT(R), all-volatile reducing', AVT_O: 'AVT(O), all-volatile oxidizing', OT: 'oxygenated treatment', PT: 'phosphate treatment', CT: 'caustic treatment', MAKE_UP: 'make-up water' };
+const REGIME = { 'AVT(R)': 'AVT(R), all-volatile reducing', 'AVT(O)': 'AVT(O), all-volatile oxidizing', OT: 'oxygenated treatment', PT: 'phosphate treatment', CT: 'caustic treatment', MAKE_UP: 'make-up water' };
 export const regimeName = (r) => REGIME[r] || String(r || '–');
 export const words = (s) => String(s || '').toLowerCase().replace(/_/g, ' ');
 

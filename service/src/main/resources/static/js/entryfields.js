@@ -1,6 +1,5 @@
 // The JSON fields and API paths of entry (lab and grab results, a block's operating state) and of the
-// lab markers on the trend, beside fields.js: a renamed field is one edit here. The API still calls a
-// plant block a "unit" (/plants/{plant}/units/{unit}); the page calls it a block.
+// lab markers on the trend, beside fields.js: a renamed field is one edit here.
 'use strict';
 
 const enc = encodeURIComponent;
@@ -9,7 +8,7 @@ export const paths = {
   plant: (plant) => 'api/v1/plants/' + enc(plant),
   labResults: () => 'api/v1/lab-results',
   pointLabResults: (point, q) => 'api/v1/sample-points/' + enc(point) + '/lab-results?' + new URLSearchParams(q),
-  blockStates: (plant, block) => 'api/v1/plants/' + enc(plant) + '/units/' + enc(block) + '/operating-states',
+  blockStates: (plant, block) => 'api/v1/plants/' + enc(plant) + '/blocks/' + enc(block) + '/operating-states',
 };
 
 /** GET /caller: entry (lab results, operating states, limits, event notes) is for chemist and admin keys. */
@@ -18,8 +17,8 @@ export const mayEnter = (caller) => !!(caller && caller.acknowledge);
 /** GET /plants/{id}: the plant's blocks and which block each sample point is in. */
 export function plantBlocks(j) {
   return {
-    blocks: (j.units || []).map((u) => ({ id: u.id, name: u.name })),
-    points: (j.samplePoints || []).map((p) => ({ id: p.id, block: p.unit, name: p.name, parameters: p.parameters || [] })),
+    blocks: (j.blocks || []).map((b) => ({ id: b.id, name: b.name })),
+    points: (j.samplePoints || []).map((p) => ({ id: p.id, block: p.block, name: p.name, parameters: p.parameters || [] })),
   };
 }
 

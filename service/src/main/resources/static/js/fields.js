@@ -37,7 +37,7 @@ export function caller(j) {
 /** GET /plants */
 export const plants = (j) => j.map((p) => ({ id: p.id, name: p.name }));
 
-/** GET /sample-points/{id}: the configuration the curve needs. */
+/** GET /sample-points/{samplePoint}: the configuration the curve needs. */
 export function samplePoint(j) {
   return {
     id: j.id, name: j.name, alkalizer: j.alkalizer, regime: j.treatmentRegime, location: j.cycleLocation,
@@ -49,13 +49,13 @@ function finding(f, instant) {
   const e = f.evidence;
   return {
     code: f.code, instant,
-    pointsAt: String(instant ? f.suspect : f.pointsAt).toLowerCase(),
+    pointsAt: String(f.pointsAt).toLowerCase(),
     explanation: f.explanation,
     evidence: e ? { quantity: e.quantity, unit: e.unit, expected: e.expected, read: e.read, residual: e.residual, tolerance: e.tolerance } : null,
   };
 }
 
-/** One sample point of GET /plants/{id}/overview (also GET /sample-points/{id}/state). */
+/** One sample point of GET /plants/{plant}/overview (also GET /sample-points/{samplePoint}/state). */
 export function pointState(s) {
   const ev = s.evaluation ? s.evaluation.evaluation : null;
   const comp = (p) => {
@@ -88,10 +88,10 @@ export function pointState(s) {
   };
 }
 
-/** GET /plants/{id}/overview */
+/** GET /plants/{plant}/overview */
 export const overview = (j) => ({ plant: j.plant, name: j.name, asOf: j.asOf, points: j.samplePoints.map(pointState) });
 
-/** GET /sample-points/{id}/findings: minutes with their findings. */
+/** GET /sample-points/{samplePoint}/findings: minutes with their findings. */
 export const findingMinutes = (j) => j.minutes.map((m) => ({ time: m.time, findings: m.findings.map((f) => finding(f, false)) }));
 
 /** GET .../series: bucket starts (s since epoch) and min, mean, max; or raw points. */
@@ -122,7 +122,7 @@ function profile(l) {
   };
 }
 
-/** GET /sample-points/{id}/limits: in force now, per parameter. */
+/** GET /sample-points/{samplePoint}/limits: in force now, per parameter. */
 export const limitsNow = (j) => j.map((p) => ({ origin: p.origin, version: p.version, effectiveFrom: p.effectiveFrom, ...profile(p.limits) }));
 
 /** GET .../limits/{parameter}/history: periods (from, limits or null) and stored versions. */
@@ -193,6 +193,6 @@ export function curveBody(water, fromCel, toCel, stepCel, pressureMPa) {
 export function curve(j) {
   return {
     phAt25: j.phAt25Cel,
-    rows: j.rows.map((r) => ({ t: r.temperatureCel, ph: r.phAtTemperature, neutral: r.neutralPh, low: r.bandMinPh, high: r.bandMaxPh, extrapolated: r.extrapolatedConstant })),
+    rows: j.rows.map((r) => ({ t: r.temperatureCel, ph: r.phAtTemperature.ph, neutral: r.neutralPh, low: r.phAtTemperature.low, high: r.phAtTemperature.high, extrapolated: r.extrapolatedConstant })),
   };
 }

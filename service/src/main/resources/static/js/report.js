@@ -154,11 +154,11 @@ function render(r) {
     + ', availability ' + pct(r.index.availabilityScore) + ')';
   $('index-definition').textContent = r.index.definition;
 
-  const units = $('units').tBodies[0];
-  clear(units);
-  for (const u of r.units) {
+  const blocks = $('blocks').tBodies[0];
+  clear(blocks);
+  for (const u of r.blocks) {
     const h = (s) => num(u.hoursByState[s] || 0, 2);
-    row(units, [u.unit, { text: num(u.hoursInService, 2), num: true }, { text: h('IN_SERVICE'), num: true },
+    row(blocks, [u.block, { text: num(u.hoursInService, 2), num: true }, { text: h('IN_SERVICE'), num: true },
       { text: h('START_UP'), num: true }, { text: h('SHUT_DOWN'), num: true }, { text: h('LAYUP_WET'), num: true },
       { text: h('LAYUP_DRY'), num: true }, { text: num(u.hoursUnrecorded, 2), num: true }]);
   }

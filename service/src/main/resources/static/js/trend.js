@@ -98,7 +98,7 @@ async function draw() {
   const bands = [];
   if (ph) {
     data.push(align(high), align(low));
-    series.push({ label: 'band high (alternative constants)', stroke: '#7a9cc6', width: 1, scale: 'y', value: (s, v) => fmtValue(v) },
+    series.push({ label: 'band high (instrument tolerances)', stroke: '#7a9cc6', width: 1, scale: 'y', value: (s, v) => fmtValue(v) },
       { label: 'band low', stroke: '#7a9cc6', width: 1, scale: 'y', value: (s, v) => fmtValue(v) });
     bands.push({ series: [1, 2], fill: 'rgba(80, 130, 200, 0.22)' });
     data.push(align(neutral));

@@ -202,7 +202,7 @@ public final class Diagnoser {
       List<Finding> findings = new ArrayList<>();
       for (Finding f : raw.get(k)) {
         int persistence =
-            f.suspect() == Instrument.PROCESS
+            f.pointsAt() == Instrument.PROCESS
                 ? settings.processPersistence()
                 : isCusum(f.code()) ? 1 : settings.instrumentPersistence();
         if (held(raw, t, first, k, f.code(), persistence)) {
@@ -310,7 +310,7 @@ public final class Diagnoser {
       double now = t.recent(Channel.SPECIFIC, i);
       out.add(
           new Finding(
-              ReasonCode.INGRESS_SUSPECTED,
+              ReasonCode.CONTAMINANT_INGRESS,
               Instrument.PROCESS,
               format(
                   "Make-up water conductivity %s µS/cm against a baseline of %s µS/cm: the"
@@ -369,7 +369,7 @@ public final class Diagnoser {
       } else {
         out.add(
             new Finding(
-                ReasonCode.INGRESS_SUSPECTED,
+                ReasonCode.CONTAMINANT_INGRESS,
                 Instrument.PROCESS,
                 format(
                         "Sodium +%s µg/kg and cation conductivity +%s µS/cm over their baselines"
@@ -459,7 +459,7 @@ public final class Diagnoser {
     } else {
       out.add(
           new Finding(
-              ReasonCode.INGRESS_SUSPECTED,
+              ReasonCode.CONTAMINANT_INGRESS,
               Instrument.PROCESS,
               format(
                       "Cation conductivity +%s µS/cm over its baseline %s",
@@ -505,7 +505,7 @@ public final class Diagnoser {
     if (neighbour) {
       out.add(
           new Finding(
-              ReasonCode.INGRESS_SUSPECTED,
+              ReasonCode.CONTAMINANT_INGRESS,
               Instrument.PROCESS,
               format(
                   "Sodium +%s µg/kg here and at a neighbouring point, without the acid anions"
@@ -583,12 +583,12 @@ public final class Diagnoser {
     if (!scMoved && !phMoved && !neighboursAgree) {
       return; // the evidence does not say which; the instant check still compares the two
     }
-    Instrument suspect =
+    Instrument pointsAt =
         scMoved && !neighboursAgree ? Instrument.SPECIFIC_CONDUCTIVITY : Instrument.PH;
     double measured = t.recent(Channel.PH, i);
     double calculated = t.recent(Channel.PH_CALCULATED, i);
     double offset = t.baseline(Channel.PH_RESIDUAL, i).median();
-    if (suspect == Instrument.PH) {
+    if (pointsAt == Instrument.PH) {
       out.add(
           new Finding(
               step ? ReasonCode.PH_ELECTRODE_STEP : ReasonCode.PH_ELECTRODE_DRIFT,

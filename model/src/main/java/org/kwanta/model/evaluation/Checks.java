@@ -526,8 +526,8 @@ final class Checks {
 
   // ---- formatting ---------------------------------------------------------------------------
 
-  private static Finding finding(ReasonCode code, Instrument suspect, String fmt, Object... args) {
-    return new Finding(code, suspect, String.format(Locale.ROOT, fmt, args));
+  private static Finding finding(ReasonCode code, Instrument pointsAt, String fmt, Object... args) {
+    return new Finding(code, pointsAt, String.format(Locale.ROOT, fmt, args));
   }
 
   private static String name(Parameter p) {

@@ -6,16 +6,16 @@ import org.kwanta.model.Instrument;
  * One fired check.
  *
  * @param code why
- * @param suspect the instrument (or the sample conditioning, or the process) it points at
+ * @param pointsAt the instrument (or the sample conditioning, or the process) it points at
  * @param explanation one sentence with the numbers behind it
  * @param evidence what was expected, what was read, the residual and its tolerance; null for the
  *     checks that compare no prediction (stale, flat line, out of range, ...)
  */
-public record Finding(ReasonCode code, Instrument suspect, String explanation, Evidence evidence) {
+public record Finding(ReasonCode code, Instrument pointsAt, String explanation, Evidence evidence) {
 
   /** A finding without a prediction behind it. */
-  public Finding(ReasonCode code, Instrument suspect, String explanation) {
-    this(code, suspect, explanation, null);
+  public Finding(ReasonCode code, Instrument pointsAt, String explanation) {
+    this(code, pointsAt, explanation, null);
   }
 
   /**

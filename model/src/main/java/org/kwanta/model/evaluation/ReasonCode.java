@@ -4,7 +4,8 @@ import org.kwanta.model.Instrument;
 
 /**
  * Why a consistency check fired. The codes are Kwanta's own; the meaning is one sentence; the
- * suspect is the usual one (signal checks name the analyser of the parameter concerned instead).
+ * instrument (or process) it points at is the usual one (signal checks name the analyser of the
+ * parameter concerned instead).
  */
 public enum ReasonCode {
   PH_MEASURED_VS_CALCULATED(
@@ -45,7 +46,7 @@ public enum ReasonCode {
       "Sodium and cation conductivity rose over their baselines together, in the proportions the"
           + " plant's declared cooling water would give: a condenser leak.",
       Instrument.PROCESS),
-  INGRESS_SUSPECTED(
+  CONTAMINANT_INGRESS(
       "Cation conductivity (or the make-up water's conductivity) rose over its baseline with"
           + " evidence of a process cause (neighbouring points followed, or sodium came with it):"
           + " contamination entering the cycle.",
@@ -100,11 +101,11 @@ public enum ReasonCode {
       Instrument.SAMPLE_CONDITIONING);
 
   private final String meaning;
-  private final Instrument usualSuspect;
+  private final Instrument usuallyPointsAt;
 
-  ReasonCode(String meaning, Instrument usualSuspect) {
+  ReasonCode(String meaning, Instrument usuallyPointsAt) {
     this.meaning = meaning;
-    this.usualSuspect = usualSuspect;
+    this.usuallyPointsAt = usuallyPointsAt;
   }
 
   /** One-sentence meaning. */
@@ -113,10 +114,11 @@ public enum ReasonCode {
   }
 
   /**
-   * The usual suspect; for {@link #STALE}, {@link #FLATLINE}, {@link #OUT_OF_RANGE} and {@link
-   * #BELOW_PURE_WATER} the finding names the analyser of the parameter concerned.
+   * What the finding usually points at; for {@link #STALE}, {@link #FLATLINE}, {@link
+   * #OUT_OF_RANGE} and {@link #BELOW_PURE_WATER} the finding names the analyser of the parameter
+   * concerned.
    */
-  public Instrument usualSuspect() {
-    return usualSuspect;
+  public Instrument usuallyPointsAt() {
+    return usuallyPointsAt;
   }
 }

@@ -228,10 +228,10 @@ final class SodiumRoots {
     return String.format(Locale.ROOT, "%.3g", v);
   }
 
-  private static Finding finding(ReasonCode code, Instrument suspect, String fmt, Object... args) {
+  private static Finding finding(ReasonCode code, Instrument pointsAt, String fmt, Object... args) {
     Finding.Evidence evidence = (Finding.Evidence) args[args.length - 1];
     Object[] shown = java.util.Arrays.copyOf(args, args.length - 1);
-    return new Finding(code, suspect, String.format(Locale.ROOT, fmt, shown), evidence);
+    return new Finding(code, pointsAt, String.format(Locale.ROOT, fmt, shown), evidence);
   }
 
   /** Index of the root nearest the reading on a log scale, or of the highest root without one. */

@@ -195,7 +195,7 @@ public final class Excursions {
 
   /**
    * Time per action level per calendar month (UTC) as {@link #monthlyHours(List, Instant)},
-   * counting only the time inside {@code counted} (for instance the stretches the unit was in
+   * counting only the time inside {@code counted} (for instance the stretches the block was in
    * service).
    *
    * @param counted windows that do not overlap one another; null counts all time

@@ -6,7 +6,7 @@ import java.util.List;
 import java.util.Objects;
 
 /**
- * A half-open stretch of time [start, end), such as a stretch a unit was in service.
+ * A half-open stretch of time [start, end), such as a stretch a block was in service.
  *
  * @param start the first instant inside
  * @param end the first instant after; not before {@code start}

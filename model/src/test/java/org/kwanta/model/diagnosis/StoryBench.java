@@ -86,7 +86,7 @@ final class StoryBench {
       List<PointSpec> points,
       String target,
       String expectedCode,
-      String expectedSuspect,
+      String expectedPointsAt,
       Duration duration,
       Duration detectWithin) {}
 
@@ -439,7 +439,7 @@ final class StoryBench {
                 Fault.NONE,
                 0)),
         "MU",
-        "INGRESS_SUSPECTED",
+        "CONTAMINANT_INGRESS",
         "PROCESS",
         Duration.ofHours(3),
         Duration.ofMinutes(15));

@@ -53,18 +53,18 @@ class StoryBenchTest {
           boolean right =
               id.equals(story.target())
                   && f.code().name().equals(story.expectedCode())
-                  && f.suspect().name().equals(story.expectedSuspect());
+                  && f.pointsAt().name().equals(story.expectedPointsAt());
           if (right) {
             if (detection == null) {
               detection = Duration.between(faultStart, d.time());
             }
           } else if (story.expectedCode() == null) {
             falseMinutes++;
-            wrong.add(id + ":" + f.code() + "/" + f.suspect());
-          } else if (!f.suspect().name().equals(story.expectedSuspect())
-              || (f.suspect().name().equals("PROCESS")
-                  && !story.expectedSuspect().equals("PROCESS"))) {
-            wrong.add(id + ":" + f.code() + "/" + f.suspect());
+            wrong.add(id + ":" + f.code() + "/" + f.pointsAt());
+          } else if (!f.pointsAt().name().equals(story.expectedPointsAt())
+              || (f.pointsAt().name().equals("PROCESS")
+                  && !story.expectedPointsAt().equals("PROCESS"))) {
+            wrong.add(id + ":" + f.code() + "/" + f.pointsAt());
           }
         }
       }
@@ -73,7 +73,7 @@ class StoryBenchTest {
         story.name(),
         story.expectedCode() == null
             ? "none"
-            : story.expectedCode() + " → " + story.expectedSuspect(),
+            : story.expectedCode() + " → " + story.expectedPointsAt(),
         detection != null,
         detection,
         List.copyOf(wrong),

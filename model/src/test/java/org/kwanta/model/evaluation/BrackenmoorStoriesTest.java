@@ -9,7 +9,7 @@ import org.kwanta.model.Instrument;
 
 /**
  * The five demo stories of the fictional Brackenmoor Energy Centre, as invented snapshots (demo
- * only): each must give the expected reason codes and suspects, and the normal day none.
+ * only): each must give the expected reason codes and what they point at, and the normal day none.
  */
 class BrackenmoorStoriesTest {
 
@@ -56,7 +56,7 @@ class BrackenmoorStoriesTest {
     Evaluation e =
         Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.driftingElectrode()));
     assertThat(codes(e)).containsExactly(ReasonCode.PH_MEASURED_VS_CALCULATED);
-    assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.PH);
+    assertThat(e.findings().get(0).pointsAt()).isEqualTo(Instrument.PH);
   }
 
   /** Story 5: start-up with air in-leakage: CACE high, DCACE normal: carbon dioxide. */
@@ -64,7 +64,7 @@ class BrackenmoorStoriesTest {
   void airInLeakageIsCarbonDioxideNotSalts() {
     Evaluation e = Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), Demo.snapshot(Demo.airInLeakage()));
     assertThat(codes(e)).containsExactly(ReasonCode.CARBON_DIOXIDE_INGRESS);
-    assertThat(e.findings().get(0).suspect()).isEqualTo(Instrument.PROCESS);
+    assertThat(e.findings().get(0).pointsAt()).isEqualTo(Instrument.PROCESS);
     assertThat(e.composition().orElseThrow().carbonDioxideUgPerKg()).isCloseTo(400, within(20.0));
     assertThat(e.calculatedPh().orElseThrow().tradeFormulaInWindow()).isFalse();
   }

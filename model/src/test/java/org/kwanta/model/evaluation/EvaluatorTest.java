@@ -106,7 +106,7 @@ class EvaluatorTest {
     Evaluation e =
         Evaluator.DEFAULT.evaluate(Demo.u1EcoIn(), snapshotAt(Demo.T25, 3.0, 0.08, 0.050));
     assertThat(e.findings())
-        .extracting(Finding::code, Finding::suspect)
+        .extracting(Finding::code, Finding::pointsAt)
         .contains(
             org.assertj.core.groups.Tuple.tuple(
                 ReasonCode.BELOW_PURE_WATER, Instrument.DEGASSED_CATION_CONDUCTIVITY));

@@ -11,9 +11,10 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 
 /**
- * The reason codes, their meanings and suspected instruments are documented in one table of the
+ * The reason codes, their meanings and what they point at are documented in one table of the
  * project's notes ({@code docs/conductivity-and-checks.md}, section "Reason codes"): that table
- * lists every {@link ReasonCode} exactly once, with a meaning and a suspect, and no other code.
+ * lists every {@link ReasonCode} exactly once, with a meaning and what it points at, and no other
+ * code.
  */
 class ReasonCodeTableTest {
 
@@ -22,7 +23,7 @@ class ReasonCodeTableTest {
           .resolve("../docs/conductivity-and-checks.md")
           .normalize();
 
-  private static final String HEADER = "| code | meaning | suspected |";
+  private static final String HEADER = "| code | meaning | points at |";
 
   @Test
   void everyReasonCodeIsInTheOneTableOfTheNotes() throws IOException {
@@ -32,10 +33,10 @@ class ReasonCodeTableTest {
     int start = lines.indexOf(HEADER) + 2; // after the header and its separator row
     for (int i = start; i < lines.size() && lines.get(i).startsWith("|"); i++) {
       String[] cells = lines.get(i).split("\\|");
-      // cells: "", code, meaning, suspected
+      // cells: "", code, meaning, points at
       assertThat(cells).as(lines.get(i)).hasSize(4);
       assertThat(cells[2].strip()).as("meaning of %s", cells[1]).isNotEmpty();
-      assertThat(cells[3].strip()).as("suspect of %s", cells[1]).isNotEmpty();
+      assertThat(cells[3].strip()).as("what %s points at", cells[1]).isNotEmpty();
       documented.add(cells[1].strip().replace("`", ""));
     }
     assertThat(documented)

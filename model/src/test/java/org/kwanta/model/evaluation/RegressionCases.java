@@ -170,7 +170,7 @@ final class RegressionCases {
             });
     for (int i = 0; i < e.findings().size(); i++) {
       Finding f = e.findings().get(i);
-      out.put("finding." + i, f.code() + "/" + f.suspect());
+      out.put("finding." + i, f.code() + "/" + f.pointsAt());
     }
     return out;
   }

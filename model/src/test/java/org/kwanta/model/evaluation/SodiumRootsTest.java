@@ -110,7 +110,7 @@ class SodiumRootsTest {
   void sodiumMatchingNeitherRootIsAFinding() {
     Evaluation e = Evaluator.DEFAULT.evaluate(DRUM, snapshot(3.82, 4.06, 200));
     assertThat(e.findings())
-        .extracting(Finding::code, Finding::suspect)
+        .extracting(Finding::code, Finding::pointsAt)
         .contains(
             org.assertj.core.groups.Tuple.tuple(
                 ReasonCode.NO_CONSISTENT_COMPOSITION, Instrument.SODIUM));
@@ -121,7 +121,7 @@ class SodiumRootsTest {
   void specificBelowTheDipHasNoConsistentComposition() {
     Evaluation e = Evaluator.DEFAULT.evaluate(DRUM, snapshot(0.9, 4.06, 630));
     assertThat(e.findings())
-        .extracting(Finding::code, Finding::suspect)
+        .extracting(Finding::code, Finding::pointsAt)
         .contains(
             org.assertj.core.groups.Tuple.tuple(
                 ReasonCode.NO_CONSISTENT_COMPOSITION, Instrument.SPECIFIC_CONDUCTIVITY));

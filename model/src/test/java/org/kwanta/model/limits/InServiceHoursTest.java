@@ -10,7 +10,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 
 /**
- * Monthly hours counted only inside given windows (the unit's in-service time). The series is
+ * Monthly hours counted only inside given windows (the block's in-service time). The series is
  * invented; it crosses the recalled condensate cation conductivity thresholds of {@link Profiles}
  * (AL1 &gt; 0.2, AL2 &gt; 0.35 µS/cm, from memory — verify).
  */

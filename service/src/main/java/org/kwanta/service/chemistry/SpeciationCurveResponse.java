@@ -26,15 +26,12 @@ record SpeciationCurveResponse(
       @Schema(example = "300") double temperatureCel,
       @Schema(example = "15") double pressureMPa,
       PressureSource pressureSource,
-      @Schema(example = "5.95") double phAtTemperature,
+      @Schema(description = "pH at temperature with its band over the constant sets")
+          SpeciationResponse.PhAtTemperature phAtTemperature,
       @Schema(example = "5.67") double neutralPh,
       @Schema(example = "0.28") double phMinusNeutral,
       @Schema(example = "11.339") double pKw,
       double ionicStrengthMolPerKg,
-      @Schema(example = "5.89") double bandMinPh,
-      @Schema(example = "6.08") double bandMaxPh,
-      String bandMinConstantSet,
-      String bandMaxConstantSet,
       @Schema(
               description =
                   "true when a constant of the main result (the chosen set) was evaluated outside"
@@ -47,15 +44,11 @@ record SpeciationCurveResponse(
           w.temperatureK() - 273.15,
           w.pressurePa() / 1e6,
           w.pressureSource(),
-          r.ph(),
+          SpeciationResponse.PhAtTemperature.of(r.ph(), band, false),
           r.neutralPh(),
           r.phMinusNeutral(),
           r.pKw(),
           r.ionicStrengthMolPerKg(),
-          band.minPh(),
-          band.maxPh(),
-          band.minSet(),
-          band.maxSet(),
           r.anyExtrapolated());
     }
   }

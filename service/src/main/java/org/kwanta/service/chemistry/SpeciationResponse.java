@@ -1,5 +1,6 @@
 package org.kwanta.service.chemistry;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import io.swagger.v3.oas.annotations.media.Schema;
 import java.util.List;
 import org.kwanta.model.aqueous.ConstantUsed;
@@ -49,8 +50,8 @@ record SpeciationResponse(
               description =
                   "GIVEN, SATURATION, or ATMOSPHERIC_FLOOR (saturation below 0.101325 MPa)")
           PressureSource pressureSource,
-      @Schema(description = "pH at temperature, molal activity scale", example = "5.93")
-          double phAtTemperature,
+      @Schema(description = "pH at temperature (molal activity scale) with its band")
+          PhAtTemperature phAtTemperature,
       @Schema(description = "−log10 Kw at (T, p)", example = "11.594") double pKw,
       @Schema(description = "pKw/2", example = "5.797") double neutralPh,
       @Schema(example = "0.13") double phMinusNeutral,
@@ -61,7 +62,6 @@ record SpeciationResponse(
               description = "pH at 25 °C and 0.101325 MPa of the same water (same totals)",
               example = "9.34")
           double phAt25Cel,
-      Band band,
       List<SpeciesRow> species,
       @Schema(description = "every equilibrium constant used, components present only")
           List<ConstantRow> constants,
@@ -77,7 +77,7 @@ record SpeciationResponse(
           w.temperatureK(),
           w.pressurePa() / 1e6,
           w.pressureSource(),
-          r.ph(),
+          PhAtTemperature.of(r.ph(), report.band(), true),
           r.pKw(),
           r.neutralPh(),
           r.phMinusNeutral(),
@@ -85,7 +85,6 @@ record SpeciationResponse(
           r.hydrogenIonMolality(),
           r.hydroxideMolality(),
           report.at25Celsius().ph(),
-          Band.from(report.band()),
           r.species().stream().map(SpeciesRow::from).toList(),
           r.constants().stream().map(ConstantRow::from).toList(),
           r.notices().stream().sorted().map(NoticeRow::from).toList(),
@@ -93,32 +92,52 @@ record SpeciationResponse(
     }
   }
 
-  /** pH at temperature over the alternative constant sets. */
+  /**
+   * pH at temperature with its band, the one shape of {@code phAtTemperature} in every response
+   * (the evaluation's adds the state it is at; docs/names.md). Here the band is over the
+   * alternative published constant sets ({@code bandFrom} CONSTANT_SETS).
+   *
+   * @param ph pH of the main result (the chosen constant set), molal activity scale
+   * @param low lowest pH over the constant sets
+   * @param high highest pH over the constant sets
+   * @param bandFrom what the band spans: CONSTANT_SETS
+   * @param lowConstantSet the set that gave {@code low}
+   * @param highConstantSet the set that gave {@code high}
+   * @param members every evaluated set (absent from the curve's rows)
+   */
   @Schema(
-      name = "PhBand",
-      description = "pH at temperature over every distinct alternative constant set")
-  record Band(
-      @Schema(example = "5.93") double minPh,
-      @Schema(example = "ammonium-2") String minConstantSet,
-      @Schema(example = "6.13") double maxPh,
-      @Schema(example = "ammonium-3") String maxConstantSet,
-      @Schema(example = "0.20") double widthPh,
+      name = "SpeciationPhAtTemperature",
+      description = "pH at temperature with its band (bandFrom CONSTANT_SETS)")
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  record PhAtTemperature(
+      @Schema(example = "5.945") double ph,
+      @Schema(example = "5.891") double low,
+      @Schema(example = "6.077") double high,
+      @Schema(example = "CONSTANT_SETS") String bandFrom,
+      @Schema(example = "ammonium-2") String lowConstantSet,
+      @Schema(example = "ammonium-3") String highConstantSet,
       List<Member> members) {
+
+    /** What a band over the alternative constant sets is from. */
+    static final String CONSTANT_SETS = "CONSTANT_SETS";
 
     /** One evaluated set. */
     @Schema(name = "PhBandMember")
     record Member(String constantSet, double ph, boolean extrapolated) {}
 
-    static Band from(PhBand b) {
-      return new Band(
+    static PhAtTemperature of(double ph, PhBand b, boolean withMembers) {
+      return new PhAtTemperature(
+          ph,
           b.minPh(),
-          b.minSet(),
           b.maxPh(),
+          CONSTANT_SETS,
+          b.minSet(),
           b.maxSet(),
-          b.width(),
-          b.members().stream()
-              .map(m -> new Member(m.constantSet(), m.ph(), m.extrapolated()))
-              .toList());
+          withMembers
+              ? b.members().stream()
+                  .map(m -> new Member(m.constantSet(), m.ph(), m.extrapolated()))
+                  .toList()
+              : null);
     }
   }
 

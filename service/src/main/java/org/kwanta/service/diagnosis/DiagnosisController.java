@@ -49,7 +49,7 @@ class DiagnosisController {
           + " per the plant declaration (sea water: Millero et al. 2008). Rules:"
           + " docs/diagnosis.md.";
 
-  @GetMapping("/api/v1/sample-points/{samplePointId}/findings")
+  @GetMapping("/api/v1/sample-points/{samplePoint}/findings")
   @Operation(
       summary = "The diagnosis of a sample point over time",
       description =
@@ -59,7 +59,7 @@ class DiagnosisController {
               + " all=true. Computed from the stored evaluations and readings, so the same stored"
               + " data always gives the same answer. Advisory.")
   FindingsOverTime findings(
-      @Parameter(example = "U2-CPD") @PathVariable String samplePointId,
+      @Parameter(example = "U2-CPD") @PathVariable("samplePoint") String samplePointId,
       @RequestParam(required = false) String from,
       @RequestParam(required = false) String to,
       @RequestParam(defaultValue = "false") boolean all) {
@@ -88,7 +88,7 @@ class DiagnosisController {
   /** The answer of a what-if run. */
   record WhatIf(String samplePoint, String method, String caution, List<WhatIfMinuteOut> minutes) {}
 
-  @PostMapping("/api/v1/sample-points/{samplePointId}/diagnosis")
+  @PostMapping("/api/v1/sample-points/{samplePoint}/diagnosis")
   @Operation(
       summary = "Diagnose posted readings (what-if; stores nothing)",
       description =
@@ -98,7 +98,7 @@ class DiagnosisController {
               + " and diagnosed minute by minute; nothing is stored. Baselines need about 2 h of"
               + " readings before a change, full ones 25 h. Advisory.")
   WhatIf whatIf(
-      @Parameter(example = "U2-CPD") @PathVariable String samplePointId,
+      @Parameter(example = "U2-CPD") @PathVariable("samplePoint") String samplePointId,
       @RequestBody IngestRequest body) {
     if (body == null || body.readings() == null) {
       throw ProblemException.of("body must be {\"readings\": [...]}");

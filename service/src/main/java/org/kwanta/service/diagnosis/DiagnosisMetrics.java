@@ -39,7 +39,7 @@ class DiagnosisMetrics {
     this.findings = MultiGauge.builder(m.micrometerName()).description(m.help()).register(registry);
   }
 
-  private record PointRow(String plant, String unit, String id) {}
+  private record PointRow(String plant, String block, String id) {}
 
   @Scheduled(
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",
@@ -47,7 +47,7 @@ class DiagnosisMetrics {
   void refresh() {
     try {
       List<PointRow> points =
-          jdbc.sql("SELECT plant_id, unit_id, id FROM sample_point ORDER BY plant_id, id")
+          jdbc.sql("SELECT plant_id, block_id, id FROM sample_point ORDER BY plant_id, id")
               .query((rs, i) -> new PointRow(rs.getString(1), rs.getString(2), rs.getString(3)))
               .list();
       List<MultiGauge.Row<?>> rows = new ArrayList<>();
@@ -63,10 +63,10 @@ class DiagnosisMetrics {
               MultiGauge.Row.of(
                   Tags.of(
                       MetricNames.PLANT, p.plant(),
-                      MetricNames.UNIT, p.unit(),
+                      MetricNames.BLOCK, p.block(),
                       MetricNames.SAMPLE_POINT, p.id(),
                       MetricNames.CODE, f.code().name(),
-                      MetricNames.POINTS_AT, f.suspect().name().toLowerCase(Locale.ROOT)),
+                      MetricNames.POINTS_AT, f.pointsAt().name().toLowerCase(Locale.ROOT)),
                   1));
         }
       }

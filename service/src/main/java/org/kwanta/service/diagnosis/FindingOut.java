@@ -24,7 +24,7 @@ public record FindingOut(String code, String pointsAt, String explanation, Evide
     Finding.Evidence e = f.evidence();
     return new FindingOut(
         f.code().name(),
-        f.suspect().name().toLowerCase(Locale.ROOT),
+        f.pointsAt().name().toLowerCase(Locale.ROOT),
         f.explanation(),
         e == null
             ? null

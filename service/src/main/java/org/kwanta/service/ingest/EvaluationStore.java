@@ -15,16 +15,16 @@ public class EvaluationStore {
       """
       INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
           cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
-          ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes,
-          suspects, details, evaluated_at)
+          ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes,
+          points_at, details, evaluated_at)
       SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
-             t.pht_high, t.neutral, t.suspect, string_to_array(t.codes, ','), string_to_array(t.suspects, ','),
+             t.pht_high, t.neutral, t.instrument_in_doubt, string_to_array(t.codes, ','), string_to_array(t.points_at, ','),
              t.details, now()
       FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
                   ?::text[], ?::text[])
         AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
-             suspect, codes, suspects, details)
+             instrument_in_doubt, codes, points_at, details)
       ON CONFLICT (sample_point_id, time) DO UPDATE SET
           config_version = EXCLUDED.config_version,
           specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
@@ -35,9 +35,9 @@ public class EvaluationStore {
           ph_at_temperature_low = EXCLUDED.ph_at_temperature_low,
           ph_at_temperature_high = EXCLUDED.ph_at_temperature_high,
           neutral_ph_at_temperature = EXCLUDED.neutral_ph_at_temperature,
-          suspect = EXCLUDED.suspect,
+          instrument_in_doubt = EXCLUDED.instrument_in_doubt,
           finding_codes = EXCLUDED.finding_codes,
-          suspects = EXCLUDED.suspects,
+          points_at = EXCLUDED.points_at,
           details = EXCLUDED.details,
           evaluated_at = now()
         WHERE e.details IS DISTINCT FROM EXCLUDED.details OR e.config_version <> EXCLUDED.config_version""";
@@ -67,9 +67,9 @@ public class EvaluationStore {
     Double[] low = new Double[n];
     Double[] high = new Double[n];
     Double[] neutral = new Double[n];
-    Boolean[] suspect = new Boolean[n];
+    Boolean[] inDoubt = new Boolean[n];
     String[] codes = new String[n];
-    String[] suspects = new String[n];
+    String[] pointsAt = new String[n];
     String[] details = new String[n];
     for (int i = 0; i < n; i++) {
       EvaluationRunner.Result r = results.get(i);
@@ -85,9 +85,9 @@ public class EvaluationStore {
       low[i] = nullIfNaN(col.low());
       high[i] = nullIfNaN(col.high());
       neutral[i] = nullIfNaN(col.neutral());
-      suspect[i] = r.view().suspect();
+      inDoubt[i] = r.view().instrumentInDoubt();
       codes[i] = String.join(",", col.codes());
-      suspects[i] = String.join(",", col.suspects());
+      pointsAt[i] = String.join(",", col.pointsAt());
       details[i] = json.writeValueAsString(r.view());
     }
     jdbc.execute(
@@ -104,9 +104,9 @@ public class EvaluationStore {
             ps.setArray(9, c.createArrayOf("float8", low));
             ps.setArray(10, c.createArrayOf("float8", high));
             ps.setArray(11, c.createArrayOf("float8", neutral));
-            ps.setArray(12, c.createArrayOf("bool", suspect));
+            ps.setArray(12, c.createArrayOf("bool", inDoubt));
             ps.setArray(13, c.createArrayOf("text", codes));
-            ps.setArray(14, c.createArrayOf("text", suspects));
+            ps.setArray(14, c.createArrayOf("text", pointsAt));
             ps.setArray(15, c.createArrayOf("text", details));
             return ps.executeUpdate();
           }
@@ -132,9 +132,9 @@ public class EvaluationStore {
           .float8(col.low())
           .float8(col.high())
           .float8(col.neutral())
-          .bool(r.view().suspect())
+          .bool(r.view().instrumentInDoubt())
           .textArray(col.codes())
-          .textArray(col.suspects())
+          .textArray(col.pointsAt())
           .text(json.writeValueAsBytes(r.view()));
     }
     return rows;
@@ -157,7 +157,7 @@ public class EvaluationStore {
       """
       evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
-          ph_at_temperature_high, neutral_ph_at_temperature, suspect, finding_codes, suspects, details)""";
+          ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes, points_at, details)""";
 
   /** An evaluation's indexed columns; NaN where there is no value (SQL NULL). */
   private record Columns(
@@ -170,7 +170,7 @@ public class EvaluationStore {
       double high,
       double neutral,
       List<String> codes,
-      List<String> suspects) {
+      List<String> pointsAt) {
 
     static Columns of(EvaluationView v) {
       EvaluationView.PhAtTemperature t = v.phAtTemperature();
@@ -184,7 +184,7 @@ public class EvaluationStore {
           t == null ? Double.NaN : finiteOrNaN(t.high()),
           t == null ? Double.NaN : finiteOrNaN(t.neutralPh()),
           v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList(),
-          EvaluationStore.suspects(v));
+          EvaluationStore.pointsAt(v));
     }
   }
 
@@ -200,10 +200,10 @@ public class EvaluationStore {
     return Double.isNaN(v) ? null : v;
   }
 
-  /** The instruments the findings suspect, distinct, sorted. */
-  static List<String> suspects(EvaluationView v) {
+  /** What the findings point at, distinct, sorted. */
+  static List<String> pointsAt(EvaluationView v) {
     return v.findings().stream()
-        .map(EvaluationView.FindingView::suspect)
+        .map(EvaluationView.FindingView::pointsAt)
         .distinct()
         .sorted()
         .toList();

@@ -1,5 +1,7 @@
 package org.kwanta.service.ingest;
 
+import com.fasterxml.jackson.annotation.JsonAlias;
+import io.swagger.v3.oas.annotations.media.Schema;
 import java.util.List;
 import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Evaluation;
@@ -7,7 +9,12 @@ import org.kwanta.model.evaluation.OperatingPh;
 
 /**
  * What the engine derived for one sample point at one time, units in the field names. Stored as
- * JSON beside the evaluation's indexed columns and returned by the API.
+ * JSON beside the evaluation's indexed columns and returned by the API. Rows stored before the
+ * names of issue 18 carry {@code suspect} and {@code rawUSPerCm}; they read back under the new
+ * names.
+ *
+ * @param instrumentInDoubt whether a finding points at an instrument or the sample conditioning
+ *     (not only at the process)
  */
 public record EvaluationView(
     int configVersion,
@@ -16,13 +23,13 @@ public record EvaluationView(
     CalculatedPh calculatedPh,
     PhAtTemperature phAtTemperature,
     List<FindingView> findings,
-    boolean suspect,
+    @JsonAlias("suspect") boolean instrumentInDoubt,
     List<String> notes) {
 
   /** A conductivity referred to 25 °C. */
   public record Compensated(
       String parameter,
-      double rawUSPerCm,
+      @JsonAlias("rawUSPerCm") double asReadUSPerCm,
       Double sampleTemperatureCel,
       double at25USPerCm,
       boolean compensatedByAnalyser,
@@ -64,32 +71,52 @@ public record EvaluationView(
   /**
    * pH at the sample point's operating temperature and pressure, with its band; for a steam sample
    * the pH of its first condensate at the saturation temperature ({@code basis} EARLY_CONDENSATE),
-   * with the assumptions and distribution constants in {@code notes}. {@code
-   * operatingConditionSource}: MEASURED when a recent drum-pressure reading of the point set the
-   * operating state (its value and time in {@code measuredDrumPressureMPa} and {@code measuredAt}),
-   * CONFIGURED when the point's configured state was used (null in evaluations stored before the
-   * field existed: configured).
+   * with the assumptions and distribution constants in {@code notes}. The same {@code ph}, {@code
+   * low}, {@code high}, {@code bandFrom} as the speciation's {@code phAtTemperature}
+   * (docs/names.md), plus the state it is at. Here the band is ± one standard deviation from the
+   * instruments' tolerances ({@code bandFrom} INSTRUMENT_TOLERANCES; rows stored before the field
+   * existed read back with it). {@code operatingConditionSource}: MEASURED when a recent
+   * drum-pressure reading of the point set the operating state (its value and time in {@code
+   * measuredDrumPressureMPa} and {@code measuredAt}), CONFIGURED when the point's configured state
+   * was used (null in evaluations stored before the field existed: configured).
    */
+  @Schema(
+      name = "EvaluationPhAtTemperature",
+      description =
+          "pH at the operating temperature with its band (bandFrom INSTRUMENT_TOLERANCES)")
   public record PhAtTemperature(
       double temperatureCel,
       double pressureMPa,
       double ph,
       double low,
       double high,
+      String bandFrom,
       double neutralPh,
       String formulation,
       String basis,
       List<String> notes,
       String operatingConditionSource,
       Double measuredDrumPressureMPa,
-      java.time.Instant measuredAt) {}
+      java.time.Instant measuredAt) {
 
-  /** A consistency-check result. */
-  public record FindingView(String code, String suspect, String explanation) {}
+    /** What the evaluation's band is from. */
+    public static final String INSTRUMENT_TOLERANCES = "INSTRUMENT_TOLERANCES";
+
+    public PhAtTemperature {
+      bandFrom = bandFrom == null ? INSTRUMENT_TOLERANCES : bandFrom;
+    }
+  }
+
+  /**
+   * A consistency-check result and what it points at (an instrument, the sample conditioning or the
+   * process).
+   */
+  public record FindingView(
+      String code, @JsonAlias("suspect") String pointsAt, String explanation) {}
 
   static final String FORMULATION =
       "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
-          + " band over the alternative constant sets";
+          + " band of ± one standard deviation from the instruments' tolerances";
 
   static final String FORMULATION_EARLY_CONDENSATE =
       "First condensate of the steam at the saturation temperature: vapour-liquid distribution"
@@ -152,6 +179,7 @@ public record EvaluationView(
                         o.ph(),
                         o.low(),
                         o.high(),
+                        PhAtTemperature.INSTRUMENT_TOLERANCES,
                         o.neutralPh(),
                         o.basis() == OperatingPh.Basis.EARLY_CONDENSATE
                             ? FORMULATION_EARLY_CONDENSATE
@@ -164,9 +192,10 @@ public record EvaluationView(
             .orElse(null);
     List<FindingView> findings =
         e.findings().stream()
-            .map(f -> new FindingView(f.code().name(), f.suspect().name(), f.explanation()))
+            .map(f -> new FindingView(f.code().name(), f.pointsAt().name(), f.explanation()))
             .toList();
-    boolean suspect = e.findings().stream().anyMatch(f -> f.suspect() != Instrument.PROCESS);
+    boolean instrumentInDoubt =
+        e.findings().stream().anyMatch(f -> f.pointsAt() != Instrument.PROCESS);
     List<String> allNotes = notes;
     if (!e.notes().isEmpty()) {
       allNotes = new java.util.ArrayList<>(notes);
@@ -179,7 +208,7 @@ public record EvaluationView(
         calculated,
         operating,
         findings,
-        suspect,
+        instrumentInDoubt,
         List.copyOf(allNotes));
   }
 

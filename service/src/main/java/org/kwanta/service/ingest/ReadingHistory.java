@@ -64,7 +64,7 @@ public class ReadingHistory {
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)),
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)) FILTER (
                WHERE r.quality = 0
-                 AND NOT coalesce(e.suspects && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false))
+                 AND NOT coalesce(e.points_at && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false))
       FROM reading r
       LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
                             AND e.time >= ? AND e.time < ?
@@ -153,12 +153,12 @@ public class ReadingHistory {
            SELECT r.sample_point_id, r.time, r.value FROM reading r
            WHERE r.sample_point_id = s.id AND r.parameter = ? AND r.quality < 2 AND r.time <= ?
            ORDER BY r.time DESC LIMIT 1) x
-         WHERE s.plant_id = ? AND s.unit_id = ?
+         WHERE s.plant_id = ? AND s.block_id = ?
          ORDER BY x.time DESC, x.sample_point_id DESC LIMIT 1)
         UNION ALL
         (SELECT r.sample_point_id, r.time, r.value FROM reading r
          JOIN sample_point s ON s.id = r.sample_point_id
-         WHERE s.plant_id = ? AND s.unit_id = ? AND r.parameter = ? AND r.quality < 2
+         WHERE s.plant_id = ? AND s.block_id = ? AND r.parameter = ? AND r.quality < 2
            AND r.time > ? AND r.time < ?)
         ORDER BY 2, 1""",
         (rs, i) ->
@@ -274,9 +274,9 @@ public class ReadingHistory {
       """
       SELECT r.time, r.value,
              r.quality = 2
-               OR coalesce(e.suspects && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
+               OR coalesce(e.points_at && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
              e.calculated_ph_25,
-             coalesce('PH' = ANY(e.suspects), false)
+             coalesce('PH' = ANY(e.points_at), false)
       FROM reading r
       LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
                             AND e.time >= ? AND e.time <= ?
@@ -286,12 +286,17 @@ public class ReadingHistory {
   /**
    * A stored reading with what its evaluation says about it.
    *
-   * @param inDoubt bad quality, or its instrument (or the sample conditioning) suspected
+   * @param inDoubt bad quality, or its instrument (or the sample conditioning) pointed at by the
+   *     evaluation
    * @param calculatedPh25 the evaluation's calculated pH at 25 °C, or null
-   * @param phSuspected the evaluation suspects the pH electrode
+   * @param phElectrodeInDoubt the evaluation points at the pH electrode
    */
   public record Judged(
-      Instant time, double value, boolean inDoubt, Double calculatedPh25, boolean phSuspected) {}
+      Instant time,
+      double value,
+      boolean inDoubt,
+      Double calculatedPh25,
+      boolean phElectrodeInDoubt) {}
 
   /**
    * A point's readings of one parameter over [from, to], oldest first, each judged by the

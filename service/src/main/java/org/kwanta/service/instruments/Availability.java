@@ -31,16 +31,17 @@ import org.springframework.stereotype.Service;
  * </pre>
  *
  * A reading is good when its quality is "good" (not uncertain, not bad); it is in doubt when the
- * stored evaluation at its time suspects its own instrument or the sample conditioning (as {@code
- * limits/ExcursionFinder} reads it). A slot is in service when its start lies in the unit's
+ * stored evaluation at its time points at its own instrument or the sample conditioning (as {@code
+ * limits/ExcursionFinder} reads it). A slot is in service when its start lies in the block's
  * in-service windows ({@link ServiceTime#counted()}).
  *
  * <p>The core instruments are the key online measurements of IAPWS TGD2-09(2015) as recalled (from
  * memory — verify): specific, cation and degassed cation conductivity, pH, sodium and dissolved
  * oxygen, at the sample points that declare them or that hold readings of them in the period.
  *
- * <p>One SQL statement per unit ({@link ReadingHistory#slotCounts}), bounded in time on both {@code
- * reading} and {@code evaluation} so that PostgreSQL prunes their daily partitions to the period.
+ * <p>One SQL statement per block ({@link ReadingHistory#slotCounts}), bounded in time on both
+ * {@code reading} and {@code evaluation} so that PostgreSQL prunes their daily partitions to the
+ * period.
  */
 @Service
 public class Availability {
@@ -58,7 +59,7 @@ public class Availability {
   /** One core instrument's counts over the period. */
   public record Instrument(
       String samplePoint,
-      String unit,
+      String block,
       Parameter parameter,
       long slotsInService,
       long slotsWithData,
@@ -96,24 +97,24 @@ public class Availability {
   public List<Instrument> of(String plant, Instant from, Instant to) {
     Duration slot = properties.slot();
     String interval = slot.toSeconds() + " seconds";
-    Map<String, List<String[]>> pointsByUnit = new TreeMap<>();
+    Map<String, List<String[]>> pointsByBlock = new TreeMap<>();
     jdbc.sql(
-            "SELECT unit_id, id, array_to_string(parameters, ',') FROM sample_point"
-                + " WHERE plant_id = ? ORDER BY unit_id, id")
+            "SELECT block_id, id, array_to_string(parameters, ',') FROM sample_point"
+                + " WHERE plant_id = ? ORDER BY block_id, id")
         .param(plant)
         .query((rs, i) -> new String[] {rs.getString(1), rs.getString(2), rs.getString(3)})
         .list()
-        .forEach(r -> pointsByUnit.computeIfAbsent(r[0], u -> new ArrayList<>()).add(r));
+        .forEach(r -> pointsByBlock.computeIfAbsent(r[0], u -> new ArrayList<>()).add(r));
     List<Instrument> out = new ArrayList<>();
     String core = CORE.stream().map(Parameter::code).collect(Collectors.joining(","));
-    for (Map.Entry<String, List<String[]>> unit : pointsByUnit.entrySet()) {
-      ServiceTime service = states.serviceTime(plant, unit.getKey(), from, to);
+    for (Map.Entry<String, List<String[]>> block : pointsByBlock.entrySet()) {
+      ServiceTime service = states.serviceTime(plant, block.getKey(), from, to);
       long inServiceSlots = slotsInService(service, from, to, slot);
-      String points = unit.getValue().stream().map(r -> r[1]).collect(Collectors.joining(","));
+      String points = block.getValue().stream().map(r -> r[1]).collect(Collectors.joining(","));
       Map<String, long[]> counts = new LinkedHashMap<>();
       counts.putAll(
           readings.slotCounts(points, core, from, to, interval, multirange(service.counted())));
-      for (String[] point : unit.getValue()) {
+      for (String[] point : block.getValue()) {
         for (Parameter p : CORE) {
           long[] c = counts.get(point[1] + "|" + p.code());
           boolean declared = point[2] != null && List.of(point[2].split(",")).contains(p.code());
@@ -123,7 +124,7 @@ public class Availability {
           out.add(
               new Instrument(
                   point[1],
-                  unit.getKey(),
+                  block.getKey(),
                   p,
                   inServiceSlots,
                   c == null ? 0 : c[0],

@@ -22,7 +22,7 @@ import org.springframework.stereotype.Service;
  * <p>{@code deviation = online − grab}; within tolerance when {@code |deviation| ≤ max(absolute,
  * relative × grab)}. A result below its detection limit L agrees when {@code online ≤ L +
  * tolerance(L)} (the deviation is then reported against L). The instrument was in doubt before the
- * grab when the stored evaluation at the online reading suspected it (or the sample conditioning),
+ * grab when the stored evaluation at the online reading pointed at it (or the sample conditioning),
  * or when its last logged check before the grab had FAILED.
  *
  * <p>Every comparison made when a result is entered is logged in the instrument's history ({@link

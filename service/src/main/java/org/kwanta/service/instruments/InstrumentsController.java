@@ -251,7 +251,7 @@ class InstrumentsController {
   /** One core instrument's availability in the month. */
   record AvailabilityResponse(
       String samplePoint,
-      String unit,
+      String block,
       String parameter,
       long slotSeconds,
       long slotsInService,
@@ -263,7 +263,7 @@ class InstrumentsController {
     static AvailabilityResponse from(Availability.Instrument i) {
       return new AvailabilityResponse(
           i.samplePoint(),
-          i.unit(),
+          i.block(),
           i.parameter().code(),
           i.slot().toSeconds(),
           i.slotsInService(),
@@ -276,7 +276,7 @@ class InstrumentsController {
   }
 
   static final String COUNTING =
-      "slots of in-service time (IN_SERVICE and time before the unit's first recorded state)";
+      "slots of in-service time (IN_SERVICE and time before the block's first recorded state)";
 
   @GetMapping("/api/v1/plants/{plant}/instrument-availability")
   @Operation(

@@ -33,11 +33,11 @@ import org.springframework.stereotype.Service;
  * the readings arrived in.
  *
  * <p>Every value is classified at its level. Its instrument is in doubt when its reading has
- * quality "bad", or when the evaluation at that time suspects the parameter's own instrument or the
- * sample conditioning; the doubt is carried beside the level and never changes it.
+ * quality "bad", or when the evaluation at that time points at the parameter's own instrument or
+ * the sample conditioning; the doubt is carried beside the level and never changes it.
  *
  * <p>Drum water pH fallback: for pH at a DRUM_WATER sample point, when the evaluation at that time
- * suspects the pH electrode and has a pH at 25 °C calculated from the conductivities, that
+ * points at the pH electrode and has a pH at 25 °C calculated from the conductivities, that
  * calculated pH is classified in place of the measured one (marked as calculated, and in doubt).
  * Without a calculated pH the measured value is classified, in doubt.
  */
@@ -99,8 +99,8 @@ public class ExcursionFinder {
    * An excursion at one sample point and parameter, with its acknowledgements, oldest first.
    *
    * @param limits the limits in force at the excursion's start (on the basis asked for)
-   * @param inService the part of the excursion (up to now, when running) that fell in time the unit
-   *     was in service ({@link ServiceTime#counted()}): excursion hours count only this
+   * @param inService the part of the excursion (up to now, when running) that fell in time the
+   *     block was in service ({@link ServiceTime#counted()}): excursion hours count only this
    */
   public record Found(
       Limits.Effective limits,
@@ -148,7 +148,7 @@ public class ExcursionFinder {
       boolean phFallback =
           limits.at(r.time()).map(p -> usesCalculatedPhFallback(p.key())).orElse(false);
       samples.add(
-          phFallback && r.phSuspected() && r.calculatedPh25() != null
+          phFallback && r.phElectrodeInDoubt() && r.calculatedPh25() != null
               ? new Sample(r.time(), r.calculatedPh25(), true, true)
               : new Sample(r.time(), r.value(), r.inDoubt(), false));
     }
@@ -174,7 +174,7 @@ public class ExcursionFinder {
     for (Limits.Point point : limits.points(filter.plant(), filter.samplePoint())) {
       Map<String, List<Acknowledgement>> acks = acknowledgements(point.id());
       ServiceTime service =
-          states.serviceTime(point.plant(), point.unit(), from.minus(LOOKBACK), to);
+          states.serviceTime(point.plant(), point.block(), from.minus(LOOKBACK), to);
       for (Map.Entry<Parameter, Limits.History> entry : histories(point, basis, now).entrySet()) {
         Parameter parameter = entry.getKey();
         if (filter.parameter() != null && filter.parameter() != parameter) {

@@ -19,12 +19,13 @@ import java.util.Locale;
  * basis. {@code acknowledgements} is the whole history, oldest first; {@code acknowledgedAt},
  * {@code acknowledgedBy} (the key's name), {@code acknowledgedByKeyId} and {@code
  * acknowledgementNote} repeat the latest. {@code inServiceSeconds} is the part of {@code
- * durationSeconds} (up to now, for a running excursion) that fell in time the unit was in service:
- * excursion hours count only that (time before a unit's first recorded state counts as in service).
+ * durationSeconds} (up to now, for a running excursion) that fell in time the block was in service:
+ * excursion hours count only that (time before a block's first recorded state counts as in
+ * service).
  */
 public record ExcursionResponse(
     String plant,
-    String unit,
+    String block,
     String samplePoint,
     String parameter,
     String valueUnit,
@@ -70,7 +71,7 @@ public record ExcursionResponse(
     var ack = f.acknowledgement();
     return new ExcursionResponse(
         p.plant(),
-        p.unit(),
+        p.block(),
         p.id(),
         parameter.code(),
         parameter.unit(),
@@ -104,7 +105,7 @@ public record ExcursionResponse(
   }
 
   static final String CSV_HEADER =
-      "plant,unit,sample_point,parameter,value_unit,limits_origin,start,end,open,side,peak_value,"
+      "plant,block,sample_point,parameter,value_unit,limits_origin,start,end,open,side,peak_value,"
           + "peak_time,highest_level,current_level,duration_s,allowance_s,deadline,"
           + "time_remaining_s,allowance_exceeded,samples,in_doubt_samples,in_doubt_fraction,"
           + "calculated_samples,acknowledged_at,acknowledged_by,"
@@ -115,7 +116,7 @@ public record ExcursionResponse(
     return String.join(
             ",",
             csv(plant),
-            csv(unit),
+            csv(block),
             csv(samplePoint),
             csv(parameter),
             csv(valueUnit),

@@ -120,8 +120,8 @@ class ExcursionsController {
       summary = "Cumulative hours per action level per calendar month (UTC)",
       description =
           "NORMAL, AL1, AL2, AL3, SHUTDOWN; time outside the normal range but below AL1 counts as"
-              + " NORMAL here (it is not excursion time). Only time the unit was in service counts"
-              + " (time=in-service, the default: IN_SERVICE time and time before the unit's first"
+              + " NORMAL here (it is not excursion time). Only time the block was in service counts"
+              + " (time=in-service, the default: IN_SERVICE time and time before the block's first"
               + " recorded state); time=all counts every hour. Each row and the header"
               + " Kwanta-Time-Counted say which. Example:"
               + " ?samplePoint=U2-CPD&parameter=cation_conductivity")
@@ -152,7 +152,7 @@ class ExcursionsController {
         Excursions.monthlyHours(
             classified,
             end,
-            all ? null : states.serviceTime(point.plant(), point.unit(), start, end).counted());
+            all ? null : states.serviceTime(point.plant(), point.block(), start, end).counted());
     String counted = all ? "all" : "in-service";
     return ResponseEntity.ok()
         .header(BASIS_HEADER, b.code())
@@ -167,14 +167,13 @@ class ExcursionsController {
   }
 
   /**
-   * An acknowledgement by a chemist. {@code by} is accepted for compatibility with earlier clients
-   * and ignored: who acknowledged is the API key of the request.
+   * An acknowledgement by a chemist. Who acknowledged is the API key of the request, never the
+   * body: a {@code by} field is an unknown field, refused with 400 like any other.
    */
   record AcknowledgementRequest(
       @NotBlank @Size(max = 64) String samplePoint,
       @NotBlank @Size(max = 64) String parameter,
       @NotNull Instant start,
-      @Size(max = 200) String by,
       @NotBlank @Size(max = 4000) String note) {}
 
   @PostMapping("/acknowledgements")
@@ -183,7 +182,7 @@ class ExcursionsController {
       description =
           "The excursion (as reported) is named by sample point, parameter and its start time."
               + " Every acknowledgement is kept; who made it is the API key of the request (a"
-              + " 'by' in the body is ignored).")
+              + " 'by' in the body is refused with 400).")
   ResponseEntity<Map<String, Object>> acknowledge(@Valid @RequestBody AcknowledgementRequest r) {
     Parameter parameter = WebLookups.parameter(r.parameter());
     Limits.Point point = WebLookups.point(limits, r.samplePoint());

@@ -55,7 +55,7 @@ public class Limits {
   public record Point(
       String id,
       String plant,
-      String unit,
+      String block,
       String cycleLocation,
       String treatmentRegime,
       PlantType plantType,
@@ -87,19 +87,19 @@ public class Limits {
 
     /** A point of a plant that declares no plant type (a conventional drum plant). */
     public Point(
-        String id, String plant, String unit, String cycleLocation, String treatmentRegime) {
-      this(id, plant, unit, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
+        String id, String plant, String block, String cycleLocation, String treatmentRegime) {
+      this(id, plant, block, cycleLocation, treatmentRegime, PlantType.CONVENTIONAL_DRUM);
     }
 
     /** A point without operating conditions. */
     public Point(
         String id,
         String plant,
-        String unit,
+        String block,
         String cycleLocation,
         String treatmentRegime,
         PlantType plantType) {
-      this(id, plant, unit, cycleLocation, treatmentRegime, plantType, null, null);
+      this(id, plant, block, cycleLocation, treatmentRegime, plantType, null, null);
     }
 
     /**
@@ -126,10 +126,10 @@ public class Limits {
     }
 
     static Optional<LimitKey> key(String regime, String location, Parameter parameter) {
+      // the trade form (AVT(O)) and the constant's name (AVT_O) both find the regime's limits
+      Optional<TreatmentRegime> r = TreatmentRegime.ofCode(regime);
       try {
-        return Optional.of(
-            new LimitKey(
-                TreatmentRegime.valueOf(regime), CycleLocation.valueOf(location), parameter));
+        return r.map(t -> new LimitKey(t, CycleLocation.valueOf(location), parameter));
       } catch (IllegalArgumentException | NullPointerException e) {
         return Optional.empty();
       }
@@ -173,7 +173,7 @@ public class Limits {
   public List<Point> points(String plant, String samplePoint) {
     return jdbc.sql(
             """
-            SELECT s.id, s.plant_id, s.unit_id, s.cycle_location, s.treatment_regime, p.plant_type,
+            SELECT s.id, s.plant_id, s.block_id, s.cycle_location, s.treatment_regime, p.plant_type,
                    s.operating_temperature_cel, s.operating_pressure_mpa, p.cooling_water
             FROM sample_point s JOIN plant p ON p.id = s.plant_id
             WHERE (?::text IS NULL OR s.plant_id = ?) AND (?::text IS NULL OR s.id = ?)

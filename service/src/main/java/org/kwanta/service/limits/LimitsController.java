@@ -45,8 +45,8 @@ class LimitsController {
 
   /** A profile as shown in the API, with where it comes from and its version. */
   record ProfileResponse(
-      String regime,
-      String location,
+      String treatmentRegime,
+      String cycleLocation,
       String origin,
       int version,
       Instant effectiveFrom,
@@ -54,7 +54,7 @@ class LimitsController {
       LimitDocument limits) {
     static ProfileResponse of(LimitProfile p, String origin, int version, Instant effectiveFrom) {
       return new ProfileResponse(
-          p.key().regime().name(),
+          p.key().regime().code(),
           p.key().location().name(),
           origin,
           version,
@@ -136,9 +136,9 @@ class LimitsController {
     return out;
   }
 
-  @GetMapping("/sample-points/{id}/limits")
+  @GetMapping("/sample-points/{samplePoint}/limits")
   @Operation(summary = "The limits in force now at a sample point, per parameter (example: U2-CPD)")
-  List<ProfileResponse> inForce(@PathVariable String id) {
+  List<ProfileResponse> inForce(@PathVariable("samplePoint") String id) {
     return limits.inForce(WebLookups.point(limits, id)).stream().map(ProfileResponse::of).toList();
   }
 
@@ -160,14 +160,14 @@ class LimitsController {
       List<PeriodResponse> periods,
       List<VersionResponse> versions) {}
 
-  @GetMapping("/sample-points/{id}/limits/{parameter}/history")
+  @GetMapping("/sample-points/{samplePoint}/limits/{parameter}/history")
   @Operation(
       summary = "The limits of a parameter at a sample point over time",
       description =
           "periods: which limits were in force from when (the plant's own version, or the"
               + " shipped defaults' version for the regime the point had then; from null ="
               + " always before); versions: every stored version of the plant's own limits.")
-  HistoryResponse history(@PathVariable String id, @PathVariable String parameter) {
+  HistoryResponse history(@PathVariable("samplePoint") String id, @PathVariable String parameter) {
     Limits.Point point = WebLookups.point(limits, id);
     Parameter p = WebLookups.parameter(parameter);
     return new HistoryResponse(
@@ -194,7 +194,7 @@ class LimitsController {
             .toList());
   }
 
-  @PutMapping("/sample-points/{id}/limits/{parameter}")
+  @PutMapping("/sample-points/{samplePoint}/limits/{parameter}")
   @Operation(
       summary = "Set the plant's own limits for a parameter at a sample point (a new version)",
       description =
@@ -205,7 +205,7 @@ class LimitsController {
               + " admin key and a reason; a chemist key always gives a reason. Who set it is the"
               + " API key of the request.")
   ProfileResponse override(
-      @PathVariable String id,
+      @PathVariable("samplePoint") String id,
       @PathVariable String parameter,
       @RequestBody LimitDocument body,
       @RequestParam(required = false) String effectiveFrom,
@@ -230,14 +230,14 @@ class LimitsController {
     }
   }
 
-  @DeleteMapping("/sample-points/{id}/limits/{parameter}")
+  @DeleteMapping("/sample-points/{samplePoint}/limits/{parameter}")
   @Operation(
       summary = "Withdraw the plant's own limits (the default applies again from then on)",
       description =
           "Adds a version that withdraws them from effectiveFrom (default now; a past time needs"
               + " an admin key and a reason); the earlier versions stay in force before it.")
   ResponseEntity<Map<String, Object>> remove(
-      @PathVariable String id,
+      @PathVariable("samplePoint") String id,
       @PathVariable String parameter,
       @RequestParam(required = false) String effectiveFrom,
       @RequestParam(required = false) String reason) {

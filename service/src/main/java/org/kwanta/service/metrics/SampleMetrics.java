@@ -131,7 +131,7 @@ class SampleMetrics {
       Tags pointTags =
           Tags.of(
               MetricNames.PLANT, point.plant(),
-              MetricNames.UNIT, point.unit(),
+              MetricNames.BLOCK, point.block(),
               MetricNames.SAMPLE_POINT, point.id());
       if (ph.containsKey(point.id())) {
         phs.add(MultiGauge.Row.of(pointTags, ph.get(point.id())));

@@ -19,10 +19,10 @@ import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.dataformat.yaml.YAMLMapper;
 
 /**
- * Start-up hold points: values a sample must reach before the unit takes the next start-up step,
+ * Start-up hold points: values a sample must reach before the block takes the next start-up step,
  * each with its source, read from a file ({@link StartupProperties}). {@link #check} reports each
- * one as met, not met, or without data, from the latest good reading of the unit's sample points at
- * the hold point's cycle locations within {@link #RECENT} before the time asked.
+ * one as met, not met, or without data, from the latest good reading of the block's sample points
+ * at the hold point's cycle locations within {@link #RECENT} before the time asked.
  */
 @Service
 public class HoldPoints {
@@ -111,20 +111,20 @@ public class HoldPoints {
     return holdPoints;
   }
 
-  /** Every hold point at every sample point of the unit it applies to, judged at {@code at}. */
-  public List<Result> check(String plant, String unit, Instant at) {
+  /** Every hold point at every sample point of the block it applies to, judged at {@code at}. */
+  public List<Result> check(String plant, String block, Instant at) {
     List<Result> out = new ArrayList<>();
     for (HoldPoint h : holdPoints) {
       List<String> points =
           jdbc.sql(
                   """
                   SELECT id FROM sample_point
-                  WHERE plant_id = ? AND unit_id = ?
+                  WHERE plant_id = ? AND block_id = ?
                     AND cycle_location = ANY(string_to_array(?, ','))
                   ORDER BY id""")
               .params(
                   plant,
-                  unit,
+                  block,
                   String.join(",", h.cycleLocations().stream().map(Enum::name).toList()))
               .query(String.class)
               .list();

@@ -1,8 +1,8 @@
 package org.kwanta.service.operatingstate;
 
 /**
- * What a plant unit is doing, as a chemist records it. Only {@link #IN_SERVICE} time counts towards
- * excursion hours, monthly hours per level and instrument availability.
+ * What a plant block is doing, as a chemist records it. Only {@link #IN_SERVICE} time counts
+ * towards excursion hours, monthly hours per level and instrument availability.
  */
 public enum OperatingState {
   /** Generating (or producing steam) in normal operation. */

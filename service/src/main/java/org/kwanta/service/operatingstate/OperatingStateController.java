@@ -24,15 +24,15 @@ import org.springframework.web.bind.annotation.ResponseStatus;
 import org.springframework.web.bind.annotation.RestController;
 
 @RestController
-@RequestMapping("/api/v1/plants/{plant}/units/{unit}")
+@RequestMapping("/api/v1/plants/{plant}/blocks/{block}")
 @Tag(
     name = "Operating state",
     description =
-        "What a unit was doing (IN_SERVICE, START_UP, SHUT_DOWN, LAYUP_WET, LAYUP_DRY), entered by a"
+        "What a block was doing (IN_SERVICE, START_UP, SHUT_DOWN, LAYUP_WET, LAYUP_DRY), entered by a"
             + " chemist (append-only) or sent by the historian as the reading operating_state (codes"
             + " 1-5 in that order) at any sample point of the block; at the same instant the chemist"
             + " wins, and each span of the timeline names its source. Only in-service time counts towards excursion hours, hours per"
-            + " level and instrument availability; time before a unit's first recorded state counts"
+            + " level and instrument availability; time before a block's first recorded state counts"
             + " as in service. Start-up hold points are examples recalled from IAPWS guidance (from"
             + " memory — verify); the plant's start-up procedure governs.")
 class OperatingStateController {
@@ -47,7 +47,7 @@ class OperatingStateController {
     this.clock = clock;
   }
 
-  /** A state the unit entered at {@code since}. */
+  /** A state the block entered at {@code since}. */
   record StateRequest(
       @NotNull OperatingState state,
       @NotNull Instant since,
@@ -57,7 +57,7 @@ class OperatingStateController {
   record EntryResponse(
       long id,
       String plant,
-      String unit,
+      String block,
       OperatingState state,
       Instant since,
       String note,
@@ -68,7 +68,7 @@ class OperatingStateController {
       return new EntryResponse(
           e.id(),
           e.plant(),
-          e.unit(),
+          e.block(),
           e.state(),
           e.since(),
           e.note(),
@@ -87,7 +87,7 @@ class OperatingStateController {
 
   record TimelineResponse(
       String plant,
-      String unit,
+      String block,
       Instant from,
       Instant to,
       List<SpanResponse> timeline,
@@ -100,31 +100,31 @@ class OperatingStateController {
   @PostMapping("/operating-states")
   @ResponseStatus(HttpStatus.CREATED)
   @Operation(
-      summary = "Record the state a unit entered (chemist)",
+      summary = "Record the state a block entered (chemist)",
       description =
           "Body: {\"state\":\"START_UP\",\"since\":\"2026-04-12T00:00:00Z\",\"note\":\"...\"}."
               + " Appended, never overwritten: a second entry with the same since corrects the"
               + " first. Audited.")
   EntryResponse record(
-      @PathVariable String plant, @PathVariable String unit, @Valid @RequestBody StateRequest r) {
-    requireUnit(plant, unit);
+      @PathVariable String plant, @PathVariable String block, @Valid @RequestBody StateRequest r) {
+    requireBlock(plant, block);
     if (r.since().isAfter(clock.instant().plus(Duration.ofMinutes(5)))) {
       throw ProblemException.of("since " + r.since() + " lies in the future");
     }
     Actor by = Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
-    return EntryResponse.from(states.record(plant, unit, r.state(), r.since(), r.note(), by));
+    return EntryResponse.from(states.record(plant, block, r.state(), r.since(), r.note(), by));
   }
 
   @GetMapping("/operating-states")
   @Operation(
-      summary = "A unit's states over [from, to) and every entry",
+      summary = "A block's states over [from, to) and every entry",
       description = "from/to ISO 8601 (default the last 31 days).")
   TimelineResponse timeline(
       @PathVariable String plant,
-      @PathVariable String unit,
+      @PathVariable String block,
       @RequestParam(required = false) String from,
       @RequestParam(required = false) String to) {
-    requireUnit(plant, unit);
+    requireBlock(plant, block);
     Instant end = TimeParameters.instant("to", to);
     end = end == null ? clock.instant() : end;
     Instant start = TimeParameters.instant("from", from);
@@ -132,12 +132,12 @@ class OperatingStateController {
     if (!start.isBefore(end)) {
       throw ProblemException.of("from must lie before to");
     }
-    ServiceTime t = states.serviceTime(plant, unit, start, end);
+    ServiceTime t = states.serviceTime(plant, block, start, end);
     Map<String, Double> byState = new TreeMap<>();
     t.byState().forEach((s, d) -> byState.put(s.name(), hours(d)));
     return new TimelineResponse(
         plant,
-        unit,
+        block,
         start,
         end,
         t.spans().stream()
@@ -154,7 +154,7 @@ class OperatingStateController {
         hours(t.unrecorded()),
         hours(t.inService()),
         COUNTING,
-        states.entries(plant, unit).stream().map(EntryResponse::from).toList());
+        states.entries(plant, block).stream().map(EntryResponse::from).toList());
   }
 
   /** One hold point judged at one sample point. */
@@ -195,7 +195,7 @@ class OperatingStateController {
 
   record HoldPointsResponse(
       String plant,
-      String unit,
+      String block,
       Instant at,
       OperatingState state,
       long recentSeconds,
@@ -206,37 +206,37 @@ class OperatingStateController {
   @Operation(
       summary = "Start-up hold points, met or not, at a time (default now)",
       description =
-          "Each hold point at each of the unit's sample points it applies to: the latest reading"
+          "Each hold point at each of the block's sample points it applies to: the latest reading"
               + " (quality not bad) within the last 30 minutes before `at`, MET, NOT_MET or NO_DATA,"
               + " with the hold point's source.")
   HoldPointsResponse holdPoints(
       @PathVariable String plant,
-      @PathVariable String unit,
+      @PathVariable String block,
       @RequestParam(required = false) String at) {
-    requireUnit(plant, unit);
+    requireBlock(plant, block);
     Instant when = TimeParameters.instant("at", at);
     when = when == null ? clock.instant() : when;
     return new HoldPointsResponse(
         plant,
-        unit,
+        block,
         when,
-        states.stateAt(plant, unit, when).orElse(null),
+        states.stateAt(plant, block, when).orElse(null),
         HoldPoints.RECENT.toSeconds(),
         ADVISORY,
-        holdPoints.check(plant, unit, when).stream().map(HoldPointResponse::from).toList());
+        holdPoints.check(plant, block, when).stream().map(HoldPointResponse::from).toList());
   }
 
   /** How hours are counted, said in every response that counts them. */
   static final String COUNTING =
-      "in service: IN_SERVICE time and time before the unit's first recorded state";
+      "in service: IN_SERVICE time and time before the block's first recorded state";
 
   static final String ADVISORY =
       "Advisory. Example hold points recalled from IAPWS guidance (from memory — verify); the"
           + " plant's start-up procedure governs.";
 
-  private void requireUnit(String plant, String unit) {
-    if (!states.unitExists(plant, unit)) {
-      throw ProblemException.notFound("unit", plant + "/" + unit);
+  private void requireBlock(String plant, String block) {
+    if (!states.blockExists(plant, block)) {
+      throw ProblemException.notFound("block", plant + "/" + block);
     }
   }
 

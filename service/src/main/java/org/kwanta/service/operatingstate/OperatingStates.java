@@ -20,8 +20,8 @@ import org.springframework.stereotype.Repository;
 import org.springframework.transaction.annotation.Transactional;
 
 /**
- * The operating-state record of plant units (table {@code unit_operating_state}, append-only): what
- * a chemist entered, and the timeline it makes together with the historian's {@code
+ * The operating-state record of plant blocks (table {@code block_operating_state}, append-only):
+ * what a chemist entered, and the timeline it makes together with the historian's {@code
  * operating_state} readings of the block's sample points. The state at a time is that of the entry
  * with the latest {@code since} not after it; of entries with the same {@code since}, the latest
  * entered wins (a correction).
@@ -33,7 +33,7 @@ public class OperatingStates {
   public record Entry(
       long id,
       String plant,
-      String unit,
+      String block,
       OperatingState state,
       Instant since,
       String note,
@@ -54,10 +54,10 @@ public class OperatingStates {
     this.readings = readings;
   }
 
-  /** Whether the plant has this unit. */
-  public boolean unitExists(String plant, String unit) {
-    return jdbc.sql("SELECT count(*) FROM plant_unit WHERE plant_id = ? AND id = ?")
-            .params(plant, unit)
+  /** Whether the plant has this block. */
+  public boolean blockExists(String plant, String block) {
+    return jdbc.sql("SELECT count(*) FROM plant_block WHERE plant_id = ? AND id = ?")
+            .params(plant, block)
             .query(Integer.class)
             .single()
         > 0;
@@ -66,32 +66,34 @@ public class OperatingStates {
   /** Appends an entry and its audit event in one transaction. */
   @Transactional
   public Entry record(
-      String plant, String unit, OperatingState state, Instant since, String note, Actor by) {
-    Optional<OperatingState> before = stateAt(plant, unit, since);
+      String plant, String block, OperatingState state, Instant since, String note, Actor by) {
+    Optional<OperatingState> before = stateAt(plant, block, since);
     long id =
         jdbc.sql(
                 """
-                INSERT INTO unit_operating_state (plant_id, unit_id, state, since, note, key_id, key_name)
+                INSERT INTO block_operating_state (plant_id, block_id, state, since, note, key_id, key_name)
                 VALUES (?, ?, ?, ?, ?, ?, ?) RETURNING id""")
             .params(
-                plant, unit, state.name(), Timestamp.from(since), note, by.keyId(), by.keyName())
+                plant, block, state.name(), Timestamp.from(since), note, by.keyId(), by.keyName())
             .query(Long.class)
             .single();
-    Entry entry = entries(plant, unit).stream().filter(e -> e.id() == id).findFirst().orElseThrow();
+    Entry entry =
+        entries(plant, block).stream().filter(e -> e.id() == id).findFirst().orElseThrow();
     Map<String, Object> was = new LinkedHashMap<>();
     was.put("since", since);
     was.put("state", before.orElse(null));
-    audit.record("operating-state.record", "unit-operating-state", plant + "/" + unit, was, entry);
+    audit.record(
+        "operating-state.record", "block-operating-state", plant + "/" + block, was, entry);
     return entry;
   }
 
-  /** Every entry of a unit, by {@code since} then by entry order. */
-  public List<Entry> entries(String plant, String unit) {
+  /** Every entry of a block, by {@code since} then by entry order. */
+  public List<Entry> entries(String plant, String block) {
     return jdbc.sql(
             """
-            SELECT id, plant_id, unit_id, state, since, note, recorded_at, key_id, key_name
-            FROM unit_operating_state WHERE plant_id = ? AND unit_id = ? ORDER BY since, id""")
-        .params(plant, unit)
+            SELECT id, plant_id, block_id, state, since, note, recorded_at, key_id, key_name
+            FROM block_operating_state WHERE plant_id = ? AND block_id = ? ORDER BY since, id""")
+        .params(plant, block)
         .query(
             (rs, i) ->
                 new Entry(
@@ -108,18 +110,18 @@ public class OperatingStates {
   }
 
   /** The recorded state at {@code t}, if one was recorded at or before it. */
-  public Optional<OperatingState> stateAt(String plant, String unit, Instant t) {
-    return serviceTime(plant, unit, t, t.plusMillis(1)).spans().stream()
+  public Optional<OperatingState> stateAt(String plant, String block, Instant t) {
+    return serviceTime(plant, block, t, t.plusMillis(1)).spans().stream()
         .findFirst()
         .map(ServiceTime.Span::state);
   }
 
   /**
-   * The unit's time over [from, to) by state, with the windows that count as in service: the
+   * The block's time over [from, to) by state, with the windows that count as in service: the
    * chemist's entries merged with the block's historian readings of {@code operating_state}.
    */
-  public ServiceTime serviceTime(String plant, String unit, Instant from, Instant to) {
-    return timeline(entries(plant, unit), historianStates(plant, unit, from, to), from, to);
+  public ServiceTime serviceTime(String plant, String block, Instant from, Instant to) {
+    return timeline(entries(plant, block), historianStates(plant, block, from, to), from, to);
   }
 
   /**
@@ -132,7 +134,7 @@ public class OperatingStates {
   }
 
   /**
-   * The timeline of a unit's entries over [from, to) (entries sorted by since, then entry order).
+   * The timeline of a block's entries over [from, to) (entries sorted by since, then entry order).
    */
   static ServiceTime timeline(List<Entry> entries, Instant from, Instant to) {
     return timeline(entries, List.of(), from, to);

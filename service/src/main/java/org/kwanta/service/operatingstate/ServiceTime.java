@@ -7,15 +7,15 @@ import java.util.Map;
 import org.kwanta.model.limits.TimeWindow;
 
 /**
- * The time of one unit over [from, to) split by operating state.
+ * The time of one block over [from, to) split by operating state.
  *
  * @param from start of the period
  * @param to end of the period (exclusive)
  * @param spans the state timeline clipped to the period, oldest first; a span with a null state is
- *     time before the unit's first recorded state
+ *     time before the block's first recorded state
  * @param counted the windows that count as in service: {@link OperatingState#IN_SERVICE} time and
- *     time with no recorded state (a unit whose state nobody recorded is taken to be in service, so
- *     plants that do not record states keep their hours); no two overlap
+ *     time with no recorded state (a block whose state nobody recorded is taken to be in service,
+ *     so plants that do not record states keep their hours); no two overlap
  * @param byState time per recorded state
  * @param unrecorded time with no recorded state (counted as in service)
  */

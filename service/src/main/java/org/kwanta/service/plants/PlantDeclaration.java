@@ -8,12 +8,12 @@ import jakarta.validation.constraints.Size;
 import java.util.List;
 
 /**
- * A plant declared as configuration (YAML or JSON): its units and sample points.
+ * A plant declared as configuration (YAML or JSON): its blocks and sample points.
  *
  * @param id stable plant id
  * @param name display name
- * @param units the plant's units
- * @param samplePoints the sample points, each in one unit
+ * @param blocks the plant's blocks (a block: one steam cycle, with its generating set)
+ * @param samplePoints the sample points, each in one block
  * @param coolingWater the condensers' cooling water ({@code SEA}, {@code BRACKISH}, {@code FRESH},
  *     {@code HARD_FRESH}); optional. The diagnosis names a condenser leak only when it is declared.
  * @param plantType the kind of steam generator ({@code CONVENTIONAL_DRUM}, {@code HRSG}, {@code
@@ -23,7 +23,7 @@ import java.util.List;
 public record PlantDeclaration(
     @NotBlank @Size(max = 64) @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
     @NotBlank @Size(max = 200) String name,
-    @NotNull @Size(max = 100) List<@Valid UnitDeclaration> units,
+    @NotNull @Size(max = 100) List<@Valid BlockDeclaration> blocks,
     @NotNull @Size(max = 2000) List<@Valid SamplePointDeclaration> samplePoints,
     @Size(max = 32) String coolingWater,
     @Size(max = 32) String plantType) {
@@ -32,19 +32,19 @@ public record PlantDeclaration(
   public PlantDeclaration(
       String id,
       String name,
-      List<UnitDeclaration> units,
+      List<BlockDeclaration> blocks,
       List<SamplePointDeclaration> samplePoints,
       String coolingWater) {
-    this(id, name, units, samplePoints, coolingWater, null);
+    this(id, name, blocks, samplePoints, coolingWater, null);
   }
 
   /** A declaration without a cooling water. */
   public PlantDeclaration(
       String id,
       String name,
-      List<UnitDeclaration> units,
+      List<BlockDeclaration> blocks,
       List<SamplePointDeclaration> samplePoints) {
-    this(id, name, units, samplePoints, null, null);
+    this(id, name, blocks, samplePoints, null, null);
   }
 
   /**
@@ -52,8 +52,8 @@ public record PlantDeclaration(
    */
   public static final String ID_PATTERN = "[A-Za-z0-9][A-Za-z0-9._-]{0,63}";
 
-  /** A unit (block) of a plant. */
-  public record UnitDeclaration(
+  /** A block of a plant (one steam cycle). */
+  public record BlockDeclaration(
       @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
       @NotBlank @Size(max = 200) String name) {}
 
@@ -73,7 +73,7 @@ public record PlantDeclaration(
    */
   public record SamplePointDeclaration(
       @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String id,
-      @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String unit,
+      @NotBlank @Pattern(regexp = PlantDeclaration.ID_PATTERN) String block,
       @NotBlank @Size(max = 200) String name,
       @NotBlank @Size(max = 64) String cycleLocation,
       @NotBlank @Size(max = 64) String treatmentRegime,
@@ -87,7 +87,7 @@ public record PlantDeclaration(
     /** A sample point without a declared place on the cycle. */
     public SamplePointDeclaration(
         String id,
-        String unit,
+        String block,
         String name,
         String cycleLocation,
         String treatmentRegime,
@@ -97,7 +97,7 @@ public record PlantDeclaration(
         List<String> parameters) {
       this(
           id,
-          unit,
+          block,
           name,
           cycleLocation,
           treatmentRegime,

@@ -15,7 +15,7 @@ import org.springframework.stereotype.Repository;
 import org.springframework.transaction.annotation.Transactional;
 import tools.jackson.databind.json.JsonMapper;
 
-/** Plants, units and sample points in PostgreSQL. */
+/** Plants, blocks and sample points in PostgreSQL. */
 @Repository
 public class Plants {
 
@@ -38,9 +38,9 @@ public class Plants {
   /** Checks the names the engine must understand; returns the problems found. */
   static List<String> problems(PlantDeclaration plant) {
     List<String> problems = new java.util.ArrayList<>();
-    java.util.Set<String> units =
-        plant.units().stream()
-            .map(PlantDeclaration.UnitDeclaration::id)
+    java.util.Set<String> blocks =
+        plant.blocks().stream()
+            .map(PlantDeclaration.BlockDeclaration::id)
             .collect(Collectors.toSet());
     if (plant.coolingWater() != null) {
       try {
@@ -68,8 +68,8 @@ public class Plants {
       if (p.upstream() != null && p.upstream().contains(p.id())) {
         problems.add("sample point " + p.id() + ": cannot be upstream of itself");
       }
-      if (!units.contains(p.unit())) {
-        problems.add("sample point " + p.id() + ": unknown unit '" + p.unit() + "'");
+      if (!blocks.contains(p.block())) {
+        problems.add("sample point " + p.id() + ": unknown block '" + p.block() + "'");
       }
       try {
         SamplePointConfigs.regime(p.treatmentRegime());
@@ -193,12 +193,12 @@ public class Plants {
                 plantType(plant)));
       }
     }
-    for (PlantDeclaration.UnitDeclaration unit : plant.units()) {
+    for (PlantDeclaration.BlockDeclaration block : plant.blocks()) {
       jdbc.sql(
               """
-              INSERT INTO plant_unit (plant_id, id, name) VALUES (?, ?, ?)
+              INSERT INTO plant_block (plant_id, id, name) VALUES (?, ?, ?)
               ON CONFLICT (plant_id, id) DO UPDATE SET name = EXCLUDED.name""")
-          .params(plant.id(), unit.id(), unit.name())
+          .params(plant.id(), block.id(), block.name())
           .update();
     }
     List<String> inserted = new java.util.ArrayList<>();
@@ -281,13 +281,13 @@ public class Plants {
     Integer version =
         jdbc.sql(
                 """
-                UPDATE sample_point SET unit_id = ?, name = ?, cycle_location = ?, treatment_regime = ?,
+                UPDATE sample_point SET block_id = ?, name = ?, cycle_location = ?, treatment_regime = ?,
                     operating_temperature_cel = ?, operating_pressure_mpa = ?, alkalizer = ?,
                     parameters = ?::text[], upstream = ?::text[], version = version + 1,
                     updated_at = now(), updated_by = ?
                 WHERE id = ? RETURNING version""")
             .params(
-                p.unit(),
+                p.block(),
                 p.name(),
                 p.cycleLocation(),
                 p.treatmentRegime(),
@@ -326,14 +326,14 @@ public class Plants {
       String plantId, PlantDeclaration.SamplePointDeclaration p, String changedBy) {
     jdbc.sql(
             """
-            INSERT INTO sample_point (id, plant_id, unit_id, name, cycle_location, treatment_regime,
+            INSERT INTO sample_point (id, plant_id, block_id, name, cycle_location, treatment_regime,
                                       operating_temperature_cel, operating_pressure_mpa, alkalizer,
                                       parameters, upstream, version, updated_by)
             VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?::text[], ?::text[], 1, ?)""")
         .params(
             p.id(),
             plantId,
-            p.unit(),
+            p.block(),
             p.name(),
             p.cycleLocation(),
             p.treatmentRegime(),
@@ -401,10 +401,10 @@ public class Plants {
       PlantDeclaration.SamplePointDeclaration p) {
     return new PlantDeclaration.SamplePointDeclaration(
         p.id(),
-        p.unit(),
+        p.block(),
         p.name(),
         p.cycleLocation(),
-        p.treatmentRegime(),
+        org.kwanta.model.limits.TreatmentRegime.canonical(p.treatmentRegime()),
         p.operatingTemperatureCel(),
         p.operatingPressureMPa(),
         alkalizer(p),
@@ -424,7 +424,7 @@ public class Plants {
   public Optional<PlantDeclaration.SamplePointDeclaration> findSamplePoint(String id) {
     return jdbc.sql(
             """
-            SELECT id, unit_id, name, cycle_location, treatment_regime, operating_temperature_cel,
+            SELECT id, block_id, name, cycle_location, treatment_regime, operating_temperature_cel,
                    operating_pressure_mpa, alkalizer, parameters, upstream
             FROM sample_point WHERE id = ?""")
         .param(id)
@@ -467,15 +467,15 @@ public class Plants {
             new PlantDeclaration(
                 plantId,
                 n,
-                jdbc.sql("SELECT id, name FROM plant_unit WHERE plant_id = ? ORDER BY id")
+                jdbc.sql("SELECT id, name FROM plant_block WHERE plant_id = ? ORDER BY id")
                     .param(plantId)
                     .query(
                         (rs, i) ->
-                            new PlantDeclaration.UnitDeclaration(rs.getString(1), rs.getString(2)))
+                            new PlantDeclaration.BlockDeclaration(rs.getString(1), rs.getString(2)))
                     .list(),
                 jdbc.sql(
                         """
-                        SELECT id, unit_id, name, cycle_location, treatment_regime,
+                        SELECT id, block_id, name, cycle_location, treatment_regime,
                                operating_temperature_cel, operating_pressure_mpa, alkalizer, parameters,
                                upstream
                         FROM sample_point WHERE plant_id = ? ORDER BY id""")

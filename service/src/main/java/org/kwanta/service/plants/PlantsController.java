@@ -17,7 +17,7 @@ import org.springframework.web.bind.annotation.RestController;
 
 @RestController
 @RequestMapping("/api/v1/plants")
-@Tag(name = "Plants", description = "Plants, units and sample points (registry)")
+@Tag(name = "Plants", description = "Plants, blocks and sample points (registry)")
 class PlantsController {
 
   private final Plants plants;
@@ -34,7 +34,7 @@ class PlantsController {
 
   @PostMapping
   @ResponseStatus(HttpStatus.CREATED)
-  @Operation(summary = "Declare a new plant with its units and sample points")
+  @Operation(summary = "Declare a new plant with its blocks and sample points")
   PlantDeclaration create(@Valid @RequestBody PlantDeclaration plant) {
     if (plants.exists(plant.id())) {
       throw new ProblemException(
@@ -58,9 +58,9 @@ class PlantsController {
     return plant;
   }
 
-  @GetMapping("/{plantId}")
-  @Operation(summary = "A plant with its units and sample points")
-  PlantDeclaration get(@PathVariable String plantId) {
+  @GetMapping("/{plant}")
+  @Operation(summary = "A plant with its blocks and sample points")
+  PlantDeclaration get(@PathVariable("plant") String plantId) {
     return plants.find(plantId).orElseThrow(() -> ProblemException.notFound("plant", plantId));
   }
 }

@@ -34,20 +34,20 @@ class SamplePointsController {
     this.clock = clock;
   }
 
-  @GetMapping("/sample-points/{samplePointId}")
+  @GetMapping("/sample-points/{samplePoint}")
   @Operation(summary = "A sample point's current configuration")
   PlantDeclaration.SamplePointDeclaration get(
-      @Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {
+      @Parameter(example = "U1-ECO-IN") @PathVariable("samplePoint") String samplePointId) {
     return plants.findSamplePoint(samplePointId).orElseThrow(() -> notFound(samplePointId));
   }
 
-  @GetMapping("/sample-points/{samplePointId}/versions")
+  @GetMapping("/sample-points/{samplePoint}/versions")
   @Operation(
       summary = "Every configuration version of a sample point, oldest first",
       description =
           "Evaluations record the configuration version in force when they were computed"
               + " (configVersion), so a past evaluation can be explained by its version here.")
-  List<Plants.Version> versions(@PathVariable String samplePointId) {
+  List<Plants.Version> versions(@PathVariable("samplePoint") String samplePointId) {
     List<Plants.Version> versions = plants.versions(samplePointId);
     if (versions.isEmpty()) {
       throw notFound(samplePointId);
@@ -55,7 +55,7 @@ class SamplePointsController {
     return versions;
   }
 
-  @PutMapping("/sample-points/{samplePointId}")
+  @PutMapping("/sample-points/{samplePoint}")
   @Operation(
       summary = "Change a sample point's configuration (a new version; old versions are kept)",
       description =
@@ -66,7 +66,7 @@ class SamplePointsController {
               + " after the change use the new version; stored evaluations keep the version they"
               + " were computed with (configVersion), also after a back-dated change.")
   Map<String, Object> update(
-      @PathVariable String samplePointId,
+      @PathVariable("samplePoint") String samplePointId,
       @Valid @RequestBody PlantDeclaration.SamplePointDeclaration body,
       @RequestParam(required = false) String effectiveFrom,
       @RequestParam(required = false) String reason,
@@ -86,7 +86,7 @@ class SamplePointsController {
     String plantId = plants.plantOf(samplePointId);
     PlantDeclaration check =
         new PlantDeclaration(
-            plantId, plantId, plants.find(plantId).orElseThrow().units(), List.of(next));
+            plantId, plantId, plants.find(plantId).orElseThrow().blocks(), List.of(next));
     List<String> problems = Plants.problems(check);
     if (!problems.isEmpty()) {
       throw new ProblemException(
@@ -113,14 +113,14 @@ class SamplePointsController {
         "samplePoint", samplePointId, "changed", true, "version", version, "effectiveFrom", from);
   }
 
-  @PutMapping("/plants/{plantId}")
+  @PutMapping("/plants/{plant}")
   @Operation(
       summary = "Apply a plant declaration (configuration as code)",
       description =
           "Creates what is missing; changed sample points get a new configuration version; nothing is"
               + " deleted.")
   Plants.Applied apply(
-      @PathVariable String plantId,
+      @PathVariable("plant") String plantId,
       @Valid @RequestBody PlantDeclaration plant,
       Principal principal) {
     if (!plantId.equals(plant.id())) {

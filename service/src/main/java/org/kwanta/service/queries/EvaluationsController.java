@@ -38,7 +38,7 @@ class EvaluationsController {
   record Page(
       String samplePoint, Instant from, Instant to, List<Stored> evaluations, Instant next) {}
 
-  @GetMapping("/api/v1/sample-points/{samplePointId}/evaluations")
+  @GetMapping("/api/v1/sample-points/{samplePoint}/evaluations")
   @Operation(
       summary = "Stored evaluations of a sample point over a time range",
       description =
@@ -47,7 +47,7 @@ class EvaluationsController {
               + " .../findings). Range [from, to), default the last hour; at most 5000 a page, then"
               + " `next` gives the following page's from. Advisory.")
   Page evaluations(
-      @Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId,
+      @Parameter(example = "U1-ECO-IN") @PathVariable("samplePoint") String samplePointId,
       @RequestParam(required = false) String from,
       @RequestParam(required = false) String to,
       @RequestParam(defaultValue = "1000") int limit) {

@@ -24,7 +24,7 @@ import org.springframework.web.bind.annotation.RequestParam;
 import org.springframework.web.bind.annotation.RestController;
 
 @RestController
-@RequestMapping("/api/v1/sample-points/{samplePointId}")
+@RequestMapping("/api/v1/sample-points/{samplePoint}")
 @Tag(
     name = "Queries",
     description = "Series, latest state and overview, for chemists and dashboards")
@@ -79,7 +79,7 @@ class SeriesController {
               + " or format=csv. JSON of a measured parameter: also `labResults`, the grab and lab"
               + " results in the range (apart from the online points; censored ones marked).")
   ResponseEntity<?> series(
-      @Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId,
+      @Parameter(example = "U1-ECO-IN") @PathVariable("samplePoint") String samplePointId,
       @Parameter(example = "cation_conductivity") @RequestParam String parameter,
       @Parameter(example = "2026-11-30T00:00:00Z") @RequestParam String from,
       @Parameter(example = "2026-12-01T00:00:00Z") @RequestParam String to,

@@ -34,7 +34,7 @@ class StateController {
   /** A plant's latest state, sample point by sample point. */
   record Overview(String plant, String name, Instant asOf, List<States.State> samplePoints) {}
 
-  @GetMapping("/api/v1/sample-points/{samplePointId}/state")
+  @GetMapping("/api/v1/sample-points/{samplePoint}/state")
   @Operation(
       summary = "Latest state of a sample point",
       description =
@@ -44,7 +44,8 @@ class StateController {
               + " the latest evaluation: compensated"
               + " conductivities, composition, calculated pH, pH at operating temperature with its band,"
               + " the instrument checks, and the diagnosis over time at the latest minute. Advisory.")
-  States.State state(@Parameter(example = "U1-ECO-IN") @PathVariable String samplePointId) {
+  States.State state(
+      @Parameter(example = "U1-ECO-IN") @PathVariable("samplePoint") String samplePointId) {
     return plants
         .findSamplePoint(samplePointId)
         .map(
@@ -59,9 +60,9 @@ class StateController {
         .orElseThrow(() -> notFound("sample point", samplePointId));
   }
 
-  @GetMapping("/api/v1/plants/{plantId}/overview")
+  @GetMapping("/api/v1/plants/{plant}/overview")
   @Operation(summary = "Latest state of every sample point of a plant")
-  Overview overview(@Parameter(example = "brackenmoor") @PathVariable String plantId) {
+  Overview overview(@Parameter(example = "brackenmoor") @PathVariable("plant") String plantId) {
     PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
     Instant now = clock.instant();
     Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(plant.id());

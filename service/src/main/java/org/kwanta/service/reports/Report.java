@@ -6,7 +6,7 @@ import java.util.Map;
 
 /**
  * A plant's chemistry report over a month or a year, as the API returns it. Hours are in-service
- * hours (IN_SERVICE time and time before a unit's first recorded state); fractions are 0 to 1.
+ * hours (IN_SERVICE time and time before a block's first recorded state); fractions are 0 to 1.
  */
 public record Report(
     String plant,
@@ -18,7 +18,7 @@ public record Report(
     Instant asOf,
     String counting,
     String advisory,
-    List<UnitTime> units,
+    List<BlockTime> blocks,
     List<Channel> channels,
     List<Event> events,
     List<Instrument> instruments,
@@ -26,9 +26,9 @@ public record Report(
     GrabVsOnline grabVsOnline,
     Index index) {
 
-  /** A unit's hours by operating state in the period. */
-  public record UnitTime(
-      String unit,
+  /** A block's hours by operating state in the period. */
+  public record BlockTime(
+      String block,
       double hoursInService,
       double hoursUnrecorded,
       Map<String, Double> hoursByState) {}
@@ -36,7 +36,7 @@ public record Report(
   /** In-service hours per level of one sample point and parameter. */
   public record Channel(
       String samplePoint,
-      String unit,
+      String block,
       String parameter,
       String valueUnit,
       double hoursInService,
@@ -55,7 +55,7 @@ public record Report(
   /** A core instrument's availability and data completeness in the period. */
   public record Instrument(
       String samplePoint,
-      String unit,
+      String block,
       String parameter,
       long slotSeconds,
       long slotsInService,

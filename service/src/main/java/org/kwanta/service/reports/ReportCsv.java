@@ -19,10 +19,10 @@ final class ReportCsv {
     row(sb, "period", "", "", "to", r.to().toString(), "");
     row(sb, "period", "", "", "as_of", r.asOf().toString(), "");
     row(sb, "period", "", "", "counting", r.counting(), "");
-    for (Report.UnitTime u : r.units()) {
-      row(sb, "unit_hours", u.unit(), "", "IN_SERVICE_COUNTED", num(u.hoursInService()), "h");
-      row(sb, "unit_hours", u.unit(), "", "UNRECORDED", num(u.hoursUnrecorded()), "h");
-      u.hoursByState().forEach((s, h) -> row(sb, "unit_hours", u.unit(), "", s, num(h), "h"));
+    for (Report.BlockTime u : r.blocks()) {
+      row(sb, "block_hours", u.block(), "", "IN_SERVICE_COUNTED", num(u.hoursInService()), "h");
+      row(sb, "block_hours", u.block(), "", "UNRECORDED", num(u.hoursUnrecorded()), "h");
+      u.hoursByState().forEach((s, h) -> row(sb, "block_hours", u.block(), "", s, num(h), "h"));
     }
     for (Report.Channel c : r.channels()) {
       c.hoursByLevel()

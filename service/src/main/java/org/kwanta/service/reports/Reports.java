@@ -26,7 +26,7 @@ import org.springframework.jdbc.core.simple.JdbcClient;
 import org.springframework.stereotype.Service;
 
 /**
- * Builds a plant's report over a period from what is stored: the units' operating states, the
+ * Builds a plant's report over a period from what is stored: the blocks' operating states, the
  * readings classified against the limits in force at their time (as reported), excursion events,
  * the instrument log and the availability counts. Nothing is stored; the same period gives the same
  * report until data for it change.
@@ -40,7 +40,7 @@ class Reports {
   static final Duration LOOKBACK = Duration.ofDays(8);
 
   static final String COUNTING =
-      "in-service hours: IN_SERVICE time and time before a unit's first recorded state";
+      "in-service hours: IN_SERVICE time and time before a block's first recorded state";
 
   static final String ADVISORY =
       "Advisory. Default limits are examples recalled from IAPWS guidance (from memory — verify);"
@@ -86,19 +86,19 @@ class Reports {
       String plant, String plantName, String period, String label, Instant from, Instant to) {
     Instant now = clock.instant();
     Instant asOf = to.isAfter(now) ? now : to;
-    List<Report.UnitTime> units = new ArrayList<>();
+    List<Report.BlockTime> blocks = new ArrayList<>();
     Map<String, ServiceTime> service = new TreeMap<>();
-    for (String unit : units(plant)) {
-      ServiceTime t = states.serviceTime(plant, unit, from, asOf.isAfter(from) ? asOf : from);
-      service.put(unit, t);
+    for (String block : blocks(plant)) {
+      ServiceTime t = states.serviceTime(plant, block, from, asOf.isAfter(from) ? asOf : from);
+      service.put(block, t);
       Map<String, Double> byState = new TreeMap<>();
       t.byState().forEach((s, d) -> byState.put(s.name(), hours(d)));
-      units.add(new Report.UnitTime(unit, hours(t.inService()), hours(t.unrecorded()), byState));
+      blocks.add(new Report.BlockTime(block, hours(t.inService()), hours(t.unrecorded()), byState));
     }
     List<Report.Channel> channels = new ArrayList<>();
     List<Map<Level, Double>> channelHours = new ArrayList<>();
     for (Limits.Point point : limits.points(plant, null)) {
-      ServiceTime t = service.get(point.unit());
+      ServiceTime t = service.get(point.block());
       if (!asOf.isAfter(from)) {
         continue;
       }
@@ -128,7 +128,7 @@ class Reports {
         channels.add(
             new Report.Channel(
                 point.id(),
-                point.unit(),
+                point.block(),
                 p.code(),
                 p.unit(),
                 total,
@@ -142,7 +142,7 @@ class Reports {
                 i ->
                     new Report.Instrument(
                         i.samplePoint(),
-                        i.unit(),
+                        i.block(),
                         i.parameter().code(),
                         i.slot().toSeconds(),
                         i.slotsInService(),
@@ -186,7 +186,7 @@ class Reports {
         asOf,
         COUNTING,
         ADVISORY,
-        units,
+        blocks,
         channels,
         events(plant, from, to),
         instruments,
@@ -203,8 +203,8 @@ class Reports {
                 + " availability (docs/report.md)"));
   }
 
-  private List<String> units(String plant) {
-    return jdbc.sql("SELECT id FROM plant_unit WHERE plant_id = ? ORDER BY id")
+  private List<String> blocks(String plant) {
+    return jdbc.sql("SELECT id FROM plant_block WHERE plant_id = ? ORDER BY id")
         .param(plant)
         .query(String.class)
         .list();

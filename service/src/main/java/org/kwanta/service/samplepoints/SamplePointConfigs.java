@@ -88,7 +88,8 @@ public class SamplePointConfigs {
   }
 
   /**
-   * Maps the registry's regime names (including the trade abbreviations PT and CT) to the engine's.
+   * Maps the registry's regime names (the trade forms AVT(R), AVT(O), OT, PT, CT, MAKE_UP; the
+   * constant names AVT_R, AVT_O stored before them are read too) to the engine's.
    */
   public static Regime regime(String name) {
     String n = name.trim().toUpperCase(Locale.ROOT).replace('(', '_').replace(")", "");
@@ -104,10 +105,9 @@ public class SamplePointConfigs {
               "unknown treatment regime '"
                   + name
                   + "'; known: "
-                  + java.util.Arrays.stream(Regime.values())
-                      .map(Enum::name)
-                      .collect(Collectors.joining(", "))
-                  + ", PT, CT");
+                  + java.util.Arrays.stream(org.kwanta.model.limits.TreatmentRegime.values())
+                      .map(org.kwanta.model.limits.TreatmentRegime::code)
+                      .collect(Collectors.joining(", ")));
     };
   }
 }

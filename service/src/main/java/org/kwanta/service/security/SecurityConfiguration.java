@@ -31,7 +31,7 @@ import org.springframework.security.web.authentication.AnonymousAuthenticationFi
  *   <tr><td>{@code /api/v1/audit/**}; {@code POST /api/v1/excursions/acknowledgements}, {@code
  *       POST /api/v1/excursion-events/**};
  *       {@code PUT}/{@code DELETE /api/v1/sample-points/*}{@code /limits/*}; {@code POST
- *       /api/v1/plants/*}{@code /units/*}{@code /operating-states}, {@code POST
+ *       /api/v1/plants/*}{@code /blocks/*}{@code /operating-states}, {@code POST
  *       /api/v1/sample-points/*}{@code /instrument-checks}</td><td>chemist</td></tr>
  *   <tr><td>{@code GET}/{@code HEAD /api/**}</td><td>read</td></tr>
  *   <tr><td>{@code POST /api/v1/chemistry/**} (calculations that store nothing)</td><td>read</td></tr>
@@ -115,8 +115,8 @@ class SecurityConfiguration {
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.PUT, "/api/v1/sample-points/*/limits/*")
                     .hasRole(CHEMIST)
-                    // the unit's operating state and the instrument log (issue 14)
-                    .requestMatchers(HttpMethod.POST, "/api/v1/plants/*/units/*/operating-states")
+                    // the block's operating state and the instrument log (issue 14)
+                    .requestMatchers(HttpMethod.POST, "/api/v1/plants/*/blocks/*/operating-states")
                     .hasRole(CHEMIST)
                     .requestMatchers(HttpMethod.POST, "/api/v1/sample-points/*/instrument-checks")
                     .hasRole(CHEMIST)

@@ -19,7 +19,8 @@ final class IngestRequests {
 
   /**
    * Requests whose body is a batch of readings: ingest, and the what-if diagnosis ({@code POST
-   * /api/v1/sample-points/{id}/diagnosis}), which takes the same body and so the same size limit.
+   * /api/v1/sample-points/{samplePoint}/diagnosis}), which takes the same body and so the same size
+   * limit.
    */
   static boolean carriesReadings(HttpServletRequest request) {
     if (matches(request)) {

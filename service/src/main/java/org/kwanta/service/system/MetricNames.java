@@ -9,10 +9,9 @@ import java.util.Set;
  * /actuator/prometheus}. The service's metrics code uses these constants, the Grafana dashboard and
  * the alert rules are tested against {@link #exposedNames()}.
  *
- * <p>Labels are bounded: {@code plant}, {@code unit} (the plant's unit or block, e.g. U1, not a
- * unit of measure), {@code sample_point}, {@code parameter} (the codes of {@link
- * org.kwanta.model.Parameter}), and {@code reason} (a fixed list of rejection reasons). Never a
- * value, a time or a key.
+ * <p>Labels are bounded: {@code plant}, {@code block} (the plant's block, e.g. U1), {@code
+ * sample_point}, {@code parameter} (the codes of {@link org.kwanta.model.Parameter}), and {@code
+ * reason} (a fixed list of rejection reasons). Never a value, a time or a key.
  *
  * <p>Units: times in seconds (Prometheus base unit). Chemistry values are in the parameter's
  * canonical trade unit (µS/cm, µg/kg, mg/kg, pH) as listed by {@link
@@ -26,8 +25,8 @@ public final class MetricNames {
   /** Label: plant id. */
   public static final String PLANT = "plant";
 
-  /** Label: unit (block) id within the plant. */
-  public static final String UNIT = "unit";
+  /** Label: block id within the plant. */
+  public static final String BLOCK = "block";
 
   /** Label: sample point id. */
   public static final String SAMPLE_POINT = "sample_point";
@@ -38,8 +37,9 @@ public final class MetricNames {
   /** Label: reason a reading was rejected (bounded list of the ingest's reason codes). */
   public static final String REASON = "reason";
 
-  private static final List<String> POINT = List.of(PLANT, UNIT, SAMPLE_POINT);
-  private static final List<String> POINT_PARAMETER = List.of(PLANT, UNIT, SAMPLE_POINT, PARAMETER);
+  private static final List<String> POINT = List.of(PLANT, BLOCK, SAMPLE_POINT);
+  private static final List<String> POINT_PARAMETER =
+      List.of(PLANT, BLOCK, SAMPLE_POINT, PARAMETER);
 
   /** Latest value of a parameter at a sample point, in the parameter's canonical unit. */
   public static final String SAMPLE_VALUE = "kwanta.sample.value";
@@ -204,7 +204,7 @@ public final class MetricNames {
               LIMIT_THRESHOLD,
               "kwanta_limit_threshold",
               Type.GAUGE,
-              List.of(PLANT, UNIT, SAMPLE_POINT, PARAMETER, LEVEL, SIDE),
+              List.of(PLANT, BLOCK, SAMPLE_POINT, PARAMETER, LEVEL, SIDE),
               "A threshold of the limits in force now, in the parameter's canonical unit (NORMAL:"
                   + " the normal range's bound; AL1-AL3, SHUTDOWN: action levels)"),
           new Metric(
@@ -223,7 +223,7 @@ public final class MetricNames {
               DIAGNOSIS_FINDING,
               "kwanta_diagnosis_finding",
               Type.GAUGE,
-              List.of(PLANT, UNIT, SAMPLE_POINT, CODE, POINTS_AT),
+              List.of(PLANT, BLOCK, SAMPLE_POINT, CODE, POINTS_AT),
               "1 for each finding of the diagnosis over time at the point's latest minute"),
           new Metric(
               EXCURSION_DEADLINE,

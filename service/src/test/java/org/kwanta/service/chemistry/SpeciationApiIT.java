@@ -66,7 +66,7 @@ class SpeciationApiIT {
     JsonNode body =
         ok(SPECIATION, "{\"composition\": [" + AMMONIA_1_MG + "], \"temperatureCel\": 25}");
     JsonNode r = body.get("results").get(0);
-    assertThat(r.get("phAtTemperature").asDouble()).isCloseTo(9.4, within(0.05));
+    assertThat(r.get("phAtTemperature").get("ph").asDouble()).isCloseTo(9.4, within(0.05));
     assertThat(r.get("phAt25Cel").asDouble()).isCloseTo(9.4, within(0.05));
     assertThat(r.get("neutralPh").asDouble()).isBetween(6.997, 6.998);
     assertThat(r.get("pressureSource").asString()).isEqualTo("ATMOSPHERIC_FLOOR");
@@ -96,15 +96,17 @@ class SpeciationApiIT {
     // (common practice, no source: ≈ 9.4) comes with the result at temperature.
     assertThat(r.get("phMinusNeutral").asDouble())
         .isCloseTo(
-            r.get("phAtTemperature").asDouble() - r.get("neutralPh").asDouble(), within(1e-12));
+            r.get("phAtTemperature").get("ph").asDouble() - r.get("neutralPh").asDouble(),
+            within(1e-12));
     assertThat(r.get("phAt25Cel").asDouble()).isCloseTo(9.4, within(0.05));
-    // Contract: the band holds the main result and names its sets.
-    JsonNode band = r.get("band");
-    assertThat(band.get("minPh").asDouble())
-        .isLessThanOrEqualTo(r.get("phAtTemperature").asDouble());
-    assertThat(band.get("maxPh").asDouble())
-        .isGreaterThanOrEqualTo(r.get("phAtTemperature").asDouble());
-    assertThat(band.get("minConstantSet").asString()).isNotBlank();
+    // Contract: the band holds the main result and names its sets (one shape of phAtTemperature,
+    // docs/names.md).
+    JsonNode band = r.get("phAtTemperature");
+    assertThat(band.get("low").asDouble()).isLessThanOrEqualTo(band.get("ph").asDouble());
+    assertThat(band.get("high").asDouble()).isGreaterThanOrEqualTo(band.get("ph").asDouble());
+    assertThat(band.get("bandFrom").asString()).isEqualTo("CONSTANT_SETS");
+    assertThat(band.get("lowConstantSet").asString()).isNotBlank();
+    assertThat(band.get("highConstantSet").asString()).isNotBlank();
     assertThat(band.get("members").size()).isGreaterThan(1);
     assertThat(r.get("ionicStrengthMolPerKg").asDouble()).isPositive();
   }
@@ -121,7 +123,7 @@ class SpeciationApiIT {
                     + " \"umol/kg\"}], \"temperatureCel\": 25}")
             .get("results")
             .get(0);
-    assertThat(r.get("phAtTemperature").asDouble()).isCloseTo(9.40, within(0.02));
+    assertThat(r.get("phAtTemperature").get("ph").asDouble()).isCloseTo(9.40, within(0.02));
   }
 
   @Test
@@ -175,12 +177,14 @@ class SpeciationApiIT {
             .get("results")
             .get(0)
             .get("phAtTemperature")
+            .get("ph")
             .asDouble();
     double b =
         ok(SPECIATION, "{\"composition\": [" + mmol + "], \"temperatureCel\": 200}")
             .get("results")
             .get(0)
             .get("phAtTemperature")
+            .get("ph")
             .asDouble();
     assertThat(b).isCloseTo(a, within(1e-9));
   }

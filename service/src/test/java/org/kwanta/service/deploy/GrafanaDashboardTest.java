@@ -273,7 +273,7 @@ class GrafanaDashboardTest {
     StringBuilder expected = new StringBuilder();
     for (String[] p : points) {
       String labels =
-          "{plant=\"brackenmoor\",unit=\""
+          "{plant=\"brackenmoor\",block=\""
               + p[0].substring(0, 2)
               + "\",sample_point=\""
               + p[0]

@@ -531,10 +531,10 @@ class PageIT {
     String declaration =
         "{\"id\":\"page-levels\",\"name\":"
             + name
-            + ",\"coolingWater\":\"BRACKISH\",\"units\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
-            + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"unit\":\"U\",\"name\":"
+            + ",\"coolingWater\":\"BRACKISH\",\"blocks\":[{\"id\":\"U\",\"name\":\"Unit\"}],"
+            + "\"samplePoints\":[{\"id\":\"PL-ECO\",\"block\":\"U\",\"name\":"
             + name
-            + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+            + ",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\","
             + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}]}";
     HttpResponse<String> declared =
         http.send("PUT", "/api/v1/plants/page-levels", "application/json", declaration);

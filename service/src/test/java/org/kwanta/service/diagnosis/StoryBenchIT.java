@@ -209,15 +209,15 @@ class StoryBenchIT {
     b.append("{\"id\":\"")
         .append(s.plant())
         .append("\",\"name\":\"Story bench (invented)\",\"coolingWater\":\"BRACKISH\",")
-        .append("\"units\":[{\"id\":\"U\",\"name\":\"Bench unit\"}],\"samplePoints\":[");
+        .append("\"blocks\":[{\"id\":\"U\",\"name\":\"Bench unit\"}],\"samplePoints\":[");
     for (int i = 0; i < s.points().size(); i++) {
       PointSpec p = s.points().get(i);
       b.append(i == 0 ? "" : ",")
           .append("{\"id\":\"")
           .append(p.id())
-          .append("\",\"unit\":\"U\",\"name\":\"")
+          .append("\",\"block\":\"U\",\"name\":\"")
           .append(p.id())
-          .append("\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\",")
+          .append("\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\",")
           .append("\"operatingTemperatureCel\":150")
           .append(p.upstream() == null ? "" : ",\"upstream\":[\"" + p.upstream() + "\"]")
           .append("}");

@@ -42,9 +42,9 @@ class SteamPointIT {
   private HttpResponse<String> declare(String location, double celsius, double mpa) {
     String body =
         ("{\"id\":\"steam-%s\",\"name\":\"Steam point test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"S%s\","
-                + "\"unit\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":%s,"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"S%s\","
+                + "\"block\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":%s,"
                 + "\"operatingPressureMPa\":%s}]}")
             .formatted(tag, tag, location, celsius, mpa);
     return http.post("/api/v1/plants", "application/json", body);

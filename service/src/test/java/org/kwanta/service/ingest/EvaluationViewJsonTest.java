@@ -3,6 +3,7 @@ package org.kwanta.service.ingest;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
+import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.databind.json.JsonMapper;
 
 /** No "NaN" in JSON: a trade formula that cannot be computed is null beside its reason. */
@@ -53,6 +54,7 @@ class EvaluationViewJsonTest {
             7.2,
             7.1,
             7.3,
+            "INSTRUMENT_TOLERANCES",
             5.6,
             "f",
             "LIQUID",
@@ -65,5 +67,35 @@ class EvaluationViewJsonTest {
         .contains("\"operatingConditionSource\":\"MEASURED\"")
         .contains("\"measuredAt\":\"2026-12-01T10:00:00Z\"");
     assertThat(json.readValue(written, EvaluationView.PhAtTemperature.class)).isEqualTo(measured);
+  }
+
+  /**
+   * Rows stored before the names of docs/names.md carry suspect (the doubt and each finding's
+   * target) and rawUSPerCm, and no bandFrom: they read back under the new names, with unknown
+   * fields refused as the application does.
+   */
+  @Test
+  void storedOldNamesReadBackUnderTheNewOnes() {
+    String stored =
+        "{\"configVersion\":1,\"compensated\":[{\"parameter\":\"cation_conductivity\","
+            + "\"rawUSPerCm\":0.2,\"sampleTemperatureCel\":30.0,\"at25USPerCm\":0.18,"
+            + "\"compensatedByAnalyser\":false,\"belowPureWater\":false}],"
+            + "\"composition\":null,\"calculatedPh\":null,"
+            + "\"phAtTemperature\":{\"temperatureCel\":155.0,\"pressureMPa\":15.0,\"ph\":6.1,"
+            + "\"low\":6.0,\"high\":6.2,\"neutralPh\":5.7,\"formulation\":\"f\","
+            + "\"basis\":\"LIQUID\",\"notes\":[]},"
+            + "\"findings\":[{\"code\":\"PH_MEASURED_VS_CALCULATED\",\"suspect\":\"PH\","
+            + "\"explanation\":\"e\"}],\"suspect\":true,\"notes\":[]}";
+    JsonMapper strict =
+        JsonMapper.builder().enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES).build();
+    EvaluationView v = strict.readValue(stored, EvaluationView.class);
+    assertThat(v.instrumentInDoubt()).isTrue();
+    assertThat(v.findings().get(0).pointsAt()).isEqualTo("PH");
+    assertThat(v.compensated().get(0).asReadUSPerCm()).isEqualTo(0.2);
+    assertThat(v.phAtTemperature().bandFrom()).isEqualTo("INSTRUMENT_TOLERANCES");
+    String written = strict.writeValueAsString(v);
+    assertThat(written)
+        .contains("\"instrumentInDoubt\":true", "\"pointsAt\":\"PH\"", "\"asReadUSPerCm\":0.2")
+        .doesNotContain("suspect", "rawUSPerCm");
   }
 }

@@ -31,7 +31,7 @@ import tools.jackson.databind.node.ObjectNode;
 /**
  * Seeded random and mutated payloads against {@code POST /api/v1/readings} (JSON and CSV) and
  * {@code POST /api/v1/plants}. For every request: never a 5xx; and when refused, nothing stored
- * (the row counts of readings, revisions, plants, units and sample points are unchanged). The
+ * (the row counts of readings, revisions, plants, blocks and sample points are unchanged). The
  * random seed is fixed so a failure reproduces; {@code -Dkwanta.fuzz.seed=<n>} and {@code
  * -Dkwanta.fuzz.cases=<n>} explore further.
  */
@@ -157,7 +157,7 @@ class IngestFuzzIT {
   private long[] counts() {
     return jdbc.queryForObject(
         "SELECT (SELECT count(*) FROM reading), (SELECT count(*) FROM reading_revision),"
-            + " (SELECT count(*) FROM plant), (SELECT count(*) FROM plant_unit),"
+            + " (SELECT count(*) FROM plant), (SELECT count(*) FROM plant_block),"
             + " (SELECT count(*) FROM sample_point)",
         (rs, i) ->
             new long[] {rs.getLong(1), rs.getLong(2), rs.getLong(3), rs.getLong(4), rs.getLong(5)});
@@ -218,15 +218,15 @@ class IngestFuzzIT {
     ObjectNode plant = JSON.createObjectNode();
     plant.put("id", id);
     plant.put("name", "Fuzz plant");
-    plant.putArray("units").addObject().put("id", "U1").put("name", "Unit 1");
+    plant.putArray("blocks").addObject().put("id", "U1").put("name", "Unit 1");
     ArrayNode sps = plant.putArray("samplePoints");
     for (int i = 0; i < 1 + random.nextInt(3); i++) {
       ObjectNode sp = sps.addObject();
       sp.put("id", id.toUpperCase(Locale.ROOT) + "-SP" + i);
-      sp.put("unit", "U1");
+      sp.put("block", "U1");
       sp.put("name", "Fuzz point " + i);
       sp.put("cycleLocation", "FEEDWATER");
-      sp.put("treatmentRegime", "AVT_O");
+      sp.put("treatmentRegime", "AVT(O)");
       sp.put("operatingTemperatureCel", 155);
       sp.put("operatingPressureMPa", 15);
     }

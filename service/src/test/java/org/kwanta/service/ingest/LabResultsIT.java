@@ -49,9 +49,9 @@ class LabResultsIT {
     point = "L" + tag + "-ECO";
     String body =
         ("{\"id\":\"lab-%s\",\"name\":\"Lab test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U1\",\"name\":\"Economiser inlet\",\"cycleLocation\":\"FEEDWATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U1\",\"name\":\"Economiser inlet\",\"cycleLocation\":\"FEEDWATER\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

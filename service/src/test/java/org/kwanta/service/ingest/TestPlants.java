@@ -30,8 +30,8 @@ final class TestPlants {
                 id ->
                     String.format(
                         Locale.ROOT,
-                        "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Test feedwater %s\","
-                            + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\","
+                        "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Test feedwater %s\","
+                            + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\","
                             + "\"operatingTemperatureCel\":155,\"operatingPressureMPa\":15}",
                         id,
                         id))
@@ -39,7 +39,7 @@ final class TestPlants {
     String body =
         "{\"id\":\"test-"
             + tag.toLowerCase(Locale.ROOT)
-            + "\",\"name\":\"Test plant\",\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],"
+            + "\",\"name\":\"Test plant\",\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],"
             + "\"samplePoints\":["
             + points
             + "]}";

@@ -39,9 +39,9 @@ class AvailabilityQueryPlanIT {
     String point = "A" + tag + "-CPD";
     String body =
         ("{\"id\":\"plan-%s\",\"name\":\"Plan test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
     assertThat(http.post("/api/v1/plants", "application/json", body).statusCode()).isEqualTo(201);

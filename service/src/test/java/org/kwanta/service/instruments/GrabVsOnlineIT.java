@@ -44,9 +44,9 @@ class GrabVsOnlineIT {
     point = "G" + tag + "-CPD";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Grab test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":40,"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U1\",\"name\":\"Condensate\",\"cycleLocation\":\"CONDENSATE\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":40,"
                 + "\"operatingPressureMPa\":1.5}]}")
             .formatted(plant, point);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);

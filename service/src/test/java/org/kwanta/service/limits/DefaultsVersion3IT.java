@@ -51,14 +51,14 @@ class DefaultsVersion3IT {
   private static final String PLANT =
       """
       {"id":"defaults3","name":"Defaults v3 test plant (fictional)",
-       "units":[{"id":"U1","name":"Unit 1"}],
+       "blocks":[{"id":"U1","name":"Unit 1"}],
        "samplePoints":[
-        {"id":"D3-MS","unit":"U1","name":"Main steam","cycleLocation":"MAIN_STEAM",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":330},
-        {"id":"D3-HP-DRUM","unit":"U1","name":"HP drum water","cycleLocation":"DRUM_WATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":330},
-        {"id":"D3-LP-DRUM","unit":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":150,"operatingPressureMPa":0.5}]}""";
+        {"id":"D3-MS","block":"U1","name":"Main steam","cycleLocation":"MAIN_STEAM",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":330},
+        {"id":"D3-HP-DRUM","block":"U1","name":"HP drum water","cycleLocation":"DRUM_WATER",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":330},
+        {"id":"D3-LP-DRUM","block":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":150,"operatingPressureMPa":0.5}]}""";
 
   /** Last week, one hour of main steam at 0.5 µS/cm, cation and degassed cation conductivity. */
   private static String lastWeeksReadings(Instant day) {
@@ -207,8 +207,8 @@ class DefaultsVersion3IT {
             "/api/v1/sample-points/D3-LP-DRUM",
             "application/json",
             """
-            {"id":"D3-LP-DRUM","unit":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
-             "treatmentRegime":"AVT_O","operatingTemperatureCel":150,"operatingPressureMPa":3.0}""");
+            {"id":"D3-LP-DRUM","block":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
+             "treatmentRegime":"AVT(O)","operatingTemperatureCel":150,"operatingPressureMPa":3.0}""");
     assertThat(changed.statusCode()).as(changed.body()).isEqualTo(200);
     assertThat(
             limitsNow(v3, "D3-LP-DRUM", "silica")

@@ -52,14 +52,14 @@ class DefaultsVersion4IT {
   private static final String PLANT =
       """
       {"id":"defaults4","name":"Defaults v4 test plant (fictional)","coolingWater":"SEA",
-       "units":[{"id":"U1","name":"Unit 1"}],
+       "blocks":[{"id":"U1","name":"Unit 1"}],
        "samplePoints":[
-        {"id":"D4-CPD","unit":"U1","name":"Condensate pump discharge","cycleLocation":"CONDENSATE",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":40,"operatingPressureMPa":1.5},
-        {"id":"D4-HP-DRUM","unit":"U1","name":"HP drum water","cycleLocation":"DRUM_WATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":330},
-        {"id":"D4-LP-DRUM","unit":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":150,"operatingPressureMPa":0.5}]}""";
+        {"id":"D4-CPD","block":"U1","name":"Condensate pump discharge","cycleLocation":"CONDENSATE",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":40,"operatingPressureMPa":1.5},
+        {"id":"D4-HP-DRUM","block":"U1","name":"HP drum water","cycleLocation":"DRUM_WATER",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":330},
+        {"id":"D4-LP-DRUM","block":"U1","name":"LP drum water","cycleLocation":"DRUM_WATER",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":150,"operatingPressureMPa":0.5}]}""";
 
   /** Three hours of condensate sodium from {@code day}: 0.3 µg/kg, 1.5 µg/kg in the second hour. */
   private static String sodiumHour(Instant day) {

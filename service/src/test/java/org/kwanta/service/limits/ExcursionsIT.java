@@ -40,9 +40,9 @@ class ExcursionsIT {
     point = "L" + tag + "-U2-CPD";
     String body =
         ("{\"id\":\"leak-%s\",\"name\":\"Condenser leak test (fictional)\","
-                + "\"units\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"blocks\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}]}")
             .formatted(tag, point);
     assertThat(http.post("/api/v1/plants", "application/json", body).statusCode()).isEqualTo(201);
@@ -133,7 +133,7 @@ class ExcursionsIT {
     assertThat(r.statusCode()).isEqualTo(200);
     assertThat(r.headers().firstValue("Content-Type").orElseThrow()).startsWith("text/csv");
     String[] lines = r.body().split("\r\n");
-    assertThat(lines[0]).startsWith("plant,unit,sample_point,parameter,value_unit");
+    assertThat(lines[0]).startsWith("plant,block,sample_point,parameter,value_unit");
     // The shipped defaults (version 4) give a condensate point action levels for cation
     // conductivity and for sodium, so the leak shows in both, one row each, sorted by parameter.
     assertThat(lines).hasSize(3);
@@ -146,13 +146,21 @@ class ExcursionsIT {
     ingestLeak();
     String start = excursions().get(0).get("start").asString();
     String ack =
-        "{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\",\"by\":\"Chemist T1 (invented)\",\"note\":\"Tube leak in condenser half B; half isolated 09:30.\"}"
+        "{\"samplePoint\":\"%s\",\"parameter\":\"cation_conductivity\",\"start\":\"%s\",\"note\":\"Tube leak in condenser half B; half isolated 09:30.\"}"
             .formatted(point, start);
+    // Who acknowledged is the key of the request: a "by" in the body is refused, not ignored.
+    HttpResponse<String> withBy =
+        http.post(
+            "/api/v1/excursions/acknowledgements",
+            "application/json",
+            ack.replace("\"note\":", "\"by\":\"Chemist T1 (invented)\",\"note\":"));
+    assertThat(withBy.statusCode()).as(withBy.body()).isEqualTo(400);
+    assertThat(withBy.body()).contains("by");
+    assertThat(excursions().get(0).get("acknowledgements")).isEmpty();
     HttpResponse<String> r =
         http.post("/api/v1/excursions/acknowledgements", "application/json", ack);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
     JsonNode e = excursions().get(0);
-    // Who acknowledged is the key of the request; the body's "by" is ignored.
     assertThat(e.get("acknowledgedByKeyId").asString()).isEqualTo("testadmin");
     assertThat(e.toString()).doesNotContain("Chemist T1");
     assertThat(e.get("acknowledgementNote").asString()).contains("half isolated");

@@ -44,9 +44,9 @@ class LevelRulesIT {
     String point = "R" + tag + "-" + location.substring(0, 4);
     String body =
         ("{\"id\":\"rules-%s\",\"name\":\"Level rules test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":%s}]}")
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":%s}]}")
             .formatted(tag, point, location, temperatureCel);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);

@@ -222,7 +222,8 @@ class LimitCatalogTest {
             .isPresent();
         continue;
       }
-      TreatmentRegime regime = TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
+      TreatmentRegime regime =
+          TreatmentRegime.ofCode(point.get("treatmentRegime").asString()).orElseThrow();
       if (regime == TreatmentRegime.PT && location == CycleLocation.DRUM_WATER) {
         // Phosphate boiler water: cation conductivity includes the treatment's own phosphate, so
         // IAPWS TGD4-11(2015) limits contamination through chloride and sulfate instead (from
@@ -240,7 +241,7 @@ class LimitCatalogTest {
   }
 
   private static TreatmentRegime regime(JsonNode point) {
-    return TreatmentRegime.valueOf(point.get("treatmentRegime").asString());
+    return TreatmentRegime.ofCode(point.get("treatmentRegime").asString()).orElseThrow();
   }
 
   private static final LimitKey AVT_DRUM_SILICA =

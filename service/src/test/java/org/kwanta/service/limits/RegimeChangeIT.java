@@ -49,8 +49,8 @@ class RegimeChangeIT {
             "/api/v1/plants",
             "application/json",
             ("{\"id\":\"regime-%s\",\"name\":\"Regime change test (invented)\","
-                    + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s]}")
-                .formatted(tag, samplePoint("AVT_O")));
+                    + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[%s]}")
+                .formatted(tag, samplePoint("AVT(O)")));
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
     List<String> readings = new ArrayList<>();
     for (int m = 0; m <= 360; m++) {
@@ -71,7 +71,7 @@ class RegimeChangeIT {
   }
 
   private String samplePoint(String regime) {
-    return ("{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Economizer inlet\","
+    return ("{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Economizer inlet\","
             + "\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"%s\","
             + "\"operatingTemperatureCel\":250,\"operatingPressureMPa\":18}")
         .formatted(point, regime);
@@ -153,7 +153,7 @@ class RegimeChangeIT {
 
     assertThat(changeRegime(http, "OT", change, "shift log").statusCode()).isEqualTo(200);
     HttpResponse<String> earlier =
-        changeRegime(http, "AVT_O", change.minus(1, ChronoUnit.HOURS), "earlier still");
+        changeRegime(http, "AVT(O)", change.minus(1, ChronoUnit.HOURS), "earlier still");
     assertThat(earlier.statusCode()).as(earlier.body()).isEqualTo(409);
     assertThat(earlier.body()).contains("cannot be in force from an earlier time");
   }

@@ -36,9 +36,9 @@ class MetricsIT {
     String point = "M" + tag + "-U2-CPD";
     String plant =
         ("{\"id\":\"metrics-%s\",\"name\":\"Metrics test (fictional)\","
-                + "\"units\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
-                + "\"unit\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"blocks\":[{\"id\":\"U2\",\"name\":\"Unit 2\"}],\"samplePoints\":[{\"id\":\"%s\","
+                + "\"block\":\"U2\",\"name\":\"Unit 2 condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40}]}")
             .formatted(tag, point);
     assertThat(http.post("/api/v1/plants", "application/json", plant).statusCode()).isEqualTo(201);
@@ -64,7 +64,7 @@ class MetricsIT {
     String scrape = http.get("/actuator/prometheus").body();
 
     String labels =
-        "parameter=\"cation_conductivity\",plant=\"metrics-%s\",sample_point=\"%s\",unit=\"U2\""
+        "block=\"U2\",parameter=\"cation_conductivity\",plant=\"metrics-%s\",sample_point=\"%s\""
             .formatted(tag, point);
     assertThat(scrape)
         .contains("kwanta_sample_level{" + labels + "} 2.0")

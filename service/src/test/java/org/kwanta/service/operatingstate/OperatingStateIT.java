@@ -55,12 +55,12 @@ class OperatingStateIT {
     steam = "S" + tag + "-MS";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Operating state test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5},"
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Main steam\","
-                + "\"cycleLocation\":\"MAIN_STEAM\",\"treatmentRegime\":\"AVT_O\","
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Main steam\","
+                + "\"cycleLocation\":\"MAIN_STEAM\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":540,\"operatingPressureMPa\":16}]}")
             .formatted(plant, cpd, steam);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
@@ -70,7 +70,7 @@ class OperatingStateIT {
   private JsonNode state(String state, Instant since) {
     HttpResponse<String> r =
         http.post(
-            "/api/v1/plants/" + plant + "/units/U1/operating-states",
+            "/api/v1/plants/" + plant + "/blocks/U1/operating-states",
             "application/json",
             "{\"state\":\"%s\",\"since\":\"%s\",\"note\":\"test\"}".formatted(state, since));
     assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
@@ -170,7 +170,7 @@ class OperatingStateIT {
             http.get(
                     "/api/v1/plants/"
                         + plant
-                        + "/units/U1/operating-states"
+                        + "/blocks/U1/operating-states"
                         + "?"
                         + window.substring(1))
                 .body());
@@ -210,7 +210,8 @@ class OperatingStateIT {
   }
 
   private JsonNode holdPoints(Instant at) {
-    HttpResponse<String> r = http.get("/api/v1/plants/" + plant + "/units/U1/hold-points?at=" + at);
+    HttpResponse<String> r =
+        http.get("/api/v1/plants/" + plant + "/blocks/U1/hold-points?at=" + at);
     assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
     return JSON.readTree(r.body());
   }
@@ -239,7 +240,7 @@ class OperatingStateIT {
             http.get(
                     "/api/v1/plants/"
                         + plant
-                        + "/units/U1/operating-states?from="
+                        + "/blocks/U1/operating-states?from="
                         + since
                         + "&to="
                         + since.plus(1, ChronoUnit.HOURS))
@@ -248,7 +249,7 @@ class OperatingStateIT {
     assertThat(timeline.get("timeline").get(0).get("state").asString()).isEqualTo("LAYUP_WET");
     assertThat(
             jdbc.queryForObject(
-                "SELECT count(*) FROM audit_event WHERE entity_type = 'unit-operating-state'"
+                "SELECT count(*) FROM audit_event WHERE entity_type = 'block-operating-state'"
                     + " AND entity_id = ?",
                 Integer.class,
                 plant + "/U1"))
@@ -256,7 +257,7 @@ class OperatingStateIT {
     assertThatThrownBy(
             () ->
                 jdbc.update(
-                    "UPDATE unit_operating_state SET state = 'IN_SERVICE' WHERE id = ?",
+                    "UPDATE block_operating_state SET state = 'IN_SERVICE' WHERE id = ?",
                     first.get("id").asLong()))
         .isInstanceOf(DataAccessException.class)
         .rootCause()
@@ -264,7 +265,7 @@ class OperatingStateIT {
 
     HttpResponse<String> unknown =
         http.post(
-            "/api/v1/plants/" + plant + "/units/U9/operating-states",
+            "/api/v1/plants/" + plant + "/blocks/U9/operating-states",
             "application/json",
             "{\"state\":\"IN_SERVICE\",\"since\":\"" + since + "\"}");
     assertThat(unknown.statusCode()).isEqualTo(404);
@@ -272,7 +273,7 @@ class OperatingStateIT {
         .hasValueSatisfying(t -> assertThat(t).startsWith("application/problem+json"));
     HttpResponse<String> bad =
         http.post(
-            "/api/v1/plants/" + plant + "/units/U1/operating-states",
+            "/api/v1/plants/" + plant + "/blocks/U1/operating-states",
             "application/json",
             "{\"state\":\"WARMING\",\"since\":\"" + since + "\"}");
     assertThat(bad.statusCode()).isEqualTo(400);

@@ -58,12 +58,12 @@ class ProcessValuesIT {
     cpd = "P" + tag + "-CPD";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Process values test (fictional)\","
-                + "\"units\":[{\"id\":\"B1\",\"name\":\"Block 1\"}],\"samplePoints\":["
-                + "{\"id\":\"%s\",\"unit\":\"B1\",\"name\":\"HP drum water\","
-                + "\"cycleLocation\":\"DRUM_WATER\",\"treatmentRegime\":\"AVT_O\","
+                + "\"blocks\":[{\"id\":\"B1\",\"name\":\"Block 1\"}],\"samplePoints\":["
+                + "{\"id\":\"%s\",\"block\":\"B1\",\"name\":\"HP drum water\","
+                + "\"cycleLocation\":\"DRUM_WATER\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":330},"
-                + "{\"id\":\"%s\",\"unit\":\"B1\",\"name\":\"Condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "{\"id\":\"%s\",\"block\":\"B1\",\"name\":\"Condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5}]}")
             .formatted(plant, drum, cpd);
     HttpResponse<String> r = http.post("/api/v1/plants", "application/json", body);
@@ -264,7 +264,7 @@ class ProcessValuesIT {
     post(states);
     HttpResponse<String> entry =
         http.post(
-            "/api/v1/plants/" + plant + "/units/B1/operating-states",
+            "/api/v1/plants/" + plant + "/blocks/B1/operating-states",
             "application/json",
             "{\"state\":\"START_UP\",\"since\":\"%s\",\"note\":\"still warming\"}"
                 .formatted(day.plus(6, ChronoUnit.HOURS)));
@@ -274,7 +274,7 @@ class ProcessValuesIT {
 
     JsonNode timeline =
         JSON.readTree(
-            http.get("/api/v1/plants/" + plant + "/units/B1/operating-states?" + window).body());
+            http.get("/api/v1/plants/" + plant + "/blocks/B1/operating-states?" + window).body());
     assertThat(timeline.get("timeline")).hasSize(2);
     JsonNode startUp = timeline.get("timeline").get(0);
     assertThat(startUp.get("state").asString()).isEqualTo("START_UP");
@@ -306,7 +306,7 @@ class ProcessValuesIT {
             http.get(
                     "/api/v1/plants/"
                         + plant
-                        + "/units/B1/hold-points?at="
+                        + "/blocks/B1/hold-points?at="
                         + day.plus(3, ChronoUnit.HOURS))
                 .body());
     assertThat(hold.get("state").asString()).isEqualTo("START_UP");

@@ -39,8 +39,8 @@ class RegistryIT {
   void aChangeIsANewVersionAndEvaluationsRecordTheirVersion() {
     String body =
         """
-        {"id":"FW-ECO-IN","unit":"U1","name":"Economizer inlet","cycleLocation":"FEEDWATER",
-         "treatmentRegime":"AVT_O","operatingTemperatureCel":160,"operatingPressureMPa":14,
+        {"id":"FW-ECO-IN","block":"U1","name":"Economizer inlet","cycleLocation":"FEEDWATER",
+         "treatmentRegime":"AVT(O)","operatingTemperatureCel":160,"operatingPressureMPa":14,
          "alkalizer":"MORPHOLINE"}""";
     HttpResponse<String> r =
         http.send("PUT", "/api/v1/sample-points/FW-ECO-IN", "application/json", body);
@@ -76,7 +76,7 @@ class RegistryIT {
   void anInvalidChangeIsRefused() {
     String body =
         """
-        {"id":"FW-ECO-IN","unit":"U1","name":"x","cycleLocation":"FEEDWATER",
+        {"id":"FW-ECO-IN","block":"U1","name":"x","cycleLocation":"FEEDWATER",
          "treatmentRegime":"NONSENSE","alkalizer":"MORPHOLINE"}""";
     HttpResponse<String> r =
         http.send("PUT", "/api/v1/sample-points/FW-ECO-IN", "application/json", body);

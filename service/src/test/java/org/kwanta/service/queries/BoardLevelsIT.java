@@ -106,11 +106,11 @@ class BoardLevelsIT {
     feed = "B" + tag + "-FEED";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Board levels test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"drum\",\"cycleLocation\":\"DRUM_WATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150},"
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"feed\",\"cycleLocation\":\"FEEDWATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}")
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"drum\",\"cycleLocation\":\"DRUM_WATER\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150},"
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"feed\",\"cycleLocation\":\"FEEDWATER\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}]}")
             .formatted(plant, drum, feed);
     HttpResponse<String> created = http.post("/api/v1/plants", "application/json", body);
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);

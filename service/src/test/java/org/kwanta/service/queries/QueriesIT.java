@@ -37,11 +37,11 @@ class QueriesIT {
     String plant =
         "{\"id\":\"q-"
             + tag.toLowerCase(Locale.ROOT)
-            + "\",\"name\":\"Query test plant (invented)\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],"
+            + "\",\"name\":\"Query test plant (invented)\",\"blocks\":[{\"id\":\"U1\",\"name\":\"u\"}],"
             + "\"samplePoints\":[{\"id\":\""
             + point
-            + "\",\"unit\":\"U1\",\"name\":\"p\",\"cycleLocation\":\"FEEDWATER\","
-            + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}";
+            + "\",\"block\":\"U1\",\"name\":\"p\",\"cycleLocation\":\"FEEDWATER\","
+            + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}]}";
     assertThat(http.post("/api/v1/plants", "application/json", plant).statusCode()).isEqualTo(201);
     start = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(1, ChronoUnit.DAYS);
     List<String> readings = new ArrayList<>();

@@ -44,7 +44,7 @@ import tools.jackson.databind.json.JsonMapper;
  * recalled from IAPWS TGD3-10, from memory — verify). The past horizon of the ingest is widened so
  * that the fixed month stays acceptable in later years.
  *
- * <p>The script, unit U1:
+ * <p>The script, block U1:
  *
  * <pre>
  *   states:   04-01 00:00 IN_SERVICE, 04-10 00:00 SHUT_DOWN, 04-12 00:00 START_UP,
@@ -100,9 +100,9 @@ class MonthlyReportIT {
     String cpd = "M" + tag + "-CPD";
     String body =
         ("{\"id\":\"%s\",\"name\":\"Report test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
-                + "{\"id\":\"%s\",\"unit\":\"U1\",\"name\":\"Condensate pump discharge\","
-                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT_O\","
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":["
+                + "{\"id\":\"%s\",\"block\":\"U1\",\"name\":\"Condensate pump discharge\","
+                + "\"cycleLocation\":\"CONDENSATE\",\"treatmentRegime\":\"AVT(O)\","
                 + "\"operatingTemperatureCel\":40,\"operatingPressureMPa\":1.5,"
                 + "\"parameters\":[\"cation_conductivity\"]}]}")
             .formatted(plant, cpd);
@@ -116,7 +116,7 @@ class MonthlyReportIT {
             new String[] {"IN_SERVICE", "04-12T12:00"})) {
       HttpResponse<String> r =
           http.post(
-              "/api/v1/plants/" + plant + "/units/U1/operating-states",
+              "/api/v1/plants/" + plant + "/blocks/U1/operating-states",
               "application/json",
               "{\"state\":\"%s\",\"since\":\"%s\"}".formatted(s[0], t(s[1])));
       assertThat(r.statusCode()).as(r.body()).isEqualTo(201);
@@ -186,11 +186,11 @@ class MonthlyReportIT {
     log.info("Scripted month report: {}", r.body());
     JsonNode report = JSON.readTree(r.body());
 
-    JsonNode unit = report.get("units").get(0);
-    assertThat(unit.get("hoursInService").asDouble()).isCloseTo(660, within(EXACT));
-    assertThat(unit.get("hoursUnrecorded").asDouble()).isZero();
-    assertThat(unit.get("hoursByState").get("SHUT_DOWN").asDouble()).isCloseTo(48, within(EXACT));
-    assertThat(unit.get("hoursByState").get("START_UP").asDouble()).isCloseTo(12, within(EXACT));
+    JsonNode block = report.get("blocks").get(0);
+    assertThat(block.get("hoursInService").asDouble()).isCloseTo(660, within(EXACT));
+    assertThat(block.get("hoursUnrecorded").asDouble()).isZero();
+    assertThat(block.get("hoursByState").get("SHUT_DOWN").asDouble()).isCloseTo(48, within(EXACT));
+    assertThat(block.get("hoursByState").get("START_UP").asDouble()).isCloseTo(12, within(EXACT));
 
     assertThat(report.get("channels")).hasSize(1);
     JsonNode channel = report.get("channels").get(0);

@@ -66,7 +66,7 @@ class EndpointRoleMatrixIT {
           row("POST", "/api/v1/excursion-events/**", Access.CHEMIST),
           row("PUT", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
           row("DELETE", "/api/v1/sample-points/*/limits/*", Access.CHEMIST),
-          row("POST", "/api/v1/plants/*/units/*/operating-states", Access.CHEMIST),
+          row("POST", "/api/v1/plants/*/blocks/*/operating-states", Access.CHEMIST),
           row("POST", "/api/v1/sample-points/*/instrument-checks", Access.CHEMIST),
           row("POST", "/api/v1/lab-results", Access.CHEMIST),
           row("GET", "/api/**", Access.READ),
@@ -160,7 +160,7 @@ class EndpointRoleMatrixIT {
         .anyMatch(s -> s.startsWith("GET /api/v1/water "))
         .anyMatch(s -> s.startsWith("DELETE /api/v1/keys/"))
         .anyMatch(
-            s -> s.startsWith("POST /api/v1/plants/matrix-x/units/matrix-x/operating-states "))
+            s -> s.startsWith("POST /api/v1/plants/matrix-x/blocks/matrix-x/operating-states "))
         .anyMatch(s -> s.startsWith("GET /api/v1/plants/matrix-x/reports/monthly "))
         .anyMatch(s -> s.startsWith("POST /api/v1/sample-points/matrix-x/instrument-checks "))
         .anyMatch(s -> s.startsWith("POST /api/v1/lab-results -> CHEMIST"))

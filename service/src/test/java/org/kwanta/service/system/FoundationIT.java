@@ -99,7 +99,7 @@ class FoundationIT {
         http.post(
             "/api/v1/plants",
             "application/json",
-            "{\"id\":\"\",\"name\":\"x\",\"units\":[],\"samplePoints\":[]}");
+            "{\"id\":\"\",\"name\":\"x\",\"blocks\":[],\"samplePoints\":[]}");
     assertThat(r.statusCode()).isEqualTo(400);
     assertThat(r.body()).contains("urn:kwanta:problem:bad-request");
   }

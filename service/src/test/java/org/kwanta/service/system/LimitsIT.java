@@ -68,12 +68,12 @@ class LimitsIT {
 
   @Test
   void chunkedBodyOverTheLimitIs413WhileReading() {
-    StringBuilder units = new StringBuilder();
-    for (int i = 0; units.length() < 1_200_000; i++) {
-      units.append(i == 0 ? "" : ",").append("{\"id\":\"u").append(i).append("\",\"name\":\"n\"}");
+    StringBuilder blocks = new StringBuilder();
+    for (int i = 0; blocks.length() < 1_200_000; i++) {
+      blocks.append(i == 0 ? "" : ",").append("{\"id\":\"u").append(i).append("\",\"name\":\"n\"}");
     }
     byte[] body =
-        ("{\"id\":\"chunked\",\"name\":\"c\",\"units\":[" + units + "],\"samplePoints\":[]}")
+        ("{\"id\":\"chunked\",\"name\":\"c\",\"blocks\":[" + blocks + "],\"samplePoints\":[]}")
             .getBytes(StandardCharsets.UTF_8);
     HttpResponse<String> r =
         admin.send(
@@ -105,7 +105,7 @@ class LimitsIT {
         admin.post(
             "/api/v1/plants",
             "application/json",
-            "{\"id\":\"unknown-field\",\"name\":\"x\",\"units\":[],\"samplePoints\":[],\"colour\":1}");
+            "{\"id\":\"unknown-field\",\"name\":\"x\",\"blocks\":[],\"samplePoints\":[],\"colour\":1}");
     assertThat(r.statusCode()).isEqualTo(400);
     assertThat(r.body()).contains("Unknown field 'colour'").doesNotContain("org.kwanta");
     assertThat(admin.get("/api/v1/plants/unknown-field").statusCode()).isEqualTo(404);
@@ -116,7 +116,7 @@ class LimitsIT {
     String longName =
         "{\"id\":\"long\",\"name\":\""
             + "a".repeat(70_000)
-            + "\",\"units\":[],\"samplePoints\":[]}";
+            + "\",\"blocks\":[],\"samplePoints\":[]}";
     HttpResponse<String> r = admin.post("/api/v1/plants", "application/json", longName);
     assertThat(r.statusCode()).isEqualTo(400);
     assertThat(r.body()).contains("parser limit");
@@ -128,7 +128,7 @@ class LimitsIT {
   @Test
   void textPostgresCannotStoreIs400AndNothingIsStored() {
     String nul =
-        "{\"id\":\"nul-name\",\"name\":\"a\\u0000b\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],"
+        "{\"id\":\"nul-name\",\"name\":\"a\\u0000b\",\"blocks\":[{\"id\":\"U1\",\"name\":\"u\"}],"
             + "\"samplePoints\":[]}";
     HttpResponse<String> r = admin.post("/api/v1/plants", "application/json", nul);
     assertThat(r.statusCode()).isEqualTo(400);

@@ -75,7 +75,7 @@ class PackagedApplicationIT {
   void embeddedDatabaseKeepsDataAndGeneratedKeyAcrossRestart(@TempDir Path dataDir)
       throws Exception {
     String plant =
-        "{\"id\":\"restart-check\",\"name\":\"Restart check\",\"units\":[{\"id\":\"U9\",\"name\":\"u\"}],"
+        "{\"id\":\"restart-check\",\"name\":\"Restart check\",\"blocks\":[{\"id\":\"U9\",\"name\":\"u\"}],"
             + "\"samplePoints\":[]}";
     int port = freePort();
     int databasePort = freePort();
