@@ -394,8 +394,12 @@ final class ChargeBalanceSolver {
     return sum;
   }
 
-  /** Relative tolerance of the free-molality solves of sodium and boron. */
-  static final double FREE_MOLALITY_TOLERANCE = 1e-15;
+  /**
+   * Stop a free-molality Newton solve (sodium, boron) once a step is below this fraction of the
+   * molality: both balances have |h''|·m/h' ≤ 3, so the error after that step is below about
+   * 1.5·(1e-8)² = 1.5e-16 of m (quadratic convergence), at double-precision resolution.
+   */
+  static final double FREE_MOLALITY_STEP = 1e-8;
 
   /** Cap on the Newton steps of a free-molality solve (monotone convergence, a few steps). */
   static final int MAX_FREE_ITERATIONS = 100;
@@ -414,37 +418,55 @@ final class ChargeBalanceSolver {
    */
   private double[] evaluateSodium(double inverse, double mOH) {
     double naT = totals[na];
-    double clT = cl >= 0 ? totals[cl] : 0;
-    double sT = so4 >= 0 ? totals[so4] : 0;
-    double pOH = kHydroxide * mOH;
-    double kCl = cl >= 0 ? kChloride : 0;
-    double kS = so4 >= 0 ? kSulfate : 0;
-    // m(SO₄²⁻)/m(HSO₄⁻) and D = 1 + m(HSO₄⁻)/m(SO₄²⁻)
-    double rS = so4 >= 0 ? conditional[so4][0] * inverse : 1;
-    double d = 1 + 1 / rS;
-    double n = naT / (1 + pOH + clT * kCl + sT * kS / d);
+    double p = 1 + kHydroxide * mOH;
+    boolean withCl = cl >= 0 && kChloride > 0;
+    boolean withS = so4 >= 0;
+    double kCl = kChloride;
+    double aCl = withCl ? totals[cl] * kCl : 0;
+    double sT = withS ? totals[so4] : 0;
+    double kS = kSulfate;
+    double aS = sT * kS;
+    // m(HSO₄⁻)/m(SO₄²⁻) and D = 1 + m(HSO₄⁻)/m(SO₄²⁻)
+    double invRS = withS ? 1 / (conditional[so4][0] * inverse) : 0;
+    double d = 1 + invRS;
+    double iCl = 1;
+    double iS = withS ? 1 / d : 0;
+    double n = naT / (p + aCl + aS * iS);
     for (int i = 0; i < MAX_FREE_ITERATIONS && n > 0; i++) {
-      double eCl = 1 + kCl * n;
-      double eS = d + kS * n;
-      double h = n * (1 + pOH) + clT * kCl * n / eCl + sT * kS * n / eS - naT;
-      double dh = 1 + pOH + clT * kCl / (eCl * eCl) + sT * kS * d / (eS * eS);
+      if (withCl) {
+        iCl = 1 / (1 + kCl * n);
+      }
+      if (withS) {
+        iS = 1 / (d + kS * n);
+      }
+      double h = n * (p + aCl * iCl + aS * iS) - naT;
+      double dh = p + aCl * iCl * iCl + aS * d * iS * iS;
       double step = h / dh;
       n -= step;
-      if (Math.abs(step) <= FREE_MOLALITY_TOLERANCE * n) {
+      if (Math.abs(step) <= FREE_MOLALITY_STEP * n) {
         break;
       }
     }
+    if (withCl) {
+      iCl = 1 / (1 + kCl * n);
+    }
+    if (withS) {
+      iS = 1 / (d + kS * n);
+    }
     naFree = n;
-    naOHPair = pOH * n;
-    naClPair = clT * kCl * n / (1 + kCl * n);
-    clFree = clT / (1 + kCl * n);
-    so4Free = sT / (d + kS * n);
-    hso4 = so4Free / rS;
+    naOHPair = (p - 1) * n;
+    clFree = withCl ? totals[cl] * iCl : cl >= 0 ? totals[cl] : 0;
+    naClPair = aCl * n * iCl;
+    so4Free = sT * iS;
+    hso4 = so4Free * invRS;
     naSO4Pair = kS * n * so4Free;
-    // w = m(SO₄²⁻ + NaSO₄⁻)/m(HSO₄⁻), proportional to 1/a(H⁺)
-    double w = rS * (1 + kS * n);
-    sumAndSlope[0] = naT - clT - 2 * sT + hso4 - naOHPair;
-    sumAndSlope[1] = naOHPair + sT * w / ((1 + w) * (1 + w));
+    double slope = naOHPair;
+    if (sT > 0) {
+      // w = m(SO₄²⁻ + NaSO₄⁻)/m(HSO₄⁻) ∝ 1/a(H⁺); d m(HSO₄⁻)/d ln a(H⁺) = S_T·w/(1 + w)²
+      slope += hso4 * (so4Free + naSO4Pair) / sT;
+    }
+    sumAndSlope[0] = naT - (cl >= 0 ? totals[cl] : 0) - 2 * sT + hso4 - naOHPair;
+    sumAndSlope[1] = slope;
     return sumAndSlope;
   }
 
@@ -467,7 +489,7 @@ final class ChargeBalanceSolver {
       double dm = 1 + a1 * u + b * (4 * c2 + b * (9 * c3 + b * 16 * c4));
       double step = m / dm;
       b -= step;
-      if (Math.abs(step) <= FREE_MOLALITY_TOLERANCE * b) {
+      if (Math.abs(step) <= FREE_MOLALITY_STEP * b) {
         break;
       }
     }
@@ -507,7 +529,13 @@ final class ChargeBalanceSolver {
     double inverse = 1 / aH;
     double sum = aH / gamma[1] + kw * inverse / gamma[1];
     if (pairedSodium || polymerBoron) {
-      evaluate(x);
+      // the free and paired molalities at x (the chains are summed below)
+      if (pairedSodium) {
+        evaluateSodium(inverse, kw * inverse / gamma[1]);
+      }
+      if (polymerBoron) {
+        evaluateBoron(inverse);
+      }
       int two = squared ? 4 : 2;
       if (pairedSodium) {
         sum += naFree + clFree + hso4 + two * so4Free + naSO4Pair;
