@@ -216,11 +216,13 @@ final class ChargeBalanceSolver {
     this.associationK = associationK;
     pairedSodium =
         na >= 0
+            && totals[na] > 0
             && (associationK[Association.SODIUM_HYDROXIDE.ordinal()] > 0
                 || (cl >= 0 && associationK[Association.SODIUM_CHLORIDE.ordinal()] > 0)
                 || (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0));
     polymerBoron =
         boron >= 0
+            && totals[boron] > 0
             && (associationK[Association.DIBORATE.ordinal()] > 0
                 || associationK[Association.TRIBORATE.ordinal()] > 0
                 || associationK[Association.TETRABORATE.ordinal()] > 0);

@@ -14,7 +14,9 @@ import org.kwanta.model.Reference;
  * carry estimates by structural analogy ({@link #AMINE_ESTIMATE}, ±3 S cm² mol⁻¹). The temperature
  * parameters dw_T (K) are those of {@link #DW_T}; where that database gives none, dw_T = 0 (plain
  * Walden scaling) and the temperature dependence is less certain. Charged species with no λ°
- * carried (HSO₄⁻, B(OH)₄⁻) have λ° = NaN; neutral species have λ° = 0.
+ * carried (HSO₄⁻, B(OH)₄⁻, the charged ion pair and polyborates) have λ° = NaN; neutral species
+ * have λ° = 0. Species formed by an {@link Association} ({@link #isAssociated()}) are
+ * speciation-only: the conductivity model does not carry them.
  */
 public enum Species {
   /** Hydrogen ion, H⁺ (water ion). */
