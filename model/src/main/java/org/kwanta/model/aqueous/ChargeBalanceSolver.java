@@ -24,6 +24,11 @@ import org.kwanta.model.water.WaterState;
  * species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12 mol/kg and the
  * change in every log10 γ it implies is below 1e-11.
  *
+ * <p>Associations (sodium ion pairs, polyborates; {@link Association}) couple components: when they
+ * are carried, sodium with chloride and sulfate, and boron, are speciated by their mass balances
+ * inside each evaluation of f (free Na⁺ and free B(OH)₃ by monotone Newton solves, {@link
+ * #evaluateSodium}, {@link #evaluateBoron}); the other components keep their closed-form chains.
+ *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
  * enough, because d(log10 γ)/dI ≤ A·z²/(2√I) and I ≥ m(H⁺) + m(OH⁻) ≥ 2√Kw &gt; 1e-8 mol/kg in
@@ -751,18 +756,15 @@ final class ChargeBalanceSolver {
         double t = totals[k];
         out.add(amount(Species.BORIC_ACID, boricFree, t, 1));
         out.add(amount(Species.BORATE, borates[0], t, g[1]));
-        Association[] polymers = {
-          Association.DIBORATE, Association.TRIBORATE, Association.TETRABORATE
-        };
         for (int i = 0; i < 3; i++) {
-          if (associationK[polymers[i].ordinal()] > 0) {
-            Species sp = polymers[i].formed();
+          if (associationK[POLYBORATES[i].ordinal()] > 0) {
+            Species sp = POLYBORATES[i].formed();
             double m = borates[i + 1];
             out.add(
                 new SpeciesAmount(
                     sp,
                     m,
-                    t > 0 ? polymers[i].boronAtoms() * m / t : 0,
+                    t > 0 ? POLYBORATES[i].boronAtoms() * m / t : 0,
                     g[Math.abs(sp.chargeNumber())]));
           }
         }
@@ -787,6 +789,11 @@ final class ChargeBalanceSolver {
     }
     return out;
   }
+
+  /** The polyborates in the order of {@link #borates} (after the monomer). */
+  private static final Association[] POLYBORATES = {
+    Association.DIBORATE, Association.TRIBORATE, Association.TETRABORATE
+  };
 
   /** A species amount whose fraction is of the component total t (0 when t is 0). */
   private static SpeciesAmount amount(Species s, double m, double t, double gamma) {
