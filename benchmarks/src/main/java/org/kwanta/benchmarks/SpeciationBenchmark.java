@@ -31,6 +31,7 @@ public class SpeciationBenchmark {
   private Composition composition;
   private WaterState water300;
   private SpeciationOptions options;
+  private SpeciationOptions withoutAssociations;
 
   @Setup
   public void setUp() {
@@ -44,12 +45,22 @@ public class SpeciationBenchmark {
             .build();
     water300 = Water.atSaturation(573.15, IonizationFormulation.R11_07);
     options = SpeciationOptions.defaults();
+    withoutAssociations = options.withAssociations(java.util.Set.of());
   }
 
   /** One speciation; the WaterState is precomputed in setUp. */
   @Benchmark
   public SpeciationResult singleSpeciationAt300Celsius() {
     return Speciation.solve(composition, water300, options);
+  }
+
+  /**
+   * The same speciation without the sodium ion pairs (the plain dissociation chains): the cost of
+   * the pairs is the difference to {@link #singleSpeciationAt300Celsius()}.
+   */
+  @Benchmark
+  public SpeciationResult singleSpeciationAt300CelsiusWithoutAssociations() {
+    return Speciation.solve(composition, water300, withoutAssociations);
   }
 
   /** pH at 300 °C over every distinct alternative constant set (the default included). */

@@ -24,6 +24,11 @@ import org.kwanta.model.water.WaterState;
  * species and the solve repeated, with secant steps on I, until |ΔI| &lt; 1e-12 mol/kg and the
  * change in every log10 γ it implies is below 1e-11.
  *
+ * <p>Associations (sodium ion pairs, polyborates; {@link Association}) couple components: when they
+ * are carried, sodium with chloride and sulfate, and boron, are speciated by their mass balances
+ * inside each evaluation of f (free Na⁺ and free B(OH)₃ by monotone Newton solves, {@link
+ * #evaluateSodium}, {@link #evaluateBoron}); the other components keep their closed-form chains.
+ *
  * <p>The I tolerance is absolute: it is always reachable in double precision for the accepted
  * totals (≤ 0.1 mol/kg per component, so I ≲ 2 mol/kg and ulp(I) ≤ 4e-16), and it is always small
  * enough, because d(log10 γ)/dI ≤ A·z²/(2√I) and I ≥ m(H⁺) + m(OH⁻) ≥ 2√Kw &gt; 1e-8 mol/kg in
@@ -111,9 +116,71 @@ final class ChargeBalanceSolver {
   /** df/dx at the last {@link #evaluate} call. */
   private double derivative;
 
+  /** Indices of sodium, chloride, sulfate and boron among the components, or −1. */
+  private int na = -1;
+
+  private int cl = -1;
+  private int so4 = -1;
+  private int boron = -1;
+
+  /** Association constants carried, by {@link Association#ordinal()} (0 = not carried). */
+  private final double[] associationK;
+
+  /** True when sodium is speciated with its ion pairs, boron with its polyborates. */
+  private final boolean pairedSodium;
+
+  private final boolean polymerBoron;
+
+  /** Conditional pair constants at the current γ: NaOH° per m(OH⁻), NaCl°, NaSO₄⁻. */
+  private double kHydroxide;
+
+  private double kChloride;
+  private double kSulfate;
+
+  /** Conditional polyborate coefficients at the current γ (see {@link #evaluateBoron}). */
+  private double q2;
+
+  private double q3;
+  private double q4;
+
+  /** Free and paired molalities at the last {@link #evaluate} call, mol/kg. */
+  private double naFree;
+
+  private double clFree;
+  private double so4Free;
+  private double hso4;
+  private double naOHPair;
+  private double naClPair;
+  private double naSO4Pair;
+
+  /** Free B(OH)₃ and the borate anions (monomer, B₂, B₃, B₄) at the last evaluation, mol/kg. */
+  private double boricFree;
+
+  private final double[] borates = new double[4];
+
   ChargeBalanceSolver(
       Map<Component, Double> composition,
       double[] kaByEquilibrium,
+      WaterState water,
+      ActivityModel activityModel) {
+    this(
+        composition,
+        kaByEquilibrium,
+        new double[Association.values().length],
+        water,
+        activityModel);
+  }
+
+  /**
+   * A solver carrying association reactions: sodium ion pairs (NaOH°, NaCl°, NaSO₄⁻) and
+   * polyborates, by the constants given (0 turns one off).
+   *
+   * @param associationK K (ion pairs) or Q (polyborates) by {@link Association#ordinal()}
+   */
+  ChargeBalanceSolver(
+      Map<Component, Double> composition,
+      double[] kaByEquilibrium,
+      double[] associationK,
       WaterState water,
       ActivityModel activityModel) {
     this.water = water;
@@ -139,10 +206,36 @@ final class ChargeBalanceSolver {
       // Chains run from the highest charge (first) to the lowest (last).
       cations += totals[k] * Math.max(charges[k][0], 0);
       anions += totals[k] * Math.max(-charges[k][charges[k].length - 1], 0);
+      switch (c) {
+        case SODIUM -> na = k;
+        case CHLORIDE -> cl = k;
+        case SULFATE -> so4 = k;
+        case BORON -> boron = k;
+        default -> {}
+      }
       k++;
     }
     cationCapacity = cations;
+    // polyborates carry at most one charge per boron, as the monomer does
     anionCapacity = anions;
+    this.associationK = associationK;
+    pairedSodium =
+        na >= 0
+            && totals[na] > 0
+            && (associationK[Association.SODIUM_HYDROXIDE.ordinal()] > 0
+                || (cl >= 0 && associationK[Association.SODIUM_CHLORIDE.ordinal()] > 0)
+                || (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0));
+    polymerBoron =
+        boron >= 0
+            && totals[boron] > 0
+            && (associationK[Association.DIBORATE.ordinal()] > 0
+                || associationK[Association.TRIBORATE.ordinal()] > 0
+                || associationK[Association.TETRABORATE.ordinal()] > 0);
+  }
+
+  /** True when component k is speciated by {@link #evaluateSodium} or {@link #evaluateBoron}. */
+  private boolean coupled(int k) {
+    return (pairedSodium && (k == na || k == cl || k == so4)) || (polymerBoron && k == boron);
   }
 
   /** The solved state: x, I, γ for |z| = 0..3, and the outer iteration count. */
@@ -249,6 +342,15 @@ final class ChargeBalanceSolver {
         conditional[k][i] = ka[step[i]] * gamma[Math.abs(z[i])] / gamma[Math.abs(z[i + 1])];
       }
     }
+    // m(NaOH°) = K·γ₁²·m(Na⁺)·m(OH⁻); m(NaCl°) = K·γ₁²·m(Na⁺)·m(Cl⁻);
+    // m(NaSO₄⁻) = K·γ₁·γ₂/γ₁·m(Na⁺)·m(SO₄²⁻)
+    kHydroxide = associationK[Association.SODIUM_HYDROXIDE.ordinal()] * gamma[1] * gamma[1];
+    kChloride = associationK[Association.SODIUM_CHLORIDE.ordinal()] * gamma[1] * gamma[1];
+    kSulfate = associationK[Association.SODIUM_SULFATE.ordinal()] * gamma[2];
+    // m(B_x) = Q·b^x·a(OH⁻)^y/γ_y with a(OH⁻) = Kw/a(H⁺): per 1/a(H⁺)^y
+    q2 = associationK[Association.DIBORATE.ordinal()] * kw / gamma[1];
+    q3 = associationK[Association.TRIBORATE.ordinal()] * kw / gamma[1];
+    q4 = associationK[Association.TETRABORATE.ordinal()] * kw * kw / gamma[2];
     return shift;
   }
 
@@ -263,6 +365,9 @@ final class ChargeBalanceSolver {
     for (int k = 0; k < components.length; k++) {
       double[] c = conditional[k];
       int[] z = charges[k];
+      if (coupled(k)) {
+        continue;
+      }
       if (c.length == 0) {
         sum += totals[k] * z[0];
         continue;
@@ -282,8 +387,133 @@ final class ChargeBalanceSolver {
       sum += totals[k] * (z[0] - meanLost);
       slope += totals[k] * (lostSquared / s - meanLost * meanLost);
     }
+    if (pairedSodium) {
+      double[] sumAndSlope = evaluateSodium(inverse, mOH);
+      sum += sumAndSlope[0];
+      slope += sumAndSlope[1];
+    }
+    if (polymerBoron) {
+      double[] sumAndSlope = evaluateBoron(inverse);
+      sum += sumAndSlope[0];
+      slope += sumAndSlope[1];
+    }
     derivative = LN10 * slope;
     return sum;
+  }
+
+  /**
+   * Stop a free-molality Newton solve (sodium, boron) once a step is below this fraction of the
+   * molality: both balances have |h''|·m/h' ≤ 3, so the error after that step is below about
+   * 1.5·(1e-8)² = 1.5e-16 of m (quadratic convergence), at double-precision resolution.
+   */
+  static final double FREE_MOLALITY_STEP = 1e-8;
+
+  /** Cap on the Newton steps of a free-molality solve (monotone convergence, a few steps). */
+  static final int MAX_FREE_ITERATIONS = 100;
+
+  private final double[] sumAndSlope = new double[2];
+
+  /**
+   * Sodium with its pairs at a(H⁺) = 1/inverse: solves the sodium balance for m(Na⁺), sets the free
+   * and paired molalities, and returns the charge of sodium, chloride and sulfate and its slope
+   * (per ln 10). The balance h(n) = n·(1 + K'ₒₕ·m(OH⁻)) + Cl_T·K'꜀ₗ·n/(1 + K'꜀ₗ·n) + S_T·K'ₛ·n/(D +
+   * K'ₛ·n) − Na_T, with D = 1 + m(HSO₄⁻)/m(SO₄²⁻), is increasing and concave in n, so Newton's
+   * method from the lower bound n₀ = Na_T/h'(0) climbs monotonically to the root. By conservation
+   * of charge, the charge of the three components is Na_T − Cl_T − 2·S_T + m(HSO₄⁻) − m(NaOH°):
+   * pairing enters through NaOH° (a bound hydroxide) and through HSO₄⁻. The slope holds m(Na⁺)
+   * fixed (the root finder is safeguarded, so an approximate slope only costs steps).
+   */
+  private double[] evaluateSodium(double inverse, double mOH) {
+    double naT = totals[na];
+    double p = 1 + kHydroxide * mOH;
+    boolean withCl = cl >= 0 && kChloride > 0;
+    boolean withS = so4 >= 0;
+    double kCl = kChloride;
+    double aCl = withCl ? totals[cl] * kCl : 0;
+    double sT = withS ? totals[so4] : 0;
+    double kS = kSulfate;
+    double aS = sT * kS;
+    // m(HSO₄⁻)/m(SO₄²⁻) and D = 1 + m(HSO₄⁻)/m(SO₄²⁻)
+    double invRS = withS ? 1 / (conditional[so4][0] * inverse) : 0;
+    double d = 1 + invRS;
+    double iCl = 1;
+    double iS = withS ? 1 / d : 0;
+    double n = naT / (p + aCl + aS * iS);
+    for (int i = 0; i < MAX_FREE_ITERATIONS && n > 0; i++) {
+      if (withCl) {
+        iCl = 1 / (1 + kCl * n);
+      }
+      if (withS) {
+        iS = 1 / (d + kS * n);
+      }
+      double h = n * (p + aCl * iCl + aS * iS) - naT;
+      double dh = p + aCl * iCl * iCl + aS * d * iS * iS;
+      double step = h / dh;
+      n -= step;
+      if (Math.abs(step) <= FREE_MOLALITY_STEP * n) {
+        break;
+      }
+    }
+    if (withCl) {
+      iCl = 1 / (1 + kCl * n);
+    }
+    if (withS) {
+      iS = 1 / (d + kS * n);
+    }
+    naFree = n;
+    naOHPair = (p - 1) * n;
+    clFree = withCl ? totals[cl] * iCl : cl >= 0 ? totals[cl] : 0;
+    naClPair = aCl * n * iCl;
+    so4Free = sT * iS;
+    hso4 = so4Free * invRS;
+    naSO4Pair = kS * n * so4Free;
+    double slope = naOHPair;
+    if (sT > 0) {
+      // w = m(SO₄²⁻ + NaSO₄⁻)/m(HSO₄⁻) ∝ 1/a(H⁺); d m(HSO₄⁻)/d ln a(H⁺) = S_T·w/(1 + w)²
+      slope += hso4 * (so4Free + naSO4Pair) / sT;
+    }
+    sumAndSlope[0] = naT - (cl >= 0 ? totals[cl] : 0) - 2 * sT + hso4 - naOHPair;
+    sumAndSlope[1] = slope;
+    return sumAndSlope;
+  }
+
+  /**
+   * Boron with its polyborates at a(H⁺) = 1/u: solves B_T = b(1 + a₁u) + 2q₂u·b² + 3q₃u·b³ +
+   * 4q₄u²·b⁴ for free B(OH)₃ b (increasing and convex in b, so Newton's method from the upper bound
+   * b₀ = B_T/(1 + a₁u) descends monotonically to the root), sets the borate molalities and returns
+   * the boron charge −N = −(a₁u·b + q₂u·b² + q₃u·b³ + 2q₄u²·b⁴) and its exact slope u·dN/du (per ln
+   * 10, b implicit).
+   */
+  private double[] evaluateBoron(double u) {
+    double bT = totals[boron];
+    double a1 = conditional[boron][0];
+    double c2 = q2 * u;
+    double c3 = q3 * u;
+    double c4 = q4 * u * u;
+    double b = bT / (1 + a1 * u);
+    for (int i = 0; i < MAX_FREE_ITERATIONS && b > 0; i++) {
+      double m = b * (1 + a1 * u + b * (2 * c2 + b * (3 * c3 + b * 4 * c4))) - bT;
+      double dm = 1 + a1 * u + b * (4 * c2 + b * (9 * c3 + b * 16 * c4));
+      double step = m / dm;
+      b -= step;
+      if (Math.abs(step) <= FREE_MOLALITY_STEP * b) {
+        break;
+      }
+    }
+    boricFree = b;
+    borates[0] = a1 * u * b;
+    borates[1] = c2 * b * b;
+    borates[2] = c3 * b * b * b;
+    borates[3] = c4 * b * b * b * b;
+    double negative = borates[0] + borates[1] + borates[2] + 2 * borates[3];
+    // partial derivatives in u (per u, i.e. u·∂/∂u) and in b
+    double nU = borates[0] + borates[1] + borates[2] + 4 * borates[3];
+    double mU = borates[0] + 2 * borates[1] + 3 * borates[2] + 8 * borates[3];
+    double mB = 1 + a1 * u + b * (4 * c2 + b * (9 * c3 + b * 16 * c4));
+    double nB = a1 * u + b * (2 * c2 + b * (3 * c3 + b * 8 * c4));
+    sumAndSlope[0] = -negative;
+    sumAndSlope[1] = nU - nB * mU / mB;
+    return sumAndSlope;
   }
 
   /** Σ z m at x, mol/kg. */
@@ -305,7 +535,26 @@ final class ChargeBalanceSolver {
     double aH = Math.exp(LN10 * x);
     double inverse = 1 / aH;
     double sum = aH / gamma[1] + kw * inverse / gamma[1];
+    if (pairedSodium || polymerBoron) {
+      // the free and paired molalities at x (the chains are summed below)
+      if (pairedSodium) {
+        evaluateSodium(inverse, kw * inverse / gamma[1]);
+      }
+      if (polymerBoron) {
+        evaluateBoron(inverse);
+      }
+      int two = squared ? 4 : 2;
+      if (pairedSodium) {
+        sum += naFree + clFree + hso4 + two * so4Free + naSO4Pair;
+      }
+      if (polymerBoron) {
+        sum += borates[0] + borates[1] + borates[2] + two * borates[3];
+      }
+    }
     for (int k = 0; k < components.length; k++) {
+      if (coupled(k)) {
+        continue;
+      }
       double[] c = conditional[k];
       int[] z = charges[k];
       double r = 1;
@@ -475,7 +724,52 @@ final class ChargeBalanceSolver {
   List<SpeciesAmount> species(Solution solution) {
     double inverse = Math.exp(-LN10 * solution.log10ActivityH());
     List<SpeciesAmount> out = new ArrayList<>(2 * components.length);
+    if (pairedSodium || polymerBoron) {
+      evaluate(solution.log10ActivityH());
+    }
+    double[] g = solution.gamma();
     for (int k = 0; k < components.length; k++) {
+      if (pairedSodium && k == na) {
+        double t = totals[k];
+        out.add(amount(Species.SODIUM_ION, naFree, t, g[1]));
+        if (associationK[Association.SODIUM_HYDROXIDE.ordinal()] > 0) {
+          out.add(amount(Species.SODIUM_HYDROXIDE_PAIR, naOHPair, t, 1));
+        }
+        if (cl >= 0 && associationK[Association.SODIUM_CHLORIDE.ordinal()] > 0) {
+          out.add(amount(Species.SODIUM_CHLORIDE_PAIR, naClPair, t, 1));
+        }
+        if (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0) {
+          out.add(amount(Species.SODIUM_SULFATE_PAIR, naSO4Pair, t, g[1]));
+        }
+        continue;
+      }
+      if (pairedSodium && k == cl) {
+        out.add(amount(Species.CHLORIDE_ION, clFree, totals[k], g[1]));
+        continue;
+      }
+      if (pairedSodium && k == so4) {
+        out.add(amount(Species.BISULFATE, hso4, totals[k], g[1]));
+        out.add(amount(Species.SULFATE, so4Free, totals[k], g[2]));
+        continue;
+      }
+      if (polymerBoron && k == boron) {
+        double t = totals[k];
+        out.add(amount(Species.BORIC_ACID, boricFree, t, 1));
+        out.add(amount(Species.BORATE, borates[0], t, g[1]));
+        for (int i = 0; i < 3; i++) {
+          if (associationK[POLYBORATES[i].ordinal()] > 0) {
+            Species sp = POLYBORATES[i].formed();
+            double m = borates[i + 1];
+            out.add(
+                new SpeciesAmount(
+                    sp,
+                    m,
+                    t > 0 ? POLYBORATES[i].boronAtoms() * m / t : 0,
+                    g[Math.abs(sp.chargeNumber())]));
+          }
+        }
+        continue;
+      }
       double[] cc = conditional[k];
       int[] z = charges[k];
       double[] r = new double[z.length];
@@ -494,6 +788,16 @@ final class ChargeBalanceSolver {
       }
     }
     return out;
+  }
+
+  /** The polyborates in the order of {@link #borates} (after the monomer). */
+  private static final Association[] POLYBORATES = {
+    Association.DIBORATE, Association.TRIBORATE, Association.TETRABORATE
+  };
+
+  /** A species amount whose fraction is of the component total t (0 when t is 0). */
+  private static SpeciesAmount amount(Species s, double m, double t, double gamma) {
+    return new SpeciesAmount(s, m, t > 0 ? m / t : 0, gamma);
   }
 
   double kw() {

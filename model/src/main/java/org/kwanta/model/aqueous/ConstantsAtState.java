@@ -29,16 +29,51 @@ final class ConstantsAtState {
   final List<ConstantUsed> used;
   final boolean extrapolated;
 
+  /**
+   * The association constants that apply to the components present (whether or not a speciation
+   * carries them), in {@link Association} order.
+   */
+  final List<AssociationUsed> associations;
+
   /** Ka = 10^log10 Ka by {@link Equilibrium#ordinal()}. */
   private final double[] ka;
 
-  private ConstantsAtState(double[] log10Ka, List<ConstantUsed> used, boolean extrapolated) {
+  /** K = 10^log10 K by {@link Association#ordinal()} (0 for associations that do not apply). */
+  private final double[] associationK;
+
+  private ConstantsAtState(
+      double[] log10Ka,
+      List<ConstantUsed> used,
+      boolean extrapolated,
+      List<AssociationUsed> associations) {
     this.ka = new double[log10Ka.length];
     for (int i = 0; i < ka.length; i++) {
       ka[i] = Math.exp(LN10 * log10Ka[i]);
     }
     this.used = used;
     this.extrapolated = extrapolated;
+    this.associations = associations;
+    this.associationK = new double[Association.values().length];
+    for (AssociationUsed a : associations) {
+      associationK[a.association().ordinal()] = Math.exp(LN10 * a.log10K());
+    }
+  }
+
+  /** K by association ordinal (0 where it does not apply); do not modify. */
+  double[] associationK() {
+    return associationK;
+  }
+
+  /** True when the association's partners are among the components. */
+  static boolean applies(Association a, Set<Component> components) {
+    return switch (a) {
+      case SODIUM_HYDROXIDE -> components.contains(Component.SODIUM);
+      case SODIUM_CHLORIDE ->
+          components.contains(Component.SODIUM) && components.contains(Component.CHLORIDE);
+      case SODIUM_SULFATE ->
+          components.contains(Component.SODIUM) && components.contains(Component.SULFATE);
+      case DIBORATE, TRIBORATE, TETRABORATE -> components.contains(Component.BORON);
+    };
   }
 
   /** Ka by equilibrium ordinal (1 for equilibria of absent components); do not modify. */
@@ -82,7 +117,14 @@ final class ConstantsAtState {
         used.add(new ConstantUsed(e, logK, fit.id(), fit.reference(), fit.validity(), outside));
       }
     }
-    return new ConstantsAtState(log10Ka, List.copyOf(used), extrapolated);
+    List<AssociationUsed> associations = new ArrayList<>();
+    for (Association a : Association.values()) {
+      if (applies(a, components)) {
+        associations.add(new AssociationUsed(a, a.log10K(t), !a.validity().contains(t)));
+      }
+    }
+    return new ConstantsAtState(
+        log10Ka, List.copyOf(used), extrapolated, List.copyOf(associations));
   }
 
   /** Exact cache key: the set by identity, T and pKw by their bits. */

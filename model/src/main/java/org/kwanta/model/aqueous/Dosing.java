@@ -105,8 +105,7 @@ public final class Dosing {
       }
     }
     for (ConstantSet set : sets) {
-      SpeciationOptions o =
-          new SpeciationOptions(set, options.activityModel(), options.sampleOrigin());
+      SpeciationOptions o = options.withConstants(set);
       Problem p = new Problem(background, mix, basis, target, at25, location, o);
       double x;
       if (p.applyAsDouble(Math.log(MIN_AMOUNT)) >= 0) {

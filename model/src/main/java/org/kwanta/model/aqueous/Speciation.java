@@ -126,7 +126,11 @@ public final class Speciation {
         ConstantsAtState.of(options.constants(), t, water.pKw(), composition.totals().keySet());
     ChargeBalanceSolver.Solution s =
         new ChargeBalanceSolver(
-                composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+                composition.totals(),
+                k.kaByEquilibrium(),
+                carried(k, options),
+                water,
+                options.activityModel())
             .solve(startX, startI);
     checkIonicStrength(s.ionicStrength(), options);
     return new PhSolution(-s.log10ActivityH(), s.ionicStrength());
@@ -193,7 +197,11 @@ public final class Speciation {
 
     ChargeBalanceSolver solver =
         new ChargeBalanceSolver(
-            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
+            composition.totals(),
+            k.kaByEquilibrium(),
+            carried(k, options),
+            water,
+            options.activityModel());
     ChargeBalanceSolver.Solution s = solver.solve(startX, startI);
     double residual =
         Math.abs(solver.chargeBalance(s.log10ActivityH())) / solver.chargeScale(s.log10ActivityH());
@@ -207,6 +215,15 @@ public final class Speciation {
     Set<Notice> notices = EnumSet.noneOf(Notice.class);
     if (extrapolated) {
       notices.add(Notice.EXTRAPOLATED_CONSTANT);
+    }
+    List<AssociationUsed> associations = new ArrayList<>();
+    for (AssociationUsed a : k.associations) {
+      if (options.associations().contains(a.association())) {
+        associations.add(a);
+        if (a.extrapolated()) {
+          notices.add(Notice.EXTRAPOLATED_ASSOCIATION_CONSTANT);
+        }
+      }
     }
     checkIonicStrength(s.ionicStrength(), options);
     if (options.sampleOrigin() == SampleOrigin.CONDENSED_STEAM) {
@@ -228,7 +245,24 @@ public final class Speciation {
         options.sampleOrigin(),
         residual,
         s.iterations(),
-        notices);
+        notices,
+        associations);
+  }
+
+  /**
+   * The association constants a speciation carries: those that apply to the components and are
+   * chosen in the options; 0 for the others.
+   */
+  private static double[] carried(ConstantsAtState k, SpeciationOptions options) {
+    double[] all = k.associationK();
+    if (options.associations().size() == Association.values().length) {
+      return all;
+    }
+    double[] chosen = new double[all.length];
+    for (Association a : options.associations()) {
+      chosen[a.ordinal()] = all[a.ordinal()];
+    }
+    return chosen;
   }
 
   /**
@@ -271,7 +305,11 @@ public final class Speciation {
       ConstantsAtState k = ConstantsAtState.of(set, t, water.pKw(), composition.totals().keySet());
       ChargeBalanceSolver.Solution s =
           new ChargeBalanceSolver(
-                  composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+                  composition.totals(),
+                  k.kaByEquilibrium(),
+                  carried(k, options),
+                  water,
+                  options.activityModel())
               .solve(startX, startI);
       if (Double.isNaN(startX)) {
         startX = s.log10ActivityH();

@@ -1,6 +1,9 @@
 package org.kwanta.model.aqueous;
 
+import java.util.Collections;
+import java.util.EnumSet;
 import java.util.Objects;
+import java.util.Set;
 
 /**
  * Choices for one speciation.
@@ -9,15 +12,36 @@ import java.util.Objects;
  *     another)
  * @param activityModel the activity model ({@link ActivityModel#DAVIES} by default)
  * @param sampleOrigin liquid sample, or condensed steam at the stated temperature
+ * @param associations the ion pairs and polyborates carried (all by default; an empty set gives the
+ *     plain dissociation chains)
  */
 public record SpeciationOptions(
-    ConstantSet constants, ActivityModel activityModel, SampleOrigin sampleOrigin) {
+    ConstantSet constants,
+    ActivityModel activityModel,
+    SampleOrigin sampleOrigin,
+    Set<Association> associations) {
 
   public SpeciationOptions {
     Objects.requireNonNull(constants, "constants");
     Objects.requireNonNull(activityModel, "activityModel");
     Objects.requireNonNull(sampleOrigin, "sampleOrigin");
+    Objects.requireNonNull(associations, "associations");
+    associations =
+        Collections.unmodifiableSet(
+            associations.isEmpty()
+                ? EnumSet.noneOf(Association.class)
+                : EnumSet.copyOf(associations));
   }
+
+  /** With every association carried ({@link #ALL_ASSOCIATIONS}). */
+  public SpeciationOptions(
+      ConstantSet constants, ActivityModel activityModel, SampleOrigin sampleOrigin) {
+    this(constants, activityModel, sampleOrigin, ALL_ASSOCIATIONS);
+  }
+
+  /** Every association: the default. */
+  public static final Set<Association> ALL_ASSOCIATIONS =
+      Collections.unmodifiableSet(EnumSet.allOf(Association.class));
 
   /** Default constants, Davies, liquid sample. */
   public static SpeciationOptions defaults() {
@@ -29,16 +53,23 @@ public record SpeciationOptions(
 
   /** A copy with another constant set. */
   public SpeciationOptions withConstants(ConstantSet set) {
-    return new SpeciationOptions(set, activityModel, sampleOrigin);
+    return new SpeciationOptions(set, activityModel, sampleOrigin, associations);
   }
 
   /** A copy with another activity model. */
   public SpeciationOptions withActivityModel(ActivityModel model) {
-    return new SpeciationOptions(constants, model, sampleOrigin);
+    return new SpeciationOptions(constants, model, sampleOrigin, associations);
   }
 
   /** A copy with another sample origin. */
   public SpeciationOptions withSampleOrigin(SampleOrigin origin) {
-    return new SpeciationOptions(constants, activityModel, origin);
+    return new SpeciationOptions(constants, activityModel, origin, associations);
+  }
+
+  /**
+   * A copy carrying only the given associations (an empty set turns ion pairs and polyborates off).
+   */
+  public SpeciationOptions withAssociations(Set<Association> carried) {
+    return new SpeciationOptions(constants, activityModel, sampleOrigin, carried);
   }
 }

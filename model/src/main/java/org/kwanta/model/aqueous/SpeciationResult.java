@@ -26,6 +26,8 @@ import org.kwanta.model.water.WaterState;
  * @param ionicStrengthIterations outer iterations on I
  * @param notices what the reader must see (extrapolated constants, activity-model range, condensed
  *     steam)
+ * @param associations the ion pairs and polyborates carried, with their constants at the
+ *     temperature (empty when none applies or the options turn them off)
  */
 public record SpeciationResult(
     WaterState water,
@@ -43,12 +45,14 @@ public record SpeciationResult(
     SampleOrigin sampleOrigin,
     double chargeBalanceRelativeResidual,
     int ionicStrengthIterations,
-    Set<Notice> notices) {
+    Set<Notice> notices,
+    List<AssociationUsed> associations) {
 
   public SpeciationResult {
     species = List.copyOf(species);
     constants = List.copyOf(constants);
     notices = Set.copyOf(notices);
+    associations = List.copyOf(associations);
   }
 
   /** Temperature, K. */

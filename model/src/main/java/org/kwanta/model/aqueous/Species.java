@@ -14,7 +14,9 @@ import org.kwanta.model.Reference;
  * carry estimates by structural analogy ({@link #AMINE_ESTIMATE}, ±3 S cm² mol⁻¹). The temperature
  * parameters dw_T (K) are those of {@link #DW_T}; where that database gives none, dw_T = 0 (plain
  * Walden scaling) and the temperature dependence is less certain. Charged species with no λ°
- * carried (HSO₄⁻, B(OH)₄⁻) have λ° = NaN; neutral species have λ° = 0.
+ * carried (HSO₄⁻, B(OH)₄⁻, the charged ion pair and polyborates) have λ° = NaN; neutral species
+ * have λ° = 0. Species formed by an {@link Association} ({@link #isAssociated()}) are
+ * speciation-only: the conductivity model does not carry them.
  */
 public enum Species {
   /** Hydrogen ion, H⁺ (water ion). */
@@ -86,8 +88,20 @@ public enum Species {
   FORMATE("HCOO", -1, Component.FORMATE, 54.6, 0, Source.CRC),
   /** Boric acid, B(OH)₃(aq). */
   BORIC_ACID("B(OH)3", 0, Component.BORON),
-  /** Borate, B(OH)₄⁻ (monomer; polyborates are not carried; no λ° carried). */
-  BORATE("B(OH)4", -1, Component.BORON, Double.NaN, 0, Source.NONE);
+  /** Borate, B(OH)₄⁻ (monomer; no λ° carried). */
+  BORATE("B(OH)4", -1, Component.BORON, Double.NaN, 0, Source.NONE),
+  /** Ion pair NaOH°, counted with sodium ({@link Association#SODIUM_HYDROXIDE}). */
+  SODIUM_HYDROXIDE_PAIR("NaOH", 0, Component.SODIUM, true),
+  /** Ion pair NaCl°, counted with sodium ({@link Association#SODIUM_CHLORIDE}). */
+  SODIUM_CHLORIDE_PAIR("NaCl", 0, Component.SODIUM, true),
+  /** Ion pair NaSO₄⁻, counted with sodium ({@link Association#SODIUM_SULFATE}; no λ° carried). */
+  SODIUM_SULFATE_PAIR("NaSO4", -1, Component.SODIUM, true),
+  /** Diborate B₂(OH)₇⁻, counted with boron ({@link Association#DIBORATE}; no λ° carried). */
+  DIBORATE("B2(OH)7", -1, Component.BORON, true),
+  /** Triborate B₃O₃(OH)₄⁻, counted with boron ({@link Association#TRIBORATE}; no λ° carried). */
+  TRIBORATE("B3O3(OH)4", -1, Component.BORON, true),
+  /** Tetraborate B₄O₅(OH)₄²⁻, counted with boron ({@link Association#TETRABORATE}; no λ°). */
+  TETRABORATE("B4O5(OH)4", -2, Component.BORON, true);
 
   /** CRC Handbook, "Ionic conductivity and diffusion at infinite dilution" (P. Vanýsek). */
   public static final Reference CRC =
@@ -128,9 +142,22 @@ public enum Species {
   private final double dwT;
   private final Source source;
   private final String symbol;
+  private final boolean associated;
 
   Species(String formula, int chargeNumber, Component component) {
     this(formula, chargeNumber, component, 0, 0, Source.NONE);
+  }
+
+  /** An associated species (ion pair or polyborate), counted with the given component. */
+  Species(String formula, int chargeNumber, Component component, boolean associated) {
+    this(
+        formula,
+        chargeNumber,
+        component,
+        chargeNumber == 0 ? 0 : Double.NaN,
+        0,
+        Source.NONE,
+        associated);
   }
 
   Species(
@@ -140,6 +167,18 @@ public enum Species {
       double lambda25,
       double dwT,
       Source source) {
+    this(formula, chargeNumber, component, lambda25, dwT, source, false);
+  }
+
+  Species(
+      String formula,
+      int chargeNumber,
+      Component component,
+      double lambda25,
+      double dwT,
+      Source source,
+      boolean associated) {
+    this.associated = associated;
     this.formula = formula;
     this.chargeNumber = chargeNumber;
     this.component = component;
@@ -205,8 +244,38 @@ public enum Species {
     };
   }
 
-  /** True when the species belongs to the given component (never for water ions). */
+  /**
+   * True for a species formed by association ({@link Association}): an ion pair or a polyborate. It
+   * is counted with one component ({@link #component()}: sodium for the pairs, boron for the
+   * polyborates) but is not part of that component's dissociation chain ({@link
+   * Component#species()}).
+   */
+  public boolean isAssociated() {
+    return associated;
+  }
+
+  /**
+   * How many units of a component's total one unit of this species holds: 1 for a species of the
+   * component's chain, 1 for sodium and for the anion of an ion pair, the boron atoms of a
+   * polyborate, 0 otherwise. The mass balance of a component is Σ countOf(c)·m over all species.
+   */
+  public int countOf(Component c) {
+    return switch (this) {
+      case SODIUM_HYDROXIDE_PAIR -> c == Component.SODIUM ? 1 : 0;
+      case SODIUM_CHLORIDE_PAIR -> c == Component.SODIUM || c == Component.CHLORIDE ? 1 : 0;
+      case SODIUM_SULFATE_PAIR -> c == Component.SODIUM || c == Component.SULFATE ? 1 : 0;
+      case DIBORATE -> c == Component.BORON ? 2 : 0;
+      case TRIBORATE -> c == Component.BORON ? 3 : 0;
+      case TETRABORATE -> c == Component.BORON ? 4 : 0;
+      default -> belongsTo(c) ? 1 : 0;
+    };
+  }
+
+  /**
+   * True when the species is in the given component's dissociation chain (never for water ions or
+   * associated species).
+   */
   boolean belongsTo(Component c) {
-    return component == c;
+    return component == c && !associated;
   }
 }

@@ -7,6 +7,8 @@
  * µg/kg) and a {@link org.kwanta.model.water.WaterState}. Every equilibrium constant is data in
  * {@link org.kwanta.model.aqueous.EquilibriumConstants}; {@link
  * org.kwanta.model.aqueous.ConstantSets} holds the default choice and the alternatives the pH band
- * is evaluated over.
+ * is evaluated over. The sodium ion pairs and polyborates ({@link
+ * org.kwanta.model.aqueous.Association}) are carried by default and can be turned off in {@link
+ * org.kwanta.model.aqueous.SpeciationOptions}.
  */
 package org.kwanta.model.aqueous;

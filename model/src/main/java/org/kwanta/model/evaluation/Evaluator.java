@@ -43,6 +43,9 @@ public final class Evaluator {
 
   private final IonizationFormulation ionization;
 
+  /** The speciation choices of the pH at temperature (the default carries the ion pairs). */
+  private final SpeciationOptions speciation;
+
   /** Specific conductivity of pure water at 25 °C with this formulation, µS/cm. */
   private final double pureWater25;
 
@@ -52,6 +55,19 @@ public final class Evaluator {
    * @param ionization the pKw formulation (IAPWS R11-07 or R11-24)
    */
   public Evaluator(IonizationFormulation ionization) {
+    this(ionization, SpeciationOptions.defaults());
+  }
+
+  /**
+   * An evaluator using the given formulation of the ionization constant of water and speciation
+   * choices for the pH at temperature (e.g. {@link SpeciationOptions#withAssociations} with an
+   * empty set to leave out the ion pairs and polyborates).
+   *
+   * @param ionization the pKw formulation (IAPWS R11-07 or R11-24)
+   * @param speciation constant set, activity model and associations of the pH at temperature
+   */
+  public Evaluator(IonizationFormulation ionization, SpeciationOptions speciation) {
+    this.speciation = java.util.Objects.requireNonNull(speciation, "speciation");
     this.ionization = java.util.Objects.requireNonNull(ionization, "ionization");
     this.pureWater25 =
         Conductivity.at(Water.at(T25_K, Water.ATMOSPHERIC_PRESSURE_PA, ionization)).pureWater();
@@ -365,7 +381,7 @@ public final class Evaluator {
               w.pressurePa() / 1e6,
               w.phase()));
     }
-    SpeciationOptions options = SpeciationOptions.defaults();
+    SpeciationOptions options = speciation;
     PhSolution centralPh = Speciation.ph(central.composition(config.alkalizer()), w, options);
     double ph = centralPh.ph();
     double var = 0;
@@ -419,7 +435,7 @@ public final class Evaluator {
     // the liquid limit of the distribution constants and the speciation engine, Kwanta's
     Distribution.ENGINE_LIMIT.check(tSat);
     WaterState w = operatingWater(tSat, Double.NaN);
-    SpeciationOptions options = SpeciationOptions.defaults();
+    SpeciationOptions options = speciation;
     EarlyCondensate.Result r =
         EarlyCondensate.of(central.composition(config.alkalizer()), w, options);
     double ph = r.liquid().ph();

@@ -133,7 +133,7 @@ class ConductivityController {
   private Parsed parse(List<AmountInput> composition) {
     SpeciationInputs.Parsed in =
         SpeciationInputs.parse(
-            new SpeciationInputs.Choices(composition, null, null, null, null, null),
+            new SpeciationInputs.Choices(composition, null, null, null, null, null, null),
             water.ionization());
     for (Component c : in.composition().totals().keySet()) {
       if (!ForwardConductivity.isModelled(c)) {

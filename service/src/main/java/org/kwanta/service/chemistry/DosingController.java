@@ -75,6 +75,7 @@ class DosingController {
                 null,
                 null,
                 null,
+                null,
                 null),
             water.ionization());
     Map<Component, Double> mix = mix(r.alkalizers());

@@ -28,10 +28,22 @@ record SpeciationCurveRequest(
     @Schema(
             description = "pKw formulation, default the service setting (R11-07)",
             allowableValues = {"R11-07", "R11-24"})
-        String ionization) {
+        String ionization,
+    @Schema(
+            description =
+                "carry the sodium ion pairs (NaOH°, NaCl°, NaSO₄⁻) and the polyborates; default"
+                    + " true",
+            example = "true")
+        Boolean ionAssociation) {
 
   SpeciationInputs.Choices choices() {
     return new SpeciationInputs.Choices(
-        composition, pressureMPa, activityModel, constantSet, sampleOrigin, ionization);
+        composition,
+        pressureMPa,
+        activityModel,
+        constantSet,
+        sampleOrigin,
+        ionization,
+        ionAssociation);
   }
 }

@@ -56,7 +56,8 @@ final class SpeciationInputs {
       String activityModel,
       String constantSet,
       String sampleOrigin,
-      String ionization) {}
+      String ionization,
+      Boolean ionAssociation) {}
 
   /** Parsed inputs, ready for the engine. */
   record Parsed(
@@ -133,7 +134,10 @@ final class SpeciationInputs {
         new SpeciationOptions(
             constantSet(c.constantSet()),
             activityModel(c.activityModel()),
-            sampleOrigin(c.sampleOrigin()));
+            sampleOrigin(c.sampleOrigin()),
+            c.ionAssociation() == null || c.ionAssociation()
+                ? SpeciationOptions.ALL_ASSOCIATIONS
+                : java.util.Set.of());
     return new Parsed(
         builder.build(),
         List.copyOf(totals),

@@ -32,11 +32,23 @@ record SpeciationRequest(
     @Schema(
             description = "pKw formulation, default the service setting (R11-07)",
             allowableValues = {"R11-07", "R11-24"})
-        String ionization) {
+        String ionization,
+    @Schema(
+            description =
+                "carry the sodium ion pairs (NaOH°, NaCl°, NaSO₄⁻) and the polyborates; default"
+                    + " true",
+            example = "true")
+        Boolean ionAssociation) {
 
   /** The options shared with the curve request. */
   SpeciationInputs.Choices choices() {
     return new SpeciationInputs.Choices(
-        composition, pressureMPa, activityModel, constantSet, sampleOrigin, ionization);
+        composition,
+        pressureMPa,
+        activityModel,
+        constantSet,
+        sampleOrigin,
+        ionization,
+        ionAssociation);
   }
 }

@@ -3,6 +3,7 @@ package org.kwanta.service.chemistry;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import io.swagger.v3.oas.annotations.media.Schema;
 import java.util.List;
+import org.kwanta.model.aqueous.AssociationUsed;
 import org.kwanta.model.aqueous.ConstantUsed;
 import org.kwanta.model.aqueous.Notice;
 import org.kwanta.model.aqueous.PhBand;
@@ -65,6 +66,11 @@ record SpeciationResponse(
       List<SpeciesRow> species,
       @Schema(description = "every equilibrium constant used, components present only")
           List<ConstantRow> constants,
+      @Schema(
+              description =
+                  "ion pairs and polyborates carried, with their constants (empty when none"
+                      + " applies or ionAssociation is false)")
+          List<AssociationRow> associations,
       List<NoticeRow> notices,
       @Schema(description = "|Σ z m| / Σ |z| m at the solution", example = "1e-16")
           double chargeBalanceRelativeResidual) {
@@ -87,6 +93,7 @@ record SpeciationResponse(
           report.at25Celsius().ph(),
           r.species().stream().map(SpeciesRow::from).toList(),
           r.constants().stream().map(ConstantRow::from).toList(),
+          r.associations().stream().map(AssociationRow::from).toList(),
           r.notices().stream().sorted().map(NoticeRow::from).toList(),
           r.chargeBalanceRelativeResidual());
     }
@@ -195,8 +202,42 @@ record SpeciationResponse(
           c.extrapolated());
     }
 
-    private static double celsius(double kelvin) {
+    static double celsius(double kelvin) {
       return Math.round((kelvin - 273.15) * 1e6) / 1e6;
+    }
+  }
+
+  /** One association constant (ion pair or polyborate) as used. */
+  @Schema(name = "AssociationUsed")
+  record AssociationRow(
+      @Schema(example = "sodium_chloride") String association,
+      @Schema(example = "Na⁺ + Cl⁻ ⇌ NaCl°") String reaction,
+      @Schema(
+              description =
+                  "log10 of the constant as the source writes it (association constant of an ion"
+                      + " pair, OH⁻-based quotient of a polyborate), molal",
+              example = "1.0")
+          double log10K,
+      @Schema(example = "nacl-pair-1") String sourceId,
+      String citation,
+      @Schema(description = "VERIFIED_BY_CHECK_TABLE, RETRIEVED, FROM_MEMORY or ESTIMATED")
+          String confidence,
+      @Schema(description = "lower end of the fit's stated range, °C") double validFromCel,
+      @Schema(description = "upper end of the fit's stated range, °C") double validToCel,
+      @Schema(description = "true when evaluated outside the fit's stated range")
+          boolean extrapolated) {
+
+    static AssociationRow from(AssociationUsed a) {
+      return new AssociationRow(
+          a.association().name().toLowerCase(java.util.Locale.ROOT),
+          a.association().reaction(),
+          a.log10K(),
+          a.association().id(),
+          a.reference().citation(),
+          a.reference().confidence().name(),
+          ConstantRow.celsius(a.validity().min()),
+          ConstantRow.celsius(a.validity().max()),
+          a.extrapolated());
     }
   }
 
@@ -211,6 +252,10 @@ record SpeciationResponse(
             case EXTRAPOLATED_CONSTANT ->
                 "At least one equilibrium constant was evaluated outside its fit's stated"
                     + " temperature range (see constants[].extrapolated).";
+            case EXTRAPOLATED_ASSOCIATION_CONSTANT ->
+                "At least one ion-pair or polyborate constant was evaluated outside its fit's"
+                    + " stated temperature range (see associations[].extrapolated; the"
+                    + " polyborates are fitted at 50-200 °C only).";
             case IONIC_STRENGTH_ABOVE_ACTIVITY_MODEL_RANGE ->
                 "The ionic strength exceeds the range to which the activity model is customarily"
                     + " adequate (0.1 mol/kg).";

@@ -349,6 +349,75 @@ class SpeciationApiIT {
         "urn:kwanta:problem:out-of-validity-range");
   }
 
+  /**
+   * Each total within 0.1 mol/kg, yet the solution's ionic strength is ≈ 0.29 mol/kg (½ Σ m z²,
+   * arithmetic on invented totals): a 422 naming the activity model's limit on the total ionic
+   * strength (Kwanta's limit; Davies customarily adequate to about 0.1 mol/kg, common practice).
+   */
+  @Test
+  void totalIonicStrengthAboveTheLimitIs422() {
+    JsonNode p =
+        problem(
+            post(
+                SPECIATION,
+                "{\"composition\": ["
+                    + "{\"component\": \"sodium\", \"amount\": 0.09, \"unit\": \"mol/kg\"},"
+                    + "{\"component\": \"chloride\", \"amount\": 0.01, \"unit\": \"mol/kg\"},"
+                    + "{\"component\": \"sulfate\", \"amount\": 0.04, \"unit\": \"mol/kg\"},"
+                    + "{\"component\": \"lithium\", \"amount\": 0.08, \"unit\": \"mol/kg\"},"
+                    + "{\"component\": \"potassium\", \"amount\": 0.01, \"unit\": \"mol/kg\"}"
+                    + "], \"temperatureCel\": 25}"),
+            422,
+            "urn:kwanta:problem:out-of-validity-range");
+    assertThat(p.get("limit").get("quantity").asString()).isEqualTo("ionic strength");
+    assertThat(p.get("limit").get("max").asDouble()).isEqualTo(0.1);
+    assertThat(p.get("limit").get("unit").asString()).isEqualTo("mol/kg");
+    assertThat(p.toString()).doesNotContain("NaN");
+  }
+
+  /**
+   * Sodium chloride water at 300 °C: the ion pairs are listed with source, range and confidence
+   * (llnl.dat NaOH° and NaCl°), NaCl° appears among the species, and {@code ionAssociation: false}
+   * leaves them out. Boron at 25 °C: the polyborates are flagged as extrapolated beyond Mesmer
+   * 1972's 50-200 °C fit.
+   */
+  @Test
+  void ionPairsAndPolyboratesAreListedWithTheirSources() {
+    String salt =
+        "{\"component\": \"sodium\", \"amount\": 1, \"unit\": \"mmol/kg\"},"
+            + "{\"component\": \"chloride\", \"amount\": 1, \"unit\": \"mmol/kg\"}";
+    JsonNode r =
+        ok(SPECIATION, "{\"composition\": [" + salt + "], \"temperatureCel\": 300}")
+            .get("results")
+            .get(0);
+    JsonNode a = r.get("associations");
+    assertThat(a.size()).isEqualTo(2);
+    assertThat(a.get(1).get("association").asString()).isEqualTo("sodium_chloride");
+    assertThat(a.get(1).get("citation").asString()).contains("llnl.dat");
+    assertThat(a.get(1).get("validToCel").asDouble()).isEqualTo(300);
+    assertThat(a.get(1).get("extrapolated").asBoolean()).isFalse();
+    assertThat(r.get("species").toString()).contains("sodium_chloride_pair");
+    JsonNode off =
+        ok(
+                SPECIATION,
+                "{\"composition\": ["
+                    + salt
+                    + "], \"temperatureCel\": 300, \"ionAssociation\": false}")
+            .get("results")
+            .get(0);
+    assertThat(off.get("associations").size()).isZero();
+    assertThat(off.get("species").toString()).doesNotContain("_pair");
+    JsonNode boron =
+        ok(
+                SPECIATION,
+                "{\"composition\": [{\"component\": \"boron\", \"amount\": 1000, \"unit\":"
+                    + " \"mg/kg\"}], \"temperatureCel\": 25}")
+            .get("results")
+            .get(0);
+    assertThat(boron.get("notices").toString()).contains("EXTRAPOLATED_ASSOCIATION_CONSTANT");
+    assertThat(boron.toString()).doesNotContain("NaN");
+  }
+
   @Test
   void steamPressureAndBdotOutsideItsRangeAre422() {
     // 5 MPa is below the saturation pressure at 300 °C (8.59 MPa, IAPWS-IF97): steam.
