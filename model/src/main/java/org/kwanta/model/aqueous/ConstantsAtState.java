@@ -32,7 +32,11 @@ final class ConstantsAtState {
   /** Ka = 10^log10 Ka by {@link Equilibrium#ordinal()}. */
   private final double[] ka;
 
+  /** log10 Ka by {@link Equilibrium#ordinal()} (0 for absent components); do not modify. */
+  final double[] log10Ka;
+
   private ConstantsAtState(double[] log10Ka, List<ConstantUsed> used, boolean extrapolated) {
+    this.log10Ka = log10Ka;
     this.ka = new double[log10Ka.length];
     for (int i = 0; i < ka.length; i++) {
       ka[i] = Math.exp(LN10 * log10Ka[i]);

@@ -9,7 +9,13 @@ import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import org.kwanta.model.OutOfValidityRangeException;
 import org.kwanta.model.Parameter;
+import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.PhSolution;
+import org.kwanta.model.aqueous.PhUncertainties;
+import org.kwanta.model.aqueous.PhUncertainty;
+import org.kwanta.model.aqueous.PhUncertainty.Contribution;
+import org.kwanta.model.aqueous.PhUncertainty.Kind;
+import org.kwanta.model.aqueous.PhUncertainty.Part;
 import org.kwanta.model.aqueous.Speciation;
 import org.kwanta.model.aqueous.SpeciationOptions;
 import org.kwanta.model.aqueous.Species;
@@ -168,6 +174,7 @@ public final class Evaluator {
       double pH25 = hasSc ? sc25.pH() : Double.NaN;
       Tolerances tol = config.tolerances();
       List<Solutes> perturbed = new ArrayList<>(3);
+      List<Parameter> perturbedChannels = new ArrayList<>(3);
       double[] uncertainty = new double[6];
       double phVariance = 0;
       for (Parameter p : CONDUCTIVITIES) {
@@ -185,6 +192,7 @@ public final class Evaluator {
             ChannelFits.refit(
                 config.regime(), sodiumMolal, values, model25, fitted, p, solutions25);
         perturbed.add(alt.all());
+        perturbedChannels.add(p);
         addSquares(uncertainty, fitted.all(), alt.all());
         if (hasSc) {
           Solution s = alt.channelSolutions().get(Parameter.SPECIFIC_CONDUCTIVITY);
@@ -208,7 +216,7 @@ public final class Evaluator {
                 new CalculatedPh(
                     pH25, Math.sqrt(phVariance), t.value(), t.constant(), t.inWindow(), t.note()));
         try {
-          operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
+          operating = Optional.of(operatingPh(config, fitted.all(), perturbed, perturbedChannels));
         } catch (OutOfValidityRangeException
             | OperatingStateException
             | EarlyCondensate.NoDistributionConstant e) {
@@ -350,9 +358,12 @@ public final class Evaluator {
   }
 
   private OperatingPh operatingPh(
-      SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+      SamplePointConfig config,
+      Solutes central,
+      List<Solutes> perturbed,
+      List<Parameter> perturbedChannels) {
     if (config.steam()) {
-      return earlyCondensatePh(config, central, perturbed);
+      return earlyCondensatePh(config, central, perturbed, perturbedChannels);
     }
     WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
     if (!w.liquidLike()) {
@@ -366,24 +377,136 @@ public final class Evaluator {
               w.phase()));
     }
     SpeciationOptions options = SpeciationOptions.defaults();
-    PhSolution centralPh = Speciation.ph(central.composition(config.alkalizer()), w, options);
+    Composition composition = central.composition(config.alkalizer());
+    PhSolution centralPh = Speciation.ph(composition, w, options);
     double ph = centralPh.ph();
-    double var = 0;
-    for (Solutes s : perturbed) {
+    double[] shifts = new double[perturbed.size()];
+    for (int i = 0; i < shifts.length; i++) {
       // The perturbed totals are near the central ones: start from the central solution.
-      double d = Speciation.ph(s.composition(config.alkalizer()), w, options, centralPh).ph() - ph;
-      var += d * d;
+      shifts[i] =
+          Speciation.ph(perturbed.get(i).composition(config.alkalizer()), w, options, centralPh)
+                  .ph()
+              - ph;
     }
-    double sd = Math.sqrt(var);
+    PhUncertainties.ConstantParts constants =
+        PhUncertainties.constantParts(composition, w, options, centralPh);
+    PhUncertainty u =
+        PhUncertainty.combine(
+            ph,
+            List.of(
+                instrumentPart(config.tolerances(), perturbedChannels, shifts),
+                constants.constantSetSpread(),
+                constants.estimatedConstants(),
+                liquidOperatingConditions(config, composition, options, centralPh)));
     return new OperatingPh(
         w.temperatureK(),
         w.pressurePa(),
         ph,
-        ph - sd,
-        ph + sd,
+        u.low(),
+        u.high(),
         w.neutralPh(),
         OperatingPh.Basis.LIQUID,
-        List.of());
+        List.of(),
+        u);
+  }
+
+  /** What part (a) did. */
+  static final String INSTRUMENT_BASIS =
+      "each 25 °C conductivity moved by its tolerance, the composition refitted and the pH at"
+          + " temperature re-solved; root-sum-square over the channels";
+
+  /** Part (a): the pH shifts of the channels moved by their tolerances, root-sum-square. */
+  static Part instrumentPart(Tolerances tol, List<Parameter> channels, double[] shifts) {
+    if (shifts.length == 0) {
+      return Part.notApplicable(Kind.INSTRUMENT_TOLERANCES, "no conductivity channel");
+    }
+    List<Contribution> contributions = new ArrayList<>(shifts.length);
+    double sum = 0;
+    for (int i = 0; i < shifts.length; i++) {
+      Parameter p = channels.get(i);
+      double d = Math.abs(shifts[i]);
+      sum += d * d;
+      contributions.add(
+          new Contribution(
+              p.name().toLowerCase(Locale.ROOT),
+              d,
+              p == Parameter.SPECIFIC_CONDUCTIVITY
+                  ? "±" + tol.specificConductivityRelative() * 100 + " % of the 25 °C value"
+                  : "±" + tol.cationConductivityAbsolute() + " µS/cm"));
+    }
+    return Part.symmetric(
+        Kind.INSTRUMENT_TOLERANCES, Math.sqrt(sum), INSTRUMENT_BASIS, contributions);
+  }
+
+  /** What part (d) did. */
+  static final String OPERATING_BASIS =
+      "the operating temperature and pressure each moved by their configured tolerance and the"
+          + " pH re-solved (the other way when the moved state leaves the liquid range);"
+          + " root-sum-square";
+
+  /**
+   * Part (d) for a liquid point: the pH re-solved with the temperature moved by its tolerance, and
+   * with the pressure moved by its tolerance (declared pressure only; at saturation the pressure
+   * follows the temperature).
+   */
+  private Part liquidOperatingConditions(
+      SamplePointConfig config,
+      Composition composition,
+      SpeciationOptions options,
+      PhSolution central) {
+    Tolerances tol = config.tolerances();
+    double t = config.operatingTemperatureK();
+    double p = config.operatingPressurePa();
+    List<Contribution> contributions = new ArrayList<>(2);
+    double dT = tol.operatingTemperatureK();
+    if (dT > 0) {
+      double shifted = liquidPh(composition, t + dT, p, options, central);
+      if (Double.isNaN(shifted)) {
+        shifted = liquidPh(composition, t - dT, p, options, central);
+      }
+      if (!Double.isNaN(shifted)) {
+        contributions.add(
+            PhUncertainties.shifted("temperature", "±" + dT + " K", shifted, central.ph()));
+      }
+    }
+    double rel = tol.operatingPressureRelative();
+    if (rel > 0 && !Double.isNaN(p)) {
+      double shifted = liquidPh(composition, t, p * (1 + rel), options, central);
+      if (Double.isNaN(shifted)) {
+        shifted = liquidPh(composition, t, p * (1 - rel), options, central);
+      }
+      if (!Double.isNaN(shifted)) {
+        contributions.add(
+            PhUncertainties.shifted("pressure", "±" + rel * 100 + " %", shifted, central.ph()));
+      }
+    }
+    if (contributions.isEmpty()) {
+      return Part.notApplicable(
+          Kind.OPERATING_CONDITIONS,
+          dT > 0 || rel > 0
+              ? "the state moved by its tolerance leaves the liquid range either way"
+              : "no operating tolerance configured");
+    }
+    return PhUncertainties.operatingConditions(contributions, OPERATING_BASIS);
+  }
+
+  /** pH of the composition at a liquid state, or NaN when the state is not liquid or in range. */
+  private double liquidPh(
+      Composition composition,
+      double temperatureK,
+      double pressurePa,
+      SpeciationOptions options,
+      PhSolution central) {
+    try {
+      WaterState w = operatingWater(temperatureK, pressurePa);
+      if (!w.liquidLike()) {
+        return Double.NaN;
+      }
+      return Speciation.ph(composition, w, options, central).ph();
+    } catch (IllegalArgumentException e) {
+      // outside the engine's range or not region-1 liquid (OutOfValidityRangeException is one)
+      return Double.NaN;
+    }
   }
 
   /**
@@ -392,7 +515,10 @@ public final class Evaluator {
    * declared).
    */
   private OperatingPh earlyCondensatePh(
-      SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+      SamplePointConfig config,
+      Solutes central,
+      List<Solutes> perturbed,
+      List<Parameter> perturbedChannels) {
     double p = config.operatingPressurePa();
     double tSat;
     if (Double.isNaN(p)) {
@@ -420,25 +546,99 @@ public final class Evaluator {
     Distribution.ENGINE_LIMIT.check(tSat);
     WaterState w = operatingWater(tSat, Double.NaN);
     SpeciationOptions options = SpeciationOptions.defaults();
-    EarlyCondensate.Result r =
-        EarlyCondensate.of(central.composition(config.alkalizer()), w, options);
+    Composition steam = central.composition(config.alkalizer());
+    EarlyCondensate.Result r = EarlyCondensate.of(steam, w, options);
     double ph = r.liquid().ph();
-    double var = 0;
-    for (Solutes s : perturbed) {
-      double d =
-          EarlyCondensate.of(s.composition(config.alkalizer()), w, options, r).liquid().ph() - ph;
-      var += d * d;
+    double[] shifts = new double[perturbed.size()];
+    for (int i = 0; i < shifts.length; i++) {
+      shifts[i] =
+          EarlyCondensate.of(perturbed.get(i).composition(config.alkalizer()), w, options, r)
+                  .liquid()
+                  .ph()
+              - ph;
     }
-    double sd = Math.sqrt(var);
+    // (b) and (c) on the condensate's own totals (the distribution held as computed)
+    PhSolution centralPh = new PhSolution(ph, r.liquid().ionicStrengthMolPerKg());
+    PhUncertainties.ConstantParts constants =
+        PhUncertainties.constantParts(r.liquidTotals(), w, options, centralPh);
+    PhUncertainty u =
+        PhUncertainty.combine(
+            ph,
+            List.of(
+                instrumentPart(config.tolerances(), perturbedChannels, shifts),
+                constants.constantSetSpread(),
+                constants.estimatedConstants(),
+                condensateOperatingConditions(config, steam, options, r, tSat)));
     return new OperatingPh(
         w.temperatureK(),
         w.pressurePa(),
         ph,
-        ph - sd,
-        ph + sd,
+        u.low(),
+        u.high(),
         w.neutralPh(),
         OperatingPh.Basis.EARLY_CONDENSATE,
-        r.notes());
+        r.notes(),
+        u);
+  }
+
+  /**
+   * Part (d) for a steam point: the condensation temperature moved by the tolerance of the
+   * operating pressure (declared pressure), or by the temperature tolerance along the saturation
+   * line (no pressure declared), and the first condensate recomputed there.
+   */
+  private Part condensateOperatingConditions(
+      SamplePointConfig config,
+      Composition steam,
+      SpeciationOptions options,
+      EarlyCondensate.Result central,
+      double tSat) {
+    Tolerances tol = config.tolerances();
+    double p = config.operatingPressurePa();
+    double ph = central.liquid().ph();
+    double shifted = Double.NaN;
+    String source;
+    String tolerance;
+    if (Double.isNaN(p)) {
+      source = "temperature";
+      tolerance = "±" + tol.operatingTemperatureK() + " K";
+      if (tol.operatingTemperatureK() > 0) {
+        shifted = condensatePh(steam, tSat - tol.operatingTemperatureK(), options, central);
+        if (Double.isNaN(shifted)) {
+          shifted = condensatePh(steam, tSat + tol.operatingTemperatureK(), options, central);
+        }
+      }
+    } else {
+      source = "pressure";
+      double rel = tol.operatingPressureRelative();
+      tolerance = "±" + rel * 100 + " % (condensation temperature follows)";
+      if (rel > 0) {
+        shifted =
+            condensatePh(steam, Water.saturationTemperatureK(p * (1 - rel)), options, central);
+        if (Double.isNaN(shifted) && p * (1 + rel) < CRITICAL_PRESSURE_PA) {
+          shifted =
+              condensatePh(steam, Water.saturationTemperatureK(p * (1 + rel)), options, central);
+        }
+      }
+    }
+    if (Double.isNaN(shifted)) {
+      return Part.notApplicable(
+          Kind.OPERATING_CONDITIONS,
+          "no operating tolerance configured, or the moved state leaves the engine's range");
+    }
+    return PhUncertainties.operatingConditions(
+        List.of(PhUncertainties.shifted(source, tolerance, shifted, ph)), OPERATING_BASIS);
+  }
+
+  private double condensatePh(
+      Composition steam, double tSat, SpeciationOptions options, EarlyCondensate.Result near) {
+    try {
+      Distribution.ENGINE_LIMIT.check(tSat);
+      return EarlyCondensate.of(steam, operatingWater(tSat, Double.NaN), options, near)
+          .liquid()
+          .ph();
+    } catch (IllegalArgumentException e) {
+      return Double.NaN;
+    }
   }
 
   /** Critical pressure of water, IAPWS-IF97, Pa. */
