@@ -7,7 +7,10 @@ import org.kwanta.model.Reference.Confidence;
  * The stated standard uncertainty of log10 Ka for a constant that is an estimate or is evaluated
  * beyond its fit's stated range: part (c) of the itemised pH uncertainty ({@link PhUncertainty}).
  * Fits taken from a retrieved source and used inside their stated range have none here: their doubt
- * is the spread over the published constant sets, part (b).
+ * is the spread over the published constant sets, part (b). The one exception is a retrieved fit
+ * with no alternative in any constant set, where (b) is zero by construction: boric acid (Mesmer
+ * 1972) is given ±0.04 inside its range, the agreement of the Thermoddem fit with it to 300 °C
+ * stated in the reference notes §7 (that fit is not in the catalogue).
  *
  * <p>Two rules, added when both apply:
  *
@@ -30,7 +33,7 @@ import org.kwanta.model.Reference.Confidence;
  *
  * Example (hand calculation, checked in {@code ConstantUncertaintyTest}): cyclohexylammonium at
  * 573.15 K: 0.1 + 0.3/275·275 = 0.4; boric acid (Mesmer 1972, 0-290 °C) at 573.15 K: 0.05 +
- * 0.005·10 = 0.10.
+ * 0.005·10 = 0.10, and 0.04 at 523.15 K (inside, single source).
  */
 public final class ConstantUncertainty {
 
@@ -42,6 +45,13 @@ public final class ConstantUncertainty {
           EquilibriumConstants.CYCLOHEXYLAMMONIUM_ESTIMATE.id(), 0.1,
           EquilibriumConstants.METHOXYPROPYLAMMONIUM_ESTIMATE.id(), 0.3,
           EquilibriumConstants.DIETHYLAMINOETHANOLIUM_ESTIMATE.id(), 0.1);
+
+  /**
+   * log10 K uncertainty inside the stated range of a retrieved fit that has no alternative in any
+   * constant set, by fit id (reference notes §7: Thermoddem agrees with Mesmer 1972 within 0.04).
+   */
+  static final Map<String, Double> SINGLE_SOURCE_IN_RANGE =
+      Map.of(EquilibriumConstants.BORIC_MESMER.id(), 0.04);
 
   /** Used for an estimate not in {@link #ESTIMATE_AT_25_CELSIUS} (log10 units; our choice). */
   static final double ESTIMATE_AT_25_CELSIUS_OTHERWISE = 0.3;
@@ -62,8 +72,8 @@ public final class ConstantUncertainty {
    *
    * @param fit the fit as used
    * @param temperatureK temperature, K
-   * @return standard uncertainty of log10 Ka, log10 units; 0 for a retrieved fit inside its range,
-   *     greater than 0 otherwise
+   * @return standard uncertainty of log10 Ka, log10 units; 0 only for a retrieved fit inside its
+   *     range that has an alternative in some constant set
    */
   public static double of(Fit fit, double temperatureK) {
     if (fit.reference().confidence() == Confidence.ESTIMATED) {
@@ -73,7 +83,7 @@ public final class ConstantUncertainty {
     double d = distanceBeyond(fit, temperatureK);
     return d > 0 || fit.isExtrapolatedAt(temperatureK)
         ? BEYOND_RANGE_AT_EDGE + BEYOND_RANGE_GROWTH_PER_K * d
-        : 0;
+        : SINGLE_SOURCE_IN_RANGE.getOrDefault(fit.id(), 0.0);
   }
 
   /** Why a fit has an uncertainty at a temperature, for the reader (empty when it has none). */
@@ -92,6 +102,11 @@ public final class ConstantUncertainty {
           fit.validity().min() - 273.15,
           fit.validity().max() - 273.15,
           fit.reference().id());
+    }
+    if (SINGLE_SOURCE_IN_RANGE.containsKey(fit.id())) {
+      return "single source, no alternative constant set ("
+          + fit.reference().id()
+          + "): the agreement of the other database fit stated in the reference notes";
     }
     return "";
   }
