@@ -509,14 +509,19 @@ final class ChargeBalanceSolver {
    * ionic-strength feedback is left out (it changes the result by the relative change of γ, well
    * below 1 % at cycle ionic strengths).
    *
+   * <p>The last element is dpH/d(log10 Kw) = −m(OH⁻)/slope (from ∂f/∂log10 Kw = −ln 10·m(OH⁻));
+   * −1/2 for pure water.
+   *
    * @param x log10 a(H⁺) at the solution (γ of that solution current)
-   * @return by equilibrium ordinal; 0 for equilibria of components not present
+   * @return by equilibrium ordinal, then dpH/d(log10 Kw); 0 for equilibria of components not
+   *     present
    */
   double[] phSensitivities(double x) {
     evaluate(x);
     double slope = derivative / LN10;
     double inverse = Math.exp(-LN10 * x);
-    double[] out = new double[Equilibrium.values().length];
+    double[] out = new double[Equilibrium.values().length + 1];
+    out[out.length - 1] = -(kw * inverse / gamma[1]) / slope;
     for (int k = 0; k < components.length; k++) {
       double[] c = conditional[k];
       int n = c.length;

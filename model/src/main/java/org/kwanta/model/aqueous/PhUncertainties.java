@@ -53,6 +53,94 @@ public final class PhUncertainties {
           + " beyond) times dpH/dlog10 K at the solution, combined by root-sum-square";
 
   /**
+   * The central pH with what parts (b) and (c) need from its solution: {@link
+   * Speciation#ph(Composition, WaterState, SpeciationOptions)} and the sensitivities in one solve.
+   */
+  public static final class Central {
+    private final PhSolution solution;
+    private final double[] sensitivities;
+    private final ConstantsAtState constants;
+    private final double pKw;
+
+    private Central(
+        PhSolution solution, double[] sensitivities, ConstantsAtState constants, double pKw) {
+      this.solution = solution;
+      this.sensitivities = sensitivities;
+      this.constants = constants;
+      this.pKw = pKw;
+    }
+
+    /** The central pH and ionic strength. */
+    public PhSolution solution() {
+      return solution;
+    }
+  }
+
+  /**
+   * Solves the central pH as {@link Speciation#ph(Composition, WaterState, SpeciationOptions)} does
+   * (same validation, constants and solver) and keeps the sensitivities for {@link
+   * #constantParts(Central, Composition, WaterState, SpeciationOptions)}.
+   *
+   * @throws org.kwanta.model.OutOfValidityRangeException as the plain solve
+   * @throws IllegalArgumentException as the plain solve
+   */
+  public static Central solve(
+      Composition composition, WaterState water, SpeciationOptions options) {
+    double t = Speciation.checkInputs(composition, water, options);
+    ConstantsAtState k =
+        ConstantsAtState.of(options.constants(), t, water.pKw(), composition.totals().keySet());
+    ChargeBalanceSolver solver =
+        new ChargeBalanceSolver(
+            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
+    ChargeBalanceSolver.Solution s = solver.solve(Double.NaN, 0);
+    Speciation.checkIonicStrength(s.ionicStrength(), options);
+    return new Central(
+        new PhSolution(-s.log10ActivityH(), s.ionicStrength()),
+        solver.phSensitivities(s.log10ActivityH()),
+        k,
+        water.pKw());
+  }
+
+  /**
+   * The pH at a moved state (another temperature or pressure) to first order, without a solve: pH +
+   * Σ dpH/dlog10 Ka·Δlog10 Ka + dpH/dlog10 Kw·Δlog10 Kw, the differences between the moved state's
+   * constants and pKw and the central ones (activity coefficients held). For part (d), where the
+   * moves are a few kelvin or per cent.
+   *
+   * @param central the central solution
+   * @param composition its composition
+   * @param moved the moved state (liquid, within the engine's range)
+   * @param options its options
+   * @throws org.kwanta.model.OutOfValidityRangeException the moved state outside the engine's range
+   * @throws IllegalArgumentException the moved state is not liquid
+   */
+  public static double phAtMovedState(
+      Central central, Composition composition, WaterState moved, SpeciationOptions options) {
+    double t = Speciation.checkInputs(composition, moved, options);
+    ConstantsAtState k =
+        ConstantsAtState.of(options.constants(), t, moved.pKw(), composition.totals().keySet());
+    double[] s = central.sensitivities;
+    int n = s.length - 1;
+    double ph = central.solution.ph();
+    for (int e = 0; e < n; e++) {
+      if (s[e] != 0) {
+        ph += s[e] * (k.log10Ka[e] - central.constants.log10Ka[e]);
+      }
+    }
+    // log10 Kw = −pKw
+    return ph - s[n] * (moved.pKw() - central.pKw);
+  }
+
+  /** Parts (b) and (c) at the state of a {@link #solve} (see the other overload). */
+  public static ConstantParts constantParts(
+      Central central, Composition composition, WaterState water, SpeciationOptions options) {
+    Table table = table(composition, water, options);
+    return new ConstantParts(
+        screenedSpread(table, central.sensitivities, composition, water, options, central.solution),
+        estimated(table, central.sensitivities, central.solution.ph()));
+  }
+
+  /**
    * Parts (b) and (c) at a state.
    *
    * @param composition totals, mol/kg
@@ -101,7 +189,8 @@ public final class PhUncertainties {
   }
 
   /**
-   * One contribution to part (d): the change of pH when the state is moved by its tolerance.
+   * One contribution to part (d): the change of pH when the state is moved by its tolerance, to
+   * first order ({@link #phAtMovedState}).
    *
    * @param source what is moved, e.g. {@code temperature}
    * @param tolerance the tolerance as the reader should see it, e.g. {@code ±2 K}
@@ -110,8 +199,7 @@ public final class PhUncertainties {
    */
   public static Contribution shifted(String source, String tolerance, double shiftedPh, double ph) {
     double d = Math.abs(shiftedPh - ph);
-    return new Contribution(
-        source, d, tolerance + " moves the pH by " + round(shiftedPh - ph, 4) + " (re-solved)");
+    return new Contribution(source, d, tolerance + " moves the pH by " + round(shiftedPh - ph, 4));
   }
 
   /** Part (d) from its contributions, root-sum-square, symmetric. */

@@ -139,7 +139,7 @@ public final class Speciation {
    *
    * @throws OutOfValidityRangeException above the activity model's limit
    */
-  private static void checkIonicStrength(double ionicStrength, SpeciationOptions options) {
+  static void checkIonicStrength(double ionicStrength, SpeciationOptions options) {
     double limit = options.activityModel().ionicStrengthLimitMolPerKg();
     if (ionicStrength > limit) {
       throw new OutOfValidityRangeException(
@@ -157,8 +157,7 @@ public final class Speciation {
               + " solution",
           Confidence.RETRIEVED);
 
-  private static double checkInputs(
-      Composition composition, WaterState water, SpeciationOptions options) {
+  static double checkInputs(Composition composition, WaterState water, SpeciationOptions options) {
     Objects.requireNonNull(composition, "composition");
     Objects.requireNonNull(water, "water");
     Objects.requireNonNull(options, "options");

@@ -378,7 +378,8 @@ public final class Evaluator {
     }
     SpeciationOptions options = SpeciationOptions.defaults();
     Composition composition = central.composition(config.alkalizer());
-    PhSolution centralPh = Speciation.ph(composition, w, options);
+    PhUncertainties.Central solved = PhUncertainties.solve(composition, w, options);
+    PhSolution centralPh = solved.solution();
     double ph = centralPh.ph();
     double[] shifts = new double[perturbed.size()];
     for (int i = 0; i < shifts.length; i++) {
@@ -389,7 +390,7 @@ public final class Evaluator {
               - ph;
     }
     PhUncertainties.ConstantParts constants =
-        PhUncertainties.constantParts(composition, w, options, centralPh);
+        PhUncertainties.constantParts(solved, composition, w, options);
     PhUncertainty u =
         PhUncertainty.combine(
             ph,
@@ -397,7 +398,7 @@ public final class Evaluator {
                 instrumentPart(config.tolerances(), perturbedChannels, shifts),
                 constants.constantSetSpread(),
                 constants.estimatedConstants(),
-                liquidOperatingConditions(config, composition, options, centralPh)));
+                liquidOperatingConditions(config, composition, options, solved)));
     return new OperatingPh(
         w.temperatureK(),
         w.pressurePa(),
@@ -440,9 +441,14 @@ public final class Evaluator {
 
   /** What part (d) did. */
   static final String OPERATING_BASIS =
-      "the operating temperature and pressure each moved by their configured tolerance and the"
-          + " pH re-solved (the other way when the moved state leaves the liquid range);"
-          + " root-sum-square";
+      "the operating temperature and pressure each moved by their configured tolerance (the other"
+          + " way when the moved state leaves the liquid range), the pH moved to first order by"
+          + " the changes of the constants and pKw; root-sum-square";
+
+  /** What part (d) did for a steam point. */
+  static final String CONDENSATE_OPERATING_BASIS =
+      "the condensation temperature moved by the configured tolerance (pressure, or temperature"
+          + " on the saturation line) and the first condensate recomputed there";
 
   /**
    * Part (d) for a liquid point: the pH re-solved with the temperature moved by its tolerance, and
@@ -453,16 +459,17 @@ public final class Evaluator {
       SamplePointConfig config,
       Composition composition,
       SpeciationOptions options,
-      PhSolution central) {
+      PhUncertainties.Central solved) {
+    PhSolution central = solved.solution();
     Tolerances tol = config.tolerances();
     double t = config.operatingTemperatureK();
     double p = config.operatingPressurePa();
     List<Contribution> contributions = new ArrayList<>(2);
     double dT = tol.operatingTemperatureK();
     if (dT > 0) {
-      double shifted = liquidPh(composition, t + dT, p, options, central);
+      double shifted = liquidPh(composition, t + dT, p, options, solved);
       if (Double.isNaN(shifted)) {
-        shifted = liquidPh(composition, t - dT, p, options, central);
+        shifted = liquidPh(composition, t - dT, p, options, solved);
       }
       if (!Double.isNaN(shifted)) {
         contributions.add(
@@ -471,9 +478,9 @@ public final class Evaluator {
     }
     double rel = tol.operatingPressureRelative();
     if (rel > 0 && !Double.isNaN(p)) {
-      double shifted = liquidPh(composition, t, p * (1 + rel), options, central);
+      double shifted = liquidPh(composition, t, p * (1 + rel), options, solved);
       if (Double.isNaN(shifted)) {
-        shifted = liquidPh(composition, t, p * (1 - rel), options, central);
+        shifted = liquidPh(composition, t, p * (1 - rel), options, solved);
       }
       if (!Double.isNaN(shifted)) {
         contributions.add(
@@ -490,19 +497,22 @@ public final class Evaluator {
     return PhUncertainties.operatingConditions(contributions, OPERATING_BASIS);
   }
 
-  /** pH of the composition at a liquid state, or NaN when the state is not liquid or in range. */
+  /**
+   * pH of the composition at a moved liquid state to first order, or NaN when the state is not
+   * liquid or in range.
+   */
   private double liquidPh(
       Composition composition,
       double temperatureK,
       double pressurePa,
       SpeciationOptions options,
-      PhSolution central) {
+      PhUncertainties.Central central) {
     try {
       WaterState w = operatingWater(temperatureK, pressurePa);
       if (!w.liquidLike()) {
         return Double.NaN;
       }
-      return Speciation.ph(composition, w, options, central).ph();
+      return PhUncertainties.phAtMovedState(central, composition, w, options);
     } catch (IllegalArgumentException e) {
       // outside the engine's range or not region-1 liquid (OutOfValidityRangeException is one)
       return Double.NaN;
@@ -626,7 +636,8 @@ public final class Evaluator {
           "no operating tolerance configured, or the moved state leaves the engine's range");
     }
     return PhUncertainties.operatingConditions(
-        List.of(PhUncertainties.shifted(source, tolerance, shifted, ph)), OPERATING_BASIS);
+        List.of(PhUncertainties.shifted(source, tolerance, shifted, ph)),
+        CONDENSATE_OPERATING_BASIS);
   }
 
   private double condensatePh(
