@@ -67,7 +67,12 @@ record SpeciationResponse(
           List<ConstantRow> constants,
       List<NoticeRow> notices,
       @Schema(description = "|Σ z m| / Σ |z| m at the solution", example = "1e-16")
-          double chargeBalanceRelativeResidual) {
+          double chargeBalanceRelativeResidual,
+      @Schema(
+              description =
+                  "the pH at temperature's uncertainty itemised; here (a) and (d) do not apply"
+                      + " (given totals at a given state), (b) is the band above")
+          PhUncertaintyView uncertainty) {
 
     static AtTemperature from(SpeciationReport report) {
       SpeciationResult r = report.atTemperature();
@@ -89,7 +94,8 @@ record SpeciationResponse(
           r.species().stream().map(SpeciesRow::from).toList(),
           r.constants().stream().map(ConstantRow::from).toList(),
           r.notices().stream().sorted().map(NoticeRow::from).toList(),
-          r.chargeBalanceRelativeResidual());
+          r.chargeBalanceRelativeResidual(),
+          PhUncertaintyView.from(report.uncertainty()));
     }
   }
 

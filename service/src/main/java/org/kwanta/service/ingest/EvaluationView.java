@@ -4,6 +4,7 @@ import java.util.List;
 import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.OperatingPh;
+import org.kwanta.service.chemistry.PhUncertaintyView;
 
 /**
  * What the engine derived for one sample point at one time, units in the field names. Stored as
@@ -64,7 +65,11 @@ public record EvaluationView(
   /**
    * pH at the sample point's operating temperature and pressure, with its band; for a steam sample
    * the pH of its first condensate at the saturation temperature ({@code basis} EARLY_CONDENSATE),
-   * with the assumptions and distribution constants in {@code notes}.
+   * with the assumptions and distribution constants in {@code notes}. {@code low} and {@code high}
+   * combine the parts of {@code uncertainty} (the same object as in the speciation API). Rows
+   * stored before the itemised uncertainty have none, and their low/high are the instrument
+   * tolerances alone; their formulation, which called that band the spread over the constant sets,
+   * reads back corrected.
    */
   public record PhAtTemperature(
       double temperatureCel,
@@ -75,14 +80,38 @@ public record EvaluationView(
       double neutralPh,
       String formulation,
       String basis,
-      List<String> notes) {}
+      List<String> notes,
+      PhUncertaintyView uncertainty) {
+
+    public PhAtTemperature {
+      if (uncertainty == null && formulation != null && formulation.endsWith(OLD_BAND_LABEL)) {
+        formulation =
+            formulation.substring(0, formulation.length() - OLD_BAND_LABEL.length())
+                + STORED_BEFORE_ITEMISED;
+      }
+    }
+  }
+
+  /** The formulation stored before the itemised uncertainty, as it was written (for tests). */
+  static final String FORMULATION_BEFORE_ITEMISED =
+      "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
+          + " band over the alternative constant sets";
+
+  /** The label that rows stored before the itemised uncertainty carry (wrong: see below). */
+  static final String OLD_BAND_LABEL = "; band over the alternative constant sets";
+
+  /** What the low/high of those rows really are. */
+  static final String STORED_BEFORE_ITEMISED =
+      "; band from the instrument tolerances only (stored before the itemised uncertainty)";
 
   /** A consistency-check result. */
   public record FindingView(String code, String suspect, String explanation) {}
 
   static final String FORMULATION =
       "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
-          + " band over the alternative constant sets";
+          + " band: (a) instrument tolerances, (b) constant-set spread, (c) estimated or"
+          + " extrapolated constants and (d) operating temperature/pressure, combined by"
+          + " root-sum-square (see uncertainty)";
 
   static final String FORMULATION_EARLY_CONDENSATE =
       "First condensate of the steam at the saturation temperature: vapour-liquid distribution"
@@ -144,7 +173,8 @@ public record EvaluationView(
                             ? FORMULATION_EARLY_CONDENSATE
                             : FORMULATION,
                         o.basis().name(),
-                        o.notes()))
+                        o.notes(),
+                        PhUncertaintyView.from(o.uncertainty())))
             .orElse(null);
     List<FindingView> findings =
         e.findings().stream()

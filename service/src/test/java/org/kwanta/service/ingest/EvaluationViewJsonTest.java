@@ -30,4 +30,24 @@ class EvaluationViewJsonTest {
         JsonMapper.builder().build().readValue(stored, EvaluationView.CalculatedPh.class);
     assertThat(c.tradeFormula()).isNull();
   }
+
+  /**
+   * Rows stored before the itemised uncertainty called their instrument-tolerance band the spread
+   * over the constant sets: read back, the formulation says what the band is.
+   */
+  @Test
+  void storedBandOfOldRowsReadsBackAsTheInstrumentBand() {
+    String stored =
+        "{\"temperatureCel\":155,\"pressureMPa\":15,\"ph\":7.5,\"low\":7.49,\"high\":7.51,"
+            + "\"neutralPh\":5.9,\"formulation\":\""
+            + EvaluationView.FORMULATION_BEFORE_ITEMISED
+            + "\",\"basis\":\"LIQUID\",\"notes\":[]}";
+    EvaluationView.PhAtTemperature t =
+        JsonMapper.builder().build().readValue(stored, EvaluationView.PhAtTemperature.class);
+    assertThat(t.uncertainty()).isNull();
+    assertThat(t.formulation())
+        .doesNotContain("band over the alternative constant sets")
+        .endsWith(
+            "band from the instrument tolerances only (stored before the itemised uncertainty)");
+  }
 }
