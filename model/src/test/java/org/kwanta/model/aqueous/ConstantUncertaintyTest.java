@@ -9,10 +9,11 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 /**
  * The stated log10 K uncertainties of part (c). The 25 °C and 300 °C figures of the estimates are
- * those of the project's reference notes §10.1 (shared/reference/water-and-equilibria.md, row
- * cyclohexylamine "Low (±0.1 at 25 °C; ±0.4 at 300 °C)"; row 3-methoxypropylamine "25 °C value
- * itself ±0.3"); the beyond-range rule is the project's choice (ConstantUncertainty class comment),
- * checked here by hand.
+ * confidence judgements, not published values: water-and-equilibria.md §10.1 in the shared
+ * reference material (row cyclohexylamine "Low (±0.1 at 25 °C; ±0.4 at 300 °C)", an estimate around
+ * the 25 °C values recalled from memory; row 3-methoxypropylamine "25 °C value itself ±0.3"). The
+ * beyond-range rule is the project's choice (ConstantUncertainty class comment). Every expected
+ * value here is a hand calculation from those rules.
  */
 class ConstantUncertaintyTest {
 
@@ -37,9 +38,10 @@ class ConstantUncertaintyTest {
   }
 
   /**
-   * Boric acid (Mesmer 1972, stated 0-290 °C): 0.04 inside (single source; reference notes §7,
-   * Thermoddem agrees within 0.04); at 300 °C 10 K beyond, 0.05 + 0.005·10 = 0.10 (by hand); at 350
-   * °C 60 K beyond, 0.05 + 0.30 = 0.35.
+   * Boric acid (Mesmer 1972, stated 0-290 °C): 0.04 inside (single source; the agreement of the
+   * Thermoddem V1.10 fit with Mesmer 1972, water-and-equilibria.md §7 of the shared reference
+   * material); at 300 °C 10 K beyond, 0.05 + 0.005·10 = 0.10 (by hand); at 350 °C 60 K beyond, 0.05
+   * + 0.30 = 0.35.
    */
   @Test
   void boricAcidBeyondItsFitGrowsWithTheDistance() {

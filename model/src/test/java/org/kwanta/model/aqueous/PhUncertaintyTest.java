@@ -67,10 +67,11 @@ class PhUncertaintyTest {
    * taken as 1): C·f + h = Kw/h, with f = h/(h + Ka) the protonated fraction and h = m(H⁺).
    * Differentiating with respect to ln Ka (d(C·f) = C·f·(1 − f)·(d ln h − d ln Ka)) gives d ln h/d
    * ln Ka = C·f·(1 − f)/(C·f·(1 − f) + C·f + 2h) = (1 − f)/(2 − f + 2h/(C·f)), so dpH/dlog10 Ka =
-   * −(1 − f)/(2 − f + 2h/(C·f)): −0.5 for a barely protonated base. With u = 0.4 at 300 °C
-   * (reference notes §10.1), part (c) = 0.4·(1 − f)/(2 − f + 2h/(C·f)), f and h read from the
-   * solved species; within 1 % (activity coefficients ≈ 0.99 at I ≈ 1e-5 mol/kg). With 5 mg/kg (C =
-   * 5.04e-5 mol/kg) f ≈ 0.2 and 2h/(C·f) ≈ 0.1, so (c) ≈ 0.4·0.8/1.9 ≈ 0.17.
+   * −(1 − f)/(2 − f + 2h/(C·f)): −0.5 for a barely protonated base. With u = 0.4 at 300 °C (the
+   * confidence judgement of water-and-equilibria.md §10.1, shared reference material; no published
+   * source), part (c) = 0.4·(1 − f)/(2 − f + 2h/(C·f)), f and h read from the solved species;
+   * within 1 % (activity coefficients ≈ 0.99 at I ≈ 1e-5 mol/kg). With 5 mg/kg (C = 5.04e-5 mol/kg)
+   * f ≈ 0.2 and 2h/(C·f) ≈ 0.1, so (c) ≈ 0.4·0.8/1.9 ≈ 0.17.
    */
   @Test
   void estimatedConstantsPartForCyclohexylamineAt300CelsiusByHand() {

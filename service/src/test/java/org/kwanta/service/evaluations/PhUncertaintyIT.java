@@ -58,8 +58,9 @@ class PhUncertaintyIT {
 
   /**
    * Cyclohexylamine at 300 °C: one estimated fit, no alternative set, so (b) is zero and (c) is
-   * not: u(log10 K) = 0.1 + 0.3/275·275 = 0.4 (reference notes §10.1) times |dpH/dlog10 K| ≈ 0.45
-   * gives ≈ 0.18 (PhUncertaintyTest has the hand calculation); never a band of width zero.
+   * not: u(log10 K) = 0.1 + 0.3/275·275 = 0.4 (a confidence judgement, water-and-equilibria.md
+   * §10.1; no published source) times |dpH/dlog10 K| ≈ 0.45 gives ≈ 0.18 (PhUncertaintyTest has the
+   * hand calculation); never a band of width zero.
    */
   @Test
   void speciationApiShowsTheParts() {
