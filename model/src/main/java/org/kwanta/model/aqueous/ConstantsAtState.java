@@ -52,12 +52,7 @@ final class ConstantsAtState {
 
   static ConstantsAtState of(
       ConstantSet set, double temperatureK, double pKw, Set<Component> components) {
-    int mask = 0;
-    for (Component c : components) {
-      mask |= 1 << c.ordinal();
-    }
-    Key key =
-        new Key(set, Double.doubleToLongBits(temperatureK), Double.doubleToLongBits(pKw), mask);
+    Key key = Key.of(set, temperatureK, pKw, components);
     ConstantsAtState cached = CACHE.get(key);
     if (cached != null) {
       return cached;
@@ -89,8 +84,20 @@ final class ConstantsAtState {
     return new ConstantsAtState(log10Ka, List.copyOf(used), extrapolated);
   }
 
-  /** Exact cache key: the set by identity, T and pKw by their bits. */
-  private record Key(ConstantSet set, long temperatureBits, long pKwBits, int components) {
+  /**
+   * Exact cache key: the set by identity, T and pKw by their bits, the components by a bit mask
+   * (also the key of {@link PhUncertainties}' per-state tables).
+   */
+  record Key(ConstantSet set, long temperatureBits, long pKwBits, int components) {
+
+    static Key of(ConstantSet set, double temperatureK, double pKw, Set<Component> components) {
+      int mask = 0;
+      for (Component c : components) {
+        mask |= 1 << c.ordinal();
+      }
+      return new Key(
+          set, Double.doubleToLongBits(temperatureK), Double.doubleToLongBits(pKw), mask);
+    }
 
     @Override
     public boolean equals(Object o) {

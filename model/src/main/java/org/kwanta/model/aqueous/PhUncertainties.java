@@ -341,39 +341,13 @@ public final class PhUncertainties {
       String[] details,
       List<Alternative> alternatives) {}
 
-  private record Key(ConstantSet set, long temperatureBits, long pKwBits, int components) {
-    @Override
-    public boolean equals(Object o) {
-      return o instanceof Key k
-          && k.set == set
-          && k.temperatureBits == temperatureBits
-          && k.pKwBits == pKwBits
-          && k.components == components;
-    }
-
-    @Override
-    public int hashCode() {
-      int h = System.identityHashCode(set);
-      h = 31 * h + Long.hashCode(temperatureBits);
-      h = 31 * h + Long.hashCode(pKwBits);
-      return 31 * h + components;
-    }
-  }
-
-  private static final Map<Key, Table> CACHE = new ConcurrentHashMap<>();
+  private static final Map<ConstantsAtState.Key, Table> CACHE = new ConcurrentHashMap<>();
 
   private static Table table(Composition composition, WaterState water, SpeciationOptions options) {
     Objects.requireNonNull(options, "options");
-    int mask = 0;
-    for (Component c : composition.totals().keySet()) {
-      mask |= 1 << c.ordinal();
-    }
-    Key key =
-        new Key(
-            options.constants(),
-            Double.doubleToLongBits(water.temperatureK()),
-            Double.doubleToLongBits(water.pKw()),
-            mask);
+    ConstantsAtState.Key key =
+        ConstantsAtState.Key.of(
+            options.constants(), water.temperatureK(), water.pKw(), composition.totals().keySet());
     Table t = CACHE.get(key);
     if (t != null) {
       return t;
