@@ -432,11 +432,18 @@ public final class Evaluator {
               p.name().toLowerCase(Locale.ROOT),
               d,
               p == Parameter.SPECIFIC_CONDUCTIVITY
-                  ? "±" + tol.specificConductivityRelative() * 100 + " % of the 25 °C value"
-                  : "±" + tol.cationConductivityAbsolute() + " µS/cm"));
+                  ? "±"
+                      + rounded(tol.specificConductivityRelative() * 100)
+                      + " % of the 25 °C value"
+                  : "±" + rounded(tol.cationConductivityAbsolute()) + " µS/cm"));
     }
     return Part.symmetric(
         Kind.INSTRUMENT_TOLERANCES, Math.sqrt(sum), INSTRUMENT_BASIS, contributions);
+  }
+
+  /** A tolerance as shown to the reader: 1e-6 resolution, so 0.07·100 reads 7.0. */
+  private static double rounded(double x) {
+    return Math.round(x * 1e6) / 1e6;
   }
 
   /** What part (d) did. */
@@ -451,9 +458,10 @@ public final class Evaluator {
           + " on the saturation line) and the first condensate recomputed there";
 
   /**
-   * Part (d) for a liquid point: the pH re-solved with the temperature moved by its tolerance, and
-   * with the pressure moved by its tolerance (declared pressure only; at saturation the pressure
-   * follows the temperature).
+   * Part (d) for a liquid point: the pH moved to first order ({@link
+   * PhUncertainties#phAtMovedState}) with the temperature moved by its tolerance, and with the
+   * pressure moved by its tolerance (declared pressure only; at saturation the pressure follows the
+   * temperature).
    */
   private Part liquidOperatingConditions(
       SamplePointConfig config,
@@ -473,7 +481,8 @@ public final class Evaluator {
       }
       if (!Double.isNaN(shifted)) {
         contributions.add(
-            PhUncertainties.shifted("temperature", "±" + dT + " K", shifted, central.ph()));
+            PhUncertainties.shifted(
+                "temperature", "±" + rounded(dT) + " K", shifted, central.ph()));
       }
     }
     double rel = tol.operatingPressureRelative();
@@ -484,7 +493,8 @@ public final class Evaluator {
       }
       if (!Double.isNaN(shifted)) {
         contributions.add(
-            PhUncertainties.shifted("pressure", "±" + rel * 100 + " %", shifted, central.ph()));
+            PhUncertainties.shifted(
+                "pressure", "±" + rounded(rel * 100) + " %", shifted, central.ph()));
       }
     }
     if (contributions.isEmpty()) {
@@ -610,7 +620,7 @@ public final class Evaluator {
     String tolerance;
     if (Double.isNaN(p)) {
       source = "temperature";
-      tolerance = "±" + tol.operatingTemperatureK() + " K";
+      tolerance = "±" + rounded(tol.operatingTemperatureK()) + " K";
       if (tol.operatingTemperatureK() > 0) {
         shifted = condensatePh(steam, tSat - tol.operatingTemperatureK(), options, central);
         if (Double.isNaN(shifted)) {
@@ -620,7 +630,7 @@ public final class Evaluator {
     } else {
       source = "pressure";
       double rel = tol.operatingPressureRelative();
-      tolerance = "±" + rel * 100 + " % (condensation temperature follows)";
+      tolerance = "±" + rounded(rel * 100) + " % (condensation temperature follows)";
       if (rel > 0) {
         shifted =
             condensatePh(steam, Water.saturationTemperatureK(p * (1 - rel)), options, central);
