@@ -40,12 +40,22 @@ async function findingHistory(p) {
   }
 }
 
+// The band's parts as "(a) instrument tolerances −0.01/+0.01, ..." (pH units), or nothing for rows
+// stored before the itemised uncertainty.
+function bandParts(u) {
+  if (!u) return '';
+  const parts = [u.instrumentTolerances, u.constantSetSpread, u.estimatedConstants, u.operatingConditions]
+    .filter((x) => x)
+    .map((x) => x.label + ' −' + fmt(x.belowPh, 3) + '/+' + fmt(x.abovePh, 3));
+  return ' Band parts (pH): ' + parts.join('; ') + '; combined by root-sum-square.';
+}
+
 export async function open(p, caller, status) {
   current = { p, caller, status };
   $('detail-title').textContent = p.id + ' – ' + p.name;
   $('detail-findings').replaceChildren(...findings(p));
   $('provenance').textContent = p.phAtT
-    ? 'pH at ' + fmt(p.phAtT.temperatureCel, 0) + ' °C and ' + fmt(p.phAtT.pressureMPa, 2) + ' MPa: ' + p.phAtT.formulation + '. Configuration version ' + p.configVersion + '.'
+    ? 'pH at ' + fmt(p.phAtT.temperatureCel, 0) + ' °C and ' + fmt(p.phAtT.pressureMPa, 2) + ' MPa: ' + p.phAtT.formulation + '.' + bandParts(p.phAtT.uncertainty) + ' Configuration version ' + p.configVersion + '.'
     : '';
   findingHistory(p);
   let config;

@@ -78,7 +78,7 @@ export function pointState(s) {
     evaluated: s.evaluation ? { time: s.evaluation.time, ageSeconds: s.evaluation.ageSeconds } : null,
     at25: { sc: comp('specific_conductivity'), cace: comp('cation_conductivity'), dcace: comp('degassed_cation_conductivity') },
     calculatedPh: ev && ev.calculatedPh ? ev.calculatedPh.rigorous : null,
-    phAtT: t ? { ph: t.ph, low: t.low, high: t.high, neutral: t.neutralPh, temperatureCel: t.temperatureCel, pressureMPa: t.pressureMPa, formulation: t.formulation } : null,
+    phAtT: t ? { ph: t.ph, low: t.low, high: t.high, neutral: t.neutralPh, temperatureCel: t.temperatureCel, pressureMPa: t.pressureMPa, formulation: t.formulation, uncertainty: t.uncertainty || null } : null,
     composition: c ? {
       alkalizerMgPerKg: c.alkalizerMgPerKg, chlorideUgPerKg: c.chlorideEquivalentUgPerKg, carbonDioxideUgPerKg: c.carbonDioxideUgPerKg,
       sodiumUgPerKg: c.sodiumUgPerKg, phosphateMgPerKg: c.phosphateMgPerKg,

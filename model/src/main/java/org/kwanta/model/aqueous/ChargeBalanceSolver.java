@@ -803,4 +803,56 @@ final class ChargeBalanceSolver {
   double kw() {
     return kw;
   }
+
+  /**
+   * dpH/d(log10 Ka) of every equilibrium at a root x, with the activity coefficients of the last
+   * solve held fixed, by the implicit-function theorem on the charge balance f(x, log10 K) = 0:
+   * dx/d(log10 Ka) = −(∂f/∂log10 Ka)/(∂f/∂x). For step i of a component's chain, ∂f/∂log10 Ka = −ln
+   * 10·total·Cov(n, [n &gt; i]) over the distribution of the number n of protons lost, and ∂f/∂x =
+   * ln 10·slope (class comment), so dpH/d(log10 Ka) = −total·Cov(n, [n &gt; i])/slope. The
+   * ionic-strength feedback is left out (it changes the result by the relative change of γ, well
+   * below 1 % at cycle ionic strengths).
+   *
+   * <p>The last element is dpH/d(log10 Kw) = −m(OH⁻)/slope (from ∂f/∂log10 Kw = −ln 10·m(OH⁻));
+   * −1/2 for pure water.
+   *
+   * @param x log10 a(H⁺) at the solution (γ of that solution current)
+   * @return by equilibrium ordinal, then dpH/d(log10 Kw); 0 for equilibria of components not
+   *     present
+   */
+  double[] phSensitivities(double x) {
+    evaluate(x);
+    double slope = derivative / LN10;
+    double inverse = Math.exp(-LN10 * x);
+    double[] out = new double[Equilibrium.values().length + 1];
+    out[out.length - 1] = -(kw * inverse / gamma[1]) / slope;
+    for (int k = 0; k < components.length; k++) {
+      double[] c = conditional[k];
+      int n = c.length;
+      if (n == 0) {
+        continue;
+      }
+      double[] r = new double[n + 1];
+      r[0] = 1;
+      double s = 1;
+      for (int i = 0; i < n; i++) {
+        r[i + 1] = r[i] * c[i] * inverse;
+        s += r[i + 1];
+      }
+      double mean = 0;
+      for (int j = 1; j <= n; j++) {
+        mean += j * r[j] / s;
+      }
+      for (int i = 0; i < n; i++) {
+        double tail = 0;
+        double tailLost = 0;
+        for (int j = i + 1; j <= n; j++) {
+          tail += r[j] / s;
+          tailLost += j * r[j] / s;
+        }
+        out[steps[k][i]] = -totals[k] * (tailLost - mean * tail) / slope;
+      }
+    }
+    return out;
+  }
 }

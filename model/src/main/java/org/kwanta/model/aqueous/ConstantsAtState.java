@@ -38,6 +38,9 @@ final class ConstantsAtState {
   /** Ka = 10^log10 Ka by {@link Equilibrium#ordinal()}. */
   private final double[] ka;
 
+  /** log10 Ka by {@link Equilibrium#ordinal()} (0 for absent components); do not modify. */
+  final double[] log10Ka;
+
   /** K = 10^log10 K by {@link Association#ordinal()} (0 for associations that do not apply). */
   private final double[] associationK;
 
@@ -46,6 +49,7 @@ final class ConstantsAtState {
       List<ConstantUsed> used,
       boolean extrapolated,
       List<AssociationUsed> associations) {
+    this.log10Ka = log10Ka;
     this.ka = new double[log10Ka.length];
     for (int i = 0; i < ka.length; i++) {
       ka[i] = Math.exp(LN10 * log10Ka[i]);
@@ -83,12 +87,7 @@ final class ConstantsAtState {
 
   static ConstantsAtState of(
       ConstantSet set, double temperatureK, double pKw, Set<Component> components) {
-    int mask = 0;
-    for (Component c : components) {
-      mask |= 1 << c.ordinal();
-    }
-    Key key =
-        new Key(set, Double.doubleToLongBits(temperatureK), Double.doubleToLongBits(pKw), mask);
+    Key key = Key.of(set, temperatureK, pKw, components);
     ConstantsAtState cached = CACHE.get(key);
     if (cached != null) {
       return cached;
@@ -127,8 +126,20 @@ final class ConstantsAtState {
         log10Ka, List.copyOf(used), extrapolated, List.copyOf(associations));
   }
 
-  /** Exact cache key: the set by identity, T and pKw by their bits. */
-  private record Key(ConstantSet set, long temperatureBits, long pKwBits, int components) {
+  /**
+   * Exact cache key: the set by identity, T and pKw by their bits, the components by a bit mask
+   * (also the key of {@link PhUncertainties}' per-state tables).
+   */
+  record Key(ConstantSet set, long temperatureBits, long pKwBits, int components) {
+
+    static Key of(ConstantSet set, double temperatureK, double pKw, Set<Component> components) {
+      int mask = 0;
+      for (Component c : components) {
+        mask |= 1 << c.ordinal();
+      }
+      return new Key(
+          set, Double.doubleToLongBits(temperatureK), Double.doubleToLongBits(pKw), mask);
+    }
 
     @Override
     public boolean equals(Object o) {

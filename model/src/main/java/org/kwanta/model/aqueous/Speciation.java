@@ -143,7 +143,7 @@ public final class Speciation {
    *
    * @throws OutOfValidityRangeException above the activity model's limit
    */
-  private static void checkIonicStrength(double ionicStrength, SpeciationOptions options) {
+  static void checkIonicStrength(double ionicStrength, SpeciationOptions options) {
     double limit = options.activityModel().ionicStrengthLimitMolPerKg();
     if (ionicStrength > limit) {
       throw new OutOfValidityRangeException(
@@ -161,8 +161,7 @@ public final class Speciation {
               + " solution",
           Confidence.RETRIEVED);
 
-  private static double checkInputs(
-      Composition composition, WaterState water, SpeciationOptions options) {
+  static double checkInputs(Composition composition, WaterState water, SpeciationOptions options) {
     Objects.requireNonNull(composition, "composition");
     Objects.requireNonNull(water, "water");
     Objects.requireNonNull(options, "options");
@@ -331,13 +330,29 @@ public final class Speciation {
 
   /**
    * The speciation at temperature, the 25 °C speciation of the same water (298.15 K, 0.101325 MPa,
-   * the same pKw formulation) and the pH band over alternative constant sets.
+   * the same pKw formulation), the pH band over alternative constant sets and the itemised
+   * uncertainty of the pH at temperature: (a) and (d) do not apply to given totals at a given
+   * state; (b) is the exact band; (c) the estimated or extrapolated constants.
    */
   public static SpeciationReport report(
       Composition composition, WaterState water, SpeciationOptions options) {
     SpeciationResult atT = solve(composition, water, options);
     SpeciationResult at25 = solve(composition, water25(water.ionization()), options);
-    return new SpeciationReport(atT, at25, band(composition, water, options));
+    PhBand band = band(composition, water, options);
+    PhSolution central = new PhSolution(atT.ph(), atT.ionicStrengthMolPerKg());
+    PhUncertainty uncertainty =
+        PhUncertainty.combine(
+            atT.ph(),
+            List.of(
+                PhUncertainty.Part.notApplicable(
+                    PhUncertainty.Kind.INSTRUMENT_TOLERANCES,
+                    "the totals are given, not inferred from instrument readings"),
+                PhUncertainties.constantSetSpread(band, atT.ph(), options.constants().id()),
+                PhUncertainties.estimatedConstants(composition, water, options, central),
+                PhUncertainty.Part.notApplicable(
+                    PhUncertainty.Kind.OPERATING_CONDITIONS,
+                    "the temperature and pressure are given exactly")));
+    return new SpeciationReport(atT, at25, band, uncertainty);
   }
 
   private static WaterState water25(IonizationFormulation ionization) {

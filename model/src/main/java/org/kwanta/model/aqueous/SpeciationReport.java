@@ -7,6 +7,10 @@ package org.kwanta.model.aqueous;
  * @param atTemperature the speciation at the given water state
  * @param at25Celsius the same composition at 298.15 K and 0.101325 MPa
  * @param band pH at temperature over the alternative constant sets
+ * @param uncertainty the pH at temperature's uncertainty, itemised ({@link PhUncertainty})
  */
 public record SpeciationReport(
-    SpeciationResult atTemperature, SpeciationResult at25Celsius, PhBand band) {}
+    SpeciationResult atTemperature,
+    SpeciationResult at25Celsius,
+    PhBand band,
+    PhUncertainty uncertainty) {}

@@ -9,7 +9,10 @@ import java.util.Optional;
 import java.util.concurrent.ConcurrentHashMap;
 import org.kwanta.model.OutOfValidityRangeException;
 import org.kwanta.model.Parameter;
+import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.PhSolution;
+import org.kwanta.model.aqueous.PhUncertainties;
+import org.kwanta.model.aqueous.PhUncertainty;
 import org.kwanta.model.aqueous.Speciation;
 import org.kwanta.model.aqueous.SpeciationOptions;
 import org.kwanta.model.aqueous.Species;
@@ -184,6 +187,7 @@ public final class Evaluator {
       double pH25 = hasSc ? sc25.pH() : Double.NaN;
       Tolerances tol = config.tolerances();
       List<Solutes> perturbed = new ArrayList<>(3);
+      List<Parameter> perturbedChannels = new ArrayList<>(3);
       double[] uncertainty = new double[6];
       double phVariance = 0;
       for (Parameter p : CONDUCTIVITIES) {
@@ -201,6 +205,7 @@ public final class Evaluator {
             ChannelFits.refit(
                 config.regime(), sodiumMolal, values, model25, fitted, p, solutions25);
         perturbed.add(alt.all());
+        perturbedChannels.add(p);
         addSquares(uncertainty, fitted.all(), alt.all());
         if (hasSc) {
           Solution s = alt.channelSolutions().get(Parameter.SPECIFIC_CONDUCTIVITY);
@@ -224,7 +229,7 @@ public final class Evaluator {
                 new CalculatedPh(
                     pH25, Math.sqrt(phVariance), t.value(), t.constant(), t.inWindow(), t.note()));
         try {
-          operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
+          operating = Optional.of(operatingPh(config, fitted.all(), perturbed, perturbedChannels));
         } catch (OutOfValidityRangeException
             | OperatingStateException
             | EarlyCondensate.NoDistributionConstant e) {
@@ -366,9 +371,12 @@ public final class Evaluator {
   }
 
   private OperatingPh operatingPh(
-      SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+      SamplePointConfig config,
+      Solutes central,
+      List<Solutes> perturbed,
+      List<Parameter> perturbedChannels) {
     if (config.steam()) {
-      return earlyCondensatePh(config, central, perturbed);
+      return earlyCondensatePh(config, central, perturbed, perturbedChannels);
     }
     WaterState w = operatingWater(config.operatingTemperatureK(), config.operatingPressurePa());
     if (!w.liquidLike()) {
@@ -382,24 +390,39 @@ public final class Evaluator {
               w.phase()));
     }
     SpeciationOptions options = speciation;
-    PhSolution centralPh = Speciation.ph(central.composition(config.alkalizer()), w, options);
+    Composition composition = central.composition(config.alkalizer());
+    PhUncertainties.Central solved = PhUncertainties.solve(composition, w, options);
+    PhSolution centralPh = solved.solution();
     double ph = centralPh.ph();
-    double var = 0;
-    for (Solutes s : perturbed) {
+    double[] shifts = new double[perturbed.size()];
+    for (int i = 0; i < shifts.length; i++) {
       // The perturbed totals are near the central ones: start from the central solution.
-      double d = Speciation.ph(s.composition(config.alkalizer()), w, options, centralPh).ph() - ph;
-      var += d * d;
+      shifts[i] =
+          Speciation.ph(perturbed.get(i).composition(config.alkalizer()), w, options, centralPh)
+                  .ph()
+              - ph;
     }
-    double sd = Math.sqrt(var);
+    PhUncertainties.ConstantParts constants =
+        PhUncertainties.constantParts(solved, composition, w, options);
+    PhUncertainty u =
+        PhUncertainty.combine(
+            ph,
+            List.of(
+                OperatingPhParts.instrumentPart(config.tolerances(), perturbedChannels, shifts),
+                constants.constantSetSpread(),
+                constants.estimatedConstants(),
+                OperatingPhParts.liquidOperatingConditions(
+                    this, config, composition, options, solved)));
     return new OperatingPh(
         w.temperatureK(),
         w.pressurePa(),
         ph,
-        ph - sd,
-        ph + sd,
+        u.low(),
+        u.high(),
         w.neutralPh(),
         OperatingPh.Basis.LIQUID,
-        List.of());
+        List.of(),
+        u);
   }
 
   /**
@@ -408,7 +431,10 @@ public final class Evaluator {
    * declared).
    */
   private OperatingPh earlyCondensatePh(
-      SamplePointConfig config, Solutes central, List<Solutes> perturbed) {
+      SamplePointConfig config,
+      Solutes central,
+      List<Solutes> perturbed,
+      List<Parameter> perturbedChannels) {
     double p = config.operatingPressurePa();
     double tSat;
     if (Double.isNaN(p)) {
@@ -436,25 +462,40 @@ public final class Evaluator {
     Distribution.ENGINE_LIMIT.check(tSat);
     WaterState w = operatingWater(tSat, Double.NaN);
     SpeciationOptions options = speciation;
-    EarlyCondensate.Result r =
-        EarlyCondensate.of(central.composition(config.alkalizer()), w, options);
+    Composition steam = central.composition(config.alkalizer());
+    EarlyCondensate.Result r = EarlyCondensate.of(steam, w, options);
     double ph = r.liquid().ph();
-    double var = 0;
-    for (Solutes s : perturbed) {
-      double d =
-          EarlyCondensate.of(s.composition(config.alkalizer()), w, options, r).liquid().ph() - ph;
-      var += d * d;
+    double[] shifts = new double[perturbed.size()];
+    for (int i = 0; i < shifts.length; i++) {
+      shifts[i] =
+          EarlyCondensate.of(perturbed.get(i).composition(config.alkalizer()), w, options, r)
+                  .liquid()
+                  .ph()
+              - ph;
     }
-    double sd = Math.sqrt(var);
+    // (b) and (c) on the condensate's own totals (the distribution held as computed)
+    PhSolution centralPh = new PhSolution(ph, r.liquid().ionicStrengthMolPerKg());
+    PhUncertainties.ConstantParts constants =
+        PhUncertainties.constantParts(r.liquidTotals(), w, options, centralPh);
+    PhUncertainty u =
+        PhUncertainty.combine(
+            ph,
+            List.of(
+                OperatingPhParts.instrumentPart(config.tolerances(), perturbedChannels, shifts),
+                constants.constantSetSpread(),
+                constants.estimatedConstants(),
+                OperatingPhParts.condensateOperatingConditions(
+                    this, config, steam, options, r, tSat)));
     return new OperatingPh(
         w.temperatureK(),
         w.pressurePa(),
         ph,
-        ph - sd,
-        ph + sd,
+        u.low(),
+        u.high(),
         w.neutralPh(),
         OperatingPh.Basis.EARLY_CONDENSATE,
-        r.notes());
+        r.notes(),
+        u);
   }
 
   /** Critical pressure of water, IAPWS-IF97, Pa. */

@@ -1,6 +1,7 @@
 package org.kwanta.model.evaluation;
 
 import java.util.List;
+import org.kwanta.model.aqueous.PhUncertainty;
 
 /**
  * pH at the sample point's operating temperature and pressure, from the inferred composition
@@ -11,11 +12,14 @@ import java.util.List;
  *     pressure, or the operating temperature when no pressure is declared)
  * @param pressurePa pressure used, Pa
  * @param ph pH on the molal activity scale
- * @param low lower end of the band from the instrument tolerances
- * @param high upper end
+ * @param low lower end of the combined band: the parts of {@code uncertainty} combined by {@link
+ *     PhUncertainty#RULE}
+ * @param high upper end of the combined band
  * @param neutralPh pKw/2 at that state
  * @param basis what liquid the pH is of
  * @param notes assumptions and sources the reader must see (empty for a liquid sample)
+ * @param uncertainty the band itemised: (a) instrument tolerances, (b) constant-set spread, (c)
+ *     estimated or extrapolated constants, (d) operating temperature and pressure
  */
 public record OperatingPh(
     double temperatureK,
@@ -25,7 +29,8 @@ public record OperatingPh(
     double high,
     double neutralPh,
     Basis basis,
-    List<String> notes) {
+    List<String> notes,
+    PhUncertainty uncertainty) {
 
   public OperatingPh {
     notes = List.copyOf(notes);

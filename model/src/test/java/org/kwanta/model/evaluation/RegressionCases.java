@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Map;
 import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
+import org.kwanta.model.aqueous.PhUncertainty;
 import org.kwanta.model.conductivity.AlkalizerMix;
 import org.kwanta.model.conductivity.Solutes;
 import org.kwanta.model.conductivity.SolutionModel;
@@ -164,8 +165,12 @@ final class RegressionCases {
               out.put("operatingPh.temperatureK", num(o.temperatureK()));
               out.put("operatingPh.pressurePa", num(o.pressurePa()));
               out.put("operatingPh.ph", num(o.ph()));
-              out.put("operatingPh.low", num(o.low()));
-              out.put("operatingPh.high", num(o.high()));
+              // The pinned low/high are the instrument-tolerance band of the engine at 51e8942,
+              // which is now part (a) of the itemised uncertainty; the stored low/high combine
+              // all four parts (checked in PhUncertaintyTest and EvaluatorUncertaintyTest).
+              PhUncertainty.Part a = o.uncertainty().part(PhUncertainty.Kind.INSTRUMENT_TOLERANCES);
+              out.put("operatingPh.low", num(o.ph() - a.below()));
+              out.put("operatingPh.high", num(o.ph() + a.above()));
               out.put("operatingPh.neutralPh", num(o.neutralPh()));
             });
     for (int i = 0; i < e.findings().size(); i++) {

@@ -73,7 +73,12 @@ record SpeciationResponse(
           List<AssociationRow> associations,
       List<NoticeRow> notices,
       @Schema(description = "|Σ z m| / Σ |z| m at the solution", example = "1e-16")
-          double chargeBalanceRelativeResidual) {
+          double chargeBalanceRelativeResidual,
+      @Schema(
+              description =
+                  "the pH at temperature's uncertainty itemised; here (a) and (d) do not apply"
+                      + " (given totals at a given state), (b) is the band above")
+          PhUncertaintyView uncertainty) {
 
     static AtTemperature from(SpeciationReport report) {
       SpeciationResult r = report.atTemperature();
@@ -95,7 +100,8 @@ record SpeciationResponse(
           r.constants().stream().map(ConstantRow::from).toList(),
           r.associations().stream().map(AssociationRow::from).toList(),
           r.notices().stream().sorted().map(NoticeRow::from).toList(),
-          r.chargeBalanceRelativeResidual());
+          r.chargeBalanceRelativeResidual(),
+          PhUncertaintyView.from(report.uncertainty()));
     }
   }
 

@@ -6,6 +6,7 @@ import java.util.List;
 import org.kwanta.model.Instrument;
 import org.kwanta.model.evaluation.Evaluation;
 import org.kwanta.model.evaluation.OperatingPh;
+import org.kwanta.service.chemistry.PhUncertaintyView;
 
 /**
  * What the engine derived for one sample point at one time, units in the field names. Stored as
@@ -71,19 +72,21 @@ public record EvaluationView(
   /**
    * pH at the sample point's operating temperature and pressure, with its band; for a steam sample
    * the pH of its first condensate at the saturation temperature ({@code basis} EARLY_CONDENSATE),
-   * with the assumptions and distribution constants in {@code notes}. The same {@code ph}, {@code
-   * low}, {@code high}, {@code bandFrom} as the speciation's {@code phAtTemperature}
-   * (docs/names.md), plus the state it is at. Here the band is ± one standard deviation from the
-   * instruments' tolerances ({@code bandFrom} INSTRUMENT_TOLERANCES; rows stored before the field
-   * existed read back with it). {@code operatingConditionSource}: MEASURED when a recent
-   * drum-pressure reading of the point set the operating state (its value and time in {@code
+   * with the assumptions and distribution constants in {@code notes}. {@code low} and {@code high}
+   * combine the parts of {@code uncertainty} (the same object as in the speciation API). Rows
+   * stored before the itemised uncertainty have none, and their low/high are the instrument
+   * tolerances alone; their formulation, which called that band the spread over the constant sets,
+   * reads back corrected. {@code bandFrom} says which: COMBINED_PARTS, or INSTRUMENT_TOLERANCES for
+   * those older rows. {@code operatingConditionSource}: MEASURED when a recent drum-pressure
+   * reading of the point set the operating state (its value and time in {@code
    * measuredDrumPressureMPa} and {@code measuredAt}), CONFIGURED when the point's configured state
    * was used (null in evaluations stored before the field existed: configured).
    */
   @Schema(
       name = "EvaluationPhAtTemperature",
       description =
-          "pH at the operating temperature with its band (bandFrom INSTRUMENT_TOLERANCES)")
+          "pH at the operating temperature with its band (bandFrom COMBINED_PARTS: the four parts of"
+              + " uncertainty combined; INSTRUMENT_TOLERANCES in rows stored before them)")
   public record PhAtTemperature(
       double temperatureCel,
       double pressureMPa,
@@ -97,15 +100,38 @@ public record EvaluationView(
       List<String> notes,
       String operatingConditionSource,
       Double measuredDrumPressureMPa,
-      java.time.Instant measuredAt) {
+      java.time.Instant measuredAt,
+      PhUncertaintyView uncertainty) {
 
-    /** What the evaluation's band is from. */
+    /** The band of rows stored before the itemised uncertainty: the instruments' tolerances. */
     public static final String INSTRUMENT_TOLERANCES = "INSTRUMENT_TOLERANCES";
 
+    /** The band combines the four parts of {@code uncertainty}. */
+    public static final String COMBINED_PARTS = "COMBINED_PARTS";
+
     public PhAtTemperature {
-      bandFrom = bandFrom == null ? INSTRUMENT_TOLERANCES : bandFrom;
+      if (bandFrom == null) {
+        bandFrom = uncertainty == null ? INSTRUMENT_TOLERANCES : COMBINED_PARTS;
+      }
+      if (uncertainty == null && formulation != null && formulation.endsWith(OLD_BAND_LABEL)) {
+        formulation =
+            formulation.substring(0, formulation.length() - OLD_BAND_LABEL.length())
+                + STORED_BEFORE_ITEMISED;
+      }
     }
   }
+
+  /** The formulation stored before the itemised uncertainty, as it was written (for tests). */
+  static final String FORMULATION_BEFORE_ITEMISED =
+      "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
+          + " band over the alternative constant sets";
+
+  /** The label that rows stored before the itemised uncertainty carry (wrong: see below). */
+  static final String OLD_BAND_LABEL = "; band over the alternative constant sets";
+
+  /** What the low/high of those rows really are. */
+  static final String STORED_BEFORE_ITEMISED =
+      "; band from the instrument tolerances only (stored before the itemised uncertainty)";
 
   /**
    * A consistency-check result and what it points at (an instrument, the sample conditioning or the
@@ -116,7 +142,9 @@ public record EvaluationView(
 
   static final String FORMULATION =
       "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"
-          + " band of ± one standard deviation from the instruments' tolerances";
+          + " band: (a) instrument tolerances, (b) constant-set spread, (c) estimated or"
+          + " extrapolated constants and (d) operating temperature/pressure, combined by"
+          + " root-sum-square (see uncertainty)";
 
   static final String FORMULATION_EARLY_CONDENSATE =
       "First condensate of the steam at the saturation temperature: vapour-liquid distribution"
@@ -179,7 +207,9 @@ public record EvaluationView(
                         o.ph(),
                         o.low(),
                         o.high(),
-                        PhAtTemperature.INSTRUMENT_TOLERANCES,
+                        o.uncertainty() == null
+                            ? PhAtTemperature.INSTRUMENT_TOLERANCES
+                            : PhAtTemperature.COMBINED_PARTS,
                         o.neutralPh(),
                         o.basis() == OperatingPh.Basis.EARLY_CONDENSATE
                             ? FORMULATION_EARLY_CONDENSATE
@@ -188,7 +218,8 @@ public record EvaluationView(
                         o.notes(),
                         condition.source().name(),
                         condition.drumPressureMPa(),
-                        condition.measuredAt()))
+                        condition.measuredAt(),
+                        PhUncertaintyView.from(o.uncertainty())))
             .orElse(null);
     List<FindingView> findings =
         e.findings().stream()

@@ -61,7 +61,8 @@ class EvaluationViewJsonTest {
             java.util.List.of(),
             "MEASURED",
             10.0,
-            java.time.Instant.parse("2026-12-01T10:00:00Z"));
+            java.time.Instant.parse("2026-12-01T10:00:00Z"),
+            null);
     String written = json.writeValueAsString(measured);
     assertThat(written)
         .contains("\"operatingConditionSource\":\"MEASURED\"")
@@ -97,5 +98,25 @@ class EvaluationViewJsonTest {
     assertThat(written)
         .contains("\"instrumentInDoubt\":true", "\"pointsAt\":\"PH\"", "\"asReadUSPerCm\":0.2")
         .doesNotContain("suspect", "rawUSPerCm");
+  }
+
+  /**
+   * Rows stored before the itemised uncertainty called their instrument-tolerance band the spread
+   * over the constant sets: read back, the formulation says what the band is.
+   */
+  @Test
+  void storedBandOfOldRowsReadsBackAsTheInstrumentBand() {
+    String stored =
+        "{\"temperatureCel\":155,\"pressureMPa\":15,\"ph\":7.5,\"low\":7.49,\"high\":7.51,"
+            + "\"neutralPh\":5.9,\"formulation\":\""
+            + EvaluationView.FORMULATION_BEFORE_ITEMISED
+            + "\",\"basis\":\"LIQUID\",\"notes\":[]}";
+    EvaluationView.PhAtTemperature t =
+        JsonMapper.builder().build().readValue(stored, EvaluationView.PhAtTemperature.class);
+    assertThat(t.uncertainty()).isNull();
+    assertThat(t.formulation())
+        .doesNotContain("band over the alternative constant sets")
+        .endsWith(
+            "band from the instrument tolerances only (stored before the itemised uncertainty)");
   }
 }
