@@ -91,7 +91,11 @@ public final class PhUncertainties {
         ConstantsAtState.of(options.constants(), t, water.pKw(), composition.totals().keySet());
     ChargeBalanceSolver solver =
         new ChargeBalanceSolver(
-            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
+            composition.totals(),
+            k.kaByEquilibrium(),
+            Speciation.carried(k, options),
+            water,
+            options.activityModel());
     ChargeBalanceSolver.Solution s = solver.solve(Double.NaN, 0);
     Speciation.checkIonicStrength(s.ionicStrength(), options);
     return new Central(
@@ -220,7 +224,11 @@ public final class PhUncertainties {
             options.constants(), water.temperatureK(), water.pKw(), composition.totals().keySet());
     ChargeBalanceSolver solver =
         new ChargeBalanceSolver(
-            composition.totals(), k.kaByEquilibrium(), water, options.activityModel());
+            composition.totals(),
+            k.kaByEquilibrium(),
+            Speciation.carried(k, options),
+            water,
+            options.activityModel());
     ChargeBalanceSolver.Solution s = solver.solve(-central.ph(), central.ionicStrengthMolPerKg());
     return solver.phSensitivities(s.log10ActivityH());
   }
@@ -293,7 +301,11 @@ public final class PhUncertainties {
     ConstantsAtState k =
         ConstantsAtState.of(set, water.temperatureK(), water.pKw(), composition.totals().keySet());
     return -new ChargeBalanceSolver(
-            composition.totals(), k.kaByEquilibrium(), water, options.activityModel())
+            composition.totals(),
+            k.kaByEquilibrium(),
+            Speciation.carried(k, options),
+            water,
+            options.activityModel())
         .solve(-central.ph(), central.ionicStrengthMolPerKg())
         .log10ActivityH();
   }

@@ -252,7 +252,7 @@ public final class Speciation {
    * The association constants a speciation carries: those that apply to the components and are
    * chosen in the options; 0 for the others.
    */
-  private static double[] carried(ConstantsAtState k, SpeciationOptions options) {
+  static double[] carried(ConstantsAtState k, SpeciationOptions options) {
     double[] all = k.associationK();
     if (options.associations().size() == Association.values().length) {
       return all;
