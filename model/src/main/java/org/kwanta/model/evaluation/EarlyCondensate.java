@@ -31,8 +31,9 @@ import org.kwanta.model.water.WaterState;
  * <p>Assumptions, stated with every result: non-volatile solutes (sodium, chloride, sulfate,
  * phosphate) are taken at their steam concentration; their own small volatilities, which make a
  * real early condensate richer in them, are not modelled, so the result is the least concentrated
- * first condensate. Neutralizing amines have no distribution constant in Kwanta: a steam sample
- * dosed with one is not evaluated at temperature.
+ * first condensate. The neutralizing amines' distribution constants are order-of-magnitude
+ * estimates (from memory, ±100 %; {@code water.AmineDistribution}): a steam sample dosed with one
+ * gets a pH at temperature whose notes say that it rests on an estimate.
  */
 final class EarlyCondensate {
 
@@ -51,25 +52,12 @@ final class EarlyCondensate {
   record Result(
       SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
 
-  /** Thrown when a component of the steam has no distribution constant. */
-  static final class NoDistributionConstant extends RuntimeException {
-    private static final long serialVersionUID = 1L;
-
-    NoDistributionConstant(Component c) {
-      super(
-          "no vapour-liquid distribution constant for "
-              + c.name().toLowerCase(Locale.ROOT).replace('_', ' ')
-              + " in Kwanta (none retrieved from a publication)");
-    }
-  }
-
   /**
    * The liquid in equilibrium with a steam of the given composition.
    *
    * @param steam totals in the steam (as condensed), mol/kg
    * @param liquidWater saturated liquid at the condensation temperature
    * @param options speciation options
-   * @throws NoDistributionConstant when an amine is present
    */
   static Result of(Composition steam, WaterState liquidWater, SpeciationOptions options) {
     return of(steam, liquidWater, options, null);
@@ -88,8 +76,6 @@ final class EarlyCondensate {
       VolatileSolute v = volatileSolute(c);
       if (v != null) {
         kD.put(c, Distribution.at(v, t));
-      } else if (isAmine(c)) {
-        throw new NoDistributionConstant(c);
       }
     }
     // Fixed point x = F(x) per volatile component, x = ln m_liquid, F(x) = ln(m_steam / (K_D
@@ -147,6 +133,13 @@ final class EarlyCondensate {
         "pH of the first condensate (liquid in equilibrium with the steam) at the saturation"
             + " temperature; non-volatile solutes taken at their steam concentration (a lower"
             + " bound for a real early condensate)");
+    if (kD.keySet().stream()
+        .anyMatch(c -> c != Component.AMMONIA && c != Component.CARBON_DIOXIDE)) {
+      notes.add(
+          "the amine's vapour-liquid distribution constant is an order-of-magnitude estimate"
+              + " recalled from memory (no published correlation retrieved; about a factor of two"
+              + " either way): this pH at temperature is an estimate");
+    }
     for (DistributionConstant k : kD.values()) {
       notes.add(
           String.format(
@@ -173,24 +166,28 @@ final class EarlyCondensate {
     return switch (c) {
       case AMMONIA -> VolatileSolute.AMMONIA;
       case CARBON_DIOXIDE -> VolatileSolute.CARBON_DIOXIDE;
+      case MORPHOLINE -> VolatileSolute.MORPHOLINE;
+      case ETHANOLAMINE -> VolatileSolute.ETHANOLAMINE;
+      case CYCLOHEXYLAMINE -> VolatileSolute.CYCLOHEXYLAMINE;
+      case DIMETHYLAMINE -> VolatileSolute.DIMETHYLAMINE;
+      case METHOXYPROPYLAMINE -> VolatileSolute.METHOXYPROPYLAMINE;
+      case DIETHYLAMINOETHANOL -> VolatileSolute.DIETHYLAMINOETHANOL;
       default -> null;
     };
   }
 
-  private static boolean isAmine(Component c) {
-    return switch (c) {
-      case MORPHOLINE,
-          ETHANOLAMINE,
-          CYCLOHEXYLAMINE,
-          DIMETHYLAMINE,
-          METHOXYPROPYLAMINE,
-          DIETHYLAMINOETHANOL ->
-          true;
-      default -> false;
-    };
-  }
-
+  /** The neutral species of a volatile component: the one that distributes into the steam. */
   private static Species neutral(Component c) {
-    return c == Component.AMMONIA ? Species.AMMONIA : Species.CARBON_DIOXIDE;
+    return switch (c) {
+      case AMMONIA -> Species.AMMONIA;
+      case CARBON_DIOXIDE -> Species.CARBON_DIOXIDE;
+      case MORPHOLINE -> Species.MORPHOLINE;
+      case ETHANOLAMINE -> Species.ETHANOLAMINE;
+      case CYCLOHEXYLAMINE -> Species.CYCLOHEXYLAMINE;
+      case DIMETHYLAMINE -> Species.DIMETHYLAMINE;
+      case METHOXYPROPYLAMINE -> Species.METHOXYPROPYLAMINE;
+      case DIETHYLAMINOETHANOL -> Species.DIETHYLAMINOETHANOL;
+      default -> throw new IllegalArgumentException(c + " is not volatile");
+    };
   }
 }

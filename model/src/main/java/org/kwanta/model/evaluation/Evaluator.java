@@ -87,8 +87,8 @@ public final class Evaluator {
    * @param config the sample point
    * @param snapshot latest readings and recent history
    * @return the evaluation; when the pH at temperature cannot be evaluated (an operating state
-   *     outside the engine's range, a steam sample with no condensate or an amine without a
-   *     distribution constant) the 25 °C results stand and {@link Evaluation#notes()} says why
+   *     outside the engine's range or a steam sample with no condensate) the 25 °C results stand
+   *     and {@link Evaluation#notes()} says why
    */
   public Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
     List<Finding> findings = new ArrayList<>();
@@ -209,9 +209,7 @@ public final class Evaluator {
                     pH25, Math.sqrt(phVariance), t.value(), t.constant(), t.inWindow(), t.note()));
         try {
           operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
-        } catch (OutOfValidityRangeException
-            | OperatingStateException
-            | EarlyCondensate.NoDistributionConstant e) {
+        } catch (OutOfValidityRangeException | OperatingStateException e) {
           notes.add("pH at temperature not evaluated: " + e.getMessage());
         }
       }

@@ -110,17 +110,48 @@ class SteamEvaluationTest {
     assertThat(e.notes()).singleElement().asString().contains("needs its operating pressure");
   }
 
+  /**
+   * Issue 16 item 3: a morpholine-dosed main steam was "no vapour-liquid distribution constant"; it
+   * now gets the pH of its first condensate, and the notes say that the amine's K_D is an estimate
+   * from memory (water.AmineDistribution, shaped to Balakrishnan, Can. J. Chem. 56 (1978) 2620).
+   */
   @Test
-  void amineWithoutDistributionConstantIsNotEvaluatedAtTemperature() {
+  void morpholineDosedSteamGetsAnEstimatedPhAtTemperature() {
     Evaluation e =
         Evaluator.DEFAULT.evaluate(
             steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
-    assertThat(e.operatingPh()).isEmpty();
     assertThat(e.calculatedPh()).isPresent();
-    assertThat(e.notes())
-        .singleElement()
-        .asString()
-        .contains("no vapour-liquid distribution constant for morpholine");
+    assertThat(e.notes()).isEmpty();
+    OperatingPh op = e.operatingPh().orElseThrow();
+    assertThat(op.basis()).isEqualTo(OperatingPh.Basis.EARLY_CONDENSATE);
+    assertThat(op.temperatureK()).isCloseTo(Water.saturationTemperatureK(5e6), within(1e-9));
+    assertThat(op.ph()).isGreaterThan(op.neutralPh());
+    assertThat(op.notes()).anyMatch(n -> n.contains("K_D(morpholine)") && n.contains("estimated"));
+    assertThat(op.notes()).anyMatch(n -> n.contains("this pH at temperature is an estimate"));
+  }
+
+  /** The morpholine liquid satisfies its distribution: m(steam) = K_D × m(neutral, liquid). */
+  @Test
+  void morpholineFirstCondensateSatisfiesTheDistribution() {
+    WaterState w = Water.atSaturation(537.09, IonizationFormulation.R11_07);
+    double morpholine = 5e-3 / Component.MORPHOLINE.molarMassGPerMol();
+    Composition steam =
+        Composition.builder()
+            .molal(Component.MORPHOLINE, morpholine)
+            .molal(Component.CARBON_DIOXIDE, Demo.co2(40))
+            .build();
+    SpeciationResult liquid = EarlyCondensate.of(steam, w, SpeciationOptions.defaults()).liquid();
+    double k = Distribution.at(VolatileSolute.MORPHOLINE, w.temperatureK()).kD();
+    assertThat(k * liquid.molality(Species.MORPHOLINE))
+        .isCloseTo(morpholine, within(morpholine * 1e-8));
+  }
+
+  /** An ammonia-only steam says nothing about amine estimates. */
+  @Test
+  void ammoniaSteamCarriesNoAmineEstimateNote() {
+    Evaluation e = Evaluator.DEFAULT.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
+    assertThat(e.operatingPh().orElseThrow().notes())
+        .noneMatch(n -> n.contains("this pH at temperature is an estimate"));
   }
 
   /** A liquid point beyond the speciation engine keeps its 25 °C results and says whose limit. */
