@@ -40,13 +40,18 @@ class SteamPointIT {
   }
 
   private HttpResponse<String> declare(String location, double celsius, double mpa) {
+    return declare(location, celsius, mpa, "AMMONIA");
+  }
+
+  private HttpResponse<String> declare(
+      String location, double celsius, double mpa, String alkalizer) {
     String body =
         ("{\"id\":\"steam-%s\",\"name\":\"Steam point test (fictional)\","
                 + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"S%s\","
                 + "\"unit\":\"U1\",\"name\":\"test point\",\"cycleLocation\":\"%s\","
                 + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":%s,"
-                + "\"operatingPressureMPa\":%s}]}")
-            .formatted(tag, tag, location, celsius, mpa);
+                + "\"operatingPressureMPa\":%s,\"alkalizer\":\"%s\"}]}")
+            .formatted(tag, tag, location, celsius, mpa, alkalizer);
     return http.post("/api/v1/plants", "application/json", body);
   }
 
@@ -92,6 +97,25 @@ class SteamPointIT {
     // IF97 Table 36 gives T_s(5 MPa) = 537.09 K (0.537090566e3)
     assertThat(t.get("temperatureCel").asDouble()).isBetween(263.93, 263.95);
     assertThat(t.get("notes").toString()).contains("IAPWS G7-04");
+  }
+
+  /**
+   * Issue 16 item 3: a morpholine-dosed main steam gets the pH of its first condensate, and the
+   * notes say that the amine's distribution constant is an estimate from memory (no published
+   * correlation retrieved; water.AmineDistribution, shaped to Balakrishnan, Can. J. Chem. 56 (1978)
+   * 2620).
+   */
+  @Test
+  void morpholineDosedMainSteamGetsAnEstimatedFirstCondensatePh() {
+    assertThat(declare("MAIN_STEAM", 330, 5, "MORPHOLINE").statusCode()).isEqualTo(201);
+    JsonNode t = evaluate().get("phAtTemperature");
+    assertThat(t.get("basis").asString()).isEqualTo("EARLY_CONDENSATE");
+    assertThat(t.get("temperatureCel").asDouble()).isBetween(263.93, 263.95);
+    assertThat(t.get("ph").asDouble()).isGreaterThan(t.get("neutralPh").asDouble());
+    assertThat(t.get("formulation").asString()).contains("amines");
+    assertThat(t.get("notes").toString())
+        .contains("K_D(morpholine)")
+        .contains("this pH at temperature is an estimate");
   }
 
   @Test
