@@ -33,7 +33,8 @@ import org.kwanta.model.water.WaterState;
  * real early condensate richer in them, are not modelled, so the result is the least concentrated
  * first condensate. The neutralizing amines' distribution constants are order-of-magnitude
  * estimates (from memory, ±100 %; {@code water.AmineDistribution}): a steam sample dosed with one
- * gets a pH at temperature whose notes say that it rests on an estimate.
+ * gets a pH at temperature whose notes say that it rests on an estimate and give the pH with the
+ * amine's K_D multiplied and divided by one plus its stated relative uncertainty.
  */
 final class EarlyCondensate {
 
@@ -78,6 +79,41 @@ final class EarlyCondensate {
         kD.put(c, Distribution.at(v, t));
       }
     }
+    Result r = solve(steam, liquidWater, options, near, kD, 1);
+    double u =
+        kD.entrySet().stream()
+            .filter(e -> isAmine(e.getKey()))
+            .mapToDouble(e -> e.getValue().relativeUncertainty())
+            .max()
+            .orElse(0);
+    if (near != null || u == 0) {
+      return r;
+    }
+    // the central result only: what the amine estimate's own uncertainty does to the pH
+    double phLow = solve(steam, liquidWater, options, r, kD, 1 + u).liquid().ph();
+    double phHigh = solve(steam, liquidWater, options, r, kD, 1 / (1 + u)).liquid().ph();
+    List<String> notes = new ArrayList<>(r.notes());
+    notes.add(
+        String.format(
+            Locale.ROOT,
+            "with the amine's K_D multiplied or divided by %.2g (its stated uncertainty) this pH"
+                + " would lie between %.2f and %.2f; the pH band does not include this",
+            1 + u,
+            Math.min(phLow, phHigh),
+            Math.max(phLow, phHigh)));
+    return new Result(r.liquid(), r.liquidTotals(), r.steam(), List.copyOf(notes));
+  }
+
+  /** The fixed point, with the amines' K_D multiplied by {@code amineScale}. */
+  private static Result solve(
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      Result near,
+      Map<Component, DistributionConstant> constants,
+      double amineScale) {
+    Map<Component, Double> kD = new EnumMap<>(Component.class);
+    constants.forEach((c, k) -> kD.put(c, isAmine(c) ? k.kD() * amineScale : k.kD()));
     // Fixed point x = F(x) per volatile component, x = ln m_liquid, F(x) = ln(m_steam / (K_D
     // α₀(x))); accelerated by a secant estimate of F'(x) from the previous iterate (Steffensen's
     // idea), falling back to the plain update when the estimate is not usable.
@@ -94,7 +130,7 @@ final class EarlyCondensate {
           near != null && near.steam().molality(c) > 0
               ? Math.log(
                   steam.molality(c) * near.liquidTotals().molality(c) / near.steam().molality(c))
-              : Math.log(steam.molality(c) / kD.get(c).kD());
+              : Math.log(steam.molality(c) / kD.get(c));
       previousX[i] = Double.NaN;
       liquid = liquid.with(c, Math.exp(x[i]));
     }
@@ -108,7 +144,7 @@ final class EarlyCondensate {
       for (int i = 0; i < n; i++) {
         Component c = volatiles[i];
         double alpha0 = r.molality(neutral(c)) / liquid.molality(c);
-        double f = Math.log(steam.molality(c) / (kD.get(c).kD() * alpha0));
+        double f = Math.log(steam.molality(c) / (kD.get(c) * alpha0));
         double step = f - x[i];
         change = Math.max(change, Math.abs(step));
         double slope = (f - previousF[i]) / (x[i] - previousX[i]);
@@ -119,7 +155,7 @@ final class EarlyCondensate {
         next = next.with(c, Math.exp(xNext));
       }
       if (change <= TOLERANCE) {
-        return new Result(r, liquid, steam, notes(kD));
+        return new Result(r, liquid, steam, notes(constants));
       }
       liquid = next;
       r = Speciation.solve(liquid, liquidWater, options, r);
@@ -174,6 +210,11 @@ final class EarlyCondensate {
       case DIETHYLAMINOETHANOL -> VolatileSolute.DIETHYLAMINOETHANOL;
       default -> null;
     };
+  }
+
+  private static boolean isAmine(Component c) {
+    VolatileSolute v = volatileSolute(c);
+    return v != null && v != VolatileSolute.AMMONIA && v != VolatileSolute.CARBON_DIOXIDE;
   }
 
   /** The neutral species of a volatile component: the one that distributes into the steam. */

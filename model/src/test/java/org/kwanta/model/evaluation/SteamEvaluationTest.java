@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.List;
 import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
@@ -128,6 +130,13 @@ class SteamEvaluationTest {
     assertThat(op.ph()).isGreaterThan(op.neutralPh());
     assertThat(op.notes()).anyMatch(n -> n.contains("K_D(morpholine)") && n.contains("estimated"));
     assertThat(op.notes()).anyMatch(n -> n.contains("this pH at temperature is an estimate"));
+    // the estimate's factor of two, carried through the distribution, is stated beside the pH
+    String spread =
+        op.notes().stream().filter(n -> n.contains("would lie between")).findFirst().orElseThrow();
+    Matcher m = Pattern.compile("between (\\d+\\.\\d+) and (\\d+\\.\\d+)").matcher(spread);
+    assertThat(m.find()).isTrue();
+    assertThat(Double.parseDouble(m.group(1))).isLessThan(op.ph());
+    assertThat(Double.parseDouble(m.group(2))).isGreaterThan(op.ph());
   }
 
   /** The morpholine liquid satisfies its distribution: m(steam) = K_D × m(neutral, liquid). */
@@ -151,7 +160,8 @@ class SteamEvaluationTest {
   void ammoniaSteamCarriesNoAmineEstimateNote() {
     Evaluation e = Evaluator.DEFAULT.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
     assertThat(e.operatingPh().orElseThrow().notes())
-        .noneMatch(n -> n.contains("this pH at temperature is an estimate"));
+        .noneMatch(n -> n.contains("this pH at temperature is an estimate"))
+        .noneMatch(n -> n.contains("would lie between"));
   }
 
   /** A liquid point beyond the speciation engine keeps its 25 °C results and says whose limit. */
