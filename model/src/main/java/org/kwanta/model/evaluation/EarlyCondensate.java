@@ -169,8 +169,7 @@ final class EarlyCondensate {
         "pH of the first condensate (liquid in equilibrium with the steam) at the saturation"
             + " temperature; non-volatile solutes taken at their steam concentration (a lower"
             + " bound for a real early condensate)");
-    if (kD.keySet().stream()
-        .anyMatch(c -> c != Component.AMMONIA && c != Component.CARBON_DIOXIDE)) {
+    if (kD.keySet().stream().anyMatch(EarlyCondensate::isAmine)) {
       notes.add(
           "the amine's vapour-liquid distribution constant is an order-of-magnitude estimate"
               + " recalled from memory (no published correlation retrieved; about a factor of two"
