@@ -32,9 +32,11 @@ import org.kwanta.model.water.WaterState;
  * phosphate) are taken at their steam concentration; their own small volatilities, which make a
  * real early condensate richer in them, are not modelled, so the result is the least concentrated
  * first condensate. The neutralizing amines' distribution constants are order-of-magnitude
- * estimates (from memory, ±100 %; {@code water.AmineDistribution}): a steam sample dosed with one
- * gets a pH at temperature whose notes say that it rests on an estimate and give the pH with the
- * amine's K_D multiplied and divided by one plus its stated relative uncertainty.
+ * estimates (from memory, ±100 %; {@code water.AmineDistribution}), used only when the caller opts
+ * in ({@code amineEstimates}; the reference notes: not to be shipped as defaults without the
+ * primary data). Opted in, a steam sample dosed with an amine gets a pH at temperature whose notes
+ * say that it rests on an estimate and give the pH with the amine's K_D multiplied and divided by
+ * one plus its stated relative uncertainty; otherwise {@link NoDistributionConstant} is thrown.
  */
 final class EarlyCondensate {
 
@@ -54,30 +56,61 @@ final class EarlyCondensate {
       SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
 
   /**
+   * Thrown when an amine is present and its estimated distribution constant was not opted in to.
+   */
+  static final class NoDistributionConstant extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+
+    NoDistributionConstant(Component c) {
+      super(
+          "no published vapour-liquid distribution constant for "
+              + c.name().toLowerCase(Locale.ROOT).replace('_', ' ')
+              + " retrieved; Kwanta's order-of-magnitude estimate (from memory, about a factor of"
+              + " two) is off by default and is used only when opted in to"
+              + " (Evaluator.withAmineDistributionEstimates(true), service setting"
+              + " kwanta.evaluation.amine-distribution-estimates=true)");
+    }
+  }
+
+  /**
    * The liquid in equilibrium with a steam of the given composition.
    *
    * @param steam totals in the steam (as condensed), mol/kg
    * @param liquidWater saturated liquid at the condensation temperature
    * @param options speciation options
+   * @param amineEstimates whether the amines' estimated distribution constants may be used
+   * @throws NoDistributionConstant when an amine is present and {@code amineEstimates} is false
    */
-  static Result of(Composition steam, WaterState liquidWater, SpeciationOptions options) {
-    return of(steam, liquidWater, options, null);
+  static Result of(
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      boolean amineEstimates) {
+    return of(steam, liquidWater, options, amineEstimates, null);
   }
 
   /**
-   * As {@link #of(Composition, WaterState, SpeciationOptions)}, started from the liquid of a nearby
-   * steam (the band's perturbed compositions start from the central one); {@code near} changes only
-   * the starting point, not the result beyond the tolerance.
+   * As {@link #of(Composition, WaterState, SpeciationOptions, boolean)}, started from the liquid of
+   * a nearby steam (the band's perturbed compositions start from the central one); {@code near}
+   * changes only the starting point, not the result beyond the tolerance.
    */
   static Result of(
-      Composition steam, WaterState liquidWater, SpeciationOptions options, Result near) {
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      boolean amineEstimates,
+      Result near) {
     double t = liquidWater.temperatureK();
     Map<Component, DistributionConstant> kD = new EnumMap<>(Component.class);
     for (Component c : steam.totals().keySet()) {
       VolatileSolute v = volatileSolute(c);
-      if (v != null) {
-        kD.put(c, Distribution.at(v, t));
+      if (v == null) {
+        continue;
       }
+      if (isAmine(c) && !amineEstimates) {
+        throw new NoDistributionConstant(c);
+      }
+      kD.put(c, Distribution.at(v, t));
     }
     Result r = solve(steam, liquidWater, options, near, kD, 1);
     double u =

@@ -43,6 +43,13 @@ public final class Evaluator {
 
   private final IonizationFormulation ionization;
 
+  /**
+   * Whether the amines' estimated vapour–liquid distribution constants ({@code
+   * water.AmineDistribution}, from memory, ±100 %) are used for the pH at temperature of
+   * amine-dosed steam; off by default (the reference notes: not without the primary data).
+   */
+  private final boolean amineDistributionEstimates;
+
   /** Specific conductivity of pure water at 25 °C with this formulation, µS/cm. */
   private final double pureWater25;
 
@@ -52,7 +59,12 @@ public final class Evaluator {
    * @param ionization the pKw formulation (IAPWS R11-07 or R11-24)
    */
   public Evaluator(IonizationFormulation ionization) {
+    this(ionization, false);
+  }
+
+  private Evaluator(IonizationFormulation ionization, boolean amineDistributionEstimates) {
     this.ionization = java.util.Objects.requireNonNull(ionization, "ionization");
+    this.amineDistributionEstimates = amineDistributionEstimates;
     this.pureWater25 =
         Conductivity.at(Water.at(T25_K, Water.ATMOSPHERIC_PRESSURE_PA, ionization)).pureWater();
   }
@@ -60,6 +72,26 @@ public final class Evaluator {
   /** The formulation of the ionization constant of water this evaluator uses. */
   public IonizationFormulation ionization() {
     return ionization;
+  }
+
+  /**
+   * This evaluator with the amines' estimated distribution constants switched on or off. Off (the
+   * default), a steam point dosed with a neutralizing amine gets no pH at temperature and a note
+   * saying why (no published K_D retrieved) and how to opt in. On, it gets the pH of its first
+   * condensate from order-of-magnitude K_D recalled from memory (about a factor of two; {@code
+   * water.AmineDistribution}), with notes saying that it is an estimate and giving the pH with the
+   * K_D doubled and halved.
+   *
+   * @param on whether to use the estimates
+   * @return an evaluator with the same formulation and this choice (new caches)
+   */
+  public Evaluator withAmineDistributionEstimates(boolean on) {
+    return on == amineDistributionEstimates ? this : new Evaluator(ionization, on);
+  }
+
+  /** Whether the amines' estimated distribution constants are used (off by default). */
+  public boolean amineDistributionEstimates() {
+    return amineDistributionEstimates;
   }
 
   /** 25 °C, K. */
@@ -87,8 +119,9 @@ public final class Evaluator {
    * @param config the sample point
    * @param snapshot latest readings and recent history
    * @return the evaluation; when the pH at temperature cannot be evaluated (an operating state
-   *     outside the engine's range or a steam sample with no condensate) the 25 °C results stand
-   *     and {@link Evaluation#notes()} says why
+   *     outside the engine's range, a steam sample with no condensate, or an amine-dosed steam
+   *     sample while the amine estimates are off) the 25 °C results stand and {@link
+   *     Evaluation#notes()} says why
    */
   public Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
     List<Finding> findings = new ArrayList<>();
@@ -209,7 +242,9 @@ public final class Evaluator {
                     pH25, Math.sqrt(phVariance), t.value(), t.constant(), t.inWindow(), t.note()));
         try {
           operating = Optional.of(operatingPh(config, fitted.all(), perturbed));
-        } catch (OutOfValidityRangeException | OperatingStateException e) {
+        } catch (OutOfValidityRangeException
+            | OperatingStateException
+            | EarlyCondensate.NoDistributionConstant e) {
           notes.add("pH at temperature not evaluated: " + e.getMessage());
         }
       }
@@ -419,12 +454,17 @@ public final class Evaluator {
     WaterState w = operatingWater(tSat, Double.NaN);
     SpeciationOptions options = SpeciationOptions.defaults();
     EarlyCondensate.Result r =
-        EarlyCondensate.of(central.composition(config.alkalizer()), w, options);
+        EarlyCondensate.of(
+            central.composition(config.alkalizer()), w, options, amineDistributionEstimates);
     double ph = r.liquid().ph();
     double var = 0;
     for (Solutes s : perturbed) {
       double d =
-          EarlyCondensate.of(s.composition(config.alkalizer()), w, options, r).liquid().ph() - ph;
+          EarlyCondensate.of(
+                      s.composition(config.alkalizer()), w, options, amineDistributionEstimates, r)
+                  .liquid()
+                  .ph()
+              - ph;
       var += d * d;
     }
     double sd = Math.sqrt(var);
