@@ -31,8 +31,12 @@ import org.kwanta.model.water.WaterState;
  * <p>Assumptions, stated with every result: non-volatile solutes (sodium, chloride, sulfate,
  * phosphate) are taken at their steam concentration; their own small volatilities, which make a
  * real early condensate richer in them, are not modelled, so the result is the least concentrated
- * first condensate. Neutralizing amines have no distribution constant in Kwanta: a steam sample
- * dosed with one is not evaluated at temperature.
+ * first condensate. The neutralizing amines' distribution constants are order-of-magnitude
+ * estimates (from memory, ±100 %; {@code water.AmineDistribution}), used only when the caller opts
+ * in ({@code amineEstimates}; the reference notes: not to be shipped as defaults without the
+ * primary data). Opted in, a steam sample dosed with an amine gets a pH at temperature whose notes
+ * say that it rests on an estimate and give the pH with the amine's K_D multiplied and divided by
+ * one plus its stated relative uncertainty; otherwise {@link NoDistributionConstant} is thrown.
  */
 final class EarlyCondensate {
 
@@ -51,15 +55,20 @@ final class EarlyCondensate {
   record Result(
       SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
 
-  /** Thrown when a component of the steam has no distribution constant. */
+  /**
+   * Thrown when an amine is present and its estimated distribution constant was not opted in to.
+   */
   static final class NoDistributionConstant extends RuntimeException {
     private static final long serialVersionUID = 1L;
 
     NoDistributionConstant(Component c) {
       super(
-          "no vapour-liquid distribution constant for "
+          "no published vapour-liquid distribution constant for "
               + c.name().toLowerCase(Locale.ROOT).replace('_', ' ')
-              + " in Kwanta (none retrieved from a publication)");
+              + " retrieved; Kwanta's order-of-magnitude estimate (from memory, about a factor of"
+              + " two) is off by default and is used only when opted in to"
+              + " (Evaluator.withAmineDistributionEstimates(true), service setting"
+              + " kwanta.evaluation.amine-distribution-estimates=true)");
     }
   }
 
@@ -69,29 +78,75 @@ final class EarlyCondensate {
    * @param steam totals in the steam (as condensed), mol/kg
    * @param liquidWater saturated liquid at the condensation temperature
    * @param options speciation options
-   * @throws NoDistributionConstant when an amine is present
+   * @param amineEstimates whether the amines' estimated distribution constants may be used
+   * @throws NoDistributionConstant when an amine is present and {@code amineEstimates} is false
    */
-  static Result of(Composition steam, WaterState liquidWater, SpeciationOptions options) {
-    return of(steam, liquidWater, options, null);
+  static Result of(
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      boolean amineEstimates) {
+    return of(steam, liquidWater, options, amineEstimates, null);
   }
 
   /**
-   * As {@link #of(Composition, WaterState, SpeciationOptions)}, started from the liquid of a nearby
-   * steam (the band's perturbed compositions start from the central one); {@code near} changes only
-   * the starting point, not the result beyond the tolerance.
+   * As {@link #of(Composition, WaterState, SpeciationOptions, boolean)}, started from the liquid of
+   * a nearby steam (the band's perturbed compositions start from the central one); {@code near}
+   * changes only the starting point, not the result beyond the tolerance.
    */
   static Result of(
-      Composition steam, WaterState liquidWater, SpeciationOptions options, Result near) {
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      boolean amineEstimates,
+      Result near) {
     double t = liquidWater.temperatureK();
     Map<Component, DistributionConstant> kD = new EnumMap<>(Component.class);
     for (Component c : steam.totals().keySet()) {
       VolatileSolute v = volatileSolute(c);
-      if (v != null) {
-        kD.put(c, Distribution.at(v, t));
-      } else if (isAmine(c)) {
+      if (v == null) {
+        continue;
+      }
+      if (isAmine(c) && !amineEstimates) {
         throw new NoDistributionConstant(c);
       }
+      kD.put(c, Distribution.at(v, t));
     }
+    Result r = solve(steam, liquidWater, options, near, kD, 1);
+    double u =
+        kD.entrySet().stream()
+            .filter(e -> isAmine(e.getKey()))
+            .mapToDouble(e -> e.getValue().relativeUncertainty())
+            .max()
+            .orElse(0);
+    if (near != null || u == 0) {
+      return r;
+    }
+    // the central result only: what the amine estimate's own uncertainty does to the pH
+    double phLow = solve(steam, liquidWater, options, r, kD, 1 + u).liquid().ph();
+    double phHigh = solve(steam, liquidWater, options, r, kD, 1 / (1 + u)).liquid().ph();
+    List<String> notes = new ArrayList<>(r.notes());
+    notes.add(
+        String.format(
+            Locale.ROOT,
+            "with the amine's K_D multiplied or divided by %.2g (its stated uncertainty) this pH"
+                + " would lie between %.2f and %.2f; the pH band does not include this",
+            1 + u,
+            Math.min(phLow, phHigh),
+            Math.max(phLow, phHigh)));
+    return new Result(r.liquid(), r.liquidTotals(), r.steam(), List.copyOf(notes));
+  }
+
+  /** The fixed point, with the amines' K_D multiplied by {@code amineScale}. */
+  private static Result solve(
+      Composition steam,
+      WaterState liquidWater,
+      SpeciationOptions options,
+      Result near,
+      Map<Component, DistributionConstant> constants,
+      double amineScale) {
+    Map<Component, Double> kD = new EnumMap<>(Component.class);
+    constants.forEach((c, k) -> kD.put(c, isAmine(c) ? k.kD() * amineScale : k.kD()));
     // Fixed point x = F(x) per volatile component, x = ln m_liquid, F(x) = ln(m_steam / (K_D
     // α₀(x))); accelerated by a secant estimate of F'(x) from the previous iterate (Steffensen's
     // idea), falling back to the plain update when the estimate is not usable.
@@ -108,7 +163,7 @@ final class EarlyCondensate {
           near != null && near.steam().molality(c) > 0
               ? Math.log(
                   steam.molality(c) * near.liquidTotals().molality(c) / near.steam().molality(c))
-              : Math.log(steam.molality(c) / kD.get(c).kD());
+              : Math.log(steam.molality(c) / kD.get(c));
       previousX[i] = Double.NaN;
       liquid = liquid.with(c, Math.exp(x[i]));
     }
@@ -122,7 +177,7 @@ final class EarlyCondensate {
       for (int i = 0; i < n; i++) {
         Component c = volatiles[i];
         double alpha0 = r.molality(neutral(c)) / liquid.molality(c);
-        double f = Math.log(steam.molality(c) / (kD.get(c).kD() * alpha0));
+        double f = Math.log(steam.molality(c) / (kD.get(c) * alpha0));
         double step = f - x[i];
         change = Math.max(change, Math.abs(step));
         double slope = (f - previousF[i]) / (x[i] - previousX[i]);
@@ -133,7 +188,7 @@ final class EarlyCondensate {
         next = next.with(c, Math.exp(xNext));
       }
       if (change <= TOLERANCE) {
-        return new Result(r, liquid, steam, notes(kD));
+        return new Result(r, liquid, steam, notes(constants));
       }
       liquid = next;
       r = Speciation.solve(liquid, liquidWater, options, r);
@@ -147,6 +202,12 @@ final class EarlyCondensate {
         "pH of the first condensate (liquid in equilibrium with the steam) at the saturation"
             + " temperature; non-volatile solutes taken at their steam concentration (a lower"
             + " bound for a real early condensate)");
+    if (kD.keySet().stream().anyMatch(EarlyCondensate::isAmine)) {
+      notes.add(
+          "the amine's vapour-liquid distribution constant is an order-of-magnitude estimate"
+              + " recalled from memory (no published correlation retrieved; about a factor of two"
+              + " either way): this pH at temperature is an estimate");
+    }
     for (DistributionConstant k : kD.values()) {
       notes.add(
           String.format(
@@ -173,24 +234,33 @@ final class EarlyCondensate {
     return switch (c) {
       case AMMONIA -> VolatileSolute.AMMONIA;
       case CARBON_DIOXIDE -> VolatileSolute.CARBON_DIOXIDE;
+      case MORPHOLINE -> VolatileSolute.MORPHOLINE;
+      case ETHANOLAMINE -> VolatileSolute.ETHANOLAMINE;
+      case CYCLOHEXYLAMINE -> VolatileSolute.CYCLOHEXYLAMINE;
+      case DIMETHYLAMINE -> VolatileSolute.DIMETHYLAMINE;
+      case METHOXYPROPYLAMINE -> VolatileSolute.METHOXYPROPYLAMINE;
+      case DIETHYLAMINOETHANOL -> VolatileSolute.DIETHYLAMINOETHANOL;
       default -> null;
     };
   }
 
   private static boolean isAmine(Component c) {
-    return switch (c) {
-      case MORPHOLINE,
-          ETHANOLAMINE,
-          CYCLOHEXYLAMINE,
-          DIMETHYLAMINE,
-          METHOXYPROPYLAMINE,
-          DIETHYLAMINOETHANOL ->
-          true;
-      default -> false;
-    };
+    VolatileSolute v = volatileSolute(c);
+    return v != null && v != VolatileSolute.AMMONIA && v != VolatileSolute.CARBON_DIOXIDE;
   }
 
+  /** The neutral species of a volatile component: the one that distributes into the steam. */
   private static Species neutral(Component c) {
-    return c == Component.AMMONIA ? Species.AMMONIA : Species.CARBON_DIOXIDE;
+    return switch (c) {
+      case AMMONIA -> Species.AMMONIA;
+      case CARBON_DIOXIDE -> Species.CARBON_DIOXIDE;
+      case MORPHOLINE -> Species.MORPHOLINE;
+      case ETHANOLAMINE -> Species.ETHANOLAMINE;
+      case CYCLOHEXYLAMINE -> Species.CYCLOHEXYLAMINE;
+      case DIMETHYLAMINE -> Species.DIMETHYLAMINE;
+      case METHOXYPROPYLAMINE -> Species.METHOXYPROPYLAMINE;
+      case DIETHYLAMINOETHANOL -> Species.DIETHYLAMINOETHANOL;
+      default -> throw new IllegalArgumentException(c + " is not volatile");
+    };
   }
 }

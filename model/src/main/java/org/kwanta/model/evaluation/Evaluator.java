@@ -49,6 +49,13 @@ public final class Evaluator {
   /** The speciation choices of the pH at temperature (the default carries the ion pairs). */
   private final SpeciationOptions speciation;
 
+  /**
+   * Whether the amines' estimated vapour–liquid distribution constants ({@code
+   * water.AmineDistribution}, from memory, ±100 %) are used for the pH at temperature of
+   * amine-dosed steam; off by default (the reference notes: not without the primary data).
+   */
+  private final boolean amineDistributionEstimates;
+
   /** Specific conductivity of pure water at 25 °C with this formulation, µS/cm. */
   private final double pureWater25;
 
@@ -58,7 +65,7 @@ public final class Evaluator {
    * @param ionization the pKw formulation (IAPWS R11-07 or R11-24)
    */
   public Evaluator(IonizationFormulation ionization) {
-    this(ionization, SpeciationOptions.defaults());
+    this(ionization, SpeciationOptions.defaults(), false);
   }
 
   /**
@@ -70,8 +77,16 @@ public final class Evaluator {
    * @param speciation constant set, activity model and associations of the pH at temperature
    */
   public Evaluator(IonizationFormulation ionization, SpeciationOptions speciation) {
+    this(ionization, speciation, false);
+  }
+
+  private Evaluator(
+      IonizationFormulation ionization,
+      SpeciationOptions speciation,
+      boolean amineDistributionEstimates) {
     this.speciation = java.util.Objects.requireNonNull(speciation, "speciation");
     this.ionization = java.util.Objects.requireNonNull(ionization, "ionization");
+    this.amineDistributionEstimates = amineDistributionEstimates;
     this.pureWater25 =
         Conductivity.at(Water.at(T25_K, Water.ATMOSPHERIC_PRESSURE_PA, ionization)).pureWater();
   }
@@ -79,6 +94,26 @@ public final class Evaluator {
   /** The formulation of the ionization constant of water this evaluator uses. */
   public IonizationFormulation ionization() {
     return ionization;
+  }
+
+  /**
+   * This evaluator with the amines' estimated distribution constants switched on or off. Off (the
+   * default), a steam point dosed with a neutralizing amine gets no pH at temperature and a note
+   * saying why (no published K_D retrieved) and how to opt in. On, it gets the pH of its first
+   * condensate from order-of-magnitude K_D recalled from memory (about a factor of two; {@code
+   * water.AmineDistribution}), with notes saying that it is an estimate and giving the pH with the
+   * K_D doubled and halved.
+   *
+   * @param on whether to use the estimates
+   * @return an evaluator with the same formulation and this choice (new caches)
+   */
+  public Evaluator withAmineDistributionEstimates(boolean on) {
+    return on == amineDistributionEstimates ? this : new Evaluator(ionization, speciation, on);
+  }
+
+  /** Whether the amines' estimated distribution constants are used (off by default). */
+  public boolean amineDistributionEstimates() {
+    return amineDistributionEstimates;
   }
 
   /** 25 °C, K. */
@@ -106,8 +141,9 @@ public final class Evaluator {
    * @param config the sample point
    * @param snapshot latest readings and recent history
    * @return the evaluation; when the pH at temperature cannot be evaluated (an operating state
-   *     outside the engine's range, a steam sample with no condensate or an amine without a
-   *     distribution constant) the 25 °C results stand and {@link Evaluation#notes()} says why
+   *     outside the engine's range, a steam sample with no condensate, or an amine-dosed steam
+   *     sample while the amine estimates are off) the 25 °C results stand and {@link
+   *     Evaluation#notes()} says why
    */
   public Evaluation evaluate(SamplePointConfig config, Snapshot snapshot) {
     List<Finding> findings = new ArrayList<>();
@@ -463,12 +499,17 @@ public final class Evaluator {
     WaterState w = operatingWater(tSat, Double.NaN);
     SpeciationOptions options = speciation;
     Composition steam = central.composition(config.alkalizer());
-    EarlyCondensate.Result r = EarlyCondensate.of(steam, w, options);
+    EarlyCondensate.Result r = EarlyCondensate.of(steam, w, options, amineDistributionEstimates);
     double ph = r.liquid().ph();
     double[] shifts = new double[perturbed.size()];
     for (int i = 0; i < shifts.length; i++) {
       shifts[i] =
-          EarlyCondensate.of(perturbed.get(i).composition(config.alkalizer()), w, options, r)
+          EarlyCondensate.of(
+                      perturbed.get(i).composition(config.alkalizer()),
+                      w,
+                      options,
+                      amineDistributionEstimates,
+                      r)
                   .liquid()
                   .ph()
               - ph;

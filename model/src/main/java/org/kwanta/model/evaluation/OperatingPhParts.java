@@ -206,7 +206,12 @@ final class OperatingPhParts {
       EarlyCondensate.Result near) {
     try {
       Distribution.ENGINE_LIMIT.check(tSat);
-      return EarlyCondensate.of(steam, evaluator.operatingWater(tSat, Double.NaN), options, near)
+      return EarlyCondensate.of(
+              steam,
+              evaluator.operatingWater(tSat, Double.NaN),
+              options,
+              evaluator.amineDistributionEstimates(),
+              near)
           .liquid()
           .ph();
     } catch (IllegalArgumentException e) {

@@ -6,10 +6,10 @@ import org.kwanta.model.ValidityRange;
 
 /**
  * Vapour–liquid distribution constants of volatile solutes between steam and water: the facade over
- * {@link CarbonDioxideDistribution} (IAPWS G7-04) and {@link AmmoniaDistribution} (an estimate from
- * a Henry's-law fit). Neutralizing amines have no entry: no K_D correlation for morpholine,
- * ethanolamine, cyclohexylamine, dimethylamine, methoxypropylamine or diethylaminoethanol was
- * retrieved, and Kwanta does not invent one.
+ * {@link CarbonDioxideDistribution} (IAPWS G7-04), {@link AmmoniaDistribution} (an estimate from a
+ * Henry's-law fit) and {@link AmineDistribution} (morpholine, ethanolamine, cyclohexylamine,
+ * dimethylamine, methoxypropylamine, diethylaminoethanol: order-of-magnitude estimates recalled
+ * from memory, ±100 %, since no K_D correlation for them was retrieved; their confidence says so).
  *
  * <p>Range: each correlation's fit range; beyond it, up to {@link #ENGINE_LIMIT} (623.15 K, the
  * speciation engine's liquid limit), the value is returned marked extrapolated, with a larger
@@ -69,6 +69,20 @@ public final class Distribution {
               AmmoniaDistribution.VALIDITY,
               !AmmoniaDistribution.VALIDITY.contains(temperatureK),
               AmmoniaDistribution.REFERENCE);
+      case MORPHOLINE,
+          ETHANOLAMINE,
+          CYCLOHEXYLAMINE,
+          DIMETHYLAMINE,
+          METHOXYPROPYLAMINE,
+          DIETHYLAMINOETHANOL ->
+          new DistributionConstant(
+              solute,
+              temperatureK,
+              AmineDistribution.kD(solute, temperatureK),
+              AmineDistribution.relativeUncertainty(temperatureK),
+              AmineDistribution.VALIDITY,
+              !AmineDistribution.VALIDITY.contains(temperatureK),
+              AmineDistribution.REFERENCE);
     };
   }
 }

@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.List;
 import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Component;
@@ -78,7 +80,8 @@ class SteamEvaluationTest {
             .molal(Component.CARBON_DIOXIDE, Demo.co2(40))
             .molal(Component.CHLORIDE, Demo.chloride(3))
             .build();
-    SpeciationResult liquid = EarlyCondensate.of(steam, w, SpeciationOptions.defaults()).liquid();
+    SpeciationResult liquid =
+        EarlyCondensate.of(steam, w, SpeciationOptions.defaults(), false).liquid();
     double kNh3 = Distribution.at(VolatileSolute.AMMONIA, w.temperatureK()).kD();
     double kCo2 = Distribution.at(VolatileSolute.CARBON_DIOXIDE, w.temperatureK()).kD();
     assertThat(kNh3 * liquid.molality(Species.AMMONIA))
@@ -110,8 +113,16 @@ class SteamEvaluationTest {
     assertThat(e.notes()).singleElement().asString().contains("needs its operating pressure");
   }
 
+  /**
+   * By default the amine K_D estimates are off (the project's reference notes,
+   * steam-seawater-and-high-temperature.md: "do not ship as defaults without the primary data"): a
+   * morpholine-dosed main steam keeps its 25 °C results, gets no pH at temperature, and the note
+   * says why and how to opt in.
+   */
   @Test
-  void amineWithoutDistributionConstantIsNotEvaluatedAtTemperature() {
+  void morpholineDosedSteamGetsNoPhAtTemperatureByDefault() {
+    assertThat(Evaluator.DEFAULT.amineDistributionEstimates()).isFalse();
+    assertThat(new Evaluator(IonizationFormulation.R11_24).amineDistributionEstimates()).isFalse();
     Evaluation e =
         Evaluator.DEFAULT.evaluate(
             steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
@@ -120,7 +131,96 @@ class SteamEvaluationTest {
     assertThat(e.notes())
         .singleElement()
         .asString()
-        .contains("no vapour-liquid distribution constant for morpholine");
+        .contains("pH at temperature not evaluated")
+        .contains("no published vapour-liquid distribution constant for morpholine retrieved")
+        .contains("withAmineDistributionEstimates(true)")
+        .contains("kwanta.evaluation.amine-distribution-estimates");
+  }
+
+  /** The opt-in is a copy: the default evaluator stays off, the formulation is kept. */
+  @Test
+  void optingInKeepsTheFormulationAndLeavesTheDefaultOff() {
+    Evaluator on = new Evaluator(IonizationFormulation.R11_24).withAmineDistributionEstimates(true);
+    assertThat(on.amineDistributionEstimates()).isTrue();
+    assertThat(on.ionization()).isEqualTo(IonizationFormulation.R11_24);
+    assertThat(on.withAmineDistributionEstimates(true)).isSameAs(on);
+    assertThat(on.withAmineDistributionEstimates(false).amineDistributionEstimates()).isFalse();
+    assertThat(Evaluator.DEFAULT.amineDistributionEstimates()).isFalse();
+  }
+
+  /**
+   * Issue 16 item 3, opted in: a morpholine-dosed main steam gets the pH of its first condensate,
+   * and the notes say that the amine's K_D is an estimate from memory (water.AmineDistribution,
+   * shaped to Balakrishnan, Can. J. Chem. 56 (1978) 2620).
+   */
+  @Test
+  void morpholineDosedSteamGetsAnEstimatedPhAtTemperatureWhenOptedIn() {
+    Evaluation e =
+        Evaluator.DEFAULT
+            .withAmineDistributionEstimates(true)
+            .evaluate(steam(330, 5, AlkalizerMix.of(Component.MORPHOLINE)), steamSample());
+    assertThat(e.calculatedPh()).isPresent();
+    assertThat(e.notes()).isEmpty();
+    OperatingPh op = e.operatingPh().orElseThrow();
+    assertThat(op.basis()).isEqualTo(OperatingPh.Basis.EARLY_CONDENSATE);
+    assertThat(op.temperatureK()).isCloseTo(Water.saturationTemperatureK(5e6), within(1e-9));
+    assertThat(op.ph()).isGreaterThan(op.neutralPh());
+    assertThat(op.notes()).anyMatch(n -> n.contains("K_D(morpholine)") && n.contains("estimated"));
+    assertThat(op.notes()).anyMatch(n -> n.contains("this pH at temperature is an estimate"));
+    // the estimate's factor of two, carried through the distribution, is stated beside the pH
+    String spread =
+        op.notes().stream().filter(n -> n.contains("would lie between")).findFirst().orElseThrow();
+    Matcher m = Pattern.compile("between (\\d+\\.\\d+) and (\\d+\\.\\d+)").matcher(spread);
+    assertThat(m.find()).isTrue();
+    assertThat(Double.parseDouble(m.group(1))).isLessThan(op.ph());
+    assertThat(Double.parseDouble(m.group(2))).isGreaterThan(op.ph());
+  }
+
+  /** The morpholine liquid satisfies its distribution: m(steam) = K_D × m(neutral, liquid). */
+  @Test
+  void morpholineFirstCondensateSatisfiesTheDistribution() {
+    WaterState w = Water.atSaturation(537.09, IonizationFormulation.R11_07);
+    double morpholine = 5e-3 / Component.MORPHOLINE.molarMassGPerMol();
+    Composition steam =
+        Composition.builder()
+            .molal(Component.MORPHOLINE, morpholine)
+            .molal(Component.CARBON_DIOXIDE, Demo.co2(40))
+            .build();
+    SpeciationResult liquid =
+        EarlyCondensate.of(steam, w, SpeciationOptions.defaults(), true).liquid();
+    double k = Distribution.at(VolatileSolute.MORPHOLINE, w.temperatureK()).kD();
+    assertThat(k * liquid.molality(Species.MORPHOLINE))
+        .isCloseTo(morpholine, within(morpholine * 1e-8));
+  }
+
+  /** Without the opt-in the first condensate of an amine-dosed steam is refused. */
+  @Test
+  void morpholineFirstCondensateIsRefusedWithoutTheOptIn() {
+    WaterState w = Water.atSaturation(537.09, IonizationFormulation.R11_07);
+    Composition steam =
+        Composition.builder()
+            .molal(Component.MORPHOLINE, 5e-3 / Component.MORPHOLINE.molarMassGPerMol())
+            .build();
+    org.assertj.core.api.Assertions.assertThatThrownBy(
+            () -> EarlyCondensate.of(steam, w, SpeciationOptions.defaults(), false))
+        .isInstanceOf(EarlyCondensate.NoDistributionConstant.class)
+        .hasMessageContaining("morpholine");
+  }
+
+  /** An ammonia-only steam says nothing about amine estimates, opted in or not, same pH. */
+  @Test
+  void ammoniaSteamCarriesNoAmineEstimateNote() {
+    Evaluation off = Evaluator.DEFAULT.evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
+    Evaluation on =
+        Evaluator.DEFAULT
+            .withAmineDistributionEstimates(true)
+            .evaluate(steam(330, 5, AlkalizerMix.AMMONIA), steamSample());
+    for (Evaluation e : List.of(off, on)) {
+      assertThat(e.operatingPh().orElseThrow().notes())
+          .noneMatch(n -> n.contains("this pH at temperature is an estimate"))
+          .noneMatch(n -> n.contains("would lie between"));
+    }
+    assertThat(on.operatingPh().orElseThrow().ph()).isEqualTo(off.operatingPh().orElseThrow().ph());
   }
 
   /** A liquid point beyond the speciation engine keeps its 25 °C results and says whose limit. */

@@ -61,10 +61,11 @@ class DistributionTest {
     assertThat(Distribution.at(VolatileSolute.AMMONIA, 473.15).extrapolated()).isFalse();
   }
 
-  /** Both solutes prefer the steam (K_D &gt; 1) and K_D falls with temperature towards Tc. */
+  /** Both gases prefer the steam (K_D &gt; 1) and K_D falls with temperature towards Tc. */
   @Test
-  void distributionConstantsFallWithTemperature() {
-    for (VolatileSolute s : VolatileSolute.values()) {
+  void distributionConstantsOfTheGasesFallWithTemperature() {
+    for (VolatileSolute s :
+        new VolatileSolute[] {VolatileSolute.AMMONIA, VolatileSolute.CARBON_DIOXIDE}) {
       double previous = Double.POSITIVE_INFINITY;
       for (double t = 298.15; t <= 623.15; t += 25) {
         double k = Distribution.at(s, t).kD();
@@ -72,6 +73,81 @@ class DistributionTest {
         previous = k;
       }
     }
+  }
+
+  /**
+   * The amine estimates reproduce their own table rows (values from memory — verify; the CSV header
+   * says so): a regression check of the interpolation, not a check against a publication.
+   */
+  @ParameterizedTest
+  @CsvFileSource(resources = "/water/amine-kd-estimates.csv", numLinesToSkip = 1)
+  void amineEstimatesReproduceTheirTableRows(String amine, double celsius, double kD) {
+    DistributionConstant k = Distribution.at(VolatileSolute.valueOf(amine), celsius + 273.15);
+    assertThat(k.kD()).isCloseTo(kD, within(1e-9 * kD));
+  }
+
+  /**
+   * P. V. Balakrishnan, Can. J. Chem. 56 (1978) 2620, abstract: morpholine forms an azeotrope with
+   * water (K_D &gt; 1) only above 175 °C, and its volatility is close to that of water.
+   */
+  @Test
+  void morpholineCrossesOneNear175CAsBalakrishnan1978() {
+    assertThat(Distribution.at(VolatileSolute.MORPHOLINE, 273.15 + 165).kD()).isLessThan(1);
+    assertThat(Distribution.at(VolatileSolute.MORPHOLINE, 273.15 + 185).kD()).isGreaterThan(1);
+    for (double c = 150; c <= 300; c += 10) {
+      assertThat(Distribution.at(VolatileSolute.MORPHOLINE, 273.15 + c).kD()).isBetween(0.5, 2.0);
+    }
+  }
+
+  /**
+   * Balakrishnan 1978 (abstract): cyclohexylamine strongly prefers the steam over 150–300 °C, more
+   * than morpholine.
+   */
+  @Test
+  void cyclohexylaminePrefersTheSteamAsBalakrishnan1978() {
+    for (double c = 150; c <= 300; c += 10) {
+      double t = 273.15 + c;
+      double cha = Distribution.at(VolatileSolute.CYCLOHEXYLAMINE, t).kD();
+      assertThat(cha).isGreaterThan(2);
+      assertThat(cha).isGreaterThan(1.5 * Distribution.at(VolatileSolute.MORPHOLINE, t).kD());
+    }
+  }
+
+  /** Toward the critical temperature both phases become one, so every K_D moves toward 1. */
+  @Test
+  void amineEstimatesMoveTowardOneNearTc() {
+    for (VolatileSolute s : amines()) {
+      double at300 = Math.abs(Math.log(Distribution.at(s, 573.15).kD()));
+      double at350 = Math.abs(Math.log(Distribution.at(s, 623.15).kD()));
+      assertThat(at350).as(s.name()).isLessThan(at300);
+    }
+  }
+
+  /** The amine constants say what they are: estimates, from memory, about a factor of two. */
+  @Test
+  void amineConstantsAreMarkedEstimatesFromMemory() {
+    for (VolatileSolute s : amines()) {
+      DistributionConstant k = Distribution.at(s, 473.15);
+      assertThat(k.source().confidence()).isEqualTo(Reference.Confidence.ESTIMATED);
+      assertThat(k.source().id()).contains("from memory");
+      assertThat(k.relativeUncertainty()).isGreaterThanOrEqualTo(1.0);
+      assertThat(k.extrapolated()).isFalse();
+      DistributionConstant cold = Distribution.at(s, 298.15);
+      assertThat(cold.extrapolated()).isTrue();
+      assertThat(cold.relativeUncertainty()).isGreaterThan(k.relativeUncertainty());
+      assertThat(Distribution.at(s, 623.15).extrapolated()).isTrue();
+    }
+  }
+
+  private static VolatileSolute[] amines() {
+    return new VolatileSolute[] {
+      VolatileSolute.MORPHOLINE,
+      VolatileSolute.ETHANOLAMINE,
+      VolatileSolute.CYCLOHEXYLAMINE,
+      VolatileSolute.DIMETHYLAMINE,
+      VolatileSolute.METHOXYPROPYLAMINE,
+      VolatileSolute.DIETHYLAMINOETHANOL
+    };
   }
 
   @Test

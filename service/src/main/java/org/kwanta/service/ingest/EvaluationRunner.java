@@ -28,15 +28,23 @@ public final class EvaluationRunner {
 
   private static final Logger log = LoggerFactory.getLogger(EvaluationRunner.class);
 
-  /** The engine, with the formulation {@code kwanta.water.ionization} names and its caches. */
+  /**
+   * The engine, with the formulation {@code kwanta.water.ionization} names, the amine K_D estimates
+   * as {@code kwanta.evaluation.amine-distribution-estimates} says (off by default), and its
+   * caches.
+   */
   private final Evaluator evaluator;
 
   /** How old a drum-pressure reading may be to set the operating state ({@code kwanta.process}). */
   private final Duration drumPressureMaxAge;
 
   @org.springframework.beans.factory.annotation.Autowired
-  EvaluationRunner(WaterProperties water, ProcessValueProperties process) {
-    this(new Evaluator(water.ionization()), process.drumPressureMaxAge());
+  EvaluationRunner(
+      WaterProperties water, ProcessValueProperties process, EvaluationProperties evaluation) {
+    this(
+        new Evaluator(water.ionization())
+            .withAmineDistributionEstimates(evaluation.amineDistributionEstimates()),
+        process.drumPressureMaxAge());
   }
 
   /** A runner over the given engine (tests, benchmarks), drum pressures up to 10 minutes old. */

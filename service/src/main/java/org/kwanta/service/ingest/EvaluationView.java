@@ -148,8 +148,9 @@ public record EvaluationView(
 
   static final String FORMULATION_EARLY_CONDENSATE =
       "First condensate of the steam at the saturation temperature: vapour-liquid distribution"
-          + " constants (CO2: IAPWS G7-04; NH3: estimate from a Henry's-law fit) with the"
-          + " speciation above";
+          + " constants (CO2: IAPWS G7-04; NH3: estimate from a Henry's-law fit; amines, only when"
+          + " kwanta.evaluation.amine-distribution-estimates is on: order-of-magnitude estimates"
+          + " from memory, about a factor of two) with the speciation above";
 
   public static EvaluationView from(int configVersion, Evaluation e, List<String> notes) {
     return from(configVersion, e, notes, OperatingCondition.CONFIGURED);
