@@ -74,7 +74,8 @@ class PhUncertaintyIT {
     JsonNode result = JSON.readTree(r.body()).get("results").get(0);
     JsonNode u = result.get("uncertainty");
     hasTheFourLabelledParts(u);
-    assertThat(u.get("ph").asDouble()).isEqualTo(result.get("phAtTemperature").asDouble());
+    assertThat(u.get("ph").asDouble())
+        .isEqualTo(result.get("phAtTemperature").get("ph").asDouble());
     assertThat(u.get("instrumentTolerances").get("belowPh").asDouble()).isZero();
     assertThat(u.get("constantSetSpread").get("belowPh").asDouble()).isZero();
     JsonNode c = u.get("estimatedConstants");
@@ -96,9 +97,9 @@ class PhUncertaintyIT {
   void storedEvaluationShowsThePartsUnderTheSameNames() {
     String body =
         ("{\"id\":\"unc-%s\",\"name\":\"Uncertainty test (fictional)\","
-                + "\"units\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"F%s\","
-                + "\"unit\":\"U1\",\"name\":\"economizer inlet\",\"cycleLocation\":\"FEEDWATER\","
-                + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":155,"
+                + "\"blocks\":[{\"id\":\"U1\",\"name\":\"Unit 1\"}],\"samplePoints\":[{\"id\":\"F%s\","
+                + "\"block\":\"U1\",\"name\":\"economizer inlet\",\"cycleLocation\":\"FEEDWATER\","
+                + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":155,"
                 + "\"operatingPressureMPa\":15}]}")
             .formatted(tag, tag);
     HttpResponse<String> declared = http.post("/api/v1/plants", "application/json", body);
