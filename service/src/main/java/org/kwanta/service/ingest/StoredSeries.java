@@ -16,10 +16,15 @@ import org.springframework.stereotype.Repository;
 public class StoredSeries {
 
   private final JdbcTemplate jdbc;
+  private final ReadingRollups rollups;
 
-  StoredSeries(JdbcTemplate jdbc) {
+  StoredSeries(JdbcTemplate jdbc, ReadingRollups rollups) {
     this.jdbc = jdbc;
+    this.rollups = rollups;
   }
+
+  private static final long HOUR_SECONDS = 3600;
+  private static final long DAY_SECONDS = 86400;
 
   /**
    * Where a series is stored: a parameter's readings, or a column of the evaluations.
@@ -114,7 +119,75 @@ public class StoredSeries {
         limit);
   }
 
+  /**
+   * The series in buckets [from + k·bucket, from + (k + 1)·bucket) ∩ [from, to): min, mean, max,
+   * last and count of the good and uncertain readings (or of the evaluation column's values). For
+   * readings in buckets of whole hours starting on a whole hour (UTC), the whole hours come from
+   * the hourly rollups (whole days from the daily ones when the buckets are whole days starting at
+   * midnight UTC) and only the partial hour at the end from {@code reading}; the answer is the same
+   * as from raw data up to the rounding of the means' sums.
+   */
   public List<Bucket> bucketed(
+      String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
+    if (usesRollups(p, from, bucket) && hourFloor(to).isAfter(from)) {
+      return fromRollups(samplePointId, p.code(), from, to, bucket);
+    }
+    return bucketedRaw(samplePointId, p, from, to, bucket);
+  }
+
+  /** Whether {@link #bucketed} reads the rollups for this request. */
+  static boolean usesRollups(Source p, Instant from, Duration bucket) {
+    return p.measured()
+        && bucket.getNano() == 0
+        && bucket.getSeconds() % HOUR_SECONDS == 0
+        && from.getNano() == 0
+        && from.getEpochSecond() % HOUR_SECONDS == 0;
+  }
+
+  private List<Bucket> fromRollups(
+      String samplePointId, String parameter, Instant from, Instant to, Duration bucket) {
+    Instant hours = hourFloor(to);
+    Instant days = from;
+    if (bucket.getSeconds() % DAY_SECONDS == 0 && from.getEpochSecond() % DAY_SECONDS == 0) {
+      days = Instant.ofEpochSecond(Math.floorDiv(to.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS);
+    }
+    java.util.TreeMap<Instant, ReadingRollups.Part> parts = new java.util.TreeMap<>();
+    rollups.addTo(parts, "reading_rollup_day", samplePointId, parameter, from, from, days, bucket);
+    rollups.addTo(
+        parts, "reading_rollup_hour", samplePointId, parameter, from, days, hours, bucket);
+    if (hours.isBefore(to)) {
+      jdbc.query(
+          "SELECT date_bin(make_interval(secs => ?), time, ?) AS b, min(value), max(value),"
+              + " sum(value), count(*), (array_agg(value ORDER BY time DESC))[1], max(time)"
+              + " FROM reading WHERE sample_point_id = ? AND parameter = ? AND time >= ?"
+              + " AND time < ? AND quality < 2 GROUP BY b",
+          rs -> {
+            parts
+                .computeIfAbsent(rs.getTimestamp(1).toInstant(), b -> new ReadingRollups.Part())
+                .add(
+                    rs.getDouble(2),
+                    rs.getDouble(3),
+                    rs.getDouble(4),
+                    rs.getLong(5),
+                    rs.getDouble(6),
+                    rs.getTimestamp(7).toInstant());
+          },
+          (double) bucket.toSeconds(),
+          Timestamp.from(from),
+          samplePointId,
+          parameter,
+          Timestamp.from(hours),
+          Timestamp.from(to));
+    }
+    return ReadingRollups.toBuckets(parts);
+  }
+
+  private static Instant hourFloor(Instant t) {
+    return Instant.ofEpochSecond(Math.floorDiv(t.getEpochSecond(), HOUR_SECONDS) * HOUR_SECONDS);
+  }
+
+  /** {@link #bucketed} from the stored rows alone, never the rollups. */
+  public List<Bucket> bucketedRaw(
       String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
     String filter =
         p.measured()

@@ -1,0 +1,107 @@
+-- Rollups for long trends: per series (sample point × parameter), per UTC hour and per UTC day, the good and
+-- uncertain readings (quality < 2, as the bucketed series counts them) summed up. The ingest keeps them in step
+-- in its own transaction (docs/ingest.md): the touched hours of the touched series are recomputed from
+-- reading, then the touched days from the hours. Rows outlive the raw readings' retention.
+--
+-- count    readings (quality < 2); 0 when a correction left the bucket without any (aggregates NULL)
+-- sum      their sum, so that buckets combine exactly into larger ones (mean = sum / count)
+-- last     the value of the latest one (at last_time)
+-- tw_sum   value × seconds held: each reading holds until the next one of the bucket, the last one until
+--          the bucket's end (sample and hold)
+-- held_seconds  from first_time to the bucket's end; time_weighted_mean = tw_sum / held_seconds
+CREATE TABLE reading_rollup_hour (
+    sample_point_id     text             NOT NULL,
+    parameter           text             NOT NULL,
+    bucket              timestamptz      NOT NULL,
+    count               integer          NOT NULL,
+    min                 double precision,
+    max                 double precision,
+    sum                 double precision,
+    last                double precision,
+    first_time          timestamptz,
+    last_time           timestamptz,
+    tw_sum              double precision,
+    held_seconds        double precision,
+    mean                double precision GENERATED ALWAYS AS (sum / nullif(count, 0)) STORED,
+    time_weighted_mean  double precision GENERATED ALWAYS AS (tw_sum / nullif(held_seconds, 0)) STORED,
+    PRIMARY KEY (sample_point_id, parameter, bucket)
+);
+
+CREATE TABLE reading_rollup_day (
+    sample_point_id     text             NOT NULL,
+    parameter           text             NOT NULL,
+    bucket              timestamptz      NOT NULL,
+    count               integer          NOT NULL,
+    min                 double precision,
+    max                 double precision,
+    sum                 double precision,
+    last                double precision,
+    first_time          timestamptz,
+    last_time           timestamptz,
+    tw_sum              double precision,
+    held_seconds        double precision,
+    mean                double precision GENERATED ALWAYS AS (sum / nullif(count, 0)) STORED,
+    time_weighted_mean  double precision GENERATED ALWAYS AS (tw_sum / nullif(held_seconds, 0)) STORED,
+    PRIMARY KEY (sample_point_id, parameter, bucket)
+);
+
+-- Recomputes the given hours (series and hour start, UTC) from reading, then their days from the hours.
+-- The ingest calls it once per transaction with the hours it changed; after writing reading by hand,
+-- call refresh_reading_rollups(from, to).
+CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours timestamptz[])
+RETURNS void LANGUAGE sql AS $$
+    INSERT INTO reading_rollup_hour AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
+                                          first_time, last_time, tw_sum, held_seconds)
+    SELECT t.p, t.q, t.h, a.n, a.mn, a.mx, a.s, a.l, a.ft, a.lt, a.tw,
+           extract(epoch FROM t.h + interval '1 hour' - a.ft)::float8
+    FROM (SELECT DISTINCT * FROM unnest(points, parameters, hours)) AS t(p, q, h)
+    CROSS JOIN LATERAL (
+        SELECT count(*)::int AS n, min(v) AS mn, max(v) AS mx, sum(v) AS s,
+               max(v) FILTER (WHERE nt IS NULL) AS l, min(time) AS ft, max(time) AS lt,
+               sum(v * extract(epoch FROM coalesce(nt, t.h + interval '1 hour') - time)::float8) AS tw
+        FROM (SELECT time, value AS v, lead(time) OVER (ORDER BY time) AS nt
+              FROM reading
+              WHERE sample_point_id = t.p AND parameter = t.q
+                AND time >= t.h AND time < t.h + interval '1 hour' AND quality < 2) s
+    ) a
+    ON CONFLICT (sample_point_id, parameter, bucket) DO UPDATE
+        SET count = EXCLUDED.count, min = EXCLUDED.min, max = EXCLUDED.max, sum = EXCLUDED.sum,
+            last = EXCLUDED.last, first_time = EXCLUDED.first_time, last_time = EXCLUDED.last_time,
+            tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds;
+
+    -- a day from its hours: between hours with readings, the previous hour's last value holds until the
+    -- next reading (and after the last hour, until the day's end), as in the day's own sample and hold
+    INSERT INTO reading_rollup_day AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
+                                         first_time, last_time, tw_sum, held_seconds)
+    SELECT d.p, d.q, d.d, coalesce(sum(x.count), 0)::int, min(x.min), max(x.max), sum(x.sum),
+           max(x.last) FILTER (WHERE x.next_bucket IS NULL), min(x.first_time), max(x.last_time),
+           sum(x.tw_sum + x.last * extract(epoch FROM
+               coalesce(x.next_first, d.d + interval '1 day') - (x.bucket + interval '1 hour'))::float8),
+           extract(epoch FROM d.d + interval '1 day' - min(x.first_time))::float8
+    FROM (SELECT DISTINCT p, q, date_trunc('day', h, 'UTC') FROM unnest(points, parameters, hours) AS u(p, q, h))
+         AS d(p, q, d)
+    LEFT JOIN LATERAL (
+        SELECT h.*, lead(h.bucket) OVER w AS next_bucket, lead(h.first_time) OVER w AS next_first
+        FROM reading_rollup_hour h
+        WHERE h.sample_point_id = d.p AND h.parameter = d.q
+          AND h.bucket >= d.d AND h.bucket < d.d + interval '1 day' AND h.count > 0
+        WINDOW w AS (ORDER BY h.bucket)
+    ) x ON true
+    GROUP BY d.p, d.q, d.d
+    ON CONFLICT (sample_point_id, parameter, bucket) DO UPDATE
+        SET count = EXCLUDED.count, min = EXCLUDED.min, max = EXCLUDED.max, sum = EXCLUDED.sum,
+            last = EXCLUDED.last, first_time = EXCLUDED.first_time, last_time = EXCLUDED.last_time,
+            tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds;
+$$;
+
+-- Recomputes the rollups of every series with readings in [from_time, to_time) (whole hours): after bulk
+-- loads or SQL by hand, which bypass the ingest.
+CREATE FUNCTION refresh_reading_rollups(from_time timestamptz, to_time timestamptz)
+RETURNS void LANGUAGE sql AS $$
+    SELECT update_reading_rollups(array_agg(p), array_agg(q), array_agg(h))
+    FROM (SELECT DISTINCT sample_point_id, parameter, date_trunc('hour', time, 'UTC')
+          FROM reading WHERE time >= date_trunc('hour', from_time, 'UTC') AND time < to_time) AS r(p, q, h);
+$$;
+
+-- the readings already stored
+SELECT refresh_reading_rollups('-infinity', 'infinity');
