@@ -47,14 +47,25 @@ CREATE TABLE reading_rollup_day (
 
 -- Recomputes the given hours (series and hour start, UTC) from reading, then their days from the hours.
 -- The ingest calls it once per transaction with the hours it changed; after writing reading by hand,
--- call refresh_reading_rollups(from, to).
+-- call refresh_reading_rollups(from, to). The hours' overall range is written into the statement as
+-- literals, so that the planner keeps only the daily partitions of reading in that range (a parameter
+-- of a lateral subquery alone would leave every partition in the plan and prune them only when running).
 CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours timestamptz[])
-RETURNS void LANGUAGE sql AS $$
+RETURNS void LANGUAGE plpgsql AS $fn$
+DECLARE
+    lo timestamptz;
+    hi timestamptz;
+BEGIN
+    SELECT min(h), max(h) + interval '1 hour' INTO lo, hi FROM unnest(hours) AS u(h);
+    IF lo IS NULL THEN
+        RETURN;
+    END IF;
+    EXECUTE format($sql$
     INSERT INTO reading_rollup_hour AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
                                           first_time, last_time, tw_sum, held_seconds)
     SELECT t.p, t.q, t.h, a.n, a.mn, a.mx, a.s, a.l, a.ft, a.lt, a.tw,
            extract(epoch FROM t.h + interval '1 hour' - a.ft)::float8
-    FROM (SELECT DISTINCT * FROM unnest(points, parameters, hours)) AS t(p, q, h)
+    FROM (SELECT DISTINCT * FROM unnest($1, $2, $3)) AS t(p, q, h)
     CROSS JOIN LATERAL (
         SELECT count(*)::int AS n, min(v) AS mn, max(v) AS mx, sum(v) AS s,
                max(v) FILTER (WHERE nt IS NULL) AS l, min(time) AS ft, max(time) AS lt,
@@ -62,12 +73,14 @@ RETURNS void LANGUAGE sql AS $$
         FROM (SELECT time, value AS v, lead(time) OVER (ORDER BY time) AS nt
               FROM reading
               WHERE sample_point_id = t.p AND parameter = t.q
+                AND time >= %L AND time < %L
                 AND time >= t.h AND time < t.h + interval '1 hour' AND quality < 2) s
     ) a
     ON CONFLICT (sample_point_id, parameter, bucket) DO UPDATE
         SET count = EXCLUDED.count, min = EXCLUDED.min, max = EXCLUDED.max, sum = EXCLUDED.sum,
             last = EXCLUDED.last, first_time = EXCLUDED.first_time, last_time = EXCLUDED.last_time,
-            tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds;
+            tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds
+    $sql$, lo, hi) USING points, parameters, hours;
 
     -- a day from its hours: between hours with readings, the previous hour's last value holds until the
     -- next reading (and after the last hour, until the day's end), as in the day's own sample and hold
@@ -78,8 +91,8 @@ RETURNS void LANGUAGE sql AS $$
            sum(x.tw_sum + x.last * extract(epoch FROM
                coalesce(x.next_first, d.d + interval '1 day') - (x.bucket + interval '1 hour'))::float8),
            extract(epoch FROM d.d + interval '1 day' - min(x.first_time))::float8
-    FROM (SELECT DISTINCT p, q, date_trunc('day', h, 'UTC') FROM unnest(points, parameters, hours) AS u(p, q, h))
-         AS d(p, q, d)
+    FROM (SELECT DISTINCT u.p, u.q, date_trunc('day', u.h, 'UTC') FROM unnest(points, parameters, hours)
+          AS u(p, q, h)) AS d(p, q, d)
     LEFT JOIN LATERAL (
         SELECT h.*, lead(h.bucket) OVER w AS next_bucket, lead(h.first_time) OVER w AS next_first
         FROM reading_rollup_hour h
@@ -92,7 +105,8 @@ RETURNS void LANGUAGE sql AS $$
         SET count = EXCLUDED.count, min = EXCLUDED.min, max = EXCLUDED.max, sum = EXCLUDED.sum,
             last = EXCLUDED.last, first_time = EXCLUDED.first_time, last_time = EXCLUDED.last_time,
             tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds;
-$$;
+END
+$fn$;
 
 -- Recomputes the rollups of every series with readings in [from_time, to_time) (whole hours): after bulk
 -- loads or SQL by hand, which bypass the ingest.
