@@ -45,21 +45,72 @@ CREATE TABLE reading_rollup_day (
     PRIMARY KEY (sample_point_id, parameter, bucket)
 );
 
--- Recomputes the given hours (series and hour start, UTC) from reading, then their days from the hours.
--- The ingest calls it once per transaction with the hours it changed; after writing reading by hand,
--- call refresh_reading_rollups(from, to). The hours' overall range is written into the statement as
--- literals, so that the planner keeps only the daily partitions of reading in that range (a parameter
--- of a lateral subquery alone would leave every partition in the plan and prune them only when running).
-CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours timestamptz[])
+-- Keeps the rollups in step with one ingest transaction, called once after its readings are written:
+--   new_*   readings new in this transaction (good or uncertain), added to their hour's row without reading
+--           the hour again when they all lie after its last reading (live data); otherwise the hour is
+--           recomputed;
+--   points, parameters, hours: hours recomputed from reading (corrections, readings of the plain path);
+-- then every touched day is recomputed from its hours. After writing reading by hand, call
+-- refresh_reading_rollups(from, to). The recomputed hours' overall range is written into the statement as
+-- literals, so that the planner keeps only the daily partitions of reading in that range (a parameter of a
+-- lateral subquery alone would leave every partition in the plan and prune them only when running).
+CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours timestamptz[],
+                                       new_points text[] DEFAULT '{}', new_parameters text[] DEFAULT '{}',
+                                       new_times timestamptz[] DEFAULT '{}', new_values float8[] DEFAULT '{}')
 RETURNS void LANGUAGE plpgsql AS $fn$
 DECLARE
     lo timestamptz;
     hi timestamptz;
+    rp text[];
+    rq text[];
+    rh timestamptz[];
+    ap text[];
+    aq text[];
+    ah timestamptz[];
 BEGIN
+    -- new readings appended to their hours (except hours recomputed anyway)
+    WITH n AS (
+        SELECT u.p, u.q, date_trunc('hour', u.t, 'UTC') AS h, u.t, u.v
+        FROM unnest(new_points, new_parameters, new_times, new_values) AS u(p, q, t, v)
+        WHERE NOT EXISTS (SELECT 1 FROM unnest(points, parameters, hours) AS r(p, q, h)
+                          WHERE r.p = u.p AND r.q = u.q AND r.h = date_trunc('hour', u.t, 'UTC'))
+    ), s AS (
+        SELECT n.*, lead(n.t) OVER (PARTITION BY n.p, n.q, n.h ORDER BY n.t) AS nt FROM n
+    ), a AS (
+        SELECT s.p, s.q, s.h, count(*)::int AS n, min(s.v) AS mn, max(s.v) AS mx, sum(s.v) AS sm,
+               max(s.v) FILTER (WHERE s.nt IS NULL) AS l, min(s.t) AS ft, max(s.t) AS lt,
+               sum(s.v * extract(epoch FROM coalesce(s.nt, s.h + interval '1 hour') - s.t)::float8) AS tw
+        FROM s GROUP BY s.p, s.q, s.h
+    ), done AS (
+        INSERT INTO reading_rollup_hour AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
+                                              first_time, last_time, tw_sum, held_seconds)
+        SELECT a.p, a.q, a.h, a.n, a.mn, a.mx, a.sm, a.l, a.ft, a.lt, a.tw,
+               extract(epoch FROM a.h + interval '1 hour' - a.ft)::float8
+        FROM a
+        ON CONFLICT (sample_point_id, parameter, bucket) DO UPDATE
+            SET count = o.count + EXCLUDED.count, min = least(o.min, EXCLUDED.min),
+                max = greatest(o.max, EXCLUDED.max), sum = coalesce(o.sum, 0) + EXCLUDED.sum,
+                last = EXCLUDED.last, first_time = coalesce(o.first_time, EXCLUDED.first_time),
+                last_time = EXCLUDED.last_time,
+                -- the old last value held until the first new reading instead of the hour's end
+                tw_sum = CASE WHEN o.count = 0 THEN EXCLUDED.tw_sum
+                              ELSE o.tw_sum + EXCLUDED.tw_sum - o.last * extract(epoch FROM
+                                   o.bucket + interval '1 hour' - EXCLUDED.first_time)::float8 END,
+                held_seconds = coalesce(o.held_seconds, EXCLUDED.held_seconds)
+            WHERE o.count = 0 OR o.last_time < EXCLUDED.first_time
+        RETURNING sample_point_id, parameter, bucket
+    )
+    SELECT array_agg(a.p) FILTER (WHERE d.bucket IS NULL), array_agg(a.q) FILTER (WHERE d.bucket IS NULL),
+           array_agg(a.h) FILTER (WHERE d.bucket IS NULL), array_agg(a.p), array_agg(a.q), array_agg(a.h)
+    INTO rp, rq, rh, ap, aq, ah
+    FROM a LEFT JOIN done d ON d.sample_point_id = a.p AND d.parameter = a.q AND d.bucket = a.h;
+
+    -- hours recomputed from reading: those asked for, and new readings' hours that were not appended
+    points := coalesce(points, '{}') || coalesce(rp, '{}');
+    parameters := coalesce(parameters, '{}') || coalesce(rq, '{}');
+    hours := coalesce(hours, '{}') || coalesce(rh, '{}');
     SELECT min(h), max(h) + interval '1 hour' INTO lo, hi FROM unnest(hours) AS u(h);
-    IF lo IS NULL THEN
-        RETURN;
-    END IF;
+    IF lo IS NOT NULL THEN
     EXECUTE format($sql$
     INSERT INTO reading_rollup_hour AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
                                           first_time, last_time, tw_sum, held_seconds)
@@ -81,6 +132,7 @@ BEGIN
             last = EXCLUDED.last, first_time = EXCLUDED.first_time, last_time = EXCLUDED.last_time,
             tw_sum = EXCLUDED.tw_sum, held_seconds = EXCLUDED.held_seconds
     $sql$, lo, hi) USING points, parameters, hours;
+    END IF;
 
     -- a day from its hours: between hours with readings, the previous hour's last value holds until the
     -- next reading (and after the last hour, until the day's end), as in the day's own sample and hold
@@ -91,7 +143,8 @@ BEGIN
            sum(x.tw_sum + x.last * extract(epoch FROM
                coalesce(x.next_first, d.d + interval '1 day') - (x.bucket + interval '1 hour'))::float8),
            extract(epoch FROM d.d + interval '1 day' - min(x.first_time))::float8
-    FROM (SELECT DISTINCT u.p, u.q, date_trunc('day', u.h, 'UTC') FROM unnest(points, parameters, hours)
+    FROM (SELECT DISTINCT u.p, u.q, date_trunc('day', u.h, 'UTC')
+          FROM unnest(points || coalesce(ap, '{}'), parameters || coalesce(aq, '{}'), hours || coalesce(ah, '{}'))
           AS u(p, q, h)) AS d(p, q, d)
     LEFT JOIN LATERAL (
         SELECT h.*, lead(h.bucket) OVER w AS next_bucket, lead(h.first_time) OVER w AS next_first

@@ -597,9 +597,9 @@ public class IngestService {
               "in-memory readings out of step with the database; the batch is retried");
         }
       }
-      // the rollups of the hours this group changed, recomputed from reading (one call)
+      // the rollups: new readings added to their hours, hours with corrections or readings of
+      // the plain path recomputed from reading (one call)
       java.util.Set<ReadingRollups.Hour> touched = ReadingRollups.hours();
-      ReadingRollups.hoursOf(fresh, touched);
       ReadingRollups.hoursOf(corrections, touched);
       for (Pending p : group) {
         if (p.uncovered.isEmpty()) {
@@ -617,7 +617,7 @@ public class IngestService {
           ReadingRollups.hoursOf(p.uncovered, touched);
         }
       }
-      rollups.update(touched);
+      rollups.update(touched, fresh);
 
       // recompute every evaluation the changes can affect: [first change, last change + window]
       for (Map.Entry<String, Instant[]> e : changed.entrySet()) {

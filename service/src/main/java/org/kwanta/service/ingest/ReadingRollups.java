@@ -40,36 +40,65 @@ class ReadingRollups {
   }
 
   /**
-   * Recomputes the given hours from {@code reading} and their days from the hours, in one call (two
-   * statements) in the caller's transaction.
+   * Keeps the rollups in step with the caller's transaction, in one call after its readings are
+   * written: the new readings' hours take them in without reading the hour again when they all lie
+   * after its last reading, every other touched hour is recomputed from {@code reading}, then the
+   * touched days from their hours ({@code update_reading_rollups}, V60).
+   *
+   * @param recompute hours changed otherwise (corrections, readings of the plain path)
+   * @param fresh readings new in this transaction (any quality; bad ones leave the rollups alone)
    */
-  void update(Collection<Hour> hours) {
-    if (hours.isEmpty()) {
+  void update(Collection<Hour> recompute, Collection<ValidReading> fresh) {
+    List<ValidReading> counted = new ArrayList<>(fresh.size());
+    for (ValidReading r : fresh) {
+      if (r.quality() != ValidReading.Quality.BAD) {
+        counted.add(r);
+      }
+    }
+    if (recompute.isEmpty() && counted.isEmpty()) {
       return;
     }
-    int n = hours.size();
+    int n = recompute.size();
     String[] points = new String[n];
     String[] parameters = new String[n];
     String[] starts = new String[n];
     int i = 0;
-    for (Hour h : hours) {
+    for (Hour h : recompute) {
       points[i] = h.samplePointId();
       parameters[i] = h.parameter();
       starts[i++] = h.start().toString();
     }
+    int m = counted.size();
+    String[] newPoints = new String[m];
+    String[] newParameters = new String[m];
+    String[] newTimes = new String[m];
+    Double[] newValues = new Double[m];
+    for (int j = 0; j < m; j++) {
+      ValidReading r = counted.get(j);
+      newPoints[j] = r.samplePointId();
+      newParameters[j] = r.parameter().code();
+      newTimes[j] = r.time().toString();
+      newValues[j] = r.value();
+    }
     jdbc.execute(
         (Connection c) -> {
-          try (PreparedStatement ps =
-              c.prepareStatement(
-                  "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[])")) {
+          try (PreparedStatement ps = c.prepareStatement(UPDATE)) {
             ps.setArray(1, c.createArrayOf("text", points));
             ps.setArray(2, c.createArrayOf("text", parameters));
             ps.setArray(3, c.createArrayOf("text", starts));
+            ps.setArray(4, c.createArrayOf("text", newPoints));
+            ps.setArray(5, c.createArrayOf("text", newParameters));
+            ps.setArray(6, c.createArrayOf("text", newTimes));
+            ps.setArray(7, c.createArrayOf("float8", newValues));
             ps.executeQuery().close();
           }
           return null;
         });
   }
+
+  private static final String UPDATE =
+      "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[], ?::text[],"
+          + " ?::text[], ?::text[]::timestamptz[], ?::float8[])";
 
   /** The hours touched by these readings (each once). */
   static Set<Hour> hoursOf(Collection<ValidReading> readings, Set<Hour> into) {

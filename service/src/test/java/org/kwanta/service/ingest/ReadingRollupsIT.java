@@ -98,9 +98,14 @@ class ReadingRollupsIT {
   }
 
   private void send(List<Sent> readings, Random random, Map<String, Sent> state) {
+    send(readings, random, state, 0);
+  }
+
+  /** Sends in batches of {@code size} readings, or of 50 to 650 at random when size is 0. */
+  private void send(List<Sent> readings, Random random, Map<String, Sent> state, int size) {
     int i = 0;
     while (i < readings.size()) {
-      int n = Math.min(readings.size() - i, 50 + random.nextInt(600));
+      int n = Math.min(readings.size() - i, size > 0 ? size : 50 + random.nextInt(600));
       List<String> json = new ArrayList<>();
       for (Sent s : readings.subList(i, i + n)) {
         int p = s.parameter().equals("sodium") ? 0 : 1;
@@ -252,6 +257,48 @@ class ReadingRollupsIT {
                 points.get(0),
                 Timestamp.from(start().plus(Duration.ofHours(5)))))
         .isZero();
+  }
+
+  @Test
+  void liveDataInTimeOrderIsAddedToItsHours() {
+    // the ingest adds readings that follow an hour's last one without reading the hour again
+    List<String> points = TestPlants.feedwaterPoints(http, 1);
+    String point = points.get(0);
+    Random random = new Random(23);
+    List<Sent> all = new ArrayList<>();
+    Instant end = start().plus(Duration.ofHours(3));
+    for (Instant t = start(); t.isBefore(end); t = t.plusSeconds(5 + random.nextInt(36))) {
+      for (int p = 0; p < PARAMETERS.length; p++) {
+        double base = p == 0 ? 0.4 : 0.08;
+        int quality = random.nextInt(10) == 0 ? 2 : random.nextInt(10) == 0 ? 1 : 0;
+        all.add(
+            new Sent(point, PARAMETERS[p], t, base * (1 + 0.1 * random.nextGaussian()), quality));
+      }
+    }
+    Map<String, Sent> state = new HashMap<>();
+    // the first 10 minutes, in order; then all of them turned bad (the hour's row keeps no
+    // reading); then the rest in order, in small batches
+    Instant tenMinutes = start().plusSeconds(600);
+    List<Sent> first = all.stream().filter(s -> s.time().isBefore(tenMinutes)).toList();
+    for (int i = 0; i < first.size(); i += 20) {
+      sendInOrder(first.subList(i, Math.min(first.size(), i + 20)), state);
+    }
+    sendInOrder(
+        first.stream()
+            .map(s -> new Sent(s.point(), s.parameter(), s.time(), s.value(), 2))
+            .toList(),
+        state);
+    List<Sent> rest = all.stream().filter(s -> !s.time().isBefore(tenMinutes)).toList();
+    for (int i = 0, n; i < rest.size(); i += n) {
+      n = 2 + random.nextInt(40);
+      sendInOrder(rest.subList(i, Math.min(rest.size(), i + n)), state);
+    }
+    assertSame(stored("reading_rollup_hour", points), expected(state, ChronoUnit.HOURS));
+    assertSame(stored("reading_rollup_day", points), expected(state, ChronoUnit.DAYS));
+  }
+
+  private void sendInOrder(List<Sent> readings, Map<String, Sent> state) {
+    send(readings, new Random(0), state, readings.size());
   }
 
   @Test
