@@ -161,14 +161,28 @@ BEGIN
 END
 $fn$;
 
--- Recomputes the rollups of every series with readings in [from_time, to_time) (whole hours): after bulk
--- loads or SQL by hand, which bypass the ingest.
+-- Recomputes the rollups of every series with readings in [from_time, to_time), whole hours, one UTC day per
+-- call of update_reading_rollups: after bulk loads or SQL by hand, which bypass the ingest.
 CREATE FUNCTION refresh_reading_rollups(from_time timestamptz, to_time timestamptz)
-RETURNS void LANGUAGE sql AS $$
-    SELECT update_reading_rollups(array_agg(p), array_agg(q), array_agg(h))
-    FROM (SELECT DISTINCT sample_point_id, parameter, date_trunc('hour', time, 'UTC')
-          FROM reading WHERE time >= date_trunc('hour', from_time, 'UTC') AND time < to_time) AS r(p, q, h);
-$$;
+RETURNS void LANGUAGE plpgsql AS $fn$
+DECLARE
+    lo timestamptz;
+    hi timestamptz;
+    d timestamptz;
+BEGIN
+    SELECT min(time), max(time) INTO lo, hi FROM reading
+    WHERE time >= date_trunc('hour', from_time, 'UTC') AND time < to_time;
+    d := date_trunc('day', lo, 'UTC');
+    WHILE d <= hi LOOP
+        PERFORM update_reading_rollups(array_agg(p), array_agg(q), array_agg(h))
+        FROM (SELECT DISTINCT sample_point_id, parameter, date_trunc('hour', time, 'UTC')
+              FROM reading
+              WHERE time >= greatest(d, date_trunc('hour', from_time, 'UTC'))
+                AND time < least(d + interval '1 day', to_time)) AS r(p, q, h);
+        d := d + interval '1 day';
+    END LOOP;
+END
+$fn$;
 
 -- the readings already stored
 SELECT refresh_reading_rollups('-infinity', 'infinity');
