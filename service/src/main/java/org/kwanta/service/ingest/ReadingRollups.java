@@ -3,7 +3,6 @@ package org.kwanta.service.ingest;
 import java.sql.Connection;
 import java.sql.PreparedStatement;
 import java.sql.Timestamp;
-import java.time.Duration;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
@@ -137,8 +136,9 @@ class ReadingRollups {
   }
 
   /**
-   * Adds the rollup rows of {@code table} in [from, to) (both on the table's bucket boundaries) to
-   * the requested buckets of size {@code size} starting at {@code origin}.
+   * Adds the rollup rows of {@code table} with bucket in [from, to) to the requested buckets of
+   * {@code size} seconds starting at {@code origin}, each row only when it lies whole inside one
+   * requested bucket (the caller reads the others' readings raw).
    */
   void addTo(
       Map<Instant, Part> buckets,
@@ -148,19 +148,25 @@ class ReadingRollups {
       Instant origin,
       Instant from,
       Instant to,
-      Duration size) {
+      long size) {
     if (!from.isBefore(to)) {
       return;
     }
+    long rowSeconds = "reading_rollup_day".equals(table) ? 86_400 : 3_600;
+    long o = origin.getEpochSecond();
     jdbc.query(
-        "SELECT date_bin(make_interval(secs => ?), bucket, ?), min, max, sum, count, last,"
-            + " last_time FROM "
+        "SELECT bucket, min, max, sum, count, last, last_time FROM "
             + table
             + " WHERE sample_point_id = ? AND parameter = ? AND bucket >= ? AND bucket < ?"
-            + " AND count > 0 ORDER BY bucket",
+            + " AND count > 0",
         rs -> {
+          long start = rs.getTimestamp(1).toInstant().getEpochSecond();
+          long k = Math.floorDiv(start - o, size);
+          if (k != Math.floorDiv(start + rowSeconds - 1 - o, size)) {
+            return;
+          }
           buckets
-              .computeIfAbsent(rs.getTimestamp(1).toInstant(), b -> new Part())
+              .computeIfAbsent(Instant.ofEpochSecond(o + k * size), b -> new Part())
               .add(
                   rs.getDouble(2),
                   rs.getDouble(3),
@@ -169,8 +175,6 @@ class ReadingRollups {
                   rs.getDouble(6),
                   rs.getTimestamp(7).toInstant());
         },
-        (double) size.toSeconds(),
-        Timestamp.from(origin),
         samplePointId,
         parameter,
         Timestamp.from(from),

@@ -297,6 +297,36 @@ class ReadingRollupsIT {
     assertSame(stored("reading_rollup_day", points), expected(state, ChronoUnit.DAYS));
   }
 
+  @Test
+  void refreshRecomputesAfterReadingsWereChangedBySql() {
+    List<String> points = TestPlants.feedwaterPoints(http, 1);
+    Map<String, Sent> state = new HashMap<>();
+    List<Sent> sent = new ArrayList<>();
+    for (int i = 0; i < 200; i++) {
+      sent.add(new Sent(points.get(0), "sodium", start().plusSeconds(97L * i), 0.3 + 0.001 * i, 0));
+    }
+    sendInOrder(sent, state);
+    // SQL by hand bypasses the ingest, and so the rollups, until they are refreshed
+    jdbc.update(
+        "UPDATE reading SET value = value * 2 WHERE sample_point_id = ? AND time >= ?"
+            + " AND time < ?",
+        points.get(0),
+        Timestamp.from(start()),
+        Timestamp.from(start().plusSeconds(86_400)));
+    jdbc.queryForList(
+        "SELECT refresh_reading_rollups(?, ?)::text",
+        String.class,
+        Timestamp.from(start().plusSeconds(1800)),
+        Timestamp.from(start().plusSeconds(86_400)));
+    Map<String, Sent> doubled = new HashMap<>();
+    state.forEach(
+        (k, s) ->
+            doubled.put(
+                k, new Sent(s.point(), s.parameter(), s.time(), s.value() * 2, s.quality())));
+    assertSame(stored("reading_rollup_hour", points), expected(doubled, ChronoUnit.HOURS));
+    assertSame(stored("reading_rollup_day", points), expected(doubled, ChronoUnit.DAYS));
+  }
+
   private void sendInOrder(List<Sent> readings, Map<String, Sent> state) {
     send(readings, new Random(0), state, readings.size());
   }
@@ -315,8 +345,11 @@ class ReadingRollupsIT {
             new Ask(day, day.plus(Duration.ofMinutes(2 * 1440 - 13)), Duration.ofDays(1)),
             new Ask(day, day.plus(Duration.ofDays(2)), Duration.ofHours(24)),
             new Ask(day.plusSeconds(3600), day.plus(Duration.ofDays(2)), Duration.ofHours(5)),
-            // not on a whole hour: raw data only
-            new Ask(start().plusSeconds(600), start().plusSeconds(30_000), Duration.ofHours(1)));
+            // off the hour: the hours around the bucket boundaries from raw data
+            new Ask(start().plusSeconds(600), start().plusSeconds(30_000), Duration.ofHours(1)),
+            new Ask(start().plusSeconds(1234), start().plusSeconds(107_000), Duration.ofHours(3)),
+            new Ask(day.plusSeconds(59), day.plus(Duration.ofDays(2)), Duration.ofHours(12)),
+            new Ask(day.plusSeconds(7), day.plus(Duration.ofDays(2)), Duration.ofDays(1)));
     for (String parameter : PARAMETERS) {
       StoredSeries.Source source = StoredSeries.Source.readings(parameter);
       for (Ask a : asks) {
@@ -328,10 +361,12 @@ class ReadingRollupsIT {
         assertSameBuckets(fromRollups, raw, parameter + " " + a);
       }
     }
-    assertThat(
-            StoredSeries.usesRollups(
-                StoredSeries.Source.readings("sodium"), day, Duration.ofHours(1)))
+    StoredSeries.Source sodium = StoredSeries.Source.readings("sodium");
+    Instant later = day.plus(Duration.ofDays(1));
+    assertThat(StoredSeries.usesRollups(sodium, day.plusSeconds(5), later, Duration.ofHours(1)))
         .isTrue();
+    assertThat(StoredSeries.usesRollups(sodium, day, later, Duration.ofMinutes(90))).isFalse();
+    assertThat(StoredSeries.usesRollups(sodium, day, later, Duration.ofMinutes(30))).isFalse();
 
     // the whole hours do come from the rollups: a rollup row changed by hand shows in the answer
     jdbc.update(
