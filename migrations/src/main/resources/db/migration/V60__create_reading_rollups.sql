@@ -46,9 +46,10 @@ CREATE TABLE reading_rollup_day (
 );
 
 -- Keeps the rollups in step with one ingest transaction, called once after its readings are written:
---   new_*   readings new in this transaction (good or uncertain), added to their hour's row without reading
---           the hour again when they all lie after its last reading (live data); otherwise the hour is
---           recomputed;
+--   new_*   per hour, the aggregates of the readings new in this transaction (good or uncertain; summed up
+--           by the service, columns as in reading_rollup_hour), added to the hour's row without reading the
+--           hour again when they all lie after its last reading (live data); otherwise the hour is
+--           recomputed (the service leaves out hours it recomputes anyway);
 --   points, parameters, hours: hours recomputed from reading (corrections, readings of the plain path);
 -- then every touched day is recomputed from its hours. After writing reading by hand, call
 -- refresh_reading_rollups(from, to). The recomputed hours' overall range is written into the statement as
@@ -56,7 +57,12 @@ CREATE TABLE reading_rollup_day (
 -- lateral subquery alone would leave every partition in the plan and prune them only when running).
 CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours timestamptz[],
                                        new_points text[] DEFAULT '{}', new_parameters text[] DEFAULT '{}',
-                                       new_times timestamptz[] DEFAULT '{}', new_values float8[] DEFAULT '{}')
+                                       new_hours timestamptz[] DEFAULT '{}', new_counts int[] DEFAULT '{}',
+                                       new_mins float8[] DEFAULT '{}', new_maxs float8[] DEFAULT '{}',
+                                       new_sums float8[] DEFAULT '{}', new_lasts float8[] DEFAULT '{}',
+                                       new_first_times timestamptz[] DEFAULT '{}',
+                                       new_last_times timestamptz[] DEFAULT '{}',
+                                       new_tw_sums float8[] DEFAULT '{}')
 RETURNS void LANGUAGE plpgsql AS $fn$
 DECLARE
     lo timestamptz;
@@ -68,19 +74,11 @@ DECLARE
     aq text[];
     ah timestamptz[];
 BEGIN
-    -- new readings appended to their hours (except hours recomputed anyway)
-    WITH n AS (
-        SELECT u.p, u.q, date_trunc('hour', u.t, 'UTC') AS h, u.t, u.v
-        FROM unnest(new_points, new_parameters, new_times, new_values) AS u(p, q, t, v)
-        WHERE NOT EXISTS (SELECT 1 FROM unnest(points, parameters, hours) AS r(p, q, h)
-                          WHERE r.p = u.p AND r.q = u.q AND r.h = date_trunc('hour', u.t, 'UTC'))
-    ), s AS (
-        SELECT n.*, lead(n.t) OVER (PARTITION BY n.p, n.q, n.h ORDER BY n.t) AS nt FROM n
-    ), a AS (
-        SELECT s.p, s.q, s.h, count(*)::int AS n, min(s.v) AS mn, max(s.v) AS mx, sum(s.v) AS sm,
-               max(s.v) FILTER (WHERE s.nt IS NULL) AS l, min(s.t) AS ft, max(s.t) AS lt,
-               sum(s.v * extract(epoch FROM coalesce(s.nt, s.h + interval '1 hour') - s.t)::float8) AS tw
-        FROM s GROUP BY s.p, s.q, s.h
+    -- new readings appended to their hours
+    WITH a AS (
+        SELECT * FROM unnest(new_points, new_parameters, new_hours, new_counts, new_mins, new_maxs, new_sums,
+                             new_lasts, new_first_times, new_last_times, new_tw_sums)
+            AS u(p, q, h, n, mn, mx, sm, l, ft, lt, tw)
     ), done AS (
         INSERT INTO reading_rollup_hour AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
                                               first_time, last_time, tw_sum, held_seconds)

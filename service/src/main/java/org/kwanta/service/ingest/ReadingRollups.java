@@ -45,16 +45,19 @@ class ReadingRollups {
    * touched days from their hours ({@code update_reading_rollups}, V60).
    *
    * @param recompute hours changed otherwise (corrections, readings of the plain path)
-   * @param fresh readings new in this transaction (any quality; bad ones leave the rollups alone)
+   * @param fresh readings new in this transaction (any quality; bad ones leave the rollups alone),
+   *     summed up per hour here
    */
   void update(Collection<Hour> recompute, Collection<ValidReading> fresh) {
-    List<ValidReading> counted = new ArrayList<>(fresh.size());
+    // the new readings summed up per hour here, so that only one row per hour goes to the database
+    Map<Hour, List<ValidReading>> added = new java.util.HashMap<>();
     for (ValidReading r : fresh) {
-      if (r.quality() != ValidReading.Quality.BAD) {
-        counted.add(r);
+      Hour h = Hour.of(r);
+      if (r.quality() != ValidReading.Quality.BAD && !recompute.contains(h)) {
+        added.computeIfAbsent(h, k -> new ArrayList<>()).add(r);
       }
     }
-    if (recompute.isEmpty() && counted.isEmpty()) {
+    if (recompute.isEmpty() && added.isEmpty()) {
       return;
     }
     int n = recompute.size();
@@ -67,17 +70,47 @@ class ReadingRollups {
       parameters[i] = h.parameter();
       starts[i++] = h.start().toString();
     }
-    int m = counted.size();
+    int m = added.size();
     String[] newPoints = new String[m];
     String[] newParameters = new String[m];
-    String[] newTimes = new String[m];
-    Double[] newValues = new Double[m];
-    for (int j = 0; j < m; j++) {
-      ValidReading r = counted.get(j);
-      newPoints[j] = r.samplePointId();
-      newParameters[j] = r.parameter().code();
-      newTimes[j] = r.time().toString();
-      newValues[j] = r.value();
+    String[] newHours = new String[m];
+    Integer[] counts = new Integer[m];
+    Double[] mins = new Double[m];
+    Double[] maxs = new Double[m];
+    Double[] sums = new Double[m];
+    Double[] lasts = new Double[m];
+    String[] firstTimes = new String[m];
+    String[] lastTimes = new String[m];
+    Double[] twSums = new Double[m];
+    int j = 0;
+    for (Map.Entry<Hour, List<ValidReading>> e : added.entrySet()) {
+      Hour h = e.getKey();
+      List<ValidReading> rs = e.getValue();
+      rs.sort(java.util.Comparator.comparing(ValidReading::time));
+      Instant end = h.start().plusSeconds(3600);
+      double min = Double.POSITIVE_INFINITY;
+      double max = Double.NEGATIVE_INFINITY;
+      double sum = 0;
+      double tw = 0;
+      for (int k = 0; k < rs.size(); k++) {
+        double v = rs.get(k).value();
+        min = Math.min(min, v);
+        max = Math.max(max, v);
+        sum += v;
+        Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
+        tw += v * seconds(rs.get(k).time(), until);
+      }
+      newPoints[j] = h.samplePointId();
+      newParameters[j] = h.parameter();
+      newHours[j] = h.start().toString();
+      counts[j] = rs.size();
+      mins[j] = min;
+      maxs[j] = max;
+      sums[j] = sum;
+      lasts[j] = rs.get(rs.size() - 1).value();
+      firstTimes[j] = rs.get(0).time().toString();
+      lastTimes[j] = rs.get(rs.size() - 1).time().toString();
+      twSums[j++] = tw;
     }
     jdbc.execute(
         (Connection c) -> {
@@ -87,17 +120,30 @@ class ReadingRollups {
             ps.setArray(3, c.createArrayOf("text", starts));
             ps.setArray(4, c.createArrayOf("text", newPoints));
             ps.setArray(5, c.createArrayOf("text", newParameters));
-            ps.setArray(6, c.createArrayOf("text", newTimes));
-            ps.setArray(7, c.createArrayOf("float8", newValues));
+            ps.setArray(6, c.createArrayOf("text", newHours));
+            ps.setArray(7, c.createArrayOf("int4", counts));
+            ps.setArray(8, c.createArrayOf("float8", mins));
+            ps.setArray(9, c.createArrayOf("float8", maxs));
+            ps.setArray(10, c.createArrayOf("float8", sums));
+            ps.setArray(11, c.createArrayOf("float8", lasts));
+            ps.setArray(12, c.createArrayOf("text", firstTimes));
+            ps.setArray(13, c.createArrayOf("text", lastTimes));
+            ps.setArray(14, c.createArrayOf("float8", twSums));
             ps.executeQuery().close();
           }
           return null;
         });
   }
 
+  /** Seconds from {@code a} to {@code b}, to the microsecond as PostgreSQL stores times. */
+  private static double seconds(Instant a, Instant b) {
+    return java.time.Duration.between(a, b).toNanos() / 1000 / 1e6;
+  }
+
   private static final String UPDATE =
       "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[], ?::text[],"
-          + " ?::text[], ?::text[]::timestamptz[], ?::float8[])";
+          + " ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],"
+          + " ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[])";
 
   /** The hours touched by these readings (each once). */
   static Set<Hour> hoursOf(Collection<ValidReading> readings, Set<Hour> into) {
