@@ -51,7 +51,8 @@ CREATE TABLE reading_rollup_day (
 --           hour again when they all lie after its last reading (live data); otherwise the hour is
 --           recomputed (the service leaves out hours it recomputes anyway);
 --   points, parameters, hours: hours recomputed from reading (corrections, readings of the plain path);
--- then every touched day is recomputed from its hours. After writing reading by hand, call
+--   day_*   the same per day: added to the day's row likewise when none of its hours was recomputed;
+-- then every other touched day is recomputed from its hours. After writing reading by hand, call
 -- refresh_reading_rollups(from, to). The recomputed hours' overall range is written into the statement as
 -- literals, so that the planner keeps only the daily partitions of reading in that range (a parameter of a
 -- lateral subquery alone would leave every partition in the plan and prune them only when running).
@@ -62,7 +63,14 @@ CREATE FUNCTION update_reading_rollups(points text[], parameters text[], hours t
                                        new_sums float8[] DEFAULT '{}', new_lasts float8[] DEFAULT '{}',
                                        new_first_times timestamptz[] DEFAULT '{}',
                                        new_last_times timestamptz[] DEFAULT '{}',
-                                       new_tw_sums float8[] DEFAULT '{}')
+                                       new_tw_sums float8[] DEFAULT '{}',
+                                       day_points text[] DEFAULT '{}', day_parameters text[] DEFAULT '{}',
+                                       days timestamptz[] DEFAULT '{}', day_counts int[] DEFAULT '{}',
+                                       day_mins float8[] DEFAULT '{}', day_maxs float8[] DEFAULT '{}',
+                                       day_sums float8[] DEFAULT '{}', day_lasts float8[] DEFAULT '{}',
+                                       day_first_times timestamptz[] DEFAULT '{}',
+                                       day_last_times timestamptz[] DEFAULT '{}',
+                                       day_tw_sums float8[] DEFAULT '{}')
 RETURNS void LANGUAGE plpgsql AS $fn$
 DECLARE
     lo timestamptz;
@@ -70,9 +78,9 @@ DECLARE
     rp text[];
     rq text[];
     rh timestamptz[];
-    ap text[];
-    aq text[];
-    ah timestamptz[];
+    fp text[];
+    fq text[];
+    fd timestamptz[];
 BEGIN
     -- new readings appended to their hours
     WITH a AS (
@@ -99,8 +107,8 @@ BEGIN
         RETURNING sample_point_id, parameter, bucket
     )
     SELECT array_agg(a.p) FILTER (WHERE d.bucket IS NULL), array_agg(a.q) FILTER (WHERE d.bucket IS NULL),
-           array_agg(a.h) FILTER (WHERE d.bucket IS NULL), array_agg(a.p), array_agg(a.q), array_agg(a.h)
-    INTO rp, rq, rh, ap, aq, ah
+           array_agg(a.h) FILTER (WHERE d.bucket IS NULL)
+    INTO rp, rq, rh
     FROM a LEFT JOIN done d ON d.sample_point_id = a.p AND d.parameter = a.q AND d.bucket = a.h;
 
     -- hours recomputed from reading: those asked for, and new readings' hours that were not appended
@@ -132,6 +140,38 @@ BEGIN
     $sql$, lo, hi) USING points, parameters, hours;
     END IF;
 
+    -- the new readings appended to their days likewise (days without a recomputed hour; the service sums
+    -- them up per day)
+    WITH rd AS (
+        SELECT DISTINCT r.p, r.q, date_trunc('day', r.h, 'UTC') AS d
+        FROM unnest(points, parameters, hours) AS r(p, q, h)
+    ), a AS (
+        SELECT u.* FROM unnest(day_points, day_parameters, days, day_counts, day_mins, day_maxs, day_sums,
+                               day_lasts, day_first_times, day_last_times, day_tw_sums)
+            AS u(p, q, d, n, mn, mx, sm, l, ft, lt, tw)
+        WHERE NOT EXISTS (SELECT 1 FROM rd WHERE rd.p = u.p AND rd.q = u.q AND rd.d = u.d)
+    ), done AS (
+        INSERT INTO reading_rollup_day AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
+                                             first_time, last_time, tw_sum, held_seconds)
+        SELECT a.p, a.q, a.d, a.n, a.mn, a.mx, a.sm, a.l, a.ft, a.lt, a.tw,
+               extract(epoch FROM a.d + interval '1 day' - a.ft)::float8
+        FROM a
+        ON CONFLICT (sample_point_id, parameter, bucket) DO UPDATE
+            SET count = o.count + EXCLUDED.count, min = least(o.min, EXCLUDED.min),
+                max = greatest(o.max, EXCLUDED.max), sum = coalesce(o.sum, 0) + EXCLUDED.sum,
+                last = EXCLUDED.last, first_time = coalesce(o.first_time, EXCLUDED.first_time),
+                last_time = EXCLUDED.last_time,
+                tw_sum = CASE WHEN o.count = 0 THEN EXCLUDED.tw_sum
+                              ELSE o.tw_sum + EXCLUDED.tw_sum - o.last * extract(epoch FROM
+                                   o.bucket + interval '1 day' - EXCLUDED.first_time)::float8 END,
+                held_seconds = coalesce(o.held_seconds, EXCLUDED.held_seconds)
+            WHERE o.count = 0 OR o.last_time < EXCLUDED.first_time
+        RETURNING sample_point_id, parameter, bucket
+    )
+    SELECT array_agg(a.p), array_agg(a.q), array_agg(a.d) INTO fp, fq, fd
+    FROM a LEFT JOIN done dn ON dn.sample_point_id = a.p AND dn.parameter = a.q AND dn.bucket = a.d
+    WHERE dn.bucket IS NULL;
+
     -- a day from its hours: between hours with readings, the previous hour's last value holds until the
     -- next reading (and after the last hour, until the day's end), as in the day's own sample and hold
     INSERT INTO reading_rollup_day AS o (sample_point_id, parameter, bucket, count, min, max, sum, last,
@@ -142,7 +182,7 @@ BEGIN
                coalesce(x.next_first, d.d + interval '1 day') - (x.bucket + interval '1 hour'))::float8),
            extract(epoch FROM d.d + interval '1 day' - min(x.first_time))::float8
     FROM (SELECT DISTINCT u.p, u.q, date_trunc('day', u.h, 'UTC')
-          FROM unnest(points || coalesce(ap, '{}'), parameters || coalesce(aq, '{}'), hours || coalesce(ah, '{}'))
+          FROM unnest(points || coalesce(fp, '{}'), parameters || coalesce(fq, '{}'), hours || coalesce(fd, '{}'))
           AS u(p, q, h)) AS d(p, q, d)
     LEFT JOIN LATERAL (
         SELECT h.*, lead(h.bucket) OVER w AS next_bucket, lead(h.first_time) OVER w AS next_first

@@ -70,69 +70,107 @@ class ReadingRollups {
       parameters[i] = h.parameter();
       starts[i++] = h.start().toString();
     }
-    int m = added.size();
-    String[] newPoints = new String[m];
-    String[] newParameters = new String[m];
-    String[] newHours = new String[m];
-    Integer[] counts = new Integer[m];
-    Double[] mins = new Double[m];
-    Double[] maxs = new Double[m];
-    Double[] sums = new Double[m];
-    Double[] lasts = new Double[m];
-    String[] firstTimes = new String[m];
-    String[] lastTimes = new String[m];
-    Double[] twSums = new Double[m];
-    int j = 0;
-    for (Map.Entry<Hour, List<ValidReading>> e : added.entrySet()) {
-      Hour h = e.getKey();
-      List<ValidReading> rs = e.getValue();
-      rs.sort(java.util.Comparator.comparing(ValidReading::time));
-      Instant end = h.start().plusSeconds(3600);
-      double min = Double.POSITIVE_INFINITY;
-      double max = Double.NEGATIVE_INFINITY;
-      double sum = 0;
-      double tw = 0;
-      for (int k = 0; k < rs.size(); k++) {
-        double v = rs.get(k).value();
-        min = Math.min(min, v);
-        max = Math.max(max, v);
-        sum += v;
-        Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
-        tw += v * seconds(rs.get(k).time(), until);
-      }
-      newPoints[j] = h.samplePointId();
-      newParameters[j] = h.parameter();
-      newHours[j] = h.start().toString();
-      counts[j] = rs.size();
-      mins[j] = min;
-      maxs[j] = max;
-      sums[j] = sum;
-      lasts[j] = rs.get(rs.size() - 1).value();
-      firstTimes[j] = rs.get(0).time().toString();
-      lastTimes[j] = rs.get(rs.size() - 1).time().toString();
-      twSums[j++] = tw;
-    }
+    Map<Hour, List<ValidReading>> addedDays = new java.util.HashMap<>();
+    added.forEach(
+        (h, rs) ->
+            addedDays
+                .computeIfAbsent(
+                    new Hour(
+                        h.samplePointId(), h.parameter(), h.start().truncatedTo(ChronoUnit.DAYS)),
+                    k -> new ArrayList<>())
+                .addAll(rs));
+    Sums hourSums = Sums.of(added, 3_600);
+    Sums daySums = Sums.of(addedDays, 86_400);
     jdbc.execute(
         (Connection c) -> {
           try (PreparedStatement ps = c.prepareStatement(UPDATE)) {
             ps.setArray(1, c.createArrayOf("text", points));
             ps.setArray(2, c.createArrayOf("text", parameters));
             ps.setArray(3, c.createArrayOf("text", starts));
-            ps.setArray(4, c.createArrayOf("text", newPoints));
-            ps.setArray(5, c.createArrayOf("text", newParameters));
-            ps.setArray(6, c.createArrayOf("text", newHours));
-            ps.setArray(7, c.createArrayOf("int4", counts));
-            ps.setArray(8, c.createArrayOf("float8", mins));
-            ps.setArray(9, c.createArrayOf("float8", maxs));
-            ps.setArray(10, c.createArrayOf("float8", sums));
-            ps.setArray(11, c.createArrayOf("float8", lasts));
-            ps.setArray(12, c.createArrayOf("text", firstTimes));
-            ps.setArray(13, c.createArrayOf("text", lastTimes));
-            ps.setArray(14, c.createArrayOf("float8", twSums));
+            hourSums.set(ps, 4, c);
+            daySums.set(ps, 15, c);
             ps.executeQuery().close();
           }
           return null;
         });
+  }
+
+  /** Per series and bucket (hour or day), the sums of the new readings, as arrays for the call. */
+  private record Sums(
+      String[] points,
+      String[] parameters,
+      String[] starts,
+      Integer[] counts,
+      Double[] mins,
+      Double[] maxs,
+      Double[] sums,
+      Double[] lasts,
+      String[] firstTimes,
+      String[] lastTimes,
+      Double[] twSums) {
+
+    static Sums of(Map<Hour, List<ValidReading>> buckets, long bucketSeconds) {
+      int m = buckets.size();
+      Sums s =
+          new Sums(
+              new String[m],
+              new String[m],
+              new String[m],
+              new Integer[m],
+              new Double[m],
+              new Double[m],
+              new Double[m],
+              new Double[m],
+              new String[m],
+              new String[m],
+              new Double[m]);
+      int j = 0;
+      for (Map.Entry<Hour, List<ValidReading>> e : buckets.entrySet()) {
+        Hour h = e.getKey();
+        List<ValidReading> rs = e.getValue();
+        rs.sort(java.util.Comparator.comparing(ValidReading::time));
+        Instant end = h.start().plusSeconds(bucketSeconds);
+        double min = Double.POSITIVE_INFINITY;
+        double max = Double.NEGATIVE_INFINITY;
+        double sum = 0;
+        double tw = 0;
+        for (int k = 0; k < rs.size(); k++) {
+          double v = rs.get(k).value();
+          min = Math.min(min, v);
+          max = Math.max(max, v);
+          sum += v;
+          Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
+          tw += v * seconds(rs.get(k).time(), until);
+        }
+        s.points[j] = h.samplePointId();
+        s.parameters[j] = h.parameter();
+        s.starts[j] = h.start().toString();
+        s.counts[j] = rs.size();
+        s.mins[j] = min;
+        s.maxs[j] = max;
+        s.sums[j] = sum;
+        s.lasts[j] = rs.get(rs.size() - 1).value();
+        s.firstTimes[j] = rs.get(0).time().toString();
+        s.lastTimes[j] = rs.get(rs.size() - 1).time().toString();
+        s.twSums[j++] = tw;
+      }
+      return s;
+    }
+
+    /** Sets the 11 arrays from parameter {@code first} on. */
+    void set(PreparedStatement ps, int first, Connection c) throws java.sql.SQLException {
+      ps.setArray(first, c.createArrayOf("text", points));
+      ps.setArray(first + 1, c.createArrayOf("text", parameters));
+      ps.setArray(first + 2, c.createArrayOf("text", starts));
+      ps.setArray(first + 3, c.createArrayOf("int4", counts));
+      ps.setArray(first + 4, c.createArrayOf("float8", mins));
+      ps.setArray(first + 5, c.createArrayOf("float8", maxs));
+      ps.setArray(first + 6, c.createArrayOf("float8", sums));
+      ps.setArray(first + 7, c.createArrayOf("float8", lasts));
+      ps.setArray(first + 8, c.createArrayOf("text", firstTimes));
+      ps.setArray(first + 9, c.createArrayOf("text", lastTimes));
+      ps.setArray(first + 10, c.createArrayOf("float8", twSums));
+    }
   }
 
   /** Seconds from {@code a} to {@code b}, to the microsecond as PostgreSQL stores times. */
@@ -143,7 +181,9 @@ class ReadingRollups {
   private static final String UPDATE =
       "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[], ?::text[],"
           + " ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],"
-          + " ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[])";
+          + " ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[],"
+          + " ?::text[], ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[],"
+          + " ?::float8[], ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[])";
 
   /** The hours touched by these readings (each once). */
   static Set<Hour> hoursOf(Collection<ValidReading> readings, Set<Hour> into) {
