@@ -1,10 +1,11 @@
 -- Rollups for long trends: per series (sample point × parameter), per UTC hour and per UTC day, the good and
 -- uncertain readings (quality < 2, as the bucketed series counts them) summed up. The ingest keeps them in step
--- in its own transaction (docs/ingest.md): the touched hours of the touched series are recomputed from
--- reading, then the touched days from the hours. Rows outlive the raw readings' retention.
+-- in its own transaction (docs/ingest.md): new readings that follow a bucket's last one are added to its row,
+-- other touched hours are recomputed from reading and other touched days from their hours
+-- (update_reading_rollups). Rows outlive the raw readings' retention.
 --
 -- count    readings (quality < 2); 0 when a correction left the bucket without any (aggregates NULL)
--- sum      their sum, so that buckets combine exactly into larger ones (mean = sum / count)
+-- sum      their sum, so that buckets combine into larger ones (mean = sum / count)
 -- last     the value of the latest one (at last_time)
 -- tw_sum   value × seconds held: each reading holds until the next one of the bucket, the last one until
 --          the bucket's end (sample and hold)
