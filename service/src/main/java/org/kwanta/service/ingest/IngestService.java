@@ -74,8 +74,10 @@ public class IngestService {
       PlatformTransactionManager transactions,
       IngestMetrics metrics,
       EvaluationRunner runner,
-      LabResults labResults) {
+      LabResults labResults,
+      ReadingRollups rollups) {
     this.labResults = labResults;
+    this.rollups = rollups;
     this.metrics = metrics;
     this.runner = runner;
     this.transaction = new TransactionTemplate(transactions);
@@ -90,6 +92,7 @@ public class IngestService {
   }
 
   private final LabResults labResults;
+  private final ReadingRollups rollups;
 
   /**
    * Validates and stores a batch of grab and lab results (all or nothing): mass-per-volume values
@@ -594,6 +597,10 @@ public class IngestService {
               "in-memory readings out of step with the database; the batch is retried");
         }
       }
+      // the rollups: new readings added to their hours, hours with corrections or readings of
+      // the plain path recomputed from reading (one call)
+      java.util.Set<ReadingRollups.Hour> touched = ReadingRollups.hours();
+      ReadingRollups.hoursOf(corrections, touched);
       for (Pending p : group) {
         if (p.uncovered.isEmpty()) {
           continue;
@@ -607,8 +614,10 @@ public class IngestService {
             widen(changed, r.samplePointId(), r.time(), r.time());
             p.changedPerPlant.merge(current.get(r.samplePointId()).plantId(), 1, Integer::sum);
           }
+          ReadingRollups.hoursOf(p.uncovered, touched);
         }
       }
+      rollups.update(touched, fresh);
 
       // recompute every evaluation the changes can affect: [first change, last change + window]
       for (Map.Entry<String, Instant[]> e : changed.entrySet()) {

@@ -3,6 +3,7 @@ package org.kwanta.service.ingest;
 import java.sql.Timestamp;
 import java.time.Duration;
 import java.time.Instant;
+import java.util.ArrayList;
 import java.util.List;
 import org.kwanta.model.Parameter;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -16,10 +17,15 @@ import org.springframework.stereotype.Repository;
 public class StoredSeries {
 
   private final JdbcTemplate jdbc;
+  private final ReadingRollups rollups;
 
-  StoredSeries(JdbcTemplate jdbc) {
+  StoredSeries(JdbcTemplate jdbc, ReadingRollups rollups) {
     this.jdbc = jdbc;
+    this.rollups = rollups;
   }
+
+  private static final long HOUR_SECONDS = 3600;
+  private static final long DAY_SECONDS = 86400;
 
   /**
    * Where a series is stored: a parameter's readings, or a column of the evaluations.
@@ -114,7 +120,162 @@ public class StoredSeries {
         limit);
   }
 
+  /**
+   * The series in buckets [from + k·bucket, from + (k + 1)·bucket) ∩ [from, to): min, mean, max,
+   * last and count of the good and uncertain readings (or of the evaluation column's values). For
+   * readings in buckets of whole hours, every UTC hour that lies whole inside one bucket comes from
+   * the hourly rollups (whole days from the daily ones when the buckets are whole days starting at
+   * midnight UTC), and only the rest from {@code reading}: the partial hour before {@code to} and,
+   * when {@code from} is not on the hour, the hour around each bucket boundary. The answer is the
+   * same as from raw data up to the rounding of the means' sums.
+   */
   public List<Bucket> bucketed(
+      String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
+    if (usesRollups(p, from, to, bucket)) {
+      return fromRollups(samplePointId, p.code(), from, to, bucket);
+    }
+    return bucketedRaw(samplePointId, p, from, to, bucket);
+  }
+
+  /** Whether {@link #bucketed} reads the rollups for this request. */
+  static boolean usesRollups(Source p, Instant from, Instant to, Duration bucket) {
+    return p.measured()
+        && bucket.getNano() == 0
+        && bucket.getSeconds() % HOUR_SECONDS == 0
+        && bucket.getSeconds() > 0
+        && from.getNano() == 0
+        && hourCeil(from).isBefore(hourFloor(to));
+  }
+
+  private List<Bucket> fromRollups(
+      String samplePointId, String parameter, Instant from, Instant to, Duration bucket) {
+    long size = bucket.getSeconds();
+    long origin = from.getEpochSecond();
+    Instant hoursTo = hourFloor(to);
+    Instant hoursFrom = hourCeil(from);
+    java.util.TreeMap<Instant, ReadingRollups.Part> parts = new java.util.TreeMap<>();
+    if (size % DAY_SECONDS == 0 && origin % DAY_SECONDS == 0) {
+      Instant days =
+          Instant.ofEpochSecond(Math.floorDiv(to.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS);
+      if (days.isAfter(from)) {
+        rollups.addTo(
+            parts, "reading_rollup_day", samplePointId, parameter, from, from, days, size);
+        hoursFrom = days;
+      }
+    }
+    rollups.addTo(
+        parts, "reading_rollup_hour", samplePointId, parameter, from, hoursFrom, hoursTo, size);
+    // the raw rest: the hour around each bucket boundary off the hour, and the partial last hour
+    List<Instant[]> rest = new ArrayList<>();
+    if (origin % HOUR_SECONDS != 0) {
+      for (long b = origin; b < to.getEpochSecond(); b += size) {
+        Instant at = Instant.ofEpochSecond(b);
+        rest.add(new Instant[] {max(from, hourFloor(at)), min(hourCeil(at), to)});
+      }
+    }
+    if (hoursTo.isBefore(to)) {
+      rest.add(new Instant[] {max(hoursTo, hoursFrom), to});
+    }
+    addRaw(parts, samplePointId, parameter, from, to, bucket, merged(rest));
+    return ReadingRollups.toBuckets(parts);
+  }
+
+  /** Adds the readings of the given disjoint intervals within [from, to) to the buckets. */
+  private void addRaw(
+      java.util.Map<Instant, ReadingRollups.Part> parts,
+      String samplePointId,
+      String parameter,
+      Instant from,
+      Instant to,
+      Duration bucket,
+      List<Instant[]> intervals) {
+    if (intervals.isEmpty()) {
+      return;
+    }
+    String[] los = new String[intervals.size()];
+    String[] his = new String[intervals.size()];
+    for (int i = 0; i < intervals.size(); i++) {
+      los[i] = intervals.get(i)[0].toString();
+      his[i] = intervals.get(i)[1].toString();
+    }
+    jdbc.query(
+        (java.sql.Connection c) -> {
+          java.sql.PreparedStatement ps = c.prepareStatement(RAW_INTERVALS);
+          ps.setDouble(1, (double) bucket.toSeconds());
+          ps.setTimestamp(2, Timestamp.from(from));
+          ps.setArray(3, c.createArrayOf("text", los));
+          ps.setArray(4, c.createArrayOf("text", his));
+          ps.setString(5, samplePointId);
+          ps.setString(6, parameter);
+          ps.setTimestamp(7, Timestamp.from(from));
+          ps.setTimestamp(8, Timestamp.from(to));
+          return ps;
+        },
+        rs -> {
+          parts
+              .computeIfAbsent(rs.getTimestamp(1).toInstant(), b -> new ReadingRollups.Part())
+              .add(
+                  rs.getDouble(2),
+                  rs.getDouble(3),
+                  rs.getDouble(4),
+                  rs.getLong(5),
+                  rs.getDouble(6),
+                  rs.getTimestamp(7).toInstant());
+        });
+  }
+
+  /**
+   * The good and uncertain readings of one series in some intervals, per bucket: one index range
+   * scan per interval (the lateral subquery), the partitions bounded by [from, to).
+   */
+  static final String RAW_INTERVALS =
+      """
+      SELECT date_bin(make_interval(secs => ?), r.time, ?) AS b, min(r.value), max(r.value),
+             sum(r.value), count(*), (array_agg(r.value ORDER BY r.time DESC))[1], max(r.time)
+      FROM unnest(?::text[]::timestamptz[], ?::text[]::timestamptz[]) AS w(lo, hi)
+      CROSS JOIN LATERAL (
+          SELECT time, value FROM reading
+          WHERE sample_point_id = ? AND parameter = ? AND time >= ? AND time < ?
+            AND time >= w.lo AND time < w.hi AND quality < 2) r
+      GROUP BY b""";
+
+  /** The intervals sorted and merged where they touch or overlap; empty ones dropped. */
+  private static List<Instant[]> merged(List<Instant[]> intervals) {
+    intervals.sort(java.util.Comparator.comparing(i -> i[0]));
+    List<Instant[]> out = new ArrayList<>();
+    for (Instant[] i : intervals) {
+      if (!i[0].isBefore(i[1])) {
+        continue;
+      }
+      Instant[] last = out.isEmpty() ? null : out.get(out.size() - 1);
+      if (last != null && !i[0].isAfter(last[1])) {
+        last[1] = max(last[1], i[1]);
+      } else {
+        out.add(new Instant[] {i[0], i[1]});
+      }
+    }
+    return out;
+  }
+
+  private static Instant hourFloor(Instant t) {
+    return Instant.ofEpochSecond(Math.floorDiv(t.getEpochSecond(), HOUR_SECONDS) * HOUR_SECONDS);
+  }
+
+  private static Instant hourCeil(Instant t) {
+    Instant f = hourFloor(t);
+    return f.equals(t) ? f : f.plusSeconds(HOUR_SECONDS);
+  }
+
+  private static Instant min(Instant a, Instant b) {
+    return a.isBefore(b) ? a : b;
+  }
+
+  private static Instant max(Instant a, Instant b) {
+    return a.isAfter(b) ? a : b;
+  }
+
+  /** {@link #bucketed} from the stored rows alone, never the rollups. */
+  public List<Bucket> bucketedRaw(
       String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
     String filter =
         p.measured()

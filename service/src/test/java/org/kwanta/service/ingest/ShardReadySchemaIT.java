@@ -23,7 +23,14 @@ class ShardReadySchemaIT {
 
   /** The tables that grow with the readings and would be distributed by sample point. */
   static final Set<String> DISTRIBUTED =
-      Set.of("reading", "reading_revision", "evaluation", "reading_head", "lab_result");
+      Set.of(
+          "reading",
+          "reading_revision",
+          "evaluation",
+          "reading_head",
+          "lab_result",
+          "reading_rollup_hour",
+          "reading_rollup_day");
 
   @Test
   void everyKeyOfAReadingSideTableHoldsTheSamplePoint() throws Exception {

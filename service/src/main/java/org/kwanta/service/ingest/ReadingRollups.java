@@ -1,0 +1,281 @@
+package org.kwanta.service.ingest;
+
+import java.sql.Connection;
+import java.sql.PreparedStatement;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeMap;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.stereotype.Repository;
+
+/**
+ * The hourly and daily rollups of the readings ({@code reading_rollup_hour}, {@code
+ * reading_rollup_day}, migration V60): kept in step by the ingest ({@link #update}, in its
+ * transaction) and read by {@link StoredSeries} for buckets of whole hours.
+ */
+@Repository
+class ReadingRollups {
+
+  /** One series' hour touched by a write: the key of a {@code reading_rollup_hour} row. */
+  record Hour(String samplePointId, String parameter, Instant start) {
+
+    static Hour of(ValidReading r) {
+      return new Hour(
+          r.samplePointId(), r.parameter().code(), r.time().truncatedTo(ChronoUnit.HOURS));
+    }
+  }
+
+  private final JdbcTemplate jdbc;
+
+  ReadingRollups(JdbcTemplate jdbc) {
+    this.jdbc = jdbc;
+  }
+
+  /**
+   * Keeps the rollups in step with the caller's transaction, in one call after its readings are
+   * written: the new readings' hours take them in without reading the hour again when they all lie
+   * after its last reading, every other touched hour is recomputed from {@code reading}, then the
+   * touched days from their hours ({@code update_reading_rollups}, V60).
+   *
+   * @param recompute hours changed otherwise (corrections, readings of the plain path)
+   * @param fresh readings new in this transaction (any quality; bad ones leave the rollups alone),
+   *     summed up per hour here
+   */
+  void update(Collection<Hour> recompute, Collection<ValidReading> fresh) {
+    // the new readings summed up per hour here, so that only one row per hour goes to the database
+    Map<Hour, List<ValidReading>> added = new java.util.HashMap<>();
+    for (ValidReading r : fresh) {
+      Hour h = Hour.of(r);
+      if (r.quality() != ValidReading.Quality.BAD && !recompute.contains(h)) {
+        added.computeIfAbsent(h, k -> new ArrayList<>()).add(r);
+      }
+    }
+    if (recompute.isEmpty() && added.isEmpty()) {
+      return;
+    }
+    int n = recompute.size();
+    String[] points = new String[n];
+    String[] parameters = new String[n];
+    String[] starts = new String[n];
+    int i = 0;
+    for (Hour h : recompute) {
+      points[i] = h.samplePointId();
+      parameters[i] = h.parameter();
+      starts[i++] = h.start().toString();
+    }
+    Map<Hour, List<ValidReading>> addedDays = new java.util.HashMap<>();
+    added.forEach(
+        (h, rs) ->
+            addedDays
+                .computeIfAbsent(
+                    new Hour(
+                        h.samplePointId(), h.parameter(), h.start().truncatedTo(ChronoUnit.DAYS)),
+                    k -> new ArrayList<>())
+                .addAll(rs));
+    Sums hourSums = Sums.of(added, 3_600);
+    Sums daySums = Sums.of(addedDays, 86_400);
+    jdbc.execute(
+        (Connection c) -> {
+          try (PreparedStatement ps = c.prepareStatement(UPDATE)) {
+            ps.setArray(1, c.createArrayOf("text", points));
+            ps.setArray(2, c.createArrayOf("text", parameters));
+            ps.setArray(3, c.createArrayOf("text", starts));
+            hourSums.set(ps, 4, c);
+            daySums.set(ps, 15, c);
+            ps.executeQuery().close();
+          }
+          return null;
+        });
+  }
+
+  /** Per series and bucket (hour or day), the sums of the new readings, as arrays for the call. */
+  private record Sums(
+      String[] points,
+      String[] parameters,
+      String[] starts,
+      Integer[] counts,
+      Double[] mins,
+      Double[] maxs,
+      Double[] sums,
+      Double[] lasts,
+      String[] firstTimes,
+      String[] lastTimes,
+      Double[] twSums) {
+
+    static Sums of(Map<Hour, List<ValidReading>> buckets, long bucketSeconds) {
+      int m = buckets.size();
+      Sums s =
+          new Sums(
+              new String[m],
+              new String[m],
+              new String[m],
+              new Integer[m],
+              new Double[m],
+              new Double[m],
+              new Double[m],
+              new Double[m],
+              new String[m],
+              new String[m],
+              new Double[m]);
+      int j = 0;
+      for (Map.Entry<Hour, List<ValidReading>> e : buckets.entrySet()) {
+        Hour h = e.getKey();
+        List<ValidReading> rs = e.getValue();
+        rs.sort(java.util.Comparator.comparing(ValidReading::time));
+        Instant end = h.start().plusSeconds(bucketSeconds);
+        double min = Double.POSITIVE_INFINITY;
+        double max = Double.NEGATIVE_INFINITY;
+        double sum = 0;
+        double tw = 0;
+        for (int k = 0; k < rs.size(); k++) {
+          double v = rs.get(k).value();
+          min = Math.min(min, v);
+          max = Math.max(max, v);
+          sum += v;
+          Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
+          tw += v * seconds(rs.get(k).time(), until);
+        }
+        s.points[j] = h.samplePointId();
+        s.parameters[j] = h.parameter();
+        s.starts[j] = h.start().toString();
+        s.counts[j] = rs.size();
+        s.mins[j] = min;
+        s.maxs[j] = max;
+        s.sums[j] = sum;
+        s.lasts[j] = rs.get(rs.size() - 1).value();
+        s.firstTimes[j] = rs.get(0).time().toString();
+        s.lastTimes[j] = rs.get(rs.size() - 1).time().toString();
+        s.twSums[j++] = tw;
+      }
+      return s;
+    }
+
+    /** Sets the 11 arrays from parameter {@code first} on. */
+    void set(PreparedStatement ps, int first, Connection c) throws java.sql.SQLException {
+      ps.setArray(first, c.createArrayOf("text", points));
+      ps.setArray(first + 1, c.createArrayOf("text", parameters));
+      ps.setArray(first + 2, c.createArrayOf("text", starts));
+      ps.setArray(first + 3, c.createArrayOf("int4", counts));
+      ps.setArray(first + 4, c.createArrayOf("float8", mins));
+      ps.setArray(first + 5, c.createArrayOf("float8", maxs));
+      ps.setArray(first + 6, c.createArrayOf("float8", sums));
+      ps.setArray(first + 7, c.createArrayOf("float8", lasts));
+      ps.setArray(first + 8, c.createArrayOf("text", firstTimes));
+      ps.setArray(first + 9, c.createArrayOf("text", lastTimes));
+      ps.setArray(first + 10, c.createArrayOf("float8", twSums));
+    }
+  }
+
+  /** Seconds from {@code a} to {@code b}, to the microsecond as PostgreSQL stores times. */
+  private static double seconds(Instant a, Instant b) {
+    return java.time.Duration.between(a, b).toNanos() / 1000 / 1e6;
+  }
+
+  private static final String UPDATE =
+      "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[], ?::text[],"
+          + " ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],"
+          + " ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[],"
+          + " ?::text[], ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[],"
+          + " ?::float8[], ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[])";
+
+  /** The hours touched by these readings (each once). */
+  static Set<Hour> hoursOf(Collection<ValidReading> readings, Set<Hour> into) {
+    for (ValidReading r : readings) {
+      into.add(Hour.of(r));
+    }
+    return into;
+  }
+
+  static Set<Hour> hours() {
+    return new HashSet<>();
+  }
+
+  /** Partial sums of one requested bucket, combinable in time order. */
+  static final class Part {
+    double min = Double.POSITIVE_INFINITY;
+    double max = Double.NEGATIVE_INFINITY;
+    double sum;
+    long count;
+    double last;
+    Instant lastTime;
+
+    void add(double mn, double mx, double s, long n, double l, Instant lt) {
+      if (n == 0) {
+        return;
+      }
+      min = Math.min(min, mn);
+      max = Math.max(max, mx);
+      sum += s;
+      count += n;
+      if (lastTime == null || !lt.isBefore(lastTime)) {
+        last = l;
+        lastTime = lt;
+      }
+    }
+  }
+
+  /**
+   * Adds the rollup rows of {@code table} with bucket in [from, to) to the requested buckets of
+   * {@code size} seconds starting at {@code origin}, each row only when it lies whole inside one
+   * requested bucket (the caller reads the others' readings raw).
+   */
+  void addTo(
+      Map<Instant, Part> buckets,
+      String table,
+      String samplePointId,
+      String parameter,
+      Instant origin,
+      Instant from,
+      Instant to,
+      long size) {
+    if (!from.isBefore(to)) {
+      return;
+    }
+    long rowSeconds = "reading_rollup_day".equals(table) ? 86_400 : 3_600;
+    long o = origin.getEpochSecond();
+    jdbc.query(
+        "SELECT bucket, min, max, sum, count, last, last_time FROM "
+            + table
+            + " WHERE sample_point_id = ? AND parameter = ? AND bucket >= ? AND bucket < ?"
+            + " AND count > 0",
+        rs -> {
+          long start = rs.getTimestamp(1).toInstant().getEpochSecond();
+          long k = Math.floorDiv(start - o, size);
+          if (k != Math.floorDiv(start + rowSeconds - 1 - o, size)) {
+            return;
+          }
+          buckets
+              .computeIfAbsent(Instant.ofEpochSecond(o + k * size), b -> new Part())
+              .add(
+                  rs.getDouble(2),
+                  rs.getDouble(3),
+                  rs.getDouble(4),
+                  rs.getLong(5),
+                  rs.getDouble(6),
+                  rs.getTimestamp(7).toInstant());
+        },
+        samplePointId,
+        parameter,
+        Timestamp.from(from),
+        Timestamp.from(to));
+  }
+
+  /** The combined buckets in time order. */
+  static List<StoredSeries.Bucket> toBuckets(TreeMap<Instant, Part> buckets) {
+    List<StoredSeries.Bucket> out = new ArrayList<>(buckets.size());
+    buckets.forEach(
+        (start, p) -> {
+          if (p.count > 0) {
+            out.add(new StoredSeries.Bucket(start, p.min, p.sum / p.count, p.max, p.last, p.count));
+          }
+        });
+    return out;
+  }
+}
