@@ -177,7 +177,10 @@ function zoom(chart) {
 function reset() {
   const span = Math.min(MAX_SPAN, Math.max(MIN_SPAN, Number($('trend-range').value)));
   const to = Math.ceil(Date.now() / 1000);
-  ctx.window = [to - span, to];
+  // Buckets of an hour or more are read from the hourly and daily rollups when the window starts
+  // on the hour (docs/scaling.md): long windows start at the hour before.
+  const from = span >= POINTS * 3600 ? Math.floor((to - span) / 3600) * 3600 : to - span;
+  ctx.window = [from, to];
   draw();
 }
 
