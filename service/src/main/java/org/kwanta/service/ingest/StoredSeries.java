@@ -5,6 +5,7 @@ import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
 import org.kwanta.model.Parameter;
+import org.kwanta.service.system.ReadSource;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 
@@ -17,8 +18,8 @@ public class StoredSeries {
 
   private final JdbcTemplate jdbc;
 
-  StoredSeries(JdbcTemplate jdbc) {
-    this.jdbc = jdbc;
+  StoredSeries(ReadSource reads) {
+    this.jdbc = reads.jdbc();
   }
 
   /**
