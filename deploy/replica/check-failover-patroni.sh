@@ -55,7 +55,7 @@ PE=$(free_port); PP=$(free_port); P1=$(free_port); P2=$(free_port); R1=$(free_po
 now() { date +%s.%N; }
 echo "work directory $WORK; etcd :$PE, PostgreSQL :$P1 :$P2, Patroni REST :$R1 :$R2, service :$P3"
 
-"${AS[@]}" etcd --name kw --data-dir "$WORK/etcd" --enable-v2=true \
+etcd --name kw --data-dir "$WORK/etcd" --enable-v2=true \
   --listen-client-urls "http://127.0.0.1:$PE" --advertise-client-urls "http://127.0.0.1:$PE" \
   --listen-peer-urls "http://127.0.0.1:$PP" --initial-advertise-peer-urls "http://127.0.0.1:$PP" \
   --initial-cluster "kw=http://127.0.0.1:$PP" > "$WORK/etcd.log" 2>&1 &
@@ -111,11 +111,15 @@ YAML
 node_config pg1 "$P1" "$R1" > "$WORK/pg1.yml"
 node_config pg2 "$P2" "$R2" > "$WORK/pg2.yml"
 chmod 644 "$WORK"/pg?.yml
-"${AS[@]}" patroni "$WORK/pg1.yml" > "$WORK/patroni-pg1.log" 2>&1 &
-PAT1_PID=$!
+start_node() { # the pid file holds Patroni's own pid (exec), not runuser's, so kill reaches Patroni
+  "${AS[@]}" sh -c 'echo $$ > "$1.pid"; exec patroni "$1.yml"' sh "$WORK/$1" > "$WORK/patroni-$1.log" 2>&1 &
+  for _ in $(seq 50); do [ -s "$WORK/$1.pid" ] && break; sleep 0.1; done
+}
+start_node pg1
+PAT1_PID=$(cat "$WORK/pg1.pid")
 for _ in $(seq 150); do curl -sf "http://127.0.0.1:$R1/primary" >/dev/null && break; sleep 0.2; done
-"${AS[@]}" patroni "$WORK/pg2.yml" > "$WORK/patroni-pg2.log" 2>&1 &
-PAT2_PID=$!
+start_node pg2
+PAT2_PID=$(cat "$WORK/pg2.pid")
 for _ in $(seq 300); do curl -sf "http://127.0.0.1:$R2/sync" >/dev/null && break; sleep 0.2; done
 curl -sf "http://127.0.0.1:$R2/sync" >/dev/null || { echo "pg2 did not become the synchronous standby"; tail -20 "$WORK/patroni-pg2.log"; exit 1; }
 echo "patroni: pg1 leader, pg2 synchronous standby"
