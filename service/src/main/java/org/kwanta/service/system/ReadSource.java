@@ -99,8 +99,8 @@ public class ReadSource implements DisposableBean {
     HikariConfig config = new HikariConfig();
     config.setPoolName("kwanta-replica");
     config.setJdbcUrl(p.url());
-    config.setUsername(p.username().isEmpty() ? primary.determineUsername() : p.username());
-    config.setPassword(p.password().isEmpty() ? primary.determinePassword() : p.password());
+    config.setUsername(p.username().isEmpty() ? primary.getUsername() : p.username());
+    config.setPassword(p.password().isEmpty() ? primary.getPassword() : p.password());
     config.setReadOnly(true);
     config.setConnectionTimeout(Math.max(250, p.connectionTimeout().toMillis()));
     config.setValidationTimeout(Math.max(250, p.connectionTimeout().toMillis()));
