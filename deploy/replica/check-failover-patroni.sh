@@ -43,15 +43,8 @@ cleanup() {
 }
 trap cleanup EXIT INT TERM
 
-declare -A USED
-free_port() {
-  local p
-  while :; do
-    p=$(python3 -c 'import socket; s=socket.socket(); s.bind(("127.0.0.1",0)); print(s.getsockname()[1])')
-    [ -z "${USED[$p]:-}" ] && USED[$p]=1 && echo "$p" && return
-  done
-}
-PE=$(free_port); PP=$(free_port); P1=$(free_port); P2=$(free_port); R1=$(free_port); R2=$(free_port); P3=$(free_port)
+. "$ROOT/deploy/replica/failover_common.sh"
+for v in PE PP P1 P2 R1 R2 P3; do take_port "$v"; done
 now() { date +%s.%N; }
 echo "work directory $WORK; etcd :$PE, PostgreSQL :$P1 :$P2, Patroni REST :$R1 :$R2, service :$P3"
 
@@ -125,34 +118,8 @@ curl -sf "http://127.0.0.1:$R2/sync" >/dev/null || { echo "pg2 did not become th
 echo "patroni: pg1 leader, pg2 synchronous standby"
 PGPASSWORD=postgres-loopback psql -h 127.0.0.1 -p "$P1" -U postgres -qAtc "CREATE DATABASE kwanta" postgres
 
-KEY="kw_failover_$(python3 -c 'import secrets; print(secrets.token_hex(32))')"
-URL="jdbc:postgresql://127.0.0.1:$P1,127.0.0.1:$P2/kwanta?targetServerType=primary"
-READ_URL="jdbc:postgresql://127.0.0.1:$P2,127.0.0.1:$P1/kwanta?targetServerType=preferSecondary"
-KWANTA_ADMIN_KEY=$KEY java -Xmx512m -jar "$JAR" \
-  --server.address=127.0.0.1 --server.port="$P3" \
-  --spring.datasource.url="$URL" --spring.datasource.username=postgres \
-  --spring.datasource.password=postgres-loopback \
-  --kwanta.replica.url="$READ_URL" --kwanta.demo.load-plant=false \
-  > "$WORK/service.log" 2>&1 &
-SERVICE_PID=$!
-BASE="http://127.0.0.1:$P3"
-for _ in $(seq 480); do
-  curl -sf "$BASE/actuator/health/readiness" >/dev/null 2>&1 && break
-  kill -0 "$SERVICE_PID" 2>/dev/null || { tail -30 "$WORK/service.log"; exit 1; }
-  sleep 0.5
-done
-curl -sf "$BASE/actuator/health/readiness" >/dev/null || { tail -30 "$WORK/service.log"; exit 1; }
-
-points=""
-for i in 1 2 3 4; do
-  points="$points${points:+,}{\"id\":\"FO$i\",\"unit\":\"U1\",\"name\":\"failover point $i\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}"
-done
-curl -sf -X POST "$BASE/api/v1/plants" -H "Authorization: Bearer $KEY" -H 'Content-Type: application/json' \
-  -d "{\"id\":\"failover-test\",\"name\":\"Failover test plant (invented)\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],\"samplePoints\":[$points]}" >/dev/null
-
-python3 "$ROOT/deploy/replica/failover_ingest.py" --base "$BASE" --key "$KEY" \
-  --acked "$WORK/acked.csv" --events "$WORK/events.log" --stop-file "$WORK/stop" > "$WORK/ingest.json" &
-INGEST_PID=$!
+start_service "$P1" "$P2" "$P3" postgres-loopback
+start_ingest
 sleep "$BEFORE"
 
 T_STOP=$(now)
@@ -164,20 +131,4 @@ T_PROMOTED=$(now)
 curl -sf "http://127.0.0.1:$R2/primary" >/dev/null || { echo "pg2 was not promoted"; tail -20 "$WORK/patroni-pg2.log"; exit 1; }
 echo "Patroni promoted pg2 $(python3 -c "print(f'{$T_PROMOTED-$T_STOP:.2f}')") s after the kill"
 sleep "$AFTER"
-touch "$WORK/stop"
-wait "$INGEST_PID"; INGEST_PID=""
-
-PGPASSWORD=postgres-loopback psql -h 127.0.0.1 -p "$P2" -U postgres -qAt kwanta > "$WORK/check.txt" <<SQL
-CREATE TEMP TABLE acked (sample_point_id text, parameter text, time timestamptz);
-\copy acked FROM '$WORK/acked.csv' WITH (FORMAT csv)
-SELECT (SELECT count(*) FROM acked) || ' ' ||
-       (SELECT count(*) FROM (SELECT DISTINCT * FROM acked) d) || ' ' ||
-       (SELECT count(*) FROM acked a WHERE EXISTS (SELECT 1 FROM reading r
-          WHERE r.sample_point_id = a.sample_point_id AND r.parameter = a.parameter AND r.time = a.time)) || ' ' ||
-       (SELECT count(*) FROM (SELECT 1 FROM reading WHERE sample_point_id LIKE 'FO%'
-          GROUP BY sample_point_id, parameter, time HAVING count(*) > 1) dup) || ' ' ||
-       (SELECT count(*) FROM reading WHERE sample_point_id LIKE 'FO%');
-SQL
-read -r ACKED DISTINCT FOUND DOUBLED STORED < "$WORK/check.txt"
-python3 "$ROOT/deploy/replica/failover_figures.py" "$WORK/events.log" "$T_STOP" "$T_PROMOTED" \
-  "$WORK/ingest.json" "$ACKED" "$DISTINCT" "$FOUND" "$DOUBLED" "$STORED"
+stop_ingest_and_check "$P2" "$T_STOP" "$T_PROMOTED" postgres-loopback

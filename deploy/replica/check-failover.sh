@@ -46,10 +46,8 @@ cleanup() {
 }
 trap cleanup EXIT INT TERM
 
-free_port() { python3 -c 'import socket; s=socket.socket(); s.bind(("127.0.0.1",0)); print(s.getsockname()[1])'; }
-P1=$(free_port); P2=$(free_port); P3=$(free_port)
-while [ "$P2" = "$P1" ]; do P2=$(free_port); done
-while [ "$P3" = "$P1" ] || [ "$P3" = "$P2" ]; do P3=$(free_port); done
+. "$ROOT/deploy/replica/failover_common.sh"
+take_port P1; take_port P2; take_port P3
 now() { date +%s.%N; }
 
 echo "work directory $WORK; primary :$P1, replica :$P2, service :$P3"
@@ -81,33 +79,8 @@ for _ in $(seq 50); do
 done
 echo "replication: ${state:-none}"
 
-KEY="kw_failover_$(python3 -c 'import secrets; print(secrets.token_hex(32))')"
-URL="jdbc:postgresql://127.0.0.1:$P1,127.0.0.1:$P2/kwanta?targetServerType=primary"
-READ_URL="jdbc:postgresql://127.0.0.1:$P2,127.0.0.1:$P1/kwanta?targetServerType=preferSecondary"
-KWANTA_ADMIN_KEY=$KEY java -Xmx512m -jar "$JAR" \
-  --server.address=127.0.0.1 --server.port="$P3" \
-  --spring.datasource.url="$URL" --spring.datasource.username=postgres \
-  --kwanta.replica.url="$READ_URL" --kwanta.demo.load-plant=false \
-  > "$WORK/service.log" 2>&1 &
-SERVICE_PID=$!
-BASE="http://127.0.0.1:$P3"
-for _ in $(seq 240); do
-  curl -sf "$BASE/actuator/health/readiness" >/dev/null 2>&1 && break
-  kill -0 "$SERVICE_PID" 2>/dev/null || { tail -30 "$WORK/service.log"; exit 1; }
-  sleep 0.5
-done
-curl -sf "$BASE/actuator/health/readiness" >/dev/null || { tail -30 "$WORK/service.log"; exit 1; }
-
-points=""
-for i in 1 2 3 4; do
-  points="$points${points:+,}{\"id\":\"FO$i\",\"unit\":\"U1\",\"name\":\"failover point $i\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}"
-done
-curl -sf -X POST "$BASE/api/v1/plants" -H "Authorization: Bearer $KEY" -H 'Content-Type: application/json' \
-  -d "{\"id\":\"failover-test\",\"name\":\"Failover test plant (invented)\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],\"samplePoints\":[$points]}" >/dev/null
-
-python3 "$ROOT/deploy/replica/failover_ingest.py" --base "$BASE" --key "$KEY" \
-  --acked "$WORK/acked.csv" --events "$WORK/events.log" --stop-file "$WORK/stop" > "$WORK/ingest.json" &
-INGEST_PID=$!
+start_service "$P1" "$P2" "$P3"
+start_ingest
 sleep "$BEFORE"
 
 T_STOP=$(now)
@@ -119,20 +92,4 @@ pg pg_ctl -D "$WORK/replica" -w promote >/dev/null
 T_PROMOTED=$(now)
 echo "replica promoted: pg_ctl promote took $(python3 -c "print(f'{$T_PROMOTED-$T_PROMOTE:.2f}')") s"
 sleep "$AFTER"
-touch "$WORK/stop"
-wait "$INGEST_PID"; INGEST_PID=""
-
-"${AS[@]}" psql -h 127.0.0.1 -p "$P2" -U postgres -qAt kwanta > "$WORK/check.txt" <<SQL
-CREATE TEMP TABLE acked (sample_point_id text, parameter text, time timestamptz);
-\copy acked FROM '$WORK/acked.csv' WITH (FORMAT csv)
-SELECT (SELECT count(*) FROM acked) || ' ' ||
-       (SELECT count(*) FROM (SELECT DISTINCT * FROM acked) d) || ' ' ||
-       (SELECT count(*) FROM acked a WHERE EXISTS (SELECT 1 FROM reading r
-          WHERE r.sample_point_id = a.sample_point_id AND r.parameter = a.parameter AND r.time = a.time)) || ' ' ||
-       (SELECT count(*) FROM (SELECT 1 FROM reading WHERE sample_point_id LIKE 'FO%'
-          GROUP BY sample_point_id, parameter, time HAVING count(*) > 1) dup) || ' ' ||
-       (SELECT count(*) FROM reading WHERE sample_point_id LIKE 'FO%');
-SQL
-read -r ACKED DISTINCT FOUND DOUBLED STORED < "$WORK/check.txt"
-python3 "$ROOT/deploy/replica/failover_figures.py" "$WORK/events.log" "$T_STOP" "$T_PROMOTED" \
-  "$WORK/ingest.json" "$ACKED" "$DISTINCT" "$FOUND" "$DOUBLED" "$STORED"
+stop_ingest_and_check "$P2" "$T_STOP" "$T_PROMOTED"
