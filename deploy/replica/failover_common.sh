@@ -5,8 +5,8 @@
 # start_service P_PRIMARY P_REPLICA P_HTTP [PASSWORD]: sets KEY, BASE and SERVICE_PID; waits for readiness.
 start_service() {
   KEY="kw_failover_$(python3 -c 'import secrets; print(secrets.token_hex(32))')"
-  local url="jdbc:postgresql://127.0.0.1:$1,127.0.0.1:$2/kwanta?targetServerType=primary"
-  local read_url="jdbc:postgresql://127.0.0.1:$2,127.0.0.1:$1/kwanta?targetServerType=preferSecondary"
+  local url="jdbc:postgresql://127.0.0.1:$1,127.0.0.1:$2/kwanta?targetServerType=primary&hostRecheckSeconds=2"
+  local read_url="jdbc:postgresql://127.0.0.1:$2,127.0.0.1:$1/kwanta?targetServerType=preferSecondary&hostRecheckSeconds=2"
   KWANTA_ADMIN_KEY=$KEY java -Xmx512m -jar "$JAR" \
     --server.address=127.0.0.1 --server.port="$3" \
     --spring.datasource.url="$url" --spring.datasource.username=postgres \
