@@ -66,6 +66,7 @@ public class ReadSource implements DisposableBean {
   private final DataSource primary;
   private final HikariDataSource replica;
   private final JdbcTemplate replicaJdbc;
+  private final JdbcTemplate lagJdbc;
   private final ReplicaProperties properties;
   private final ReplicaLag lagMeasure;
   private final Clock clock;
@@ -86,6 +87,7 @@ public class ReadSource implements DisposableBean {
     this.clock = clock;
     this.replica = properties.enabled() ? pool(properties, primaryProperties) : null;
     this.replicaJdbc = replica == null ? null : new JdbcTemplate(new FallbackDataSource());
+    this.lagJdbc = replica == null ? null : new JdbcTemplate(replica);
     this.jdbc = new RoutingJdbcTemplate();
     if (replica != null) {
       LOG.info(
@@ -146,7 +148,7 @@ public class ReadSource implements DisposableBean {
     Decision before = decision;
     Decision now;
     try {
-      Duration lag = lagMeasure.measure(new JdbcTemplate(replica));
+      Duration lag = lagMeasure.measure(lagJdbc);
       now =
           lag.compareTo(properties.maxLag()) <= 0
               ? new Decision(true, Optional.of(lag), Reason.REPLICA)
