@@ -9,6 +9,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.kwanta.service.system.ReadSource;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.jdbc.core.RowCallbackHandler;
 import org.springframework.stereotype.Repository;
@@ -25,8 +26,8 @@ public class Evaluations {
   private final JdbcTemplate jdbc;
   private final JsonMapper json;
 
-  Evaluations(JdbcTemplate jdbc, JsonMapper json) {
-    this.jdbc = jdbc;
+  Evaluations(ReadSource reads, JsonMapper json) {
+    this.jdbc = reads.jdbc();
     this.json = json;
   }
 

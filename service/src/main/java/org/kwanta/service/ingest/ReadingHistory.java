@@ -7,6 +7,7 @@ import java.time.Instant;
 import java.util.List;
 import org.kwanta.model.Parameter;
 import org.kwanta.service.ingest.EvaluationRunner.StoredReading;
+import org.kwanta.service.system.ReadSource;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.jdbc.core.RowCallbackHandler;
 import org.springframework.stereotype.Repository;
@@ -24,8 +25,8 @@ public class ReadingHistory {
 
   private final JdbcTemplate jdbc;
 
-  ReadingHistory(JdbcTemplate jdbc) {
-    this.jdbc = jdbc;
+  ReadingHistory(ReadSource reads) {
+    this.jdbc = reads.jdbc();
   }
 
   /** A point's latest reading of each parameter, ordered by parameter code. */

@@ -224,9 +224,11 @@ class ReadingRollups {
   /**
    * Adds the rollup rows of {@code table} with bucket in [from, to) to the requested buckets of
    * {@code size} seconds starting at {@code origin}, each row only when it lies whole inside one
-   * requested bucket (the caller reads the others' readings raw).
+   * requested bucket (the caller reads the others' readings raw). {@code reader} is the caller's
+   * template, so rollups and raw rows come from the same server (the replica inside a read scope).
    */
   void addTo(
+      JdbcTemplate reader,
       Map<Instant, Part> buckets,
       String table,
       String samplePointId,
@@ -240,7 +242,7 @@ class ReadingRollups {
     }
     long rowSeconds = "reading_rollup_day".equals(table) ? 86_400 : 3_600;
     long o = origin.getEpochSecond();
-    jdbc.query(
+    reader.query(
         "SELECT bucket, min, max, sum, count, last, last_time FROM "
             + table
             + " WHERE sample_point_id = ? AND parameter = ? AND bucket >= ? AND bucket < ?"

@@ -6,6 +6,7 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import org.kwanta.model.Parameter;
+import org.kwanta.service.system.ReadSource;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 
@@ -19,8 +20,8 @@ public class StoredSeries {
   private final JdbcTemplate jdbc;
   private final ReadingRollups rollups;
 
-  StoredSeries(JdbcTemplate jdbc, ReadingRollups rollups) {
-    this.jdbc = jdbc;
+  StoredSeries(ReadSource reads, ReadingRollups rollups) {
+    this.jdbc = reads.jdbc();
     this.rollups = rollups;
   }
 
@@ -159,12 +160,20 @@ public class StoredSeries {
           Instant.ofEpochSecond(Math.floorDiv(to.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS);
       if (days.isAfter(from)) {
         rollups.addTo(
-            parts, "reading_rollup_day", samplePointId, parameter, from, from, days, size);
+            jdbc, parts, "reading_rollup_day", samplePointId, parameter, from, from, days, size);
         hoursFrom = days;
       }
     }
     rollups.addTo(
-        parts, "reading_rollup_hour", samplePointId, parameter, from, hoursFrom, hoursTo, size);
+        jdbc,
+        parts,
+        "reading_rollup_hour",
+        samplePointId,
+        parameter,
+        from,
+        hoursFrom,
+        hoursTo,
+        size);
     // the raw rest: the hour around each bucket boundary off the hour, and the partial last hour
     List<Instant[]> rest = new ArrayList<>();
     if (origin % HOUR_SECONDS != 0) {

@@ -17,6 +17,7 @@ import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.limits.Limits;
 import org.kwanta.service.system.MetricNames;
+import org.kwanta.service.system.ReadSource;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.scheduling.annotation.Scheduled;
 import org.springframework.stereotype.Component;
@@ -39,6 +40,7 @@ class SampleMetrics {
   private final ReadingHistory readings;
   private final Evaluations evaluations;
   private final Limits limits;
+  private final ReadSource reads;
   private final ExcursionFinder finder;
   private final Clock clock;
   private final Duration window;
@@ -60,12 +62,14 @@ class SampleMetrics {
       Evaluations evaluations,
       Limits limits,
       ExcursionFinder finder,
+      ReadSource reads,
       Clock clock,
       @Value("${kwanta.metrics.level-window:P1D}") Duration window) {
     this.readings = readings;
     this.evaluations = evaluations;
     this.limits = limits;
     this.finder = finder;
+    this.reads = reads;
     this.clock = clock;
     this.window = window;
     this.value = gauge(registry, MetricNames.SAMPLE_VALUE, null);
@@ -97,6 +101,10 @@ class SampleMetrics {
       fixedDelayString = "${kwanta.metrics.refresh:PT30S}",
       initialDelayString = "${kwanta.metrics.initial-delay:PT5S}")
   void refresh() {
+    reads.onReplica(this::refreshGauges);
+  }
+
+  private void refreshGauges() {
     Instant now = clock.instant();
     Instant since = now.minus(window);
     Map<String, Latest> latest = new HashMap<>();
