@@ -23,10 +23,10 @@ start_service() {
   curl -sf "$BASE/actuator/health/readiness" >/dev/null || { tail -30 "$WORK/service.log"; return 1; }
   local points="" i
   for i in 1 2 3 4; do
-    points="$points${points:+,}{\"id\":\"FO$i\",\"unit\":\"U1\",\"name\":\"failover point $i\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}"
+    points="$points${points:+,}{\"id\":\"FO$i\",\"block\":\"U1\",\"name\":\"failover point $i\",\"cycleLocation\":\"FEEDWATER\",\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}"
   done
   curl -sf -X POST "$BASE/api/v1/plants" -H "Authorization: Bearer $KEY" -H 'Content-Type: application/json' \
-    -d "{\"id\":\"failover-test\",\"name\":\"Failover test plant (invented)\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],\"samplePoints\":[$points]}" >/dev/null
+    -d "{\"id\":\"failover-test\",\"name\":\"Failover test plant (invented)\",\"blocks\":[{\"id\":\"U1\",\"name\":\"u\"}],\"samplePoints\":[$points]}" >/dev/null
 }
 
 # start_ingest: sets INGEST_PID.

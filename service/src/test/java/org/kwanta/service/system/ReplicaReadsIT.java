@@ -125,11 +125,11 @@ class ReplicaReadsIT {
     String plant =
         "{\"id\":\"r-"
             + tag.toLowerCase(Locale.ROOT)
-            + "\",\"name\":\"Replica test plant (invented)\",\"units\":[{\"id\":\"U1\",\"name\":\"u\"}],"
+            + "\",\"name\":\"Replica test plant (invented)\",\"blocks\":[{\"id\":\"U1\",\"name\":\"u\"}],"
             + "\"samplePoints\":[{\"id\":\""
             + point
-            + "\",\"unit\":\"U1\",\"name\":\"p\",\"cycleLocation\":\"FEEDWATER\","
-            + "\"treatmentRegime\":\"AVT_O\",\"operatingTemperatureCel\":150}]}";
+            + "\",\"block\":\"U1\",\"name\":\"p\",\"cycleLocation\":\"FEEDWATER\","
+            + "\"treatmentRegime\":\"AVT(O)\",\"operatingTemperatureCel\":150}]}";
     assertThat(http.post("/api/v1/plants", "application/json", plant).statusCode()).isEqualTo(201);
     Instant start = Instant.now().truncatedTo(ChronoUnit.MINUTES).minus(30, ChronoUnit.MINUTES);
     List<String> readings = new ArrayList<>();
