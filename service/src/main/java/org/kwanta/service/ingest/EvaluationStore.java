@@ -88,7 +88,7 @@ public class EvaluationStore {
       inDoubt[i] = r.view().instrumentInDoubt();
       codes[i] = String.join(",", col.codes());
       pointsAt[i] = String.join(",", col.pointsAt());
-      details[i] = json.writeValueAsString(r.view());
+      details[i] = json.writeValueAsString(r.view().forStorage());
     }
     jdbc.execute(
         (Connection c) -> {
@@ -135,7 +135,7 @@ public class EvaluationStore {
           .bool(r.view().instrumentInDoubt())
           .textArray(col.codes())
           .textArray(col.pointsAt())
-          .text(json.writeValueAsBytes(r.view()));
+          .text(json.writeValueAsBytes(r.view().forStorage()));
     }
     return rows;
   }

@@ -121,6 +121,50 @@ public record EvaluationView(
     }
   }
 
+  /**
+   * The form written to the database: the pH at temperature's uncertainty compact ({@link
+   * PhUncertaintyView#compact()}); {@link #fromStorage()} restores what is not stored.
+   */
+  public EvaluationView forStorage() {
+    return phAtTemperature == null || phAtTemperature.uncertainty() == null
+        ? this
+        : withUncertainty(phAtTemperature.uncertainty().compact());
+  }
+
+  /** A view read from the database, with the compact uncertainty filled in again. */
+  public EvaluationView fromStorage() {
+    return phAtTemperature == null || phAtTemperature.uncertainty() == null
+        ? this
+        : withUncertainty(phAtTemperature.uncertainty().filled());
+  }
+
+  private EvaluationView withUncertainty(PhUncertaintyView u) {
+    PhAtTemperature t = phAtTemperature;
+    return new EvaluationView(
+        configVersion,
+        compensated,
+        composition,
+        calculatedPh,
+        new PhAtTemperature(
+            t.temperatureCel(),
+            t.pressureMPa(),
+            t.ph(),
+            t.low(),
+            t.high(),
+            t.bandFrom(),
+            t.neutralPh(),
+            t.formulation(),
+            t.basis(),
+            t.notes(),
+            t.operatingConditionSource(),
+            t.measuredDrumPressureMPa(),
+            t.measuredAt(),
+            u),
+        findings,
+        instrumentInDoubt,
+        notes);
+  }
+
   /** The formulation stored before the itemised uncertainty, as it was written (for tests). */
   static final String FORMULATION_BEFORE_ITEMISED =
       "Speciation (Davies activity, default constant set) with IAPWS-IF97 density and IAPWS R11-07 pKw;"

@@ -146,7 +146,8 @@ public class Evaluations {
 
   private Stored stored(ResultSet rs, int i) throws SQLException {
     return new Stored(
-        rs.getTimestamp(1).toInstant(), json.readValue(rs.getString(2), EvaluationView.class));
+        rs.getTimestamp(1).toInstant(),
+        json.readValue(rs.getString(2), EvaluationView.class).fromStorage());
   }
 
   private static double value(ResultSet rs, int column) throws SQLException {

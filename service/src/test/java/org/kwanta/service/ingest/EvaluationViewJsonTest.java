@@ -119,4 +119,59 @@ class EvaluationViewJsonTest {
         .endsWith(
             "band from the instrument tolerances only (stored before the itemised uncertainty)");
   }
+
+  /**
+   * The uncertainty is stored compact (no labels, rule, texts or per-part low/high; half-widths to
+   * 1e-6 pH) and read back with labels, rule and low/high filled in; the set names and the
+   * contributions' sources and half-widths are kept.
+   */
+  @Test
+  void theUncertaintyIsStoredCompactAndReadBackWithItsLabels() {
+    org.kwanta.service.chemistry.PhUncertaintyView.PartView a =
+        new org.kwanta.service.chemistry.PhUncertaintyView.PartView(
+            "(a) instrument tolerances",
+            7.0 - 0.0123456789,
+            7.0 + 0.0123456789,
+            0.0123456789,
+            0.0123456789,
+            null,
+            null,
+            "each conductivity moved by its tolerance",
+            java.util.List.of(
+                new org.kwanta.service.chemistry.PhUncertaintyView.ContributionView(
+                    "specific_conductivity", 0.0123456789, "±2.0 % of the 25 °C value")));
+    org.kwanta.service.chemistry.PhUncertaintyView.PartView b =
+        new org.kwanta.service.chemistry.PhUncertaintyView.PartView(
+            "(b) spread over the published constant sets",
+            6.99,
+            7.02,
+            0.01,
+            0.02,
+            "ammonium-2",
+            "ammonium-3",
+            "each published set",
+            java.util.List.of());
+    org.kwanta.service.chemistry.PhUncertaintyView full =
+        new org.kwanta.service.chemistry.PhUncertaintyView(
+            7.0, 6.98, 7.03, "root-sum-square", a, b, b, a);
+    JsonMapper json = JsonMapper.builder().build();
+    String stored = json.writeValueAsString(full.compact());
+    assertThat(stored)
+        .doesNotContain("label", "basis", "rule", "detail", "instrument tolerances")
+        .contains("\"belowPh\":0.012346", "\"lowConstantSet\":\"ammonium-2\"")
+        .contains("\"source\":\"specific_conductivity\"");
+    assertThat(stored.length()).isLessThan(json.writeValueAsString(full).length() * 6 / 10);
+    org.kwanta.service.chemistry.PhUncertaintyView back =
+        json.readValue(stored, org.kwanta.service.chemistry.PhUncertaintyView.class).filled();
+    assertThat(back.rule()).isEqualTo(org.kwanta.model.aqueous.PhUncertainty.RULE);
+    assertThat(back.instrumentTolerances().label())
+        .isEqualTo(org.kwanta.model.aqueous.PhUncertainty.Kind.INSTRUMENT_TOLERANCES.label());
+    assertThat(back.constantSetSpread().low())
+        .isCloseTo(6.99, org.assertj.core.data.Offset.offset(1e-12));
+    assertThat(back.constantSetSpread().highConstantSet()).isEqualTo("ammonium-3");
+    assertThat(back.instrumentTolerances().basis())
+        .isEqualTo(org.kwanta.service.chemistry.PhUncertaintyView.STORED_BASIS);
+    assertThat(back.instrumentTolerances().contributions().get(0).halfWidthPh())
+        .isEqualTo(0.012346);
+  }
 }
