@@ -14,6 +14,6 @@ public record LimitKey(TreatmentRegime regime, CycleLocation location, Parameter
 
   @Override
   public String toString() {
-    return regime + "/" + location + "/" + parameter.code();
+    return regime.code() + "/" + location + "/" + parameter.code();
   }
 }

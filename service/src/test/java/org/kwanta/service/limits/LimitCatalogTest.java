@@ -423,7 +423,7 @@ class LimitCatalogTest {
   void rejectsAUnitThatIsNotTheCanonicalUnit() {
     assertThatThrownBy(() -> read(ENTRY.formatted("mg/kg", "s")))
         .isInstanceOf(IllegalArgumentException.class)
-        .hasMessageContaining("AVT_O/FEEDWATER/sodium")
+        .hasMessageContaining("AVT(O)/FEEDWATER/sodium")
         .hasMessageContaining("ug/kg");
   }
 
