@@ -83,6 +83,20 @@ public class ExcursionFinder {
     public String code() {
       return code;
     }
+
+    /** The basis a request names ({@code null}: as reported); 400 for anything else. */
+    public static Basis parse(String value) {
+      if (value == null) {
+        return AS_REPORTED;
+      }
+      for (Basis b : values()) {
+        if (b.code().equalsIgnoreCase(value)) {
+          return b;
+        }
+      }
+      throw org.kwanta.service.system.ProblemException.of(
+          "basis must be as-reported or recomputed");
+    }
   }
 
   /** Which excursions to list. Null fields do not filter. */

@@ -228,15 +228,7 @@ class ExcursionsController {
   }
 
   private static ExcursionFinder.Basis basis(String value) {
-    if (value == null) {
-      return ExcursionFinder.Basis.AS_REPORTED;
-    }
-    for (ExcursionFinder.Basis b : ExcursionFinder.Basis.values()) {
-      if (b.code().equalsIgnoreCase(value)) {
-        return b;
-      }
-    }
-    throw ProblemException.of("basis must be as-reported or recomputed");
+    return ExcursionFinder.Basis.parse(value);
   }
 
   private static Level level(String name) {

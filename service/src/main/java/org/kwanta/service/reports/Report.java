@@ -24,7 +24,8 @@ public record Report(
     List<Instrument> instruments,
     List<CheckStatus> calibration,
     GrabVsOnline grabVsOnline,
-    Index index) {
+    Index index,
+    String basis) {
 
   /** A block's hours by operating state in the period. */
   public record BlockTime(

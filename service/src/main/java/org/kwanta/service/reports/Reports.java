@@ -81,9 +81,25 @@ class Reports {
     this.clock = clock;
   }
 
-  /** The report of a plant over [from, to); a period reaching past now is reported up to now. */
+  /** The report of a plant over [from, to), as reported; see the overload. */
   Report build(
       String plant, String plantName, String period, String label, Instant from, Instant to) {
+    return build(plant, plantName, period, label, from, to, ExcursionFinder.Basis.AS_REPORTED);
+  }
+
+  /**
+   * The report of a plant over [from, to); a period reaching past now is reported up to now. The
+   * hours per level judge each value by the limits in force at its time ({@code AS_REPORTED}) or by
+   * today's ({@code RECOMPUTED}), as the excursions endpoint does.
+   */
+  Report build(
+      String plant,
+      String plantName,
+      String period,
+      String label,
+      Instant from,
+      Instant to,
+      ExcursionFinder.Basis basis) {
     Instant now = clock.instant();
     Instant asOf = to.isAfter(now) ? now : to;
     List<Report.BlockTime> blocks = new ArrayList<>();
@@ -103,7 +119,7 @@ class Reports {
         continue;
       }
       for (Map.Entry<Parameter, Limits.History> limitsOf :
-          finder.histories(point, ExcursionFinder.Basis.AS_REPORTED).entrySet()) {
+          finder.histories(point, basis).entrySet()) {
         Parameter p = limitsOf.getKey();
         List<Classification> classified =
             finder.classify(point, limitsOf.getValue(), p, from.minus(LOOKBACK), asOf);
@@ -200,7 +216,8 @@ class Reports {
             index.instruments(),
             "I = 100·(0.8·S + 0.2·A), S = 1 − mean channel penalty, penalty = (0.25·h_AL1 +"
                 + " 0.5·h_AL2 + h_AL3 + h_SHUTDOWN) / in-service hours, A = mean core-instrument"
-                + " availability (docs/report.md)"));
+                + " availability (docs/report.md)"),
+        basis.code());
   }
 
   private List<String> blocks(String plant) {

@@ -6,6 +6,7 @@ import java.time.Instant;
 import java.time.Year;
 import java.time.YearMonth;
 import java.time.ZoneOffset;
+import org.kwanta.service.limits.ExcursionFinder;
 import org.kwanta.service.system.ProblemException;
 import org.kwanta.service.system.ResponseFormats;
 import org.kwanta.service.system.TimeParameters;
@@ -42,16 +43,20 @@ class ReportsController {
   @GetMapping(
       value = "/monthly",
       produces = {MediaType.APPLICATION_JSON_VALUE, "text/csv"})
-  @Operation(summary = "The report of a calendar month (UTC), e.g. ?month=2026-04")
+  @Operation(
+      summary =
+          "The report of a calendar month (UTC), e.g. ?month=2026-04; basis=as-reported (default)"
+              + " or recomputed with today's limits")
   ResponseEntity<?> monthly(
       @PathVariable String plant,
       @RequestParam String month,
+      @RequestParam(required = false) String basis,
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
     YearMonth m = TimeParameters.month("month", month);
     Instant from = m.atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
     Instant to = m.plusMonths(1).atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
-    return answer(plant, "month", m.toString(), from, to, format, accept);
+    return answer(plant, "month", m.toString(), from, to, basis, format, accept);
   }
 
   @GetMapping(
@@ -61,12 +66,13 @@ class ReportsController {
   ResponseEntity<?> annual(
       @PathVariable String plant,
       @RequestParam String year,
+      @RequestParam(required = false) String basis,
       @RequestParam(required = false) String format,
       @RequestHeader(value = "Accept", required = false) String accept) {
     Year y = TimeParameters.year("year", year);
     Instant from = y.atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
     Instant to = y.plusYears(1).atDay(1).atStartOfDay().toInstant(ZoneOffset.UTC);
-    return answer(plant, "year", y.toString(), from, to, format, accept);
+    return answer(plant, "year", y.toString(), from, to, basis, format, accept);
   }
 
   private ResponseEntity<?> answer(
@@ -75,6 +81,7 @@ class ReportsController {
       String label,
       Instant from,
       Instant to,
+      String basis,
       String format,
       String accept) {
     String name =
@@ -83,7 +90,8 @@ class ReportsController {
             .query(String.class)
             .optional()
             .orElseThrow(() -> ProblemException.notFound("plant", plant));
-    Report report = reports.build(plant, name, period, label, from, to);
+    Report report =
+        reports.build(plant, name, period, label, from, to, ExcursionFinder.Basis.parse(basis));
     if (ResponseFormats.csvRequested(format, accept)) {
       return ResponseEntity.ok()
           .contentType(MediaType.parseMediaType("text/csv;charset=UTF-8"))

@@ -179,9 +179,22 @@ class ChemistryRecordIT {
     assertThat(withoutVersion(recomputedBefore))
         .isEqualTo(withoutVersion(JSON.readTree(reported.replace("as-reported", "recomputed"))));
 
+    JsonNode reportBefore = reportHours(null);
+
     HttpResponse<String> put = putLimits(http, "");
     assertThat(put.statusCode()).as(put.body()).isEqualTo(200);
     assertThat(JSON.readTree(put.body()).get("version").asInt()).isEqualTo(1);
+
+    // The month's report: as reported, the action-level hours are those of before the change; as
+    // recomputed, today's limits (AL1 only) judge the leak.
+    JsonNode reportAfter = reportHours("as-reported");
+    for (String level : List.of("AL1", "AL2", "AL3")) {
+      assertThat(reportAfter.get(level).asDouble()).isEqualTo(reportBefore.get(level).asDouble());
+    }
+    assertThat(reportBefore.get("AL3").asDouble()).isPositive();
+    JsonNode reportRecomputed = reportHours("recomputed");
+    assertThat(reportRecomputed.get("AL3").asDouble()).isZero();
+    assertThat(reportRecomputed.get("AL1").asDouble()).isPositive();
 
     // As reported: identical, excursion and hours.
     HttpResponse<String> after = excursions(point, null);
@@ -204,6 +217,28 @@ class ChemistryRecordIT {
     assertThat(JSON.readTree(hoursReported).toString()).contains("AL3");
     // ... and nowhere else: the other point's recomputed record has not moved.
     assertThat(excursions(other, "recomputed").body()).isEqualTo(otherReported);
+  }
+
+  /** The month's report (the month of the leak): the hours by level of the point's channel. */
+  private JsonNode reportHours(String basis) {
+    String month = day.toString().substring(0, 7);
+    HttpResponse<String> r =
+        http.get(
+            "/api/v1/plants/record-"
+                + tag
+                + "/reports/monthly?month="
+                + month
+                + (basis == null ? "" : "&basis=" + basis));
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    JsonNode report = JSON.readTree(r.body());
+    assertThat(report.get("basis").asString()).isEqualTo(basis == null ? "as-reported" : basis);
+    for (JsonNode c : report.get("channels")) {
+      if (c.get("samplePoint").asString().equals(point)
+          && c.get("parameter").asString().equals("cation_conductivity")) {
+        return c.get("hoursByLevel");
+      }
+    }
+    throw new AssertionError("no channel of " + point + " in " + r.body());
   }
 
   @Test
