@@ -22,7 +22,8 @@ import org.kwanta.model.ValidityRange;
  * evaluates them and marks them extrapolated. The quotients are used at the solution's ionic
  * strength with the engine's activity model applied (Davies), i.e. as if they were I = 0 constants
  * — an assumption of Kwanta's, not the paper's. Check values: the computed table of the reference
- * notes (a transcription check, not a published check table).
+ * notes (a check of the coefficients as printed in Mesmer, Baes & Sweeton 1972, Table VI, not a
+ * published check table).
  */
 final class MesmerPolyborates {
 

@@ -6,8 +6,9 @@ import static org.assertj.core.api.Assertions.within;
 import org.junit.jupiter.api.Test;
 
 /**
- * The association constants against the tables of the project's reference notes (see the CSV
- * headers: transcription checks of the printed coefficients, not independent published values).
+ * The association constants against values computed from the published coefficients (Mesmer, Baes &
+ * Sweeton 1972, Inorg. Chem. 11, 537, Table VI; llnl.dat; Thermoddem V1.10; see the CSV headers):
+ * checks of the printed coefficients, not independent published values.
  */
 class AssociationConstantsTest {
 
