@@ -101,13 +101,16 @@ export async function show(plant, caller, points, status, onLab) {
   nowUnlessEdited('lab-time');
   if (plant === ctx.plant && ctx.blocks) return;
   ctx.plant = plant;
+  let blocks = [];
   try {
-    ctx.blocks = E.plantBlocks(await api.get(E.paths.plant(plant))).blocks;
+    blocks = E.plantBlocks(await api.get(E.paths.plant(plant))).blocks;
   } catch (e) {
-    ctx.blocks = [];
     status('Could not load the plant\'s blocks (' + e.message + ').');
   }
-  $('block-id').replaceChildren(...ctx.blocks.map((b) => el('option', { value: b.id }, b.id + ' – ' + b.name)));
+  // signed out or another plant chosen while the answer was on its way: leave the form to that
+  if (ctx.plant !== plant) return;
+  ctx.blocks = blocks;
+  $('block-id').replaceChildren(...blocks.map((b) => el('option', { value: b.id }, b.id + ' – ' + b.name)));
   nowUnlessEdited('block-since');
   await blockHistory();
 }
