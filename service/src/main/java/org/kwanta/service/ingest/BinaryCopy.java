@@ -121,6 +121,21 @@ public final class BinaryCopy {
     return this;
   }
 
+  /** A bytea value (null for SQL NULL). */
+  public BinaryCopy bytea(byte[] bytes) {
+    try {
+      if (bytes == null) {
+        out.writeInt(-1);
+      } else {
+        out.writeInt(bytes.length);
+        out.write(bytes);
+      }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return this;
+  }
+
   /** A timestamptz, to the microsecond (finer parts are cut off). */
   public BinaryCopy timestamp(Instant t) {
     try {

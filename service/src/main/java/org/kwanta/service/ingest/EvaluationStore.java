@@ -5,9 +5,11 @@ import java.sql.PreparedStatement;
 import java.util.List;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
-import tools.jackson.databind.json.JsonMapper;
 
-/** Writes evaluations (one statement per batch, or binary COPY for new ones). */
+/**
+ * Writes evaluations (one statement per batch, or binary COPY for new ones), their details in the
+ * compact form of {@link EvaluationPack}.
+ */
 @Repository
 public class EvaluationStore {
 
@@ -16,15 +18,15 @@ public class EvaluationStore {
       INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
           cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
           ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes,
-          points_at, details, evaluated_at)
+          points_at, detail_pack, evaluated_at)
       SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
              t.pht_high, t.neutral, t.instrument_in_doubt, string_to_array(t.codes, ','), string_to_array(t.points_at, ','),
-             t.details, now()
+             t.detail_pack, now()
       FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
-                  ?::text[], ?::text[])
+                  ?::text[], ?::bytea[])
         AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
-             instrument_in_doubt, codes, points_at, details)
+             instrument_in_doubt, codes, points_at, detail_pack)
       ON CONFLICT (sample_point_id, time) DO UPDATE SET
           config_version = EXCLUDED.config_version,
           specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
@@ -38,16 +40,15 @@ public class EvaluationStore {
           instrument_in_doubt = EXCLUDED.instrument_in_doubt,
           finding_codes = EXCLUDED.finding_codes,
           points_at = EXCLUDED.points_at,
-          details = EXCLUDED.details,
+          details = NULL,
+          detail_pack = EXCLUDED.detail_pack,
           evaluated_at = now()
-        WHERE e.details IS DISTINCT FROM EXCLUDED.details OR e.config_version <> EXCLUDED.config_version""";
+        WHERE e.detail_pack IS DISTINCT FROM EXCLUDED.detail_pack OR e.config_version <> EXCLUDED.config_version""";
 
   private final JdbcTemplate jdbc;
-  private final JsonMapper json;
 
-  EvaluationStore(JdbcTemplate jdbc, JsonMapper json) {
+  EvaluationStore(JdbcTemplate jdbc) {
     this.jdbc = jdbc;
-    this.json = json;
   }
 
   /** Upserts evaluations; unchanged ones are left alone. */
@@ -70,7 +71,7 @@ public class EvaluationStore {
     Boolean[] inDoubt = new Boolean[n];
     String[] codes = new String[n];
     String[] pointsAt = new String[n];
-    String[] details = new String[n];
+    byte[][] details = new byte[n][];
     for (int i = 0; i < n; i++) {
       EvaluationRunner.Result r = results.get(i);
       Columns col = Columns.of(r.view());
@@ -88,7 +89,7 @@ public class EvaluationStore {
       inDoubt[i] = r.view().instrumentInDoubt();
       codes[i] = String.join(",", col.codes());
       pointsAt[i] = String.join(",", col.pointsAt());
-      details[i] = json.writeValueAsString(r.view().forStorage());
+      details[i] = EvaluationPack.encode(r.view().forStorage());
     }
     jdbc.execute(
         (Connection c) -> {
@@ -107,7 +108,7 @@ public class EvaluationStore {
             ps.setArray(12, c.createArrayOf("bool", inDoubt));
             ps.setArray(13, c.createArrayOf("text", codes));
             ps.setArray(14, c.createArrayOf("text", pointsAt));
-            ps.setArray(15, c.createArrayOf("text", details));
+            ps.setArray(15, c.createArrayOf("bytea", details));
             return ps.executeUpdate();
           }
         });
@@ -117,7 +118,7 @@ public class EvaluationStore {
    * Encodes evaluations for {@link #copyNew} (thread-safe: the ingest encodes points in parallel).
    */
   public BinaryCopy encode(List<EvaluationRunner.Result> results) {
-    BinaryCopy rows = BinaryCopy.fragment(results.size(), 1800);
+    BinaryCopy rows = BinaryCopy.fragment(results.size(), 480);
     for (EvaluationRunner.Result r : results) {
       Columns col = Columns.of(r.view());
       rows.row(15)
@@ -135,7 +136,7 @@ public class EvaluationStore {
           .bool(r.view().instrumentInDoubt())
           .textArray(col.codes())
           .textArray(col.pointsAt())
-          .text(json.writeValueAsBytes(r.view().forStorage()));
+          .bytea(EvaluationPack.encode(r.view().forStorage()));
     }
     return rows;
   }
@@ -157,7 +158,7 @@ public class EvaluationStore {
       """
       evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
-          ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes, points_at, details)""";
+          ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes, points_at, detail_pack)""";
 
   /** An evaluation's indexed columns; NaN where there is no value (SQL NULL). */
   private record Columns(

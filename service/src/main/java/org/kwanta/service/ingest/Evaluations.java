@@ -38,7 +38,7 @@ public class Evaluations {
   public List<Stored> range(String samplePointId, Instant from, Instant to, int limit) {
     return jdbc.query(
         """
-        SELECT time, details::text FROM evaluation
+        SELECT time, details, detail_pack FROM evaluation
         WHERE sample_point_id = ? AND time >= ? AND time < ? ORDER BY time LIMIT ?""",
         this::stored,
         samplePointId,
@@ -61,7 +61,7 @@ public class Evaluations {
    */
   public static final String LATEST_EVALUATION =
       """
-      SELECT time, details::text FROM evaluation WHERE sample_point_id = ? AND time >= ?
+      SELECT time, details, detail_pack FROM evaluation WHERE sample_point_id = ? AND time >= ?
       ORDER BY time DESC LIMIT 1""";
 
   /** pH at temperature and the neutral pH there, NaN when absent. */
@@ -146,8 +146,14 @@ public class Evaluations {
 
   private Stored stored(ResultSet rs, int i) throws SQLException {
     return new Stored(
-        rs.getTimestamp(1).toInstant(),
-        json.readValue(rs.getString(2), EvaluationView.class).fromStorage());
+        rs.getTimestamp(1).toInstant(), stored(rs.getString(2), rs.getBytes(3)).fromStorage());
+  }
+
+  /** A stored view: the compact form, or the JSON of rows written before it. */
+  private EvaluationView stored(String details, byte[] pack) {
+    return pack != null
+        ? EvaluationPack.decode(pack)
+        : json.readValue(details, EvaluationView.class);
   }
 
   private static double value(ResultSet rs, int column) throws SQLException {

@@ -368,7 +368,7 @@ class ReadingsIngestIT {
 
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
-        "SELECT time::text || ' ' || details::text FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+        "SELECT time::text || ' ' || coalesce(details, encode(detail_pack, 'hex')) FROM evaluation WHERE sample_point_id = ? ORDER BY time",
         String.class,
         point);
   }
