@@ -492,7 +492,9 @@ final class ChargeBalanceSolver {
         iP = 1 / (dP + kP * n);
       }
       double h = n * (p + aCl * iCl + aS * iS + aP * iP) - naT;
-      double dh = p + aCl * iCl * iCl + aS * d * iS * iS + aP * dP * iP * iP;
+      // the phosphate term's derivative aP·D_P·iP² written as aP·iP·(1 − K'ₚ·n·iP), finite when
+      // m(HPO₄²⁻) underflows (D_P infinite, iP 0)
+      double dh = p + aCl * iCl * iCl + aS * d * iS * iS + aP * iP * (1 - kP * n * iP);
       double step = h / dh;
       n -= step;
       if (Math.abs(step) <= FREE_MOLALITY_STEP * n) {
@@ -530,7 +532,7 @@ final class ChargeBalanceSolver {
       phosphates[1] = pT * w1 / s;
       phosphates[2] = pT * w2 / s;
       phosphates[3] = pT * w3 / s;
-      naHPO4Pair = pT * (w2p - w2) / s;
+      naHPO4Pair = pT * w2 * kP * n / s;
     } else {
       naHPO4Pair = 0;
     }

@@ -176,7 +176,9 @@ class AssociationSpeciationTest {
   /**
    * Chosen, the pair keeps both mass balances and the charge balance at every temperature (the
    * solver's own identities, no outside values): Σ phosphate species + NaHPO₄⁻ = P_T and Σ sodium
-   * species = Na_T to 1e-12 relative, Σ z·m = 0 to the solver's tolerance.
+   * species = Na_T to 1e-12 relative, Σ z·m = 0 to the solver's tolerance, and the reported
+   * activities satisfy the pair's and K2's mass-action laws (a check of the solver's algebra
+   * against the definitions).
    */
   @ParameterizedTest(name = "{0} °C")
   @ValueSource(doubles = {25, 100, 200, 300, 330})
@@ -198,6 +200,27 @@ class AssociationSpeciationTest {
     }
     assertThat(Math.abs(charge) / scale).isLessThan(1e-9);
     assertThat(r.molality(Species.SODIUM_HYDROGEN_PHOSPHATE_PAIR)).isPositive();
+    // the mass-action laws at the solution, from the reported molalities and γ alone:
+    // K_A = a(NaHPO₄⁻)/(a(Na⁺)·a(HPO₄²⁻)) and K2 = a(H⁺)·a(HPO₄²⁻)/a(H₂PO₄⁻)
+    double aH = Math.pow(10, -r.ph());
+    double pairK =
+        activity(r, Species.SODIUM_HYDROGEN_PHOSPHATE_PAIR)
+            / (activity(r, Species.SODIUM_ION) * activity(r, Species.HYDROGEN_PHOSPHATE));
+    assertThat(Math.log10(pairK))
+        .isCloseTo(Association.SODIUM_HYDROGEN_PHOSPHATE.log10K(celsius + 273.15), within(1e-9));
+    double k2 =
+        aH * activity(r, Species.HYDROGEN_PHOSPHATE) / activity(r, Species.DIHYDROGEN_PHOSPHATE);
+    assertThat(Math.log10(k2))
+        .isCloseTo(r.constant(Equilibrium.PHOSPHORIC_SECOND).orElseThrow().log10K(), within(1e-9));
+  }
+
+  private static double activity(SpeciationResult r, Species s) {
+    for (SpeciesAmount a : r.species()) {
+      if (a.species() == s) {
+        return a.molalityMolPerKg() * a.activityCoefficient();
+      }
+    }
+    throw new AssertionError(s + " not in the result");
   }
 
   /**
