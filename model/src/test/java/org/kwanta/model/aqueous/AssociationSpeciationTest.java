@@ -241,4 +241,39 @@ class AssociationSpeciationTest {
         .extracting(AssociationUsed::association)
         .contains(Association.SODIUM_HYDROGEN_PHOSPHATE);
   }
+
+  /**
+   * Seeded sweep with NaHPO₄⁻ chosen: 400 random waters of sodium and phosphate (1e-9 to 1e-2
+   * mol/kg) with or without sulfate, chloride, ammonia and boron, at 0.5-350 °C: every one solves,
+   * with a relative charge residual below 1e-12 (the solver's own criterion, as in
+   * SpeciationPropertiesTest) and the phosphate total conserved.
+   */
+  @Test
+  void chosenSodiumPhosphatePairSolvesEverywhere() {
+    java.util.Random random = new java.util.Random(20261203);
+    for (int i = 0; i < 400; i++) {
+      double celsius = 0.5 + 349.5 * random.nextDouble();
+      Composition.Builder b =
+          Composition.builder()
+              .molal(Component.SODIUM, Math.pow(10, -9 + 7 * random.nextDouble()))
+              .molal(Component.PHOSPHATE, Math.pow(10, -9 + 7 * random.nextDouble()));
+      for (Component extra :
+          new Component[] {
+            Component.SULFATE, Component.CHLORIDE, Component.AMMONIA, Component.BORON
+          }) {
+        if (random.nextBoolean()) {
+          b.molal(extra, Math.pow(10, -9 + 7 * random.nextDouble()));
+        }
+      }
+      Composition c = b.build();
+      SpeciationResult r = Speciation.solve(c, saturated(celsius), ALL);
+      assertThat(r.chargeBalanceRelativeResidual()).as("%s at %s °C", c, celsius).isLessThan(1e-12);
+      double p = 0;
+      for (SpeciesAmount a : r.species()) {
+        p += a.species().countOf(Component.PHOSPHATE) * a.molalityMolPerKg();
+      }
+      double total = c.totals().get(Component.PHOSPHATE);
+      assertThat(p).as("%s at %s °C", c, celsius).isCloseTo(total, within(1e-12 * total));
+    }
+  }
 }
