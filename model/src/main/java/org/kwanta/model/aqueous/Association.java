@@ -7,7 +7,8 @@ import org.kwanta.model.ValidityRange;
 /**
  * An association reaction the speciation carries beside the dissociation chains: the sodium ion
  * pairs ({@link SodiumIonPairs}) and the polyborates ({@link MesmerPolyborates}). Each is on by
- * default and can be turned off per speciation ({@link SpeciationOptions#withAssociations}). The
+ * default and can be turned off per speciation ({@link SpeciationOptions#withAssociations}), except
+ * NaHPO₄⁻, which is carried only when chosen ({@link SpeciationOptions#DEFAULT_ASSOCIATIONS}). The
  * constant is evaluated as its source writes it:
  *
  * <ul>
@@ -40,6 +41,17 @@ public enum Association {
       0,
       t -> SodiumIonPairs.THERMODDEM_NASO4.log10K(t, Double.NaN),
       SodiumIonPairs.VALIDITY_THERMODDEM),
+  /**
+   * Na⁺ + HPO₄²⁻ ⇌ NaHPO₄⁻ (Thermoddem; low confidence above about 100 °C, so not among {@link
+   * SpeciationOptions#DEFAULT_ASSOCIATIONS}: carried only when chosen).
+   */
+  SODIUM_HYDROGEN_PHOSPHATE(
+      Species.SODIUM_HYDROGEN_PHOSPHATE_PAIR,
+      "Na⁺ + HPO₄²⁻ ⇌ NaHPO₄⁻",
+      "nahpo4-pair-1",
+      0,
+      t -> SodiumIonPairs.NAHPO4.log10K(t, Double.NaN),
+      SodiumIonPairs.VALIDITY_THERMODDEM_PHOSPHATE),
   /** 2 B(OH)₃ + OH⁻ ⇌ B₂(OH)₇⁻ (Mesmer 1972 Q21). */
   DIBORATE(
       Species.DIBORATE,

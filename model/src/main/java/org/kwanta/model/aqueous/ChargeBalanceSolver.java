@@ -121,6 +121,7 @@ final class ChargeBalanceSolver {
 
   private int cl = -1;
   private int so4 = -1;
+  private int po4 = -1;
   private int boron = -1;
 
   /** Association constants carried, by {@link Association#ordinal()} (0 = not carried). */
@@ -129,13 +130,17 @@ final class ChargeBalanceSolver {
   /** True when sodium is speciated with its ion pairs, boron with its polyborates. */
   private final boolean pairedSodium;
 
+  /** True when phosphate is speciated with sodium (NaHPO₄⁻ carried, both present). */
+  private final boolean pairedPhosphate;
+
   private final boolean polymerBoron;
 
-  /** Conditional pair constants at the current γ: NaOH° per m(OH⁻), NaCl°, NaSO₄⁻. */
+  /** Conditional pair constants at the current γ: NaOH° per m(OH⁻), NaCl°, NaSO₄⁻, NaHPO₄⁻. */
   private double kHydroxide;
 
   private double kChloride;
   private double kSulfate;
+  private double kPhosphate;
 
   /** Conditional polyborate coefficients at the current γ (see {@link #evaluateBoron}). */
   private double q2;
@@ -152,6 +157,11 @@ final class ChargeBalanceSolver {
   private double naOHPair;
   private double naClPair;
   private double naSO4Pair;
+
+  /** Phosphate species (H₃PO₄, H₂PO₄⁻, HPO₄²⁻, PO₄³⁻) and NaHPO₄⁻ when paired, mol/kg. */
+  private final double[] phosphates = new double[4];
+
+  private double naHPO4Pair;
 
   /** Free B(OH)₃ and the borate anions (monomer, B₂, B₃, B₄) at the last evaluation, mol/kg. */
   private double boricFree;
@@ -210,6 +220,7 @@ final class ChargeBalanceSolver {
         case SODIUM -> na = k;
         case CHLORIDE -> cl = k;
         case SULFATE -> so4 = k;
+        case PHOSPHATE -> po4 = k;
         case BORON -> boron = k;
         default -> {}
       }
@@ -224,7 +235,12 @@ final class ChargeBalanceSolver {
             && totals[na] > 0
             && (associationK[Association.SODIUM_HYDROXIDE.ordinal()] > 0
                 || (cl >= 0 && associationK[Association.SODIUM_CHLORIDE.ordinal()] > 0)
-                || (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0));
+                || (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0)
+                || (po4 >= 0 && associationK[Association.SODIUM_HYDROGEN_PHOSPHATE.ordinal()] > 0));
+    pairedPhosphate =
+        pairedSodium
+            && po4 >= 0
+            && associationK[Association.SODIUM_HYDROGEN_PHOSPHATE.ordinal()] > 0;
     polymerBoron =
         boron >= 0
             && totals[boron] > 0
@@ -235,7 +251,9 @@ final class ChargeBalanceSolver {
 
   /** True when component k is speciated by {@link #evaluateSodium} or {@link #evaluateBoron}. */
   private boolean coupled(int k) {
-    return (pairedSodium && (k == na || k == cl || k == so4)) || (polymerBoron && k == boron);
+    return (pairedSodium && (k == na || k == cl || k == so4))
+        || (pairedPhosphate && k == po4)
+        || (polymerBoron && k == boron);
   }
 
   /** The solved state: x, I, γ for |z| = 0..3, and the outer iteration count. */
@@ -347,6 +365,8 @@ final class ChargeBalanceSolver {
     kHydroxide = associationK[Association.SODIUM_HYDROXIDE.ordinal()] * gamma[1] * gamma[1];
     kChloride = associationK[Association.SODIUM_CHLORIDE.ordinal()] * gamma[1] * gamma[1];
     kSulfate = associationK[Association.SODIUM_SULFATE.ordinal()] * gamma[2];
+    // m(NaHPO₄⁻) = K·γ₁·γ₂/γ₁·m(Na⁺)·m(HPO₄²⁻), as for NaSO₄⁻
+    kPhosphate = associationK[Association.SODIUM_HYDROGEN_PHOSPHATE.ordinal()] * gamma[2];
     // m(B_x) = Q·b^x·a(OH⁻)^y/γ_y with a(OH⁻) = Kw/a(H⁺): per 1/a(H⁺)^y
     q2 = associationK[Association.DIBORATE.ordinal()] * kw / gamma[1];
     q3 = associationK[Association.TRIBORATE.ordinal()] * kw / gamma[1];
@@ -422,6 +442,11 @@ final class ChargeBalanceSolver {
    * of charge, the charge of the three components is Na_T − Cl_T − 2·S_T + m(HSO₄⁻) − m(NaOH°):
    * pairing enters through NaOH° (a bound hydroxide) and through HSO₄⁻. The slope holds m(Na⁺)
    * fixed (the root finder is safeguarded, so an approximate slope only costs steps).
+   *
+   * <p>With NaHPO₄⁻ carried ({@link #pairedPhosphate}) the balance gains P_T·K'ₚ·n/(D_P + K'ₚ·n),
+   * D_P = Σ m(phosphate chain)/m(HPO₄²⁻), of the same increasing concave form; phosphate adds the
+   * charge −P_T·E[L] with L the protons lost from H₃PO₄ and the pair counted with HPO₄²⁻ (L = 2;
+   * its −1 and the Na⁺ it binds make −2), and the slope P_T·Var[L] at fixed n.
    */
   private double[] evaluateSodium(double inverse, double mOH) {
     double naT = totals[na];
@@ -438,7 +463,24 @@ final class ChargeBalanceSolver {
     double d = 1 + invRS;
     double iCl = 1;
     double iS = withS ? 1 / d : 0;
-    double n = naT / (p + aCl + aS * iS);
+    // Phosphate relative to H₃PO₄: w₁ = m(H₂PO₄⁻)/m(H₃PO₄), w₂ for HPO₄²⁻, w₃ for PO₄³⁻
+    boolean withP = pairedPhosphate;
+    double kP = kPhosphate;
+    double pT = withP ? totals[po4] : 0;
+    double aP = pT * kP;
+    double w1 = 0;
+    double w2 = 0;
+    double w3 = 0;
+    double dP = 1;
+    if (withP) {
+      double[] cP = conditional[po4];
+      w1 = cP[0] * inverse;
+      w2 = w1 * cP[1] * inverse;
+      w3 = w2 * cP[2] * inverse;
+      dP = (1 + w1 + w2 + w3) / w2;
+    }
+    double iP = withP ? 1 / dP : 0;
+    double n = naT / (p + aCl + aS * iS + aP * iP);
     for (int i = 0; i < MAX_FREE_ITERATIONS && n > 0; i++) {
       if (withCl) {
         iCl = 1 / (1 + kCl * n);
@@ -446,8 +488,13 @@ final class ChargeBalanceSolver {
       if (withS) {
         iS = 1 / (d + kS * n);
       }
-      double h = n * (p + aCl * iCl + aS * iS) - naT;
-      double dh = p + aCl * iCl * iCl + aS * d * iS * iS;
+      if (withP) {
+        iP = 1 / (dP + kP * n);
+      }
+      double h = n * (p + aCl * iCl + aS * iS + aP * iP) - naT;
+      // the phosphate term's derivative aP·D_P·iP² written as aP·iP·(1 − K'ₚ·n·iP), finite when
+      // m(HPO₄²⁻) underflows (D_P infinite, iP 0)
+      double dh = p + aCl * iCl * iCl + aS * d * iS * iS + aP * iP * (1 - kP * n * iP);
       double step = h / dh;
       n -= step;
       if (Math.abs(step) <= FREE_MOLALITY_STEP * n) {
@@ -472,7 +519,24 @@ final class ChargeBalanceSolver {
       // w = m(SO₄²⁻ + NaSO₄⁻)/m(HSO₄⁻) ∝ 1/a(H⁺); d m(HSO₄⁻)/d ln a(H⁺) = S_T·w/(1 + w)²
       slope += hso4 * (so4Free + naSO4Pair) / sT;
     }
-    sumAndSlope[0] = naT - (cl >= 0 ? totals[cl] : 0) - 2 * sT + hso4 - naOHPair;
+    double charge = naT - (cl >= 0 ? totals[cl] : 0) - 2 * sT + hso4 - naOHPair;
+    if (withP) {
+      // the chain with the pair in the L = 2 bin, at fixed n
+      double w2p = w2 * (1 + kP * n);
+      double s = 1 + w1 + w2p + w3;
+      double meanLost = (w1 + 2 * w2p + 3 * w3) / s;
+      double meanSquare = (w1 + 4 * w2p + 9 * w3) / s;
+      charge -= pT * meanLost;
+      slope += pT * (meanSquare - meanLost * meanLost);
+      phosphates[0] = pT / s;
+      phosphates[1] = pT * w1 / s;
+      phosphates[2] = pT * w2 / s;
+      phosphates[3] = pT * w3 / s;
+      naHPO4Pair = pT * w2 * kP * n / s;
+    } else {
+      naHPO4Pair = 0;
+    }
+    sumAndSlope[0] = charge;
     sumAndSlope[1] = slope;
     return sumAndSlope;
   }
@@ -546,6 +610,10 @@ final class ChargeBalanceSolver {
       int two = squared ? 4 : 2;
       if (pairedSodium) {
         sum += naFree + clFree + hso4 + two * so4Free + naSO4Pair;
+      }
+      if (pairedPhosphate) {
+        int three = squared ? 9 : 3;
+        sum += phosphates[1] + two * phosphates[2] + three * phosphates[3] + naHPO4Pair;
       }
       if (polymerBoron) {
         sum += borates[0] + borates[1] + borates[2] + two * borates[3];
@@ -740,6 +808,16 @@ final class ChargeBalanceSolver {
         }
         if (so4 >= 0 && associationK[Association.SODIUM_SULFATE.ordinal()] > 0) {
           out.add(amount(Species.SODIUM_SULFATE_PAIR, naSO4Pair, t, g[1]));
+        }
+        if (pairedPhosphate) {
+          out.add(amount(Species.SODIUM_HYDROGEN_PHOSPHATE_PAIR, naHPO4Pair, t, g[1]));
+        }
+        continue;
+      }
+      if (pairedPhosphate && k == po4) {
+        List<Species> sp = components[k].species();
+        for (int j = 0; j < 4; j++) {
+          out.add(amount(sp.get(j), phosphates[j], totals[k], g[j]));
         }
         continue;
       }

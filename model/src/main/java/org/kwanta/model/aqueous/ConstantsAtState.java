@@ -76,6 +76,8 @@ final class ConstantsAtState {
           components.contains(Component.SODIUM) && components.contains(Component.CHLORIDE);
       case SODIUM_SULFATE ->
           components.contains(Component.SODIUM) && components.contains(Component.SULFATE);
+      case SODIUM_HYDROGEN_PHOSPHATE ->
+          components.contains(Component.SODIUM) && components.contains(Component.PHOSPHATE);
       case DIBORATE, TRIBORATE, TETRABORATE -> components.contains(Component.BORON);
     };
   }

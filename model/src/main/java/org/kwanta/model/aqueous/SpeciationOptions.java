@@ -12,8 +12,9 @@ import java.util.Set;
  *     another)
  * @param activityModel the activity model ({@link ActivityModel#DAVIES} by default)
  * @param sampleOrigin liquid sample, or condensed steam at the stated temperature
- * @param associations the ion pairs and polyborates carried (all by default; an empty set gives the
- *     plain dissociation chains)
+ * @param associations the ion pairs and polyborates carried ({@link #DEFAULT_ASSOCIATIONS} by
+ *     default: all but the low-confidence NaHPO₄⁻; an empty set gives the plain dissociation
+ *     chains)
  */
 public record SpeciationOptions(
     ConstantSet constants,
@@ -33,15 +34,24 @@ public record SpeciationOptions(
                 : EnumSet.copyOf(associations));
   }
 
-  /** With every association carried ({@link #ALL_ASSOCIATIONS}). */
+  /** With the default associations carried ({@link #DEFAULT_ASSOCIATIONS}). */
   public SpeciationOptions(
       ConstantSet constants, ActivityModel activityModel, SampleOrigin sampleOrigin) {
-    this(constants, activityModel, sampleOrigin, ALL_ASSOCIATIONS);
+    this(constants, activityModel, sampleOrigin, DEFAULT_ASSOCIATIONS);
   }
 
-  /** Every association: the default. */
+  /** Every association, the opt-in NaHPO₄⁻ included. */
   public static final Set<Association> ALL_ASSOCIATIONS =
       Collections.unmodifiableSet(EnumSet.allOf(Association.class));
+
+  /**
+   * The associations carried by default: all but {@link Association#SODIUM_HYDROGEN_PHOSPHATE},
+   * whose only temperature function (Thermoddem) is an extrapolation from 25 °C data and implies
+   * more pairing above about 150 °C than any measured 1:2 sodium pair ({@link SodiumIonPairs}).
+   */
+  public static final Set<Association> DEFAULT_ASSOCIATIONS =
+      Collections.unmodifiableSet(
+          EnumSet.complementOf(EnumSet.of(Association.SODIUM_HYDROGEN_PHOSPHATE)));
 
   /** Default constants, Davies, liquid sample. */
   public static SpeciationOptions defaults() {

@@ -96,6 +96,11 @@ public enum Species {
   SODIUM_CHLORIDE_PAIR("NaCl", 0, Component.SODIUM, true),
   /** Ion pair NaSO₄⁻, counted with sodium ({@link Association#SODIUM_SULFATE}; no λ° carried). */
   SODIUM_SULFATE_PAIR("NaSO4", -1, Component.SODIUM, true),
+  /**
+   * Ion pair NaHPO₄⁻, counted with sodium ({@link Association#SODIUM_HYDROGEN_PHOSPHATE}; opt-in;
+   * no λ° carried).
+   */
+  SODIUM_HYDROGEN_PHOSPHATE_PAIR("NaHPO4", -1, Component.SODIUM, true),
   /** Diborate B₂(OH)₇⁻, counted with boron ({@link Association#DIBORATE}; no λ° carried). */
   DIBORATE("B2(OH)7", -1, Component.BORON, true),
   /** Triborate B₃O₃(OH)₄⁻, counted with boron ({@link Association#TRIBORATE}; no λ° carried). */
@@ -264,6 +269,8 @@ public enum Species {
       case SODIUM_HYDROXIDE_PAIR -> c == Component.SODIUM ? 1 : 0;
       case SODIUM_CHLORIDE_PAIR -> c == Component.SODIUM || c == Component.CHLORIDE ? 1 : 0;
       case SODIUM_SULFATE_PAIR -> c == Component.SODIUM || c == Component.SULFATE ? 1 : 0;
+      case SODIUM_HYDROGEN_PHOSPHATE_PAIR ->
+          c == Component.SODIUM || c == Component.PHOSPHATE ? 1 : 0;
       case DIBORATE -> c == Component.BORON ? 2 : 0;
       case TRIBORATE -> c == Component.BORON ? 3 : 0;
       case TETRABORATE -> c == Component.BORON ? 4 : 0;

@@ -10,7 +10,8 @@ import org.kwanta.model.ValidityRange;
  *
  * <p>No K_D(T) correlation or data table for morpholine, ethanolamine, cyclohexylamine,
  * dimethylamine, 3-methoxypropylamine or 2-diethylaminoethanol could be retrieved (searched: IAPWS
- * guidance, the EPRI amine measurements of Cobble and Turner, the open literature; the shared notes
+ * guidance, the EPRI amine measurements of Cobble and Turner, the open literature, the open
+ * geochemical databases; searched again in December 2026 with the same result; the shared notes
  * §1.5 record the same). What was retrieved is qualitative: P. V. Balakrishnan, <i>Volatility of
  * morpholine and cyclohexylamine</i>, Can. J. Chem. 56 (1978) 2620 (abstract, 150–300 °C):
  * cyclohexylamine strongly prefers the steam; morpholine's volatility is close to that of water and

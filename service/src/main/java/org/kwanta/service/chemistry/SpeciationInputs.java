@@ -136,7 +136,7 @@ final class SpeciationInputs {
             activityModel(c.activityModel()),
             sampleOrigin(c.sampleOrigin()),
             c.ionAssociation() == null || c.ionAssociation()
-                ? SpeciationOptions.ALL_ASSOCIATIONS
+                ? SpeciationOptions.DEFAULT_ASSOCIATIONS
                 : java.util.Set.of());
     return new Parsed(
         builder.build(),
