@@ -11,6 +11,14 @@
 
   python3 scripts/load/series_load.py --db "host=127.0.0.1 port=5432 dbname=kwanta_bench user=postgres"
 Use --skip-fill to query data filled by an earlier run (the plant id is printed).
+
+The fill also brings the hourly and daily rollups up to date (refresh_reading_rollups, as the ingest keeps them in
+step) and reports the readings' storage per row (heap and indexes). For the long-trend figures of docs/scaling.md
+(1 year and 90 days of one series of 10 s data), a scaled-down set with the same per-series density:
+  python3 scripts/load/series_load.py --days 365 --points 1 --measured-only --range-days 365 --requests 60 --db "..."
+  python3 scripts/load/series_load.py --skip-fill TAG --days 365 --points 1 --measured-only --range-days 90 --requests 60 --db "..."
+A series' query reads only its own rows (keyed by sample point and parameter), so its time depends on the rows per
+series, not on how many other series the database holds.
 """
 import argparse
 import http.client
@@ -43,6 +51,8 @@ def main():
     ap.add_argument("--requests", type=int, default=300)
     ap.add_argument("--range-days", type=int, default=0, help="ask N days ending at the data's end")
     ap.add_argument("--skip-fill", metavar="PLANT_TAG")
+    ap.add_argument("--measured-only", action="store_true",
+                    help="fill no evaluations and ask only measured parameters (the long-trend figures)")
     args = ap.parse_args()
     u = urllib.parse.urlparse(args.base_url)
     if u.hostname not in ("127.0.0.1", "localhost", "::1"):
@@ -83,6 +93,8 @@ def main():
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',
                                      interval '10 s') t""")
+            if args.measured_only:
+                continue
             psql(args.db, f"""
                 INSERT INTO evaluation (sample_point_id, time, config_version, cation_conductivity_25,
                                         ph_at_temperature, instrument_in_doubt, finding_codes, details)
@@ -91,11 +103,24 @@ def main():
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',
                                      interval '10 s') t""")
+        filled = time.monotonic() - t0
+        t1 = time.monotonic()
+        psql(args.db, f"DO $$ BEGIN PERFORM refresh_reading_rollups('{start.isoformat()}', '{end.isoformat()}'); END $$")
+        rollups = time.monotonic() - t1
         psql(args.db, "VACUUM ANALYZE reading")
         psql(args.db, "VACUUM ANALYZE evaluation")
+        psql(args.db, "VACUUM ANALYZE reading_rollup_hour")
+        psql(args.db, "VACUUM ANALYZE reading_rollup_day")
         rows = args.days * args.points * 8640
-        print(f"filled {rows * len(PARAMS):,} readings and {rows:,} evaluations in {time.monotonic() - t0:.0f} s"
-              f" (plant tag {tag})")
+        evaluations = 0 if args.measured_only else rows
+        print(f"filled {rows * len(PARAMS):,} readings and {evaluations:,} evaluations in {filled:.0f} s,"
+              f" rollups refreshed in {rollups:.0f} s (plant tag {tag})")
+        size = subprocess.run(
+            ["psql", args.db, "-At", "-c",
+             "SELECT sum(pg_total_relation_size(inhrelid)) FROM pg_inherits WHERE inhparent = 'reading'::regclass"],
+            check=True, capture_output=True, text=True).stdout.strip()
+        print(f"reading partitions: {int(size) / (rows * len(PARAMS)):.0f} bytes per reading, heap and indexes"
+              f" (all readings of the database)")
 
     conn = http.client.HTTPConnection(u.hostname, u.port or 80, timeout=60)  # the fill outlasts keep-alive
     rnd = random.Random(1)
@@ -103,7 +128,7 @@ def main():
     errors = 0
     for _ in range(args.requests):
         p = rnd.choice(points)
-        par = rnd.choice(PARAMS + DERIVED)
+        par = rnd.choice(PARAMS if args.measured_only else PARAMS + DERIVED)
         if args.range_days:
             d0, d1 = end - timedelta(days=args.range_days), end
         else:
