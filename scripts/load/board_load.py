@@ -4,7 +4,7 @@
 1. Declares a plant of --points feedwater sample points (invented) through the API and posts --minutes minutes
    of readings (specific, cation and degassed cation conductivity, pH; one a minute) through the ingest, so
    every point has an evaluation and levels.
-2. Asks GET /api/v1/plants/{id}/overview --requests times (gzip accepted, as the page's browser does) and
+2. Asks GET /api/v1/plants/{plant}/overview --requests times (gzip accepted, as the page's browser does) and
    reports the time to the first byte (server time on loopback) and the compressed and plain sizes. The first
    request is reported apart: the board reuses a point's data while it has no new readings (docs/page.md), so
    the first one reads every point afresh, as a request after new readings of every point does.

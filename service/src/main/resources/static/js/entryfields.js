@@ -14,7 +14,7 @@ export const paths = {
 /** GET /caller: entry (lab results, operating states, limits, event notes) is for chemist and admin keys. */
 export const mayEnter = (caller) => !!(caller && caller.acknowledge);
 
-/** GET /plants/{id}: the plant's blocks and which block each sample point is in. */
+/** GET /plants/{plant}: the plant's blocks and which block each sample point is in. */
 export function plantBlocks(j) {
   return {
     blocks: (j.blocks || []).map((b) => ({ id: b.id, name: b.name })),
@@ -38,7 +38,7 @@ export const labOutcome = (j) => ({
   conversions: (j.conversions || []).length,
 });
 
-/** One grab or lab result: from the series API's labResults, or GET /sample-points/{id}/lab-results. */
+/** One grab or lab result: from the series API's labResults, or GET /sample-points/{samplePoint}/lab-results. */
 export const labPoint = (x) => ({
   t: Date.parse(x.time) / 1000, source: x.source, value: x.value, below: x.censored === 'below', sampleId: x.sampleId || null,
 });

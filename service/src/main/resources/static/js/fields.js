@@ -19,7 +19,7 @@ export const paths = {
   excursions: (q) => 'api/v1/excursions?' + new URLSearchParams(q),
   acknowledge: () => 'api/v1/excursions/acknowledgements',
   events: () => 'api/v1/excursion-events',
-  eventEntries: (id) => 'api/v1/excursion-events/' + enc(id) + '/entries',
+  eventEntries: (event) => 'api/v1/excursion-events/' + enc(event) + '/entries',
   curve: () => 'api/v1/chemistry/speciation/curve',
 };
 
@@ -172,7 +172,7 @@ export const eventBody = (title, cause, note, xs) => ({
   title, causeCategory: cause, note, excursions: xs.map((x) => ({ samplePoint: x.point, parameter: x.parameter, start: x.start })),
 });
 
-/** POST /excursion-events/{id}/entries */
+/** POST /excursion-events/{event}/entries */
 export const entryBody = (status, cause, note) => ({ status: status || null, causeCategory: cause || null, note });
 
 /** The speciation components for a point's composition (names of the speciation API). */

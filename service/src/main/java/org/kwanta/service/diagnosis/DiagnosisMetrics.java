@@ -65,7 +65,7 @@ class DiagnosisMetrics {
                       MetricNames.PLANT, p.plant(),
                       MetricNames.BLOCK, p.block(),
                       MetricNames.SAMPLE_POINT, p.id(),
-                      MetricNames.CODE, f.code().name(),
+                      MetricNames.REASON_CODE, f.code().name(),
                       MetricNames.POINTS_AT, f.pointsAt().name().toLowerCase(Locale.ROOT)),
                   1));
         }

@@ -7,6 +7,10 @@ import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotEmpty;
 import jakarta.validation.constraints.NotNull;
 import jakarta.validation.constraints.Size;
+import java.lang.annotation.ElementType;
+import java.lang.annotation.Retention;
+import java.lang.annotation.RetentionPolicy;
+import java.lang.annotation.Target;
 import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
@@ -76,25 +80,27 @@ class ExcursionEventsController {
     return events.create(r.title().strip(), cause, r.note(), members, actor());
   }
 
-  @PostMapping("/{id}/entries")
+  @PostMapping("/{event}/entries")
   @ResponseStatus(HttpStatus.CREATED)
   @Operation(summary = "Append a note, optionally changing the status and/or the cause category")
-  ExcursionEvents.Event append(@PathVariable long id, @Valid @RequestBody EntryRequest r) {
+  ExcursionEvents.Event append(
+      @EventNumber @PathVariable("event") long eventId, @Valid @RequestBody EntryRequest r) {
     return events
         .append(
-            id,
+            eventId,
             r.status() == null ? null : status(r.status()),
             r.causeCategory() == null ? null : cause(r.causeCategory()),
             r.note(),
             actor())
-        .orElseThrow(() -> notFound(id));
+        .orElseThrow(() -> notFound(eventId));
   }
 
-  @PostMapping("/{id}/excursions")
+  @PostMapping("/{event}/excursions")
   @ResponseStatus(HttpStatus.CREATED)
   @Operation(summary = "Add an excursion to an event")
-  ExcursionEvents.Event add(@PathVariable long id, @Valid @RequestBody ExcursionRef r) {
-    return events.add(id, member(r), actor()).orElseThrow(() -> notFound(id));
+  ExcursionEvents.Event add(
+      @EventNumber @PathVariable("event") long eventId, @Valid @RequestBody ExcursionRef r) {
+    return events.add(eventId, member(r), actor()).orElseThrow(() -> notFound(eventId));
   }
 
   @GetMapping
@@ -103,11 +109,19 @@ class ExcursionEventsController {
     return events.list(status == null ? null : status(status), null);
   }
 
-  @GetMapping("/{id}")
+  @GetMapping("/{event}")
   @Operation(summary = "One excursion event with its excursions and every entry")
-  ExcursionEvents.Event one(@PathVariable long id) {
-    return events.find(id).orElseThrow(() -> notFound(id));
+  ExcursionEvents.Event one(@EventNumber @PathVariable("event") long eventId) {
+    return events.find(eventId).orElseThrow(() -> notFound(eventId));
   }
+
+  /** The OpenAPI description of the {@code {event}} path variable. */
+  @Target(ElementType.PARAMETER)
+  @Retention(RetentionPolicy.RUNTIME)
+  @io.swagger.v3.oas.annotations.Parameter(
+      description = "The excursion event's number (its id, as the create answered)",
+      example = "1")
+  @interface EventNumber {}
 
   private ExcursionEvents.Member member(ExcursionRef r) {
     Parameter parameter;
@@ -135,8 +149,8 @@ class ExcursionEventsController {
     return Actor.current().orElseThrow(() -> new IllegalStateException("no authenticated key"));
   }
 
-  private static ProblemException notFound(long id) {
-    return ProblemException.notFound("excursion event", String.valueOf(id));
+  private static ProblemException notFound(long eventId) {
+    return ProblemException.notFound("excursion event", String.valueOf(eventId));
   }
 
   private static CauseCategory cause(String name) {

@@ -8,8 +8,10 @@ import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.kwanta.model.Parameter;
 import org.kwanta.model.limits.Classification;
 import org.kwanta.model.limits.Level;
 import org.kwanta.service.ingest.Evaluations;
@@ -23,11 +25,12 @@ import org.springframework.scheduling.annotation.Scheduled;
 import org.springframework.stereotype.Component;
 
 /**
- * Per sample point and parameter gauges (latest value, action level, outside the normal range, time
- * in level, instrument in doubt, reading age, the deadline of a running excursion) and the pH at
- * temperature per sample point, refreshed on a schedule from the stored readings and evaluations
- * ({@code kwanta.metrics.refresh}, default 30 s). The level looks back {@code
- * kwanta.metrics.level-window} (default one day, P1D), so time in level is capped at that window.
+ * Per sample point and parameter gauges (latest value, one metric per canonical unit; action level,
+ * outside the normal range, time in level, instrument in doubt, reading age, the deadline of a
+ * running excursion) and the pH at temperature per sample point, refreshed on a schedule from the
+ * stored readings and evaluations ({@code kwanta.metrics.refresh}, default 30 s). The level looks
+ * back {@code kwanta.metrics.level-window} (default one day, P1D), so time in level is capped at
+ * that window.
  *
  * <p>The excursion deadline is the one {@code GET /api/v1/excursions} answers (as reported, by
  * {@link ExcursionFinder#find}, which reads 8 days back so that a running excursion is whole): it
@@ -44,14 +47,20 @@ class SampleMetrics {
   private final ExcursionFinder finder;
   private final Clock clock;
   private final Duration window;
-  private final MultiGauge value;
+
+  /** The latest values, one gauge per metric (one per canonical unit). */
+  private final Map<MetricNames.Metric, MultiGauge> values = new LinkedHashMap<>();
+
   private final MultiGauge phAtTemperature;
   private final MultiGauge level;
   private final MultiGauge held;
   private final MultiGauge outsideNormal;
   private final MultiGauge inDoubt;
   private final MultiGauge age;
-  private final MultiGauge threshold;
+
+  /** The thresholds in force, one gauge per metric (one per canonical unit). */
+  private final Map<MetricNames.Metric, MultiGauge> thresholds = new LinkedHashMap<>();
+
   private final MultiGauge phCalculated;
   private final MultiGauge neutralPh;
   private final MultiGauge deadline;
@@ -72,27 +81,41 @@ class SampleMetrics {
     this.reads = reads;
     this.clock = clock;
     this.window = window;
-    this.value = gauge(registry, MetricNames.SAMPLE_VALUE, null);
+    MetricNames.SAMPLE_VALUES.forEach(m -> values.put(m.metric(), gauge(registry, m.metric())));
     this.phAtTemperature = gauge(registry, MetricNames.SAMPLE_PH_AT_TEMPERATURE, null);
     this.level = gauge(registry, MetricNames.SAMPLE_LEVEL, null);
     this.held = gauge(registry, MetricNames.SAMPLE_LEVEL_HELD, "seconds");
     this.outsideNormal = gauge(registry, MetricNames.SAMPLE_OUTSIDE_NORMAL, null);
     this.inDoubt = gauge(registry, MetricNames.SAMPLE_INSTRUMENT_IN_DOUBT, null);
     this.age = gauge(registry, MetricNames.SAMPLE_READING_AGE, "seconds");
-    this.threshold = gauge(registry, MetricNames.LIMIT_THRESHOLD, null);
+    MetricNames.LIMIT_THRESHOLDS.forEach(
+        m -> thresholds.put(m.metric(), gauge(registry, m.metric())));
     this.phCalculated = gauge(registry, MetricNames.SAMPLE_PH_CALCULATED, null);
     this.neutralPh = gauge(registry, MetricNames.SAMPLE_NEUTRAL_PH, null);
     this.deadline = gauge(registry, MetricNames.EXCURSION_DEADLINE, "seconds");
   }
 
   private static MultiGauge gauge(MeterRegistry registry, String name, String baseUnit) {
-    String help =
+    return gauge(
+        registry,
         MetricNames.METRICS.stream()
             .filter(m -> m.micrometerName().equals(name))
             .findFirst()
-            .orElseThrow()
-            .help();
-    return MultiGauge.builder(name).description(help).baseUnit(baseUnit).register(registry);
+            .orElseThrow(),
+        baseUnit);
+  }
+
+  /** A gauge whose unit is in its name already (no base unit for Micrometer to append). */
+  private static MultiGauge gauge(MeterRegistry registry, MetricNames.Metric metric) {
+    return gauge(registry, metric, null);
+  }
+
+  private static MultiGauge gauge(
+      MeterRegistry registry, MetricNames.Metric metric, String baseUnit) {
+    return MultiGauge.builder(metric.micrometerName())
+        .description(metric.help())
+        .baseUnit(baseUnit)
+        .register(registry);
   }
 
   private record Latest(Instant time, double value) {}
@@ -124,14 +147,15 @@ class SampleMetrics {
             });
     Map<String, Double> calculated = evaluations.latestCalculatedPh(since);
 
-    List<MultiGauge.Row<?>> values = new ArrayList<>();
+    Map<MetricNames.Metric, List<MultiGauge.Row<?>>> valuesByMetric = rowsPer(values.keySet());
     List<MultiGauge.Row<?>> ages = new ArrayList<>();
     List<MultiGauge.Row<?>> levels = new ArrayList<>();
     List<MultiGauge.Row<?>> helds = new ArrayList<>();
     List<MultiGauge.Row<?>> outsides = new ArrayList<>();
     List<MultiGauge.Row<?>> doubts = new ArrayList<>();
     List<MultiGauge.Row<?>> phs = new ArrayList<>();
-    List<MultiGauge.Row<?>> thresholds = new ArrayList<>();
+    Map<MetricNames.Metric, List<MultiGauge.Row<?>>> thresholdsByMetric =
+        rowsPer(thresholds.keySet());
     List<MultiGauge.Row<?>> calculateds = new ArrayList<>();
     List<MultiGauge.Row<?>> neutrals = new ArrayList<>();
     List<MultiGauge.Row<?>> deadlines = new ArrayList<>();
@@ -153,15 +177,21 @@ class SampleMetrics {
       latest.forEach(
           (key, l) -> {
             if (key.startsWith(point.id() + "|")) {
-              Tags tags =
-                  pointTags.and(MetricNames.PARAMETER, key.substring(point.id().length() + 1));
-              values.add(MultiGauge.Row.of(tags, l.value()));
+              String code = key.substring(point.id().length() + 1);
+              Tags tags = pointTags.and(MetricNames.PARAMETER, code);
+              Parameter.byCode(code)
+                  .ifPresent(
+                      p ->
+                          valuesByMetric
+                              .get(MetricNames.sampleValue(p))
+                              .add(MultiGauge.Row.of(tags, l.value())));
               ages.add(
                   MultiGauge.Row.of(tags, Duration.between(l.time(), now).toMillis() / 1000.0));
             }
           });
       for (Limits.Effective effective : limits.inForce(point)) {
-        String parameter = effective.profile().key().parameter().code();
+        Parameter limited = effective.profile().key().parameter();
+        String parameter = limited.code();
         if (!latest.containsKey(point.id() + "|" + parameter)) {
           continue;
         }
@@ -171,28 +201,36 @@ class SampleMetrics {
         }
         Classification last = classified.get(classified.size() - 1);
         Tags tags = pointTags.and(MetricNames.PARAMETER, parameter);
-        thresholdRows(effective.profile(), tags, thresholds);
+        thresholdRows(
+            effective.profile(), tags, thresholdsByMetric.get(MetricNames.limitThreshold(limited)));
         levels.add(MultiGauge.Row.of(tags, last.level().severity()));
         helds.add(
             MultiGauge.Row.of(tags, Duration.between(last.levelSince(), now).toMillis() / 1000.0));
         outsides.add(MultiGauge.Row.of(tags, last.level() == Level.OUTSIDE_NORMAL ? 1 : 0));
         doubts.add(MultiGauge.Row.of(tags, last.instrumentInDoubt() ? 1 : 0));
         if (last.level().isAction()) {
-          deadlineRows(point, effective.profile().key().parameter(), now, tags, deadlines);
+          deadlineRows(point, limited, now, tags, deadlines);
         }
       }
     }
-    value.register(values, true);
+    values.forEach((metric, gauge) -> gauge.register(valuesByMetric.get(metric), true));
     age.register(ages, true);
     level.register(levels, true);
     held.register(helds, true);
     outsideNormal.register(outsides, true);
     inDoubt.register(doubts, true);
     phAtTemperature.register(phs, true);
-    threshold.register(thresholds, true);
+    thresholds.forEach((metric, gauge) -> gauge.register(thresholdsByMetric.get(metric), true));
     phCalculated.register(calculateds, true);
     neutralPh.register(neutrals, true);
     deadline.register(deadlines, true);
+  }
+
+  private static Map<MetricNames.Metric, List<MultiGauge.Row<?>>> rowsPer(
+      Iterable<MetricNames.Metric> metrics) {
+    Map<MetricNames.Metric, List<MultiGauge.Row<?>>> rows = new HashMap<>();
+    metrics.forEach(m -> rows.put(m, new ArrayList<>()));
+    return rows;
   }
 
   /**
@@ -201,7 +239,7 @@ class SampleMetrics {
    */
   private void deadlineRows(
       Limits.Point point,
-      org.kwanta.model.Parameter parameter,
+      Parameter parameter,
       Instant now,
       Tags tags,
       List<MultiGauge.Row<?>> out) {

@@ -1,6 +1,7 @@
 package org.kwanta.service.security;
 
 import io.swagger.v3.oas.annotations.Operation;
+import io.swagger.v3.oas.annotations.Parameter;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import jakarta.validation.Valid;
 import jakarta.validation.constraints.NotBlank;
@@ -51,23 +52,28 @@ class KeysController {
     return keys.list();
   }
 
-  @DeleteMapping("/{id}")
+  @DeleteMapping("/{key}")
   @Operation(
       summary = "Revoke a key",
       description =
           "The key stops working at once; its record stays. The last active admin key cannot be"
               + " revoked (409).")
-  ApiKeys.ApiKey revoke(@PathVariable String id) {
+  ApiKeys.ApiKey revoke(
+      @Parameter(
+              description =
+                  "The key's id (the id in the list of keys), never the key's secret itself")
+          @PathVariable("key")
+          String keyId) {
     try {
-      return keys.revoke(id).orElseThrow(() -> notFound(id));
+      return keys.revoke(keyId).orElseThrow(() -> notFound(keyId));
     } catch (ApiKeys.LastAdminKeyException e) {
       throw new ProblemException(
           HttpStatus.CONFLICT, ProblemTypes.CONFLICT, "Conflict", e.getMessage(), Map.of());
     }
   }
 
-  private static ProblemException notFound(String id) {
-    return ProblemException.notFound("key", id);
+  private static ProblemException notFound(String keyId) {
+    return ProblemException.notFound("key", keyId);
   }
 
   /**

@@ -1,22 +1,31 @@
 package org.kwanta.service.system;
 
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
+import org.kwanta.model.Parameter;
 
 /**
  * The documented metrics: Micrometer names (dotted) and the names Prometheus sees on {@code
  * /actuator/prometheus}. The service's metrics code uses these constants, the Grafana dashboard and
  * the alert rules are tested against {@link #exposedNames()}.
  *
- * <p>Labels are bounded: {@code plant}, {@code block} (the plant's block, e.g. U1), {@code
- * sample_point}, {@code parameter} (the codes of {@link org.kwanta.model.Parameter}), and {@code
- * reason} (a fixed list of rejection reasons). Never a value, a time or a key.
+ * <p>Labels are bounded and say what they hold: {@code plant}, {@code block} (the plant's block,
+ * e.g. U1), {@code sample_point}, {@code parameter} (the codes of {@link Parameter}), {@code level}
+ * and {@code side} (of a threshold), {@code reason_code} and {@code points_at} (of a diagnosis
+ * finding), and {@code reason} (a fixed list of the ingest's rejection reasons). Never a value, a
+ * time or a key.
  *
- * <p>Units: times in seconds (Prometheus base unit). Chemistry values are in the parameter's
- * canonical trade unit (µS/cm, µg/kg, mg/kg, pH) as listed by {@link
- * org.kwanta.model.Parameter#unit()}, not in SI base units, so that alert thresholds read as the
- * guidance writes them; the unit is fixed per parameter label value.
+ * <p>Units: one unit per metric name, and the unit is in the name. Times are in seconds (Prometheus
+ * base unit). Chemistry and process values are in the parameter's canonical unit ({@link
+ * Parameter#unit()}: µS/cm, µg/kg, pH, °C, mV, MW, MPa, kg/s), not in SI base units, so that alert
+ * thresholds read as the guidance writes them; the latest values and the limit thresholds are
+ * therefore split into one metric per canonical unit ({@link #sampleValue(Parameter)}, {@link
+ * #limitThreshold(Parameter)}), named from {@link #UNIT_IN_NAME}, the one place that knows how a
+ * unit is written in a metric name. A parameter with a unit already there needs no metrics code.
  */
 public final class MetricNames {
 
@@ -40,9 +49,6 @@ public final class MetricNames {
   private static final List<String> POINT = List.of(PLANT, BLOCK, SAMPLE_POINT);
   private static final List<String> POINT_PARAMETER =
       List.of(PLANT, BLOCK, SAMPLE_POINT, PARAMETER);
-
-  /** Latest value of a parameter at a sample point, in the parameter's canonical unit. */
-  public static final String SAMPLE_VALUE = "kwanta.sample.value";
 
   /** pH at the sample point's operating temperature (and pressure). */
   public static final String SAMPLE_PH_AT_TEMPERATURE = "kwanta.sample.ph.at.temperature";
@@ -102,10 +108,6 @@ public final class MetricNames {
   /** Batches written again on the plain path after the fast path failed (counter). */
   public static final String INGEST_RETRIED = "kwanta.ingest.retried";
 
-  /** Kind of meter, for the exposed suffixes. */
-  /** A threshold of the limits in force (normal range bounds and action levels). */
-  public static final String LIMIT_THRESHOLD = "kwanta.limit.threshold";
-
   /** pH at 25 °C calculated from the conductivities, latest evaluation. */
   public static final String SAMPLE_PH_CALCULATED = "kwanta.sample.ph.calculated";
 
@@ -121,11 +123,41 @@ public final class MetricNames {
   /** 1 per active finding of the diagnosis over time. */
   public static final String DIAGNOSIS_FINDING = "kwanta.diagnosis.finding";
 
-  /** Label: a finding's reason code. */
-  public static final String CODE = "code";
+  /** Label: a diagnosis finding's reason code (e.g. COOLING_WATER_INGRESS). */
+  public static final String REASON_CODE = "reason_code";
 
   /** Label: what a finding points at (an instrument, sample conditioning, or the process). */
   public static final String POINTS_AT = "points_at";
+
+  /**
+   * How each canonical unit ({@link Parameter#unit()}, a UCUM code) is written in a metric name:
+   * the kind of quantity, then the unit spelled out, as Prometheus names a unit (pH and the state
+   * code have no unit to spell). The one place to add a unit; {@link #sampleValue(Parameter)}
+   * refuses a parameter whose unit is not here, and a unit test checks every parameter.
+   */
+  public static final Map<String, String> UNIT_IN_NAME =
+      Map.of(
+          "uS/cm", "conductivity_microsiemens_per_centimetre",
+          "ug/kg", "concentration_micrograms_per_kilogram",
+          "[pH]", "ph",
+          "Cel", "temperature_celsius",
+          "mV", "potential_millivolts",
+          "MW", "power_megawatts",
+          "MPa", "pressure_megapascals",
+          "kg/s", "mass_flow_kilograms_per_second",
+          "{state}", "state_code");
+
+  /**
+   * The metric of the latest values in one canonical unit: {@code kwanta_sample_} plus the unit in
+   * the name, e.g. {@code kwanta_sample_conductivity_microsiemens_per_centimetre}.
+   */
+  public static final String SAMPLE_VALUE_PREFIX = "kwanta_sample_";
+
+  /**
+   * The metric of the limit thresholds in one canonical unit: {@code kwanta_limit_threshold_} plus
+   * the unit in the name, e.g. {@code kwanta_limit_threshold_ph}.
+   */
+  public static final String LIMIT_THRESHOLD_PREFIX = "kwanta_limit_threshold_";
 
   public enum Type {
     GAUGE,
@@ -160,15 +192,91 @@ public final class MetricNames {
     }
   }
 
-  /** The service's own metrics. */
-  public static final List<Metric> METRICS =
+  /**
+   * The metrics of one canonical unit.
+   *
+   * @param unit the canonical unit, a UCUM code ({@link Parameter#unit()})
+   * @param parameters the parameters in that unit whose values the metric may carry (its {@code
+   *     parameter} label values), in catalogue order
+   * @param metric the metric
+   */
+  public record PerUnit(String unit, List<Parameter> parameters, Metric metric) {}
+
+  /** Latest values: one metric per canonical unit of the catalogue, in catalogue order. */
+  public static final List<PerUnit> SAMPLE_VALUES =
+      perUnit(
+          List.of(Parameter.values()),
+          SAMPLE_VALUE_PREFIX,
+          POINT_PARAMETER,
+          "Latest value, in %s (UCUM), of %s");
+
+  /** Thresholds of the limits in force: one metric per canonical unit of the limited parameters. */
+  public static final List<PerUnit> LIMIT_THRESHOLDS =
+      perUnit(
+          List.copyOf(Parameter.limited()),
+          LIMIT_THRESHOLD_PREFIX,
+          List.of(PLANT, BLOCK, SAMPLE_POINT, PARAMETER, LEVEL, SIDE),
+          "A threshold of the limits in force now, in %s (UCUM), of %s (level NORMAL: the"
+              + " normal range's bound; AL1-AL3, SHUTDOWN: action levels; side HIGH or LOW)");
+
+  private static List<PerUnit> perUnit(
+      List<Parameter> parameters, String prefix, List<String> labels, String help) {
+    Map<String, List<Parameter>> byUnit = new LinkedHashMap<>();
+    for (Parameter p : parameters) {
+      if (!UNIT_IN_NAME.containsKey(p.unit())) {
+        throw new IllegalStateException(
+            "No metric name for the unit "
+                + p.unit()
+                + " of "
+                + p.code()
+                + ": add it to MetricNames.UNIT_IN_NAME");
+      }
+      byUnit.computeIfAbsent(p.unit(), u -> new ArrayList<>()).add(p);
+    }
+    List<PerUnit> out = new ArrayList<>();
+    byUnit.forEach(
+        (unit, ps) -> {
+          String prometheus = prefix + UNIT_IN_NAME.get(unit);
+          String codes = String.join(", ", ps.stream().map(Parameter::code).toList());
+          out.add(
+              new PerUnit(
+                  unit,
+                  List.copyOf(ps),
+                  new Metric(
+                      prometheus.replace('_', '.'),
+                      prometheus,
+                      Type.GAUGE,
+                      labels,
+                      help.formatted(unit, codes))));
+        });
+    return List.copyOf(out);
+  }
+
+  /** The metric that carries the latest values of this parameter (the one of its unit). */
+  public static Metric sampleValue(Parameter parameter) {
+    return ofUnit(SAMPLE_VALUES, parameter);
+  }
+
+  /**
+   * The metric that carries the limit thresholds of this parameter (the one of its unit).
+   *
+   * @throws IllegalArgumentException when limits are not set on the parameter
+   */
+  public static Metric limitThreshold(Parameter parameter) {
+    return ofUnit(LIMIT_THRESHOLDS, parameter);
+  }
+
+  private static Metric ofUnit(List<PerUnit> metrics, Parameter parameter) {
+    return metrics.stream()
+        .filter(m -> m.parameters().contains(parameter))
+        .findFirst()
+        .orElseThrow(() -> new IllegalArgumentException("No metric for " + parameter.code()))
+        .metric();
+  }
+
+  /** The metrics that are not split by unit. */
+  private static final List<Metric> OTHERS =
       List.of(
-          new Metric(
-              SAMPLE_VALUE,
-              "kwanta_sample_value",
-              Type.GAUGE,
-              POINT_PARAMETER,
-              "Latest value, in the parameter's canonical unit"),
           new Metric(
               SAMPLE_PH_AT_TEMPERATURE,
               "kwanta_sample_ph_at_temperature",
@@ -201,13 +309,6 @@ public final class MetricNames {
               POINT_PARAMETER,
               "1 when the instrument behind the latest value is in doubt, else 0"),
           new Metric(
-              LIMIT_THRESHOLD,
-              "kwanta_limit_threshold",
-              Type.GAUGE,
-              List.of(PLANT, BLOCK, SAMPLE_POINT, PARAMETER, LEVEL, SIDE),
-              "A threshold of the limits in force now, in the parameter's canonical unit (NORMAL:"
-                  + " the normal range's bound; AL1-AL3, SHUTDOWN: action levels)"),
-          new Metric(
               SAMPLE_PH_CALCULATED,
               "kwanta_sample_ph_calculated",
               Type.GAUGE,
@@ -223,7 +324,7 @@ public final class MetricNames {
               DIAGNOSIS_FINDING,
               "kwanta_diagnosis_finding",
               Type.GAUGE,
-              List.of(PLANT, BLOCK, SAMPLE_POINT, CODE, POINTS_AT),
+              List.of(PLANT, BLOCK, SAMPLE_POINT, REASON_CODE, POINTS_AT),
               "1 for each finding of the diagnosis over time at the point's latest minute"),
           new Metric(
               EXCURSION_DEADLINE,
@@ -280,6 +381,17 @@ public final class MetricNames {
               Type.COUNTER,
               List.of(),
               "Batches written again on the plain path after the fast path failed"));
+
+  /** The service's own metrics: the ones split by unit, then the others. */
+  public static final List<Metric> METRICS = metrics();
+
+  private static List<Metric> metrics() {
+    List<Metric> all = new ArrayList<>();
+    SAMPLE_VALUES.forEach(m -> all.add(m.metric()));
+    LIMIT_THRESHOLDS.forEach(m -> all.add(m.metric()));
+    all.addAll(OTHERS);
+    return List.copyOf(all);
+  }
 
   /** Platform metrics the dashboards and rules may use (HikariCP pool, JVM, Prometheus's own). */
   public static final List<String> PLATFORM =

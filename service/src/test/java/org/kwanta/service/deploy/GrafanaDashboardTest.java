@@ -125,7 +125,12 @@ class GrafanaDashboardTest {
     assertThat(used)
         .contains(
             "kwanta_sample_level",
-            "kwanta_sample_value",
+            "kwanta_sample_conductivity_microsiemens_per_centimetre",
+            "kwanta_sample_concentration_micrograms_per_kilogram",
+            "kwanta_sample_ph",
+            "kwanta_limit_threshold_conductivity_microsiemens_per_centimetre",
+            "kwanta_limit_threshold_concentration_micrograms_per_kilogram",
+            "kwanta_limit_threshold_ph",
             "kwanta_sample_ph_at_temperature",
             "kwanta_sample_instrument_in_doubt",
             "kwanta_diagnosis_finding",
@@ -307,9 +312,23 @@ class GrafanaDashboardTest {
     assertThat(Promtool.run(dir, "test", "rules", "level.test.yml")).contains("SUCCESS");
   }
 
+  /** The Grafana unit of each canonical unit the dashboard shows. */
+  private static final Map<String, String> GRAFANA_UNIT =
+      Map.of("uS/cm", "µS/cm", "ug/kg", "µg/kg", "[pH]", "pH", "Cel", "°C", "mV", "mV");
+
+  /** The canonical unit of each metric split by unit, by its Prometheus name. */
+  private static Map<String, String> unitOfMetric() {
+    Map<String, String> units = new TreeMap<>();
+    for (List<MetricNames.PerUnit> split :
+        List.of(MetricNames.SAMPLE_VALUES, MetricNames.LIMIT_THRESHOLDS)) {
+      split.forEach(m -> units.put(m.metric().prometheusName(), m.unit()));
+    }
+    return units;
+  }
+
   @Test
   void oneUnitPerAxisAndNoFixedLimitLines() throws Exception {
-    Map<String, String> grafanaUnit = Map.of("uS/cm", "µS/cm", "ug/kg", "µg/kg", "[pH]", "pH");
+    Map<String, String> unitOfMetric = unitOfMetric();
     Pattern parameter = Pattern.compile("parameter=\"([a-z_]+)\"");
     for (JsonNode panel : panels(dashboard(), "timeseries")) {
       String title = panel.get("title").asString();
@@ -321,9 +340,17 @@ class GrafanaDashboardTest {
       Set<String> units = new TreeSet<>();
       for (JsonNode target : panel.get("targets")) {
         String expr = target.get("expr").asString();
-        Matcher m = parameter.matcher(expr);
-        while (m.find()) {
-          units.add(grafanaUnit.get(Parameter.ofCode(m.group(1)).unit()));
+        for (String metric : PromQl.metricNames(expr)) {
+          if (unitOfMetric.containsKey(metric)) {
+            units.add(GRAFANA_UNIT.get(unitOfMetric.get(metric)));
+            // a parameter matcher, if any, names a parameter of the metric's unit
+            Matcher m = parameter.matcher(expr);
+            while (m.find()) {
+              assertThat(Parameter.ofCode(m.group(1)).unit())
+                  .as(title + ": " + expr)
+                  .isEqualTo(unitOfMetric.get(metric));
+            }
+          }
         }
         if (expr.contains("kwanta_sample_ph_at_temperature")) {
           units.add("pH");
@@ -334,9 +361,38 @@ class GrafanaDashboardTest {
         assertThat(defaults.get("unit").asString()).as(title).isEqualTo(units.iterator().next());
       }
       // no limit lines of fixed numbers: the limits in force are per point, drawn from the
-      // service's kwanta_limit_threshold
+      // service's kwanta_limit_threshold_<quantity>_<unit>
       assertThat(defaults.has("thresholds")).as(title).isFalse();
     }
+  }
+
+  @Test
+  void currentStateShowsTheLatestValuesOneColumnPerUnitEachWithItsUnit() throws Exception {
+    Map<String, String> unitOfMetric = unitOfMetric();
+    JsonNode panel = panel(dashboard(), "Current state");
+    JsonNode renamed = panel.get("transformations").get(1).get("options").get("renameByName");
+    Map<String, String> columnUnit = new TreeMap<>();
+    for (JsonNode override : panel.get("fieldConfig").get("overrides")) {
+      for (JsonNode property : override.get("properties")) {
+        if (property.get("id").asString().equals("unit")) {
+          columnUnit.put(
+              override.get("matcher").get("options").asString(), property.get("value").asString());
+        }
+      }
+    }
+    Set<String> shown = new TreeSet<>();
+    for (JsonNode target : panel.get("targets")) {
+      for (String metric : PromQl.metricNames(target.get("expr").asString())) {
+        if (unitOfMetric.containsKey(metric)) {
+          String unit = GRAFANA_UNIT.get(unitOfMetric.get(metric));
+          String column = renamed.get("Value #" + target.get("refId").asString()).asString();
+          assertThat(column).as(metric).isEqualTo("value " + unit);
+          assertThat(columnUnit.get(column)).as(column).isEqualTo(unit);
+          shown.add(unitOfMetric.get(metric));
+        }
+      }
+    }
+    assertThat(shown).contains("uS/cm", "ug/kg", "[pH]");
   }
 
   @Test
@@ -353,7 +409,8 @@ class GrafanaDashboardTest {
       boolean hasLimits = false;
       for (JsonNode t : panel(dashboard, e.getKey()).get("targets")) {
         String expr = t.get("expr").asString();
-        if (expr.startsWith("kwanta_limit_threshold{")) {
+        Parameter parameter = Parameter.ofCode(e.getValue());
+        if (expr.startsWith(MetricNames.limitThreshold(parameter).prometheusName() + "{")) {
           hasLimits = true;
           assertThat(expr).as(e.getKey()).contains("parameter=\"" + e.getValue() + "\"");
         }
@@ -364,7 +421,7 @@ class GrafanaDashboardTest {
         panel(dashboard, "pH at 25 °C: measured and calculated from the conductivities")
             .get("targets")
             .toString();
-    assertThat(ph).contains("kwanta_sample_value{").contains("kwanta_sample_ph_calculated{");
+    assertThat(ph).contains("kwanta_sample_ph{").contains("kwanta_sample_ph_calculated{");
     assertThat(
             panel(dashboard, "pH at operating temperature and neutral pH")
                 .get("targets")
@@ -380,7 +437,7 @@ class GrafanaDashboardTest {
         .startsWith("kwanta_diagnosis_finding{")
         .endsWith("== 1");
     JsonNode excluded = panel.get("transformations").get(0).get("options").get("excludeByName");
-    for (String label : List.of("sample_point", "code", "points_at")) {
+    for (String label : List.of("sample_point", "reason_code", "points_at")) {
       assertThat(excluded.has(label)).as(label).isFalse();
     }
     assertThat(panel.get("description").asString()).contains("the plant's own procedures govern");

@@ -107,6 +107,47 @@ class PrometheusRulesTest {
   }
 
   @Test
+  void annotationsAndGroupingUseOnlyLabelsTheMetricsCarry() throws Exception {
+    Map<String, List<String>> labelsOf = new LinkedHashMap<>();
+    MetricNames.METRICS.forEach(m -> m.exposedNames().forEach(n -> labelsOf.put(n, m.labels())));
+    // added by the scrape (job, instance, pod) and by the rules (severity)
+    Set<String> scrape = Set.of("job", "instance", "pod", "severity");
+    Set<String> every = new HashSet<>(scrape);
+    labelsOf.values().forEach(every::addAll);
+    java.util.regex.Pattern label = java.util.regex.Pattern.compile("\\$labels\\.([a-z_]+)");
+    int checked = 0;
+    for (Map.Entry<String, JsonNode> alert : alertRules().entrySet()) {
+      Set<String> carried = new HashSet<>(scrape);
+      boolean known = true;
+      for (String metric : PromQl.metricNames(alert.getValue().get("expr").asString())) {
+        if (labelsOf.containsKey(metric)) {
+          carried.addAll(labelsOf.get(metric));
+        } else {
+          known = false; // a platform metric: its labels are not catalogued
+        }
+      }
+      if (!known) {
+        continue;
+      }
+      java.util.regex.Matcher m = label.matcher(alert.getValue().get("annotations").toString());
+      while (m.find()) {
+        assertThat(carried).as(alert.getKey()).contains(m.group(1));
+        checked++;
+      }
+    }
+    assertThat(checked).isPositive();
+    JsonNode route =
+        new YAMLMapper()
+            .readTree(Files.readString(ALERTMANAGER.resolve("alertmanager.yml")))
+            .get("route");
+    for (JsonNode groupBy : route.get("group_by")) {
+      if (!groupBy.asString().equals("alertname")) {
+        assertThat(every).as("group_by").contains(groupBy.asString());
+      }
+    }
+  }
+
+  @Test
   void everyAlertLinksItsRunbookSection() throws Exception {
     String runbook = Files.readString(ROOT.resolve("docs/runbook.md"));
     Set<String> anchors = new HashSet<>();

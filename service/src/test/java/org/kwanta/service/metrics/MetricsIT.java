@@ -53,6 +53,17 @@ class MetricsIT {
               point,
               start.plusSeconds(60L * m)));
     }
+    // one value in each of three more units, so that the split by unit shows on the scrape
+    // (invented demo values)
+    String last = start.plusSeconds(60L * 29).toString();
+    for (String[] r :
+        new String[][] {
+          {"sodium", "2", "ug/kg"}, {"ph", "9.3", "[pH]"}, {"sample_temperature", "25", "Cel"}
+        }) {
+      readings.add(
+          "{\"samplePoint\":\"%s\",\"parameter\":\"%s\",\"time\":\"%s\",\"value\":%s,\"unit\":\"%s\"}"
+              .formatted(point, r[0], last, r[1], r[2]));
+    }
     HttpResponse<String> ingest =
         http.post(
             "/api/v1/readings",
@@ -68,7 +79,22 @@ class MetricsIT {
             .formatted(tag, point);
     assertThat(scrape)
         .contains("kwanta_sample_level{" + labels + "} 2.0")
-        .contains("kwanta_sample_value{" + labels + "} 0.5")
+        .contains("kwanta_sample_conductivity_microsiemens_per_centimetre{" + labels + "} 0.5")
+        .contains(
+            "kwanta_sample_concentration_micrograms_per_kilogram{"
+                + labels.replace("cation_conductivity", "sodium")
+                + "} 2.0")
+        .contains("kwanta_sample_ph{" + labels.replace("cation_conductivity", "ph") + "} 9.3")
+        .contains(
+            "kwanta_sample_temperature_celsius{"
+                + labels.replace("cation_conductivity", "sample_temperature")
+                + "} 25.0")
+        .contains(
+            "kwanta_limit_threshold_conductivity_microsiemens_per_centimetre{block=\"U2\","
+                + "level=\"AL2\",parameter=\"cation_conductivity\",plant=\"metrics-%s\","
+                    .formatted(tag)
+                + "sample_point=\"%s\",side=\"HIGH\"}".formatted(point))
+        .doesNotContain("kwanta_sample_value{", "kwanta_limit_threshold{")
         .contains("kwanta_sample_instrument_in_doubt{" + labels + "} 0.0")
         .contains("kwanta_sample_outside_normal{" + labels + "} 0.0")
         .contains("kwanta_sample_level_held_seconds{" + labels + "}")
@@ -85,6 +111,26 @@ class MetricsIT {
       }
     }
     assertThat(MetricNames.exposedNames()).containsAll(kwanta);
+
+    // one unit per metric name: every series of a metric split by unit is of a parameter in the
+    // metric's unit
+    int split = 0;
+    for (var perUnit :
+        java.util.stream.Stream.concat(
+                MetricNames.SAMPLE_VALUES.stream(), MetricNames.LIMIT_THRESHOLDS.stream())
+            .toList()) {
+      String prefix = perUnit.metric().prometheusName() + "{";
+      for (String line : scrape.lines().filter(l -> l.startsWith(prefix)).toList()) {
+        java.util.regex.Matcher parameter =
+            java.util.regex.Pattern.compile("parameter=\"([a-z_]+)\"").matcher(line);
+        assertThat(parameter.find()).as(line).isTrue();
+        assertThat(org.kwanta.model.Parameter.ofCode(parameter.group(1)).unit())
+            .as(line)
+            .isEqualTo(perUnit.unit());
+        split++;
+      }
+    }
+    assertThat(split).isGreaterThanOrEqualTo(5);
 
     // the running excursion's deadline on the scrape is the excursions endpoint's deadline
     HttpResponse<String> excursions =

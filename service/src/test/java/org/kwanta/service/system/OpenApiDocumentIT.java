@@ -86,6 +86,54 @@ class OpenApiDocumentIT {
     return out;
   }
 
+  /**
+   * Issue 18 item 4: a path variable is named for what it holds ({@code {samplePoint}}, {@code
+   * {event}}, {@code {key}}, ...), never a bare {@code {id}}, and the document declares each one
+   * under that name; the excursion event and the API key say what their number or id is.
+   */
+  @Test
+  void pathVariablesAreNamedForWhatTheyHold() {
+    JsonNode docs = document();
+    java.util.regex.Pattern variable = java.util.regex.Pattern.compile("\\{([A-Za-z]+)}");
+    List<String> variables = new ArrayList<>();
+    forEachApiOperation(
+        docs,
+        (operation, op) -> {
+          java.util.regex.Matcher m = variable.matcher(operation);
+          while (m.find()) {
+            String name = m.group(1);
+            variables.add(name);
+            List<String> declared = new ArrayList<>();
+            op.path("parameters")
+                .forEach(
+                    p -> {
+                      if (p.get("in").asString().equals("path")) {
+                        declared.add(p.get("name").asString());
+                      }
+                    });
+            assertThat(declared).as(operation).contains(name);
+          }
+        });
+    assertThat(variables)
+        .doesNotContain("id")
+        .contains("plant", "block", "samplePoint", "parameter", "event", "key");
+    for (String path :
+        List.of(
+            "/api/v1/excursion-events/{event}",
+            "/api/v1/excursion-events/{event}/entries",
+            "/api/v1/excursion-events/{event}/excursions",
+            "/api/v1/keys/{key}")) {
+      JsonNode ops = docs.get("paths").get(path);
+      assertThat(ops).as(path).isNotNull();
+      ops.properties()
+          .forEach(
+              op ->
+                  assertThat(op.getValue().get("parameters").get(0).path("description").asString())
+                      .as(path)
+                      .isNotBlank());
+    }
+  }
+
   private static void forEachApiOperation(
       JsonNode docs, java.util.function.BiConsumer<String, JsonNode> action) {
     for (Map.Entry<String, JsonNode> path : docs.get("paths").properties()) {
