@@ -11,6 +11,12 @@ Example (service started with the README's run command, or with SPRING_DATASOURC
 database that --db names):
   python3 scripts/load/ingest_load.py --seconds 60 --concurrency 4 --db "host=127.0.0.1 port=5432 dbname=kwanta_bench user=postgres"
 
+Several instances on one database: give --base-url a comma-separated list (each instance started with the same
+SPRING_DATASOURCE_URL on its own port); the clients are spread over them in turn, the plant is declared through the
+first, and the heap figure is the first instance's. For the one-versus-two-instance figures (docs/scaling.md):
+  python3 scripts/load/ingest_load.py --base-url http://127.0.0.1:8080 --concurrency 4 ...
+  python3 scripts/load/ingest_load.py --base-url http://127.0.0.1:8080,http://127.0.0.1:8081 --concurrency 4 ...
+
 Only 127.0.0.1 / localhost targets are accepted.
 """
 import argparse
@@ -123,10 +129,13 @@ def main():
     ap.add_argument("--warmup", type=float, default=30, help="seconds of the same load sent first, not counted")
     ap.add_argument("--db", help="libpq connection string of the service's database, for the COPY baseline")
     args = ap.parse_args()
-    check_loopback(args.base_url)
+    bases = [b.strip() for b in args.base_url.split(",") if b.strip()]
+    for b in bases:
+        check_loopback(b)
 
-    admin = Client(args.base_url, args.api_key)
-    wait_ready(admin)
+    admin = Client(bases[0], args.api_key)
+    for b in bases:
+        wait_ready(Client(b, args.api_key))
     tag = uuid.uuid4().hex[:8]
     points = [f"L{tag}-{i:02d}" for i in range(args.points)]
     plant = {
@@ -151,8 +160,8 @@ def main():
     measuring = [args.warmup <= 0]
     deadline = time.monotonic() + args.warmup + args.seconds
 
-    def worker():
-        c = Client(args.base_url, args.api_key)
+    def worker(base):
+        c = Client(base, args.api_key)
         while time.monotonic() < deadline:
             with lock:
                 s = next_step[0]
@@ -177,7 +186,7 @@ def main():
     heap = {"max": 0.0}
 
     def heap_sampler():
-        c = Client(args.base_url, args.api_key)
+        c = Client(bases[0], args.api_key)
         while time.monotonic() < deadline + 1:
             try:
                 status, body = c.request("GET", "/actuator/prometheus")
@@ -191,7 +200,7 @@ def main():
                 pass
             time.sleep(1)
 
-    threads = [threading.Thread(target=worker) for _ in range(args.concurrency)]
+    threads = [threading.Thread(target=worker, args=(bases[i % len(bases)],)) for i in range(args.concurrency)]
     sampler = threading.Thread(target=heap_sampler)
     sampler.start()
     for t in threads:
@@ -207,6 +216,7 @@ def main():
     sampler.join()
     lat = sorted(done["latencies"])
     rate = done["readings"] / elapsed
+    print(f"instances: {len(bases)}")
     print(f"HTTP ingest: {done['readings']} readings in {done['batches']} batches of ~{steps_per_batch * per_step}"
           f" over {elapsed:.1f} s = {rate:,.0f} readings/s; errors {done['errors']}")
     if lat:
