@@ -16,6 +16,7 @@ class ModelBoundariesTest {
   private static final JavaClasses MODEL =
       new ClassFileImporter()
           .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
+          .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_JARS)
           .importPackages("org.kwanta.model");
 
   @Test

@@ -14,6 +14,7 @@ class ArchitectureTest {
   static final JavaClasses SERVICE =
       new ClassFileImporter()
           .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
+          .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_JARS)
           .importPackages("org.kwanta.service");
 
   @Test
