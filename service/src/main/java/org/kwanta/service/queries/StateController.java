@@ -26,14 +26,21 @@ class StateController {
   private final Clock clock;
   private final DiagnosisService diagnosis;
   private final JsonMapper mapper;
+  private final CurrentLevels levels;
 
   StateController(
-      Plants plants, States states, Clock clock, DiagnosisService diagnosis, JsonMapper mapper) {
+      Plants plants,
+      States states,
+      Clock clock,
+      DiagnosisService diagnosis,
+      JsonMapper mapper,
+      CurrentLevels levels) {
     this.plants = plants;
     this.states = states;
     this.clock = clock;
     this.diagnosis = diagnosis;
     this.mapper = mapper;
+    this.levels = levels;
   }
 
   /** A plant's latest state, sample point by sample point. */
@@ -69,8 +76,8 @@ class StateController {
   @Operation(
       summary = "Latest state of every sample point of a plant",
       description =
-          "With a weak ETag over the data (not over asOf, the ages and levelsAsOf, which count"
-              + " from the moment of the request): asked again with If-None-Match, the answer is 304"
+          "With a weak ETag over the data (not over asOf, the ages, levelsAsOf and the onset of"
+              + " a level held the whole window, which move with the clock): asked again with If-None-Match, the answer is 304"
               + " Not Modified without a body while no reading, evaluation, level, finding or limit"
               + " changed; ages then count on from the earlier answer's asOf.")
   ResponseEntity<Overview> overview(
@@ -97,7 +104,9 @@ class StateController {
                             current.get(p.id())))
                 .toList());
     // Spring answers 304 without a body when the request's If-None-Match holds this tag
-    return ResponseEntity.ok().eTag(OverviewTags.of(mapper, overview)).body(overview);
+    return ResponseEntity.ok()
+        .eTag(OverviewTags.of(mapper, overview, levels.window()))
+        .body(overview);
   }
 
   static ProblemException notFound(String what, String id) {
