@@ -89,6 +89,7 @@ export async function show(plant, caller, points, status, onLab) {
     point.dataset.ids = ids;
   }
   T.followNow($('lab-time'));
+  T.followNow($('block-since'));
   if (plant === ctx.plant && ctx.blocks) return;
   ctx.plant = plant;
   let blocks = [];
