@@ -1,6 +1,7 @@
 // Kwanta printable report: plain JavaScript over the API. Builds DOM nodes only (no HTML from strings),
 // no inline script or style, so it runs under the page's strict Content-Security-Policy.
 'use strict';
+import { unit, words, parameterName as parameter } from './dom.js';
 
 const SVG = 'http://www.w3.org/2000/svg';
 const LEVELS = ['NORMAL', 'AL1', 'AL2', 'AL3', 'SHUTDOWN'];
@@ -27,12 +28,6 @@ function utc(iso) {
   const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})/.exec(String(iso || ''));
   return m ? m[1] + ' ' + m[2] + ' UTC' : String(iso || '–');
 }
-
-/** Parameters and units in words, as on the chemist page (the API speaks codes and UCUM). */
-const PARAMETER = { ph: 'pH (25 °C)', calculated_ph_25: 'pH at 25 °C calculated', ph_at_temperature: 'pH at operating temperature' };
-const parameter = (p) => PARAMETER[p] || String(p || '').replace(/_25$/, ' at 25 °C').replace(/_/g, ' ');
-const UNIT = { 'uS/cm': 'µS/cm', 'ug/kg': 'µg/kg', '[pH]': 'pH', Cel: '°C', 'ug/L': 'µg/L' };
-const unit = (u) => UNIT[u] || u || '';
 
 function num(v, digits) {
   return v === null || v === undefined ? '–' : Number(v).toFixed(digits);
@@ -188,7 +183,7 @@ function render(r) {
   const events = $('events').tBodies[0];
   clear(events);
   if (r.events.length === 0) row(events, ['–', 'no excursion event in the period', '', '', '']);
-  for (const e of r.events) row(events, [String(e.id), e.title, e.status, e.causeCategory, e.excursions.join(', ')]);
+  for (const e of r.events) row(events, [String(e.id), e.title, words(e.status), words(e.causeCategory), e.excursions.join(', ')]);
 
   const instruments = $('instruments').tBodies[0];
   clear(instruments);
@@ -201,7 +196,7 @@ function render(r) {
   const calibration = $('calibration').tBodies[0];
   clear(calibration);
   for (const c of r.calibration) {
-    row(calibration, [c.samplePoint, parameter(c.parameter), c.kind, c.lastDone || 'never', c.nextDue || '–', c.status,
+    row(calibration, [c.samplePoint, parameter(c.parameter), words(c.kind), c.lastDone ? utc(c.lastDone) : 'never', c.nextDue ? utc(c.nextDue) : '–', words(c.status),
       { text: c.checksInPeriod, num: true }]);
   }
 
