@@ -3,14 +3,17 @@
 'use strict';
 import * as F from './fields.js';
 import * as api from './api.js';
-import { $, el, when, zone } from './dom.js';
+import { $, el, when } from './dom.js';
 import { legend } from './levels.js';
 import * as board from './board.js';
 import * as events from './events.js';
 import * as detail from './detail.js';
 import * as entry from './entry.js';
+import { switchZone } from './timeinput.js';
 
-const state = { caller: null, points: [], plant: null, open: null };
+const state = { caller: null, points: [], plant: null, open: null, board: null, refreshed: 0 };
+/** The board's refresh period, ms; the board is not asked while the tab is hidden. */
+const REFRESH = 15000;
 
 function status(text) { $('status').textContent = text || ''; $('status').dataset.kind = ''; }
 
@@ -58,9 +61,15 @@ async function refresh() {
   const plant = $('plant').value;
   if (!plant || !state.caller) return;
   reportLink(plant);
+  state.refreshed = Date.now();
   try {
-    const o = F.overview(await api.get(F.paths.overview(plant)));
+    // asked with the last answer's ETag: unchanged data comes back as 304 without a body
+    const earlier = state.board && state.board.plant === plant ? state.board : null;
+    const got = await api.getIfChanged(F.paths.overview(plant), earlier);
     if ($('plant').value !== plant) return; // another plant was chosen meanwhile
+    state.board = { ...got, plant };
+    document.body.dataset.boardAnswer = got.notModified ? 'not-modified' : 'full'; // for PageIT
+    const o = F.overview(got.notModified ? F.agedOverview(got.json, (Date.now() - got.at) / 1000) : got.json);
     state.points = o.points;
     $('overview').querySelector('tbody').replaceChildren(...board.rows(o.points, openPoint));
     $('board-summary').textContent = board.summary(o.points);
@@ -87,7 +96,7 @@ function setupZones() {
   const local = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
   const zones = local === 'UTC' ? ['UTC'] : [local, 'UTC'];
   $('tz').replaceChildren(...zones.map((z) => el('option', { value: z }, z)));
-  $('tz').addEventListener('change', () => { zone.name = $('tz').value; refresh(); detail.redraw(); });
+  $('tz').addEventListener('change', () => { switchZone($('tz').value); refresh(); detail.redraw(); });
 }
 
 $('key-form').addEventListener('submit', (e) => {
@@ -99,6 +108,7 @@ $('key-form').addEventListener('submit', (e) => {
 $('signout').addEventListener('click', () => {
   api.clearKey();
   state.caller = null;
+  state.board = null;
   showCaller();
   $('overview').querySelector('tbody').replaceChildren();
   $('board-summary').textContent = '';
@@ -126,4 +136,8 @@ async function start() {
 $('legend').replaceChildren(legend());
 setupZones();
 start();
-setInterval(() => { if (state.caller) refresh(); }, 15000);
+// every 15 s while the tab is shown; a hidden tab asks nothing, and is brought up to date when shown again
+setInterval(() => { if (state.caller && document.visibilityState === 'visible') refresh(); }, REFRESH);
+document.addEventListener('visibilitychange', () => {
+  if (document.visibilityState === 'visible' && state.caller && Date.now() - state.refreshed >= REFRESH) refresh();
+});

@@ -127,6 +127,6 @@ export function summary(points) {
   const doubt = points.filter((p) => p.levels.some((l) => l.inDoubt)).length;
   const process = points.filter((p) => p.findings.some((f) => f.pointsAt === 'process')).length;
   const parts = Object.keys(CODE).filter((l) => counts[l]).reverse().map((l) => counts[l] + ' ' + CODE[l].word);
-  return points.length + ' sample points: ' + parts.join(', ') + (doubt ? '; ' + doubt + ' with an instrument in doubt' : '')
+  return points.length + (points.length === 1 ? ' sample point: ' : ' sample points: ') + parts.join(', ') + (doubt ? '; ' + doubt + ' with an instrument in doubt' : '')
     + (process ? '; ' + process + ' with a finding in the process' : '') + '.';
 }

@@ -66,8 +66,3 @@ const REGIME = { 'AVT(R)': 'AVT(R), all-volatile reducing', 'AVT(O)': 'AVT(O), a
 export const regimeName = (r) => REGIME[r] || String(r || '–');
 export const words = (s) => String(s || '').toLowerCase().replace(/_/g, ' ');
 
-/** A time as the value of a datetime-local input: the browser's local time, to the minute. */
-export function localInput(date) {
-  const d = new Date(date.getTime() - date.getTimezoneOffset() * 60000);
-  return d.toISOString().slice(0, 16);
-}

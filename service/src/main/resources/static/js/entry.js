@@ -4,7 +4,8 @@
 'use strict';
 import * as E from './entryfields.js';
 import * as api from './api.js';
-import { $, el, when, parameterName, unit, localInput } from './dom.js';
+import { $, el, when, parameterName, unit } from './dom.js';
+import * as T from './timeinput.js';
 
 /** Parameters a lab or a grab sample reports, in the order a chemist looks for them. */
 const LAB_PARAMETERS = ['cation_conductivity', 'specific_conductivity', 'degassed_cation_conductivity', 'ph', 'sodium', 'chloride',
@@ -18,17 +19,6 @@ let ctx = { plant: null, caller: null, status: () => {}, onLab: () => {}, blocks
 
 const field = (label, control, cls) => el('label', { class: cls }, label, control);
 
-/** The browser's local time of a datetime-local input as an ISO instant; now when empty. */
-function instant(value) {
-  return value ? new Date(value).toISOString() : new Date().toISOString();
-}
-/** A time field follows now until the user edits it. */
-function nowUnlessEdited(id) {
-  const f = $(id);
-  if (!f.dataset.edited) f.value = localInput(new Date());
-  if (!f.dataset.watched) { f.addEventListener('input', () => { f.dataset.edited = '1'; }); f.dataset.watched = '1'; }
-}
-
 function labForm() {
   const parameter = el('select', { id: 'lab-parameter', required: true }, LAB_PARAMETERS.map((p) => el('option', { value: p }, parameterName(p))));
   const unitSelect = el('select', { id: 'lab-unit' });
@@ -41,7 +31,7 @@ function labForm() {
       field('Sample point', el('select', { id: 'lab-point', required: true })),
       field('Parameter', parameter),
       field('Kind', el('select', { id: 'lab-source' }, el('option', { value: 'lab' }, 'lab result ●'), el('option', { value: 'grab' }, 'grab sample ◆'))),
-      field('Sampled at (browser time)', el('input', { id: 'lab-time', type: 'datetime-local', required: true })),
+      T.field('lab-time', 'Sampled at'),
       field('Value', el('input', { id: 'lab-value', type: 'number', step: 'any', min: '0', required: true, inputmode: 'decimal' }), 'num'),
       field('Unit', unitSelect),
       el('label', { class: 'check' }, el('input', { id: 'lab-below', type: 'checkbox' }), ' below the detection limit (the value is the limit) ▽'),
@@ -59,7 +49,7 @@ function blockForm() {
       el('legend', {}, 'The operating state a block entered'),
       field('Block', el('select', { id: 'block-id', required: true, onchange: () => blockHistory() })),
       field('State', el('select', { id: 'block-state' }, STATES.map(([v, w]) => el('option', { value: v }, w)))),
-      field('Since (browser time)', el('input', { id: 'block-since', type: 'datetime-local', required: true })),
+      T.field('block-since', 'Since'),
       field('Note', el('input', { id: 'block-note', maxlength: '2000', autocomplete: 'off' }), 'wide'),
       el('button', { type: 'submit' }, 'Record the state'),
       el('p', { class: 'note' }, 'Appended, never overwritten (a second entry with the same time corrects the first). '
@@ -98,7 +88,8 @@ export async function show(plant, caller, points, status, onLab) {
     if (points.some((p) => p.id === chosen)) point.value = chosen;
     point.dataset.ids = ids;
   }
-  nowUnlessEdited('lab-time');
+  T.followNow($('lab-time'));
+  T.followNow($('block-since'));
   if (plant === ctx.plant && ctx.blocks) return;
   ctx.plant = plant;
   let blocks = [];
@@ -111,7 +102,7 @@ export async function show(plant, caller, points, status, onLab) {
   if (ctx.plant !== plant) return;
   ctx.blocks = blocks;
   $('block-id').replaceChildren(...blocks.map((b) => el('option', { value: b.id }, b.id + ' – ' + b.name)));
-  nowUnlessEdited('block-since');
+  T.followNow($('block-since'));
   await blockHistory();
 }
 
@@ -142,9 +133,11 @@ async function blockHistory() {
 
 async function submitLab(e) {
   e.preventDefault();
+  const sampled = T.read($('lab-time'));
+  if (!sampled) { ctx.status('Not stored: the time sampled is not a time (see the message under it).'); return; }
   const r = {
     point: $('lab-point').value, parameter: $('lab-parameter').value, source: $('lab-source').value,
-    time: instant($('lab-time').value), value: Number($('lab-value').value), unit: $('lab-unit').value,
+    time: sampled.toISOString(), value: Number($('lab-value').value), unit: $('lab-unit').value,
     below: $('lab-below').checked, sampleId: $('lab-sample').value.trim(), method: $('lab-method').value.trim(),
   };
   try {
@@ -162,7 +155,9 @@ async function submitLab(e) {
 
 async function submitBlock(e) {
   e.preventDefault();
-  const block = $('block-id').value, state = $('block-state').value, since = instant($('block-since').value);
+  const entered = T.read($('block-since'));
+  if (!entered) { ctx.status('Not recorded: "since" is not a time (see the message under it).'); return; }
+  const block = $('block-id').value, state = $('block-state').value, since = entered.toISOString();
   const note = $('block-note').value.trim();
   try {
     await api.post(E.paths.blockStates(ctx.plant, block), E.blockStateBody(state, since, note));

@@ -91,6 +91,22 @@ export function pointState(s) {
 /** GET /plants/{plant}/overview */
 export const overview = (j) => ({ plant: j.plant, name: j.name, asOf: j.asOf, points: j.samplePoints.map(pointState) });
 
+/**
+ * An overview answered seconds ago, as of now: what a 304 Not Modified means (the API's weak ETag
+ * leaves out asOf and the ages, which count from the request). The ages count on from the page's clock.
+ */
+export function agedOverview(j, seconds) {
+  const later = (iso) => iso ? new Date(Date.parse(iso) + seconds * 1000).toISOString() : iso;
+  return {
+    ...j, asOf: later(j.asOf),
+    samplePoints: j.samplePoints.map((s) => ({
+      ...s, asOf: later(s.asOf),
+      readings: (s.readings || []).map((r) => ({ ...r, ageSeconds: r.ageSeconds + seconds })),
+      evaluation: s.evaluation ? { ...s.evaluation, ageSeconds: s.evaluation.ageSeconds + seconds } : s.evaluation,
+    })),
+  };
+}
+
 /** GET /sample-points/{samplePoint}/findings: minutes with their findings. */
 export const findingMinutes = (j) => j.minutes.map((m) => ({ time: m.time, findings: m.findings.map((f) => finding(f, false)) }));
 

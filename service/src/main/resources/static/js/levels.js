@@ -16,7 +16,7 @@ export const CODE = {
   SHUTDOWN: { glyph: '✖', word: 'SHUTDOWN', say: 'shutdown level' },
 };
 export const DOUBT = { glyph: '?', word: 'instrument in doubt', say: 'instrument in doubt, the level stands' };
-export const STALE = { glyph: '⌛', word: 'stale', say: 'no evaluation for more than 15 minutes' };
+export const STALE = { glyph: '◷', word: 'stale', say: 'no evaluation for more than 15 minutes' };
 
 /** A level badge: glyph and word visible, the full meaning for screen readers. */
 export function badge(level, inDoubt, extra) {

@@ -3,7 +3,8 @@
 'use strict';
 import * as F from './fields.js';
 import * as api from './api.js';
-import { $, el, sig, when, unit, parameterName, localInput } from './dom.js';
+import { $, el, sig, when, unit, parameterName } from './dom.js';
+import * as T from './timeinput.js';
 import { badge } from './levels.js';
 
 let ctx = null; // { p, caller, status, now: [profiles] }
@@ -50,25 +51,33 @@ export async function open(p, caller, status) {
   if (!may) return;
   $('limit-parameter').replaceChildren(...ctx.now.map((l) => el('option', { value: l.parameter }, parameterName(l.parameter))));
   fillForm();
-  const now = new Date();
-  $('limit-from').value = localInput(now);
-  $('limit-from').dataset.now = $('limit-from').value; // left as it is: in force from the moment of saving
-  if (!caller.backdateLimits) $('limit-from').min = localInput(now);
-  else $('limit-from').removeAttribute('min');
+  T.reset($('limit-from')); // left as it is: in force from the moment of saving
   $('limit-note').textContent = caller.backdateLimits
     ? 'An admin key may set a past time: that corrects the record and is kept with its reason.'
     : 'From now or a later time (a planned change). Earlier values stay judged by the limits in force then.';
 }
 
+$('limit-from-slot').replaceWith(T.field('limit-from', 'In force from'));
 $('limit-parameter').addEventListener('change', fillForm);
 $('limit-form').addEventListener('submit', async (e) => {
   e.preventDefault();
   const l = ctx.now.find((x) => x.parameter === $('limit-parameter').value);
   const val = (id) => { const s = $(id).value.trim(); return s === '' ? null : Number(s); };
   const reason = $('limit-reason').value.trim();
-  // the time left as proposed (or emptied) means now: the API takes the moment of saving
-  const chosen = $('limit-from').value;
-  const effective = !chosen || chosen === $('limit-from').dataset.now ? null : new Date(chosen).toISOString();
+  // the time left as proposed means now: the API takes the moment of saving
+  const from = $('limit-from');
+  let effective = null;
+  if (from.dataset.edited) {
+    const chosen = T.read(from);
+    if (!chosen) { ctx.status('Not recorded: "in force from" is not a time (see the message under it).'); return; }
+    const thisMinute = T.format(chosen) === T.format(new Date());
+    if (!ctx.caller.backdateLimits && !thisMinute && chosen.getTime() < Date.now()) {
+      T.showError(from, 'A past time needs an admin key: limits in force from now or later (' + T.format(new Date()) + ' or after).');
+      from.focus();
+      return;
+    }
+    effective = thisMinute ? null : chosen.toISOString(); // the minute now: from the moment of saving
+  }
   const body = F.limitsBody(l, val('limit-normal-low'), val('limit-normal-high'),
     l.thresholds.map((t, i) => ({ level: t.level, side: t.side, value: val('limit-thr-' + i) })).filter((t) => t.value !== null),
     'plant procedure: ' + reason);

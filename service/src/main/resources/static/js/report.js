@@ -1,6 +1,7 @@
 // Kwanta printable report: plain JavaScript over the API. Builds DOM nodes only (no HTML from strings),
 // no inline script or style, so it runs under the page's strict Content-Security-Policy.
 'use strict';
+import { unit, words, parameterName as parameter } from './dom.js';
 
 const SVG = 'http://www.w3.org/2000/svg';
 const LEVELS = ['NORMAL', 'AL1', 'AL2', 'AL3', 'SHUTDOWN'];
@@ -20,6 +21,12 @@ function svg(tag, attrs) {
   const e = document.createElementNS(SVG, tag);
   for (const [k, v] of Object.entries(attrs || {})) e.setAttribute(k, String(v));
   return e;
+}
+
+/** An instant of the API (ISO, UTC) as the page writes times: 2026-12-03 06:47 UTC (24-hour). */
+function utc(iso) {
+  const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})/.exec(String(iso || ''));
+  return m ? m[1] + ' ' + m[2] + ' UTC' : String(iso || '–');
 }
 
 function num(v, digits) {
@@ -65,7 +72,7 @@ function bars(channels) {
     // the hours per level in words too: nothing is told by colour or hover alone
     const parts = LEVELS.filter((l) => (c.hoursByLevel[l] || 0) > 0)
       .map((l) => GLYPH[l] + ' ' + l.replace('_', ' ').toLowerCase().replace(/^al/, 'AL').replace('shutdown', 'SHUTDOWN') + ' ' + num(c.hoursByLevel[l], 1) + ' h');
-    const label = el('div', c.samplePoint + ' · ' + c.parameter + ' (' + num(c.hoursInService, 1) + ' h in service: '
+    const label = el('div', c.samplePoint + ' · ' + parameter(c.parameter) + ' (' + num(c.hoursInService, 1) + ' h in service: '
       + parts.join(' · ') + ')', 'small');
     box.appendChild(label);
     const s = svg('svg', { width, height: 18, viewBox: '0 0 ' + width + ' 18', role: 'img', 'aria-label': label.textContent });
@@ -95,7 +102,7 @@ async function trend(report, c) {
   ]);
   const points = (series.buckets || []).map((b) => [Date.parse(b.start), b.max])
     .concat((series.points || []).filter((p) => p.value !== null).map((p) => [Date.parse(p.time), p.value]));
-  box.appendChild(el('h3', c.samplePoint + ' · ' + c.parameter + ' (' + (series.unit || '') + '), bucket maximum'));
+  box.appendChild(el('h3', c.samplePoint + ' · ' + parameter(c.parameter) + ' (' + unit(series.unit) + '), bucket maximum'));
   if (points.length === 0) {
     box.appendChild(el('p', 'No data in the period.', 'small'));
     return;
@@ -112,7 +119,7 @@ async function trend(report, c) {
   vmax = vmax > 0 ? vmax * 1.1 : 1;
   const x = (t) => L + ((W - L - 5) * (t - t0)) / Math.max(1, t1 - t0);
   const y = (v) => H - B - ((H - B - 5) * v) / vmax;
-  const s = svg('svg', { width: W, height: H, viewBox: '0 0 ' + W + ' ' + H, role: 'img', 'aria-label': 'trend of ' + c.samplePoint + ' ' + c.parameter });
+  const s = svg('svg', { width: W, height: H, viewBox: '0 0 ' + W + ' ' + H, role: 'img', 'aria-label': 'trend of ' + c.samplePoint + ' ' + parameter(c.parameter) });
   s.appendChild(svg('line', { x1: L, y1: H - B, x2: W, y2: H - B, stroke: '#333' }));
   s.appendChild(svg('line', { x1: L, y1: 0, x2: L, y2: H - B, stroke: '#333' }));
   const top = svg('text', { x: 2, y: 12, class: 'axis' });
@@ -148,7 +155,8 @@ async function trend(report, c) {
 function render(r) {
   $('title').textContent = 'Chemistry report: ' + r.plantName + ' (' + r.plant + ')';
   $('period').textContent = (r.period === 'month' ? 'Month ' : 'Year ') + r.label + ' (UTC), '
-    + r.from + ' to ' + r.to + (r.asOf !== r.to ? ', figures up to ' + r.asOf : '') + '. Hours: ' + r.counting + '.';
+    + utc(r.from) + ' to ' + utc(r.to) + (r.asOf !== r.to ? ', figures up to ' + utc(r.asOf) : '') + '. '
+    + (r.counting || '').replace('IN_SERVICE time', 'time in service').replace(/^./, (c) => c.toUpperCase()) + '.';
   $('advisory').textContent = r.advisory;
   $('index').textContent = num(r.index.value, 2) + ' / 100  (chemistry ' + pct(r.index.chemistryScore)
     + ', availability ' + pct(r.index.availabilityScore) + ')';
@@ -166,7 +174,7 @@ function render(r) {
   const channels = $('channels').tBodies[0];
   clear(channels);
   for (const c of r.channels) {
-    row(channels, [c.samplePoint, c.parameter, { text: num(c.hoursInService, 2), num: true }]
+    row(channels, [c.samplePoint, parameter(c.parameter), { text: num(c.hoursInService, 2), num: true }]
       .concat(LEVELS.map((l) => ({ text: num(c.hoursByLevel[l] || 0, 2), num: true })))
       .concat([{ text: num(c.penalty, 5), num: true }]));
   }
@@ -175,12 +183,12 @@ function render(r) {
   const events = $('events').tBodies[0];
   clear(events);
   if (r.events.length === 0) row(events, ['–', 'no excursion event in the period', '', '', '']);
-  for (const e of r.events) row(events, [String(e.id), e.title, e.status, e.causeCategory, e.excursions.join(', ')]);
+  for (const e of r.events) row(events, [String(e.id), e.title, words(e.status), words(e.causeCategory), e.excursions.join(', ')]);
 
   const instruments = $('instruments').tBodies[0];
   clear(instruments);
   for (const i of r.instruments) {
-    row(instruments, [i.samplePoint, i.parameter, { text: i.slotsInService, num: true },
+    row(instruments, [i.samplePoint, parameter(i.parameter), { text: i.slotsInService, num: true },
       { text: i.slotsWithData, num: true }, { text: i.slotsGood, num: true },
       { text: pct(i.availability), num: true }, { text: pct(i.completeness), num: true }]);
   }
@@ -188,7 +196,7 @@ function render(r) {
   const calibration = $('calibration').tBodies[0];
   clear(calibration);
   for (const c of r.calibration) {
-    row(calibration, [c.samplePoint, c.parameter, c.kind, c.lastDone || 'never', c.nextDue || '–', c.status,
+    row(calibration, [c.samplePoint, parameter(c.parameter), words(c.kind), c.lastDone ? utc(c.lastDone) : 'never', c.nextDue ? utc(c.nextDue) : '–', words(c.status),
       { text: c.checksInPeriod, num: true }]);
   }
 
@@ -200,7 +208,7 @@ function render(r) {
   const grabs = $('grabs').tBodies[0];
   clear(grabs);
   for (const c of g.comparisons) {
-    row(grabs, [c.samplePoint, c.parameter, c.grabTime, c.grab + ' ' + c.unit,
+    row(grabs, [c.samplePoint, parameter(c.parameter), utc(c.grabTime), c.grab + ' ' + unit(c.unit),
       { text: c.onlineValue, num: true }, { text: c.deviation.toPrecision(3), num: true },
       { text: '± ' + c.tolerance, num: true }, c.verdict]);
   }
@@ -228,8 +236,10 @@ async function load() {
     clear($('trends'));
     const worst = r.channels.slice().sort((a, b) => b.penalty - a.penalty).slice(0, 3);
     for (const c of worst) await trend(r, c);
+    document.body.dataset.loaded = 'report'; // for PageIT
   } catch (e) {
     $('status').textContent = 'Could not load the report (' + e.message + '). A read key may be needed.';
+    document.body.dataset.loaded = 'failed';
   }
 }
 

@@ -57,6 +57,11 @@ class CurrentLevels {
     this.window = window;
   }
 
+  /** How far back the levels are classified: a level held longer shows its onset capped here. */
+  Duration window() {
+    return window;
+  }
+
   /** The levels of the parameters with limits and readings in the window, by parameter code. */
   List<LevelState> of(String samplePointId, Instant now) {
     List<LevelState> out = new ArrayList<>();

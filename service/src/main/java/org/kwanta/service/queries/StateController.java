@@ -11,9 +11,11 @@ import org.kwanta.service.diagnosis.DiagnosisService;
 import org.kwanta.service.plants.PlantDeclaration;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.ProblemException;
+import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RestController;
+import tools.jackson.databind.json.JsonMapper;
 
 @RestController
 @Tag(name = "Queries")
@@ -23,12 +25,22 @@ class StateController {
   private final States states;
   private final Clock clock;
   private final DiagnosisService diagnosis;
+  private final JsonMapper mapper;
+  private final CurrentLevels levels;
 
-  StateController(Plants plants, States states, Clock clock, DiagnosisService diagnosis) {
+  StateController(
+      Plants plants,
+      States states,
+      Clock clock,
+      DiagnosisService diagnosis,
+      JsonMapper mapper,
+      CurrentLevels levels) {
     this.plants = plants;
     this.states = states;
     this.clock = clock;
     this.diagnosis = diagnosis;
+    this.mapper = mapper;
+    this.levels = levels;
   }
 
   /** A plant's latest state, sample point by sample point. */
@@ -61,28 +73,40 @@ class StateController {
   }
 
   @GetMapping("/api/v1/plants/{plant}/overview")
-  @Operation(summary = "Latest state of every sample point of a plant")
-  Overview overview(@Parameter(example = "brackenmoor") @PathVariable("plant") String plantId) {
+  @Operation(
+      summary = "Latest state of every sample point of a plant",
+      description =
+          "With a weak ETag over the data (not over asOf, the ages, levelsAsOf and the onset of"
+              + " a level held the whole window, which move with the clock): asked again with If-None-Match, the answer is 304"
+              + " Not Modified without a body while no reading, evaluation, level, finding or limit"
+              + " changed; ages then count on from the earlier answer's asOf.")
+  ResponseEntity<Overview> overview(
+      @Parameter(example = "brackenmoor") @PathVariable("plant") String plantId) {
     PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
     Instant now = clock.instant();
     Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(plant.id());
     States.Freshness freshness = states.freshness(plant.id(), now);
-    return new Overview(
-        plant.id(),
-        plant.name(),
-        now,
-        plant.samplePoints().stream()
-            .map(
-                p ->
-                    states.cachedOf(
-                        freshness,
-                        p.id(),
-                        p.name(),
-                        p.cycleLocation(),
-                        p.treatmentRegime(),
-                        now,
-                        current.get(p.id())))
-            .toList());
+    Overview overview =
+        new Overview(
+            plant.id(),
+            plant.name(),
+            now,
+            plant.samplePoints().stream()
+                .map(
+                    p ->
+                        states.cachedOf(
+                            freshness,
+                            p.id(),
+                            p.name(),
+                            p.cycleLocation(),
+                            p.treatmentRegime(),
+                            now,
+                            current.get(p.id())))
+                .toList());
+    // Spring answers 304 without a body when the request's If-None-Match holds this tag
+    return ResponseEntity.ok()
+        .eTag(OverviewTags.of(mapper, overview, levels.window()))
+        .body(overview);
   }
 
   static ProblemException notFound(String what, String id) {

@@ -345,6 +345,133 @@ class PageIT {
   }
 
   /**
+   * The time fields read 24-hour at an en-US browser (where datetime-local showed AM/PM), say their
+   * zone, start at now, and refuse a time they cannot read with a message under the field, sending
+   * nothing.
+   */
+  @Test
+  void timeFieldsRead24HourWithTheirZoneAndRefuseABadTime() throws Exception {
+    open(1440, chemistKey, "page-levels");
+    System.out.println(
+        "PageIT browser locale: "
+            + js("return new Intl.DateTimeFormat().resolvedOptions().locale")
+            + ", hour12 by default: "
+            + js(
+                "return new Intl.DateTimeFormat(undefined, { hour: 'numeric' }).resolvedOptions()"
+                    + ".hour12"));
+    wait(60).until(d -> "forms".equals(body("entry")));
+    openPoint("PL-ECO");
+    wait(60).until(d -> d.findElement(By.id("limit-form")).isDisplayed());
+    for (String id : List.of("lab-time", "block-since", "limit-from")) {
+      WebElement f = driver.findElement(By.id(id));
+      assertThat(f.getAttribute("type")).as(id).isEqualTo("text");
+      assertThat(f.getAttribute("value")).as(id).matches("\\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2}");
+      assertThat(driver.findElement(By.id(id + "-zone")).getText())
+          .as(id)
+          .startsWith("(24-hour clock, UTC");
+      // the label names the field for a screen reader, the zone describes it
+      assertThat(driver.findElement(By.cssSelector("label[for='" + id + "']")).getText())
+          .isNotBlank();
+    }
+    String forms =
+        (String)
+            js(
+                "return [...document.querySelectorAll('form')].map(f => f.innerText + ' '"
+                    + " + [...f.querySelectorAll('input')].map(i => i.value + ' ' + i.placeholder).join(' '))"
+                    + ".join(' ')");
+    assertThat(forms).doesNotContainPattern("\\b[AaPp]\\.?[Mm]\\b");
+    // a time in the en-US form is refused under the field, and nothing is stored
+    long before = labResults("PL-ECO", "sodium");
+    long states = blockStates("page-levels", "U");
+    js(
+        "const set = (id, v) => { const f = document.getElementById(id); f.value = v;"
+            + " f.dispatchEvent(new Event('change')); };"
+            + " set('lab-point', 'PL-ECO'); set('lab-parameter', 'sodium');");
+    WebElement time = driver.findElement(By.id("lab-time"));
+    time.clear();
+    time.sendKeys("12/03/2026 2:05 PM");
+    driver.findElement(By.id("lab-value")).sendKeys("3");
+    driver.findElement(By.cssSelector("#lab-form button[type=submit]")).click();
+    wait(10).until(d -> d.findElement(By.id("lab-time-error")).isDisplayed());
+    assertThat(driver.findElement(By.id("lab-time-error")).getText())
+        .contains("is not a time as YYYY-MM-DD HH:MM (24-hour clock");
+    assertThat(time.getAttribute("aria-invalid")).isEqualTo("true");
+    assertThat(driver.findElement(By.id("status")).getText()).contains("Not stored");
+    // a date that does not exist, in the block's form: refused too
+    WebElement since = driver.findElement(By.id("block-since"));
+    since.clear();
+    since.sendKeys("2026-02-30 10:00");
+    driver.findElement(By.cssSelector("#block-form button[type=submit]")).click();
+    wait(10).until(d -> d.findElement(By.id("block-since-error")).isDisplayed());
+    assertThat(driver.findElement(By.id("block-since-error")).getText())
+        .contains("2026-02-30 is not a date");
+    scrollTo("lab");
+    screenshot("entry-bad-time-1440.png");
+    Thread.sleep(1000);
+    assertThat(labResults("PL-ECO", "sodium")).as("lab results stored").isEqualTo(before);
+    assertThat(blockStates("page-levels", "U")).as("block states recorded").isEqualTo(states);
+    // corrected, the message goes and the result is stored
+    typeTime("lab-time", 5);
+    assertThat(driver.findElement(By.id("lab-time-error")).isDisplayed()).isFalse();
+    driver.findElement(By.cssSelector("#lab-form button[type=submit]")).click();
+    wait(60).until(d -> d.findElement(By.id("status")).getText().contains("Stored: lab result"));
+    assertThat(labResults("PL-ECO", "sodium")).isEqualTo(before + 1);
+  }
+
+  /** The board asked again with its ETag: 304 without a body while nothing changed. */
+  @Test
+  void theBoardAskedAgainWithItsEtagIsNotModified() throws Exception {
+    Http http = Http.admin(port);
+    HttpResponse<String> first = http.get("/api/v1/plants/page-levels/overview");
+    String tag = first.headers().firstValue("ETag").orElseThrow();
+    assertThat(tag).startsWith("W/\"");
+    HttpResponse<String> again =
+        http.get("/api/v1/plants/page-levels/overview", "If-None-Match", tag);
+    assertThat(again.statusCode()).isEqualTo(304);
+    assertThat(again.body()).isEmpty();
+    // and the page, whose next refresh sends the tag, keeps its board with the ages counted on
+    open(1440, readKey, "page-levels");
+    js(
+        "document.body.dataset.boardAnswer = ''; document.getElementById('tz').dispatchEvent(new Event('change'))");
+    wait(60).until(d -> "not-modified".equals(body("boardAnswer")));
+    assertThat(row("PL-ECO").findElement(By.cssSelector(".lvl")).getText()).contains("AL2");
+  }
+
+  /** The monthly report opens from the page's link in the same tab (the key stays in the tab). */
+  @Test
+  void theMonthlyReportOpensFromThePage() throws Exception {
+    open(1440, readKey, "page-leak");
+    driver.findElement(By.id("report-link")).click();
+    wait(60).until(d -> body("loaded") != null && !"board".equals(body("loaded")));
+    assertThat(body("loaded")).isEqualTo("report");
+    screenshot("report-1440.png");
+    driver.executeCdpCommand(
+        "Emulation.setDeviceMetricsOverride",
+        Map.of("width", 390, "height", 844, "deviceScaleFactor", 1, "mobile", true));
+    driver.navigate().refresh();
+    wait(60).until(d -> "report".equals(body("loaded")));
+    System.out.println(
+        "PageIT report at 390 px: scrollWidth "
+            + js("return document.documentElement.scrollWidth"));
+    screenshot("report-390.png");
+  }
+
+  private long blockStates(String plant, String block) throws Exception {
+    HttpResponse<String> r =
+        Http.admin(port).get("/api/v1/plants/" + plant + "/blocks/" + block + "/operating-states");
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    return JSON.readTree(r.body()).get("entries").size();
+  }
+
+  private long labResults(String point, String parameter) throws Exception {
+    HttpResponse<String> r =
+        Http.admin(port)
+            .get("/api/v1/sample-points/" + point + "/lab-results?parameter=" + parameter);
+    assertThat(r.statusCode()).as(r.body()).isEqualTo(200);
+    return JSON.readTree(r.body()).size();
+  }
+
+  /**
    * First paint on loopback: the first contentful paint of the page (sign-in form) as a new tab
    * loads it, and of three reloads with the key in the tab's session, with the time until the board
    * shows its points. Goal (issue 15): first paint within 1 s. The figures go to
@@ -404,17 +531,30 @@ class PageIT {
             + " f.dispatchEvent(new Event('input')); f.dispatchEvent(new Event('change')); };"
             + " set('lab-point', 'PL-ECO'); set('lab-parameter', 'cation_conductivity');"
             + " set('lab-source', arguments[0]);"
-            + " const d = new Date(Date.now() - arguments[1] * 60000);"
-            + " set('lab-time', new Date(d - d.getTimezoneOffset() * 60000).toISOString().slice(0, 16));"
-            + " document.getElementById('lab-below').checked = arguments[2];",
+            + " document.getElementById('lab-below').checked = arguments[1];",
         source,
-        minutesAgo,
         below);
+    typeTime("lab-time", minutesAgo);
     driver.findElement(By.id("lab-value")).sendKeys(value);
     driver.findElement(By.id("lab-sample")).sendKeys(sampleId);
     driver.findElement(By.cssSelector("#lab-form button[type=submit]")).click();
     String word = "grab".equals(source) ? "Stored: grab sample" : "Stored: lab result";
     wait(60).until(d -> d.findElement(By.id("status")).getText().contains(word));
+  }
+
+  /** Types a time minutesAgo into a time field, as YYYY-MM-DD HH:MM in the browser's zone. */
+  private void typeTime(String id, int minutesAgo) {
+    String text =
+        (String)
+            js(
+                "const d = new Date(Date.now() - arguments[0] * 60000);"
+                    + " const p = (n) => String(n).padStart(2, '0');"
+                    + " return d.getFullYear() + '-' + p(d.getMonth() + 1) + '-' + p(d.getDate())"
+                    + " + ' ' + p(d.getHours()) + ':' + p(d.getMinutes());",
+                minutesAgo);
+    WebElement field = driver.findElement(By.id(id));
+    field.clear();
+    field.sendKeys(text);
   }
 
   // ---- the browser
@@ -423,7 +563,12 @@ class PageIT {
     ChromeOptions options = new ChromeOptions();
     options.setBinary(CHROMIUM.toFile());
     options.addArguments(
-        "--headless=new", "--no-sandbox", "--disable-gpu", "--window-size=1440,1000");
+        "--headless=new",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--window-size=1440,1000",
+        "--lang=en-US"); // a 12-hour locale: the time fields must still read 24-hour
+    options.setExperimentalOption("prefs", Map.of("intl.accept_languages", "en-US"));
     LoggingPreferences logs = new LoggingPreferences();
     logs.enable(LogType.BROWSER, Level.ALL);
     options.setCapability("goog:loggingPrefs", logs);
