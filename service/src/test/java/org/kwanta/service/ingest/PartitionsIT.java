@@ -51,6 +51,33 @@ class PartitionsIT {
         .isNull();
   }
 
+  /**
+   * The planner statistics of the days being written are refreshed (the machine's PostgreSQL may
+   * run with autovacuum off, and a day's partition is new every day); days without a partition are
+   * passed over.
+   */
+  @Test
+  void theStatisticsOfTheRecentDaysAreRefreshed(@Autowired Partitions partitions) {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    Instant noon = daysAgo(240).plus(12, ChronoUnit.HOURS);
+    LocalDate day = LocalDate.ofInstant(noon, ZoneOffset.UTC);
+    assertThat(post(ReadingsIngestIT.feedwaterReadings(point, noon, 3, 20)).statusCode())
+        .isEqualTo(200);
+    List<String> analyzed = partitions.analyze(List.of(day, day.minusDays(1000)));
+    assertThat(analyzed)
+        .containsExactly("evaluation_p" + day.format(SUFFIX), "reading_p" + day.format(SUFFIX));
+    for (String partition : analyzed) {
+      assertThat(
+              jdbc.queryForObject(
+                  // -1 until analyzed (PostgreSQL 14 and later); the catalogue row is
+                  // transactional,
+                  // unlike the statistics views
+                  "SELECT reltuples > 0 FROM pg_class WHERE relname = ?", Boolean.class, partition))
+          .as(partition)
+          .isTrue();
+    }
+  }
+
   @Test
   void aDayDroppedByAnotherInstanceIsMadeAgainNotWrittenToADefaultPartition() {
     String point = TestPlants.feedwaterPoints(http, 1).get(0);
