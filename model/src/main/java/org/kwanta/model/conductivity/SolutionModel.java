@@ -289,7 +289,7 @@ public final class SolutionModel {
         pHbg = st.chargeRoot(pHbg);
         kappaBg = st.kappa(pHbg, 0);
         kappaBgIonic = ionic;
-        boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+        boolean marginal = withinMargin(kappaTarget, kappaBg, ionic);
         if (originals) {
           // the iterates so far are the original's: decide as it did
           if (kappaTarget <= kappaBg) {
@@ -324,7 +324,24 @@ public final class SolutionModel {
    * @param ionicStrength the larger of the two iterates' ionic strengths, mol/kg
    */
   private boolean farAbove(double kappaTarget, double kappaBackground, double ionicStrength) {
+    // the margin is at most 2 (γ ≥ 0), so beyond 9 times the background the answer is yes
+    // whatever the ionic strength: decided without the margin's exponential
+    if (kappaBackground > 0 && kappaTarget > 9 * kappaBackground) {
+      return true;
+    }
     return kappaTarget > kappaBackground * (1 + 4 * activityMargin(ionicStrength));
+  }
+
+  /**
+   * Whether a target lies at or below a background conductivity raised by one {@link
+   * #activityMargin}: a fit that close to the background iterates plainly.
+   */
+  private boolean withinMargin(double kappaTarget, double kappaBackground, double ionicStrength) {
+    // the margin is at most 2, so beyond 3 times the background the answer is no (as above)
+    if (kappaBackground > 0 && kappaTarget > 3 * kappaBackground) {
+      return false;
+    }
+    return kappaTarget <= kappaBackground * (1 + activityMargin(ionicStrength));
   }
 
   /**
