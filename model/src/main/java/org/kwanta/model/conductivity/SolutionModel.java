@@ -32,7 +32,10 @@ import org.kwanta.model.water.WaterState;
  * above the background (the other solutes alone), the background of an earlier iterate is kept
  * rather than solved again. The stopping rules are those of the original nested Brent searches (pH
  * to 1e-13, I to 1e-10 relative), so results agree with them to numerical noise; where a Newton
- * search does not converge, the original Brent search is run instead.
+ * search does not converge, the original Brent search is run instead. The species at a root reached
+ * by a last Newton step (below 1e-9 pH) are stepped there from the last trial pH to first order
+ * rather than computed again ({@code State.stepTo}): the same sums to rounding, one exponential
+ * less.
  */
 public final class SolutionModel {
 
