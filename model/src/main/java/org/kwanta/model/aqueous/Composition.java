@@ -43,9 +43,10 @@ public record Composition(Map<Component, Double> totals) {
       if (c == null) {
         throw new IllegalArgumentException("null component");
       }
-      double m = TOTAL_MOLALITY_RANGE.check(totals.get(c));
-      if (m > 0) {
-        copy.put(c, m);
+      Double total = totals.get(c);
+      // the checked value is the given one: keep its box rather than box it again
+      if (TOTAL_MOLALITY_RANGE.check(total) > 0) {
+        copy.put(c, total);
       }
     }
     totals = Collections.unmodifiableMap(copy);

@@ -254,7 +254,7 @@ public final class Speciation {
    */
   static double[] carried(ConstantsAtState k, SpeciationOptions options) {
     double[] all = k.associationK();
-    if (options.associations().size() == Association.values().length) {
+    if (options.associations().size() == all.length) {
       return all;
     }
     double[] chosen = new double[all.length];

@@ -32,7 +32,10 @@ import org.kwanta.model.water.WaterState;
  * above the background (the other solutes alone), the background of an earlier iterate is kept
  * rather than solved again. The stopping rules are those of the original nested Brent searches (pH
  * to 1e-13, I to 1e-10 relative), so results agree with them to numerical noise; where a Newton
- * search does not converge, the original Brent search is run instead.
+ * search does not converge, the original Brent search is run instead. The species at a root reached
+ * by a last Newton step (below 1e-9 pH) are stepped there from the last trial pH to first order
+ * rather than computed again ({@code State.stepTo}): the same sums to rounding, one exponential
+ * less.
  */
 public final class SolutionModel {
 
@@ -289,7 +292,7 @@ public final class SolutionModel {
         pHbg = st.chargeRoot(pHbg);
         kappaBg = st.kappa(pHbg, 0);
         kappaBgIonic = ionic;
-        boolean marginal = kappaTarget <= kappaBg * (1 + activityMargin(ionic));
+        boolean marginal = withinMargin(kappaTarget, kappaBg, ionic);
         if (originals) {
           // the iterates so far are the original's: decide as it did
           if (kappaTarget <= kappaBg) {
@@ -324,7 +327,24 @@ public final class SolutionModel {
    * @param ionicStrength the larger of the two iterates' ionic strengths, mol/kg
    */
   private boolean farAbove(double kappaTarget, double kappaBackground, double ionicStrength) {
+    // the margin is at most 2 (γ ≥ 0), so beyond 9 times the background the answer is yes
+    // whatever the ionic strength: decided without the margin's exponential
+    if (kappaBackground > 0 && kappaTarget > 9 * kappaBackground) {
+      return true;
+    }
     return kappaTarget > kappaBackground * (1 + 4 * activityMargin(ionicStrength));
+  }
+
+  /**
+   * Whether a target lies at or below a background conductivity raised by one {@link
+   * #activityMargin}: a fit that close to the background iterates plainly.
+   */
+  private boolean withinMargin(double kappaTarget, double kappaBackground, double ionicStrength) {
+    // the margin is at most 2, so beyond 3 times the background the answer is no (as above)
+    if (kappaBackground > 0 && kappaTarget > 3 * kappaBackground) {
+      return false;
+    }
+    return kappaTarget <= kappaBackground * (1 + activityMargin(ionicStrength));
   }
 
   /**
@@ -447,6 +467,12 @@ public final class SolutionModel {
     double inverseG1 = 1;
     double lastPh = Double.NaN;
 
+    /**
+     * Whether the pH derivatives (suffix L) belong to {@link #lastPh}; false after {@link #stepTo},
+     * which moves only the sums themselves.
+     */
+    boolean slopesCurrent;
+
     // at the current activity coefficients: Kw/γ₁, and the cumulative acid constants over the
     // activity coefficients of their anions (carbonic K1/γ₁, K1K2/γ₂; phosphoric up to K1K2K3/γ₃)
     double kwPerG1 = kw;
@@ -537,10 +563,46 @@ public final class SolutionModel {
       lastPh = Double.NaN;
     }
 
+    /** Sets the sums at a trial pH (kept when the pH is the last one). */
     void at(double pH) {
       if (pH == lastPh) {
         return;
       }
+      compute(pH);
+    }
+
+    /** {@link #at}, with the pH derivatives of the sums current too (for a Newton step). */
+    private void atWithSlopes(double pH) {
+      if (pH == lastPh && slopesCurrent) {
+        return;
+      }
+      compute(pH);
+    }
+
+    /**
+     * Moves the sums from {@link #lastPh} to a pH a converged Newton step away (at most {@link
+     * #NEWTON_LAST_STEP}), to first order in ln a(H⁺): S + S_L·Δln a(H⁺). The second-order term is
+     * below ½·|S_LL|·(ln 10·1e-9)² ≈ 3e-18·S, under half an ulp of S, so the sums agree with those
+     * computed afresh to rounding, and the root's species cost no further exponential. The pH
+     * derivatives are left as they were (first-order stale): a Newton step from here recomputes.
+     */
+    void stepTo(double pH) {
+      double dL = -LN10 * (pH - lastPh);
+      mH += mH * dL;
+      mOH -= mOH * dL;
+      q += qL * dL;
+      a += aL * dL;
+      b += bL * dL;
+      c += cL * dL;
+      zu += zuL * dL;
+      au += auL * dL;
+      bu += buL * dL;
+      cu += cuL * dL;
+      lastPh = pH;
+      slopesCurrent = false;
+    }
+
+    private void compute(double pH) {
       double aH = Math.exp(-LN10 * pH);
       double inverseAH = 1 / aH;
       mH = aH * inverseG1;
@@ -563,6 +625,7 @@ public final class SolutionModel {
         phosphoric(inverseAH);
       }
       lastPh = pH;
+      slopesCurrent = true;
     }
 
     /** Adds the unit sums of weak group k times its amount; keeps them when k is the unknown. */
@@ -689,7 +752,7 @@ public final class SolutionModel {
 
     /** Sets f and df to the charge balance of n and its pH derivative. */
     void evalCharge(double pH) {
-      at(pH);
+      atWithSlopes(pH);
       f = q;
       df = -LN10 * qL;
     }
@@ -699,7 +762,7 @@ public final class SolutionModel {
      * unknown that balances n at pH), and df to its pH derivative.
      */
     void evalKappa(double pH, double target) {
-      at(pH);
+      atWithSlopes(pH);
       double inverseZu = 1 / zu;
       double x = -q * inverseZu;
       double xL = -(qL + x * zuL) * inverseZu;
@@ -815,7 +878,15 @@ public final class SolutionModel {
         if (Math.abs(f / df) <= NEWTON_LAST_STEP && (next - neg) * (next - pos) <= 0) {
           // converged: the step is below the tolerance (possibly below one ulp of x); when it
           // is far below, x itself is as good a root and the species are already computed there
-          return trusted(Math.abs(f / df) <= NEGLIGIBLE_STEP ? x : next, lo, hi);
+          if (Math.abs(f / df) <= NEGLIGIBLE_STEP) {
+            return trusted(x, lo, hi);
+          }
+          double root = trusted(next, lo, hi);
+          if (!Double.isNaN(root)) {
+            // the caller reads the species at the root: step the sums there from x
+            stepTo(root);
+          }
+          return root;
         }
         boolean useNewton =
             df != 0

@@ -445,6 +445,8 @@ final class Checks {
     boolean degassedRising;
     double degassedRise;
     boolean tracking;
+
+    /** CACE against SC; NaN when not needed (no cation rise with flat sodium). */
     double correlation = Double.NaN;
 
     static Trends of(Snapshot s, Map<Parameter, Reading> usable, CheckSettings cs, Tolerances tol) {
@@ -478,7 +480,9 @@ final class Checks {
           usable.containsKey(Parameter.SPECIFIC_CONDUCTIVITY)
               ? s.readings(Parameter.SPECIFIC_CONDUCTIVITY)
               : List.of();
-      if (t.hasCationTrend && sc.size() >= MIN_TREND_READINGS) {
+      // tracking only matters for an exhausted column (a cation rise with flat sodium), so the
+      // correlation, a pass over both histories, is computed only then
+      if (t.hasCationTrend && t.cationRising && t.sodiumFlat && sc.size() >= MIN_TREND_READINGS) {
         t.correlation = correlation(c, sc);
         t.tracking = t.correlation >= cs.trackingCorrelation();
       }

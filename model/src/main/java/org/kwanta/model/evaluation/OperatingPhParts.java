@@ -2,7 +2,6 @@ package org.kwanta.model.evaluation;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.kwanta.model.Parameter;
 import org.kwanta.model.aqueous.Composition;
 import org.kwanta.model.aqueous.PhSolution;
@@ -34,29 +33,17 @@ final class OperatingPhParts {
     if (shifts.length == 0) {
       return Part.notApplicable(Kind.INSTRUMENT_TOLERANCES, "no conductivity channel");
     }
+    ToleranceTexts texts = ToleranceTexts.of(tol);
     List<Contribution> contributions = new ArrayList<>(shifts.length);
     double sum = 0;
     for (int i = 0; i < shifts.length; i++) {
       Parameter p = channels.get(i);
       double d = Math.abs(shifts[i]);
       sum += d * d;
-      contributions.add(
-          new Contribution(
-              p.name().toLowerCase(Locale.ROOT),
-              d,
-              p == Parameter.SPECIFIC_CONDUCTIVITY
-                  ? "±"
-                      + rounded(tol.specificConductivityRelative() * 100)
-                      + " % of the 25 °C value"
-                  : "±" + rounded(tol.cationConductivityAbsolute()) + " µS/cm"));
+      contributions.add(new Contribution(ToleranceTexts.channelName(p), d, texts.channel(p)));
     }
     return Part.symmetric(
         Kind.INSTRUMENT_TOLERANCES, Math.sqrt(sum), INSTRUMENT_BASIS, contributions);
-  }
-
-  /** A tolerance as shown to the reader: 1e-6 resolution, so 0.07·100 reads 7.0. */
-  private static double rounded(double x) {
-    return Math.round(x * 1e6) / 1e6;
   }
 
   /** What part (d) did. */
@@ -96,7 +83,7 @@ final class OperatingPhParts {
       if (!Double.isNaN(shifted)) {
         contributions.add(
             PhUncertainties.shifted(
-                "temperature", "±" + rounded(dT) + " K", shifted, central.ph()));
+                "temperature", ToleranceTexts.of(tol).temperature(), shifted, central.ph()));
       }
     }
     double rel = tol.operatingPressureRelative();
@@ -108,7 +95,7 @@ final class OperatingPhParts {
       if (!Double.isNaN(shifted)) {
         contributions.add(
             PhUncertainties.shifted(
-                "pressure", "±" + rounded(rel * 100) + " %", shifted, central.ph()));
+                "pressure", ToleranceTexts.of(tol).pressure(), shifted, central.ph()));
       }
     }
     if (contributions.isEmpty()) {
@@ -164,7 +151,7 @@ final class OperatingPhParts {
     String tolerance;
     if (Double.isNaN(p)) {
       source = "temperature";
-      tolerance = "±" + rounded(tol.operatingTemperatureK()) + " K";
+      tolerance = ToleranceTexts.of(tol).temperature();
       if (tol.operatingTemperatureK() > 0) {
         shifted =
             condensatePh(evaluator, steam, tSat - tol.operatingTemperatureK(), options, central);
@@ -176,7 +163,7 @@ final class OperatingPhParts {
     } else {
       source = "pressure";
       double rel = tol.operatingPressureRelative();
-      tolerance = "±" + rounded(rel * 100) + " % (condensation temperature follows)";
+      tolerance = ToleranceTexts.of(tol).condensatePressure();
       if (rel > 0) {
         shifted =
             condensatePh(
