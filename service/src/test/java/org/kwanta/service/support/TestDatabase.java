@@ -20,9 +20,10 @@ import org.springframework.context.ConfigurableApplicationContext;
  * <ul>
  *   <li>{@code KWANTA_TEST_DATABASE_URL} set (JDBC URL; optional {@code KWANTA_TEST_DATABASE_USER},
  *       {@code KWANTA_TEST_DATABASE_PASSWORD}): that server, for example a scratch database made by
- *       {@code .ci/run};
+ *       {@code .ci/run}; when the build runs several test JVMs, each takes a database of its own on
+ *       that server ({@link #FORK_PROPERTY});
  *   <li>otherwise an embedded PostgreSQL 15 (real binaries from Maven Central) in a temporary
- *       directory.
+ *       directory, one per test JVM.
  * </ul>
  *
  * There is no fallback and no skip: without a database the tests fail (in CI and elsewhere), so a
@@ -32,6 +33,13 @@ import org.springframework.context.ConfigurableApplicationContext;
 public final class TestDatabase {
 
   public static final String URL_VARIABLE = "KWANTA_TEST_DATABASE_URL";
+
+  /**
+   * The number of this test JVM when the build runs several ({@code kwanta.test.fork}, set by the
+   * failsafe configuration from its fork number): with an external server each JVM then uses a
+   * database of its own, {@code <database>_f<number>}, dropped and created afresh at its start.
+   */
+  public static final String FORK_PROPERTY = "kwanta.test.fork";
 
   private static volatile TestDatabase instance;
 
@@ -69,6 +77,15 @@ public final class TestDatabase {
       String password = envOr("KWANTA_TEST_DATABASE_PASSWORD", "");
       TestDatabase db = new TestDatabase(external, user, password, "external " + external);
       db.checkReachable();
+      String fork = System.getProperty(FORK_PROPERTY, "");
+      if (!fork.isBlank()) {
+        // several test JVMs share the server: each takes a database of its own beside the given one
+        String name = databaseName(external) + "_f" + fork;
+        db.recreate(name);
+        String url = db.withDatabase(name);
+        return new TestDatabase(
+            url, user, password, "external " + url + " (test JVM " + fork + ")");
+      }
       return db;
     }
     try {
@@ -141,6 +158,16 @@ public final class TestDatabase {
       s.execute("CREATE DATABASE " + name);
     }
     return withDatabase(name);
+  }
+
+  private void recreate(String name) {
+    try (Connection c = connect();
+        Statement s = c.createStatement()) {
+      s.execute("DROP DATABASE IF EXISTS " + name + " WITH (FORCE)");
+      s.execute("CREATE DATABASE " + name);
+    } catch (SQLException e) {
+      throw new IllegalStateException("could not create the test database " + name, e);
+    }
   }
 
   public void dropDatabase(String jdbcUrl) throws SQLException {
