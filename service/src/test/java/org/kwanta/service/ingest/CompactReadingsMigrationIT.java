@@ -145,6 +145,23 @@ class CompactReadingsMigrationIT {
     }
   }
 
+  /** A parameter added to the service needs its key in a migration, or its readings fail. */
+  @Test
+  void everyParameterOfTheServiceHasAKey() throws Exception {
+    TestDatabase db = TestDatabase.get();
+    String url = db.createScratchDatabase("compactkeys");
+    try {
+      flyway(url, db, "latest").migrate();
+      try (Connection c = DriverManager.getConnection(url, db.user(), db.password());
+          Statement s = c.createStatement()) {
+        assertThat(rows(s, "SELECT code FROM reading_parameter"))
+            .containsAll(List.of(org.kwanta.model.Parameter.codeArray()));
+      }
+    } finally {
+      db.dropDatabase(url);
+    }
+  }
+
   private static List<String> rows(Statement s, String sql) throws Exception {
     List<String> out = new ArrayList<>();
     try (ResultSet rs = s.executeQuery(sql)) {
