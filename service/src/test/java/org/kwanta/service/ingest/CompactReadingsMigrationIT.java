@@ -2,6 +2,8 @@ package org.kwanta.service.ingest;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.ResultSet;
@@ -12,6 +14,8 @@ import java.util.List;
 import org.flywaydb.core.Flyway;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.support.TestDatabase;
+import org.springframework.core.io.Resource;
+import org.springframework.core.io.support.PathMatchingResourcePatternResolver;
 
 /**
  * Migration V62 (compact readings) converts every stored row without loss: readings (values bit for
@@ -142,6 +146,71 @@ class CompactReadingsMigrationIT {
       }
     } finally {
       db.dropDatabase(url);
+    }
+  }
+
+  /**
+   * A database migrated before V62 existed already holds V68: the service applies V62 out of order
+   * ({@code spring.flyway.out-of-order}, application.yaml) and converts its readings.
+   */
+  @Test
+  void aDatabaseAlreadyPastV62sNumberIsConvertedOutOfOrder() throws Exception {
+    TestDatabase db = TestDatabase.get();
+    String url = db.createScratchDatabase("compactlate");
+    Path before = Files.createTempDirectory("migrations-before-v62");
+    try {
+      for (Resource r :
+          new PathMatchingResourcePatternResolver().getResources("classpath*:db/migration/*.sql")) {
+        String name = r.getFilename();
+        if (!name.startsWith("V62__") && !name.startsWith("V63__")) {
+          try (var in = r.getInputStream()) {
+            Files.copy(in, before.resolve(name));
+          }
+        }
+      }
+      Flyway.configure()
+          .dataSource(url, db.user(), db.password())
+          .locations("filesystem:" + before)
+          .load()
+          .migrate();
+      List<String> readings;
+      try (Connection c = DriverManager.getConnection(url, db.user(), db.password());
+          Statement s = c.createStatement()) {
+        s.execute("INSERT INTO plant (id, name) VALUES ('late', 'Late test plant (invented)')");
+        s.execute("INSERT INTO plant_block (plant_id, id, name) VALUES ('late', 'U1', 'Unit 1')");
+        s.execute(
+            "INSERT INTO sample_point (id, plant_id, block_id, name, cycle_location,"
+                + " treatment_regime) VALUES ('L-ECO', 'late', 'U1', 'Economizer inlet',"
+                + " 'FEEDWATER', 'AVT(O)')");
+        s.execute(
+            "CREATE TABLE reading_p20261201 PARTITION OF reading FOR VALUES FROM"
+                + " ('2026-12-01 00:00:00+00') TO ('2026-12-02 00:00:00+00')");
+        s.execute(
+            """
+            INSERT INTO reading (sample_point_id, parameter, time, value, quality,
+                                 sample_temperature_cel, compensated)
+            SELECT 'L-ECO', par, t, random(), 0, NULL, true
+            FROM unnest(ARRAY['ph', 'sodium']) par,
+                 generate_series('2026-12-01 00:00+00'::timestamptz, '2026-12-01 02:00+00', '10 s') t""");
+        readings = rows(s, READINGS.formatted("reading"));
+      }
+      Flyway.configure()
+          .dataSource(url, db.user(), db.password())
+          .locations("classpath:db/migration")
+          .outOfOrder(true)
+          .load()
+          .migrate();
+      try (Connection c = DriverManager.getConnection(url, db.user(), db.password());
+          Statement s = c.createStatement()) {
+        assertThat(rows(s, READINGS.formatted("reading_named"))).isEqualTo(readings);
+        assertThat(rows(s, "SELECT version FROM flyway_schema_history WHERE success"))
+            .contains("62", "68");
+      }
+    } finally {
+      db.dropDatabase(url);
+      try (var files = Files.walk(before)) {
+        files.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+      }
     }
   }
 
