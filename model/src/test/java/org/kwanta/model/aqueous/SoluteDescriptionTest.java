@@ -35,6 +35,56 @@ class SoluteDescriptionTest {
     assertThat(Equilibrium.AMMONIUM.reaction()).isEqualTo("NH₄⁺ ⇌ NH₃ + H⁺");
   }
 
+  /**
+   * The equilibria keep the names and order they had as an enum (the API shows the names, the
+   * engine indexes arrays by the order); a weak base's step follows from its two species and is
+   * named as its acid.
+   */
+  @Test
+  void equilibriaFollowTheSpeciesChains() {
+    assertThat(java.util.Arrays.stream(Equilibrium.values()).map(Equilibrium::name))
+        .containsExactly(
+            "AMMONIUM",
+            "MORPHOLINIUM",
+            "ETHANOLAMMONIUM",
+            "CYCLOHEXYLAMMONIUM",
+            "DIMETHYLAMMONIUM",
+            "METHOXYPROPYLAMMONIUM",
+            "DIETHYLAMINOETHANOLIUM",
+            "BISULFATE",
+            "CARBONIC_FIRST",
+            "CARBONIC_SECOND",
+            "PHOSPHORIC_FIRST",
+            "PHOSPHORIC_SECOND",
+            "PHOSPHORIC_THIRD",
+            "ACETIC",
+            "FORMIC",
+            "BORIC");
+    Equilibrium[] all = Equilibrium.values();
+    for (int i = 0; i < all.length; i++) {
+      assertThat(all[i].ordinal()).isEqualTo(i);
+    }
+    for (Component c : AlkalizerMix.alkalizers()) {
+      Equilibrium e = Equilibrium.ofWeakBase(c);
+      assertThat(c.equilibria()).containsExactly(e);
+      assertThat(e.acid()).isEqualTo(c.species().get(0));
+      assertThat(e.base()).isEqualTo(c.species().get(1));
+      assertThat(e.name()).isEqualTo(e.acid().name());
+      assertThat(e.component()).isEqualTo(c);
+    }
+    assertThat(Equilibrium.ofWeakBase(Component.AMMONIA)).isSameAs(Equilibrium.AMMONIUM);
+    assertThat(Equilibrium.ofWeakBase(Component.MORPHOLINE).reaction())
+        .isEqualTo("C₄H₉NOH⁺ ⇌ C₄H₉NO + H⁺");
+    assertThatThrownBy(() -> Equilibrium.ofWeakBase(Component.SULFATE))
+        .isInstanceOf(IllegalArgumentException.class);
+    assertThat(Component.PHOSPHATE.equilibria())
+        .containsExactly(
+            Equilibrium.PHOSPHORIC_FIRST,
+            Equilibrium.PHOSPHORIC_SECOND,
+            Equilibrium.PHOSPHORIC_THIRD);
+    assertThat(Component.SODIUM.equilibria()).isEmpty();
+  }
+
   @Test
   void everyChargedSpeciesOfAConductivityFitHasALimitingConductivity() {
     for (Species s : Species.values()) {
