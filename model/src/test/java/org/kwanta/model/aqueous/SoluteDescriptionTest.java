@@ -3,6 +3,8 @@ package org.kwanta.model.aqueous;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.util.Arrays;
+import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.conductivity.AlkalizerMix;
@@ -37,20 +39,26 @@ class SoluteDescriptionTest {
 
   /**
    * The equilibria keep the names and order they had as an enum (the API shows the names, the
-   * engine indexes arrays by the order); a weak base's step follows from its two species and is
-   * named as its acid.
+   * engine indexes arrays by the order): first the weak bases' steps, in component order, each
+   * following from its two species and named as its acid, then the acids' declared steps.
    */
   @Test
   void equilibriaFollowTheSpeciesChains() {
-    assertThat(java.util.Arrays.stream(Equilibrium.values()).map(Equilibrium::name))
-        .containsExactly(
+    List<String> names = Arrays.stream(Equilibrium.values()).map(Equilibrium::name).toList();
+    List<String> weakBases =
+        AlkalizerMix.alkalizers().stream().map(c -> c.species().get(0).name()).toList();
+    assertThat(weakBases)
+        .startsWith(
             "AMMONIUM",
             "MORPHOLINIUM",
             "ETHANOLAMMONIUM",
             "CYCLOHEXYLAMMONIUM",
             "DIMETHYLAMMONIUM",
             "METHOXYPROPYLAMMONIUM",
-            "DIETHYLAMINOETHANOLIUM",
+            "DIETHYLAMINOETHANOLIUM");
+    assertThat(names.subList(0, weakBases.size())).isEqualTo(weakBases);
+    assertThat(names.subList(weakBases.size(), names.size()))
+        .containsExactly(
             "BISULFATE",
             "CARBONIC_FIRST",
             "CARBONIC_SECOND",
