@@ -9,9 +9,8 @@ import { $, el, fmt } from './dom.js';
 const uPlot = window.uPlot;
 let ctx = null; // { p, config, status, water, chart }
 
-function waterOf(p, config) {
+function waterOf(p, config, alk) {
   const c = p.composition || {};
-  const alk = F.alkalizerComponent(config.alkalizer);
   return [
     { component: alk, label: alk.replace(/_/g, ' '), amount: c.alkalizerMgPerKg || 0, unit: 'mg/kg' },
     { component: 'chloride', label: 'chloride (acid anions as chloride)', amount: c.chlorideUgPerKg || 0, unit: 'ug/kg' },
@@ -74,14 +73,26 @@ function fields(water) {
     el('input', { type: 'number', min: '0', step: 'any', value: String(round(w.amount)), id: 'whatif-' + i, inputmode: 'decimal' })));
 }
 
+/** No curve, and why, in words (instead of a chart that could be another point's or alkalizer's). */
+function noCurve(text) {
+  if (ctx.chart) { ctx.chart.destroy(); ctx.chart = null; }
+  ctx.now = null;
+  $('curve').replaceChildren(el('p', {}, text));
+  $('curve-caption').textContent = '';
+  $('whatif').hidden = true;
+}
+
 export async function open(p, config, status) {
-  ctx = { p, config, status, chart: ctx && ctx.chart, water: waterOf(p, config) };
+  const alk = F.alkalizerComponent(config.alkalizer);
+  ctx = { p, config, status, chart: ctx && ctx.chart, water: alk ? waterOf(p, config, alk) : [] };
   $('whatif-fields').replaceChildren(...fields(ctx.water));
+  if (!alk) {
+    noCurve('The curve is not available: this point names no alkalizer ('
+      + (config.alkalizer ? '\u201c' + config.alkalizer + '\u201d' : 'none given') + ') the speciation knows.');
+    return;
+  }
   if (!p.composition || !(config.temperatureCel > 25)) {
-    if (ctx.chart) { ctx.chart.destroy(); ctx.chart = null; }
-    $('curve').replaceChildren(el('p', {}, p.composition ? 'This point is sampled at 25 °C: no curve to draw.' : 'No evaluated water yet.'));
-    $('curve-caption').textContent = '';
-    $('whatif').hidden = true;
+    noCurve(p.composition ? 'This point is sampled at 25 °C: no curve to draw.' : 'No evaluated water yet.');
     return;
   }
   $('whatif').hidden = false;
@@ -89,6 +100,7 @@ export async function open(p, config, status) {
     ctx.now = await fetchCurve(ctx.water);
     draw(ctx.now, null);
   } catch (e) {
+    noCurve('The curve is not available for this point (' + e.message + ').');
     status('Could not compute the curve (' + e.message + ').');
   }
 }

@@ -191,9 +191,16 @@ export const eventBody = (title, cause, note, xs) => ({
 /** POST /excursion-events/{event}/entries */
 export const entryBody = (status, cause, note) => ({ status: status || null, causeCategory: cause || null, note });
 
-/** The speciation components for a point's composition (names of the speciation API). */
-const ALKALIZER_COMPONENT = { AMMONIA: 'ammonia', MORPHOLINE: 'morpholine', ETHANOLAMINE: 'ethanolamine', CYCLOHEXYLAMINE: 'cyclohexylamine', DIMETHYLAMINE: 'dimethylamine', METHOXYPROPYLAMINE: 'methoxypropylamine', DIETHYLAMINOETHANOL: 'diethylaminoethanol' };
-export const alkalizerComponent = (alkalizer) => ALKALIZER_COMPONENT[String(alkalizer || 'AMMONIA').toUpperCase()] || 'ammonia';
+/**
+ * The speciation component of a point's alkalizer. The point's alkalizer is the name of a weak-base
+ * component (the service checks it when the plant is declared), and the speciation API names the
+ * same component in lower case, so no list is kept here. Null when the point gives no usable name:
+ * the caller says the curve is not available rather than drawing another alkalizer's curve.
+ */
+export const alkalizerComponent = (alkalizer) => {
+  const name = typeof alkalizer === 'string' ? alkalizer.trim() : '';
+  return /^[A-Za-z][A-Za-z0-9_]*$/.test(name) ? name.toLowerCase() : null;
+};
 
 /** POST /chemistry/speciation/curve: water in (component, amount, unit) triples. */
 export function curveBody(water, fromCel, toCel, stepCel, pressureMPa) {

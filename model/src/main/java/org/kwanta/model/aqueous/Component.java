@@ -12,7 +12,7 @@ import java.util.Map;
  * by the speciation and the conductivity model. Each is counted "as" one formula with its molar
  * mass (the basis for mg/kg conversions in {@link Amounts}); its {@link Species} (charge, limiting
  * conductivity) are listed from the most protonated to the least, linked by its {@link
- * Equilibrium}s.
+ * Equilibrium}s (for a weak base, the one step follows from its two species).
  *
  * <p>Molar masses are sums of the standard atomic weights in {@link Amounts}.
  */
@@ -89,12 +89,11 @@ public enum Component {
    * species i + 1 and releases one H⁺. Empty for fully dissociated ions.
    */
   public List<Equilibrium> equilibria() {
-    return Chains.EQUILIBRIA.get(this);
+    return Equilibrium.of(this);
   }
 
   private static final class Chains {
     static final Map<Component, List<Species>> SPECIES = new EnumMap<>(Component.class);
-    static final Map<Component, List<Equilibrium>> EQUILIBRIA = new EnumMap<>(Component.class);
 
     static {
       for (Component c : Component.values()) {
@@ -104,14 +103,7 @@ public enum Component {
             s.add(sp);
           }
         }
-        List<Equilibrium> e = new ArrayList<>();
-        for (Equilibrium eq : Equilibrium.values()) {
-          if (eq.component() == c) {
-            e.add(eq);
-          }
-        }
         SPECIES.put(c, List.copyOf(s));
-        EQUILIBRIA.put(c, List.copyOf(e));
       }
     }
   }

@@ -1,6 +1,6 @@
 package org.kwanta.model.aqueous;
 
-import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 
@@ -18,7 +18,7 @@ import java.util.Map;
 public record ConstantSet(String id, String description, Map<Equilibrium, List<Fit>> fits) {
 
   public ConstantSet {
-    EnumMap<Equilibrium, List<Fit>> copy = new EnumMap<>(Equilibrium.class);
+    Map<Equilibrium, List<Fit>> copy = new HashMap<>();
     for (Equilibrium e : Equilibrium.values()) {
       List<Fit> list = fits.get(e);
       if (list == null || list.isEmpty()) {
@@ -55,7 +55,7 @@ public record ConstantSet(String id, String description, Map<Equilibrium, List<F
    */
   public ConstantSet with(
       String newId, String newDescription, Map<Equilibrium, List<Fit>> replacements) {
-    EnumMap<Equilibrium, List<Fit>> m = new EnumMap<>(fits);
+    Map<Equilibrium, List<Fit>> m = new HashMap<>(fits);
     m.putAll(replacements);
     return new ConstantSet(newId, newDescription, m);
   }

@@ -2,7 +2,7 @@ package org.kwanta.model.aqueous;
 
 import static org.kwanta.model.aqueous.EquilibriumConstants.*;
 
-import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 
@@ -24,12 +24,12 @@ public final class ConstantSets {
   public static final ConstantSet DEFAULT = buildDefault();
 
   private static ConstantSet buildDefault() {
-    Map<Equilibrium, List<Fit>> m = new EnumMap<>(Equilibrium.class);
+    Map<Equilibrium, List<Fit>> m = new HashMap<>();
     // the choices, where the catalogue holds more than one fit of an equilibrium
     m.put(Equilibrium.AMMONIUM, List.of(AMMONIUM_LLNL));
-    m.put(Equilibrium.MORPHOLINIUM, List.of(MORPHOLINIUM_RIDLEY));
-    m.put(Equilibrium.ETHANOLAMMONIUM, List.of(ETHANOLAMMONIUM_RECOMMENDED));
-    m.put(Equilibrium.DIMETHYLAMMONIUM, List.of(DIMETHYLAMMONIUM_BENEZETH));
+    m.put(Equilibrium.ofWeakBase(Component.MORPHOLINE), List.of(MORPHOLINIUM_RIDLEY));
+    m.put(Equilibrium.ofWeakBase(Component.ETHANOLAMINE), List.of(ETHANOLAMMONIUM_RECOMMENDED));
+    m.put(Equilibrium.ofWeakBase(Component.DIMETHYLAMINE), List.of(DIMETHYLAMMONIUM_BENEZETH));
     m.put(Equilibrium.BISULFATE, List.of(BISULFATE_DICKSON));
     m.put(Equilibrium.CARBONIC_FIRST, List.of(CARBONIC_FIRST_PLUMMER_BUSENBERG));
     m.put(Equilibrium.CARBONIC_SECOND, List.of(CARBONIC_SECOND_PLUMMER_BUSENBERG));
@@ -86,11 +86,14 @@ public final class ConstantSets {
               AMMONIUM_BATES_PINCHING,
               "extrapolated above 50 °C"),
           one("ammonium-4", Equilibrium.AMMONIUM, AMMONIUM_EDWARDS, "to 225 °C"),
-          one("morpholinium-2", Equilibrium.MORPHOLINIUM, MORPHOLINIUM_ZERO_CP),
-          one("ethanolammonium-2", Equilibrium.ETHANOLAMMONIUM, ETHANOLAMMONIUM_ZERO_CP),
+          one("morpholinium-2", Equilibrium.ofWeakBase(Component.MORPHOLINE), MORPHOLINIUM_ZERO_CP),
+          one(
+              "ethanolammonium-2",
+              Equilibrium.ofWeakBase(Component.ETHANOLAMINE),
+              ETHANOLAMMONIUM_ZERO_CP),
           one(
               "dimethylammonium-2",
-              Equilibrium.DIMETHYLAMMONIUM,
+              Equilibrium.ofWeakBase(Component.DIMETHYLAMINE),
               DIMETHYLAMMONIUM_NIST46_ZERO_CP,
               "the old row; 25 °C data only"),
           DEFAULT.with(

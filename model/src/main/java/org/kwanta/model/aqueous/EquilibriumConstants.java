@@ -215,7 +215,7 @@ public final class EquilibriumConstants {
   public static final Fit MORPHOLINIUM_RIDLEY =
       new Fit(
           "morpholinium-1",
-          Equilibrium.MORPHOLINIUM,
+          Equilibrium.ofWeakBase(Component.MORPHOLINE),
           new ThreeTerm(-8.491, 39_000, 40),
           RIDLEY_2000,
           celsius(0, 300, RIDLEY_2000));
@@ -224,7 +224,7 @@ public final class EquilibriumConstants {
   public static final Fit MORPHOLINIUM_ZERO_CP =
       new Fit(
           "morpholinium-2",
-          Equilibrium.MORPHOLINIUM,
+          Equilibrium.ofWeakBase(Component.MORPHOLINE),
           new ThreeTerm(-8.491, 39_000, 0),
           RIDLEY_2000,
           celsius(0, 300, RIDLEY_2000));
@@ -233,7 +233,7 @@ public final class EquilibriumConstants {
   public static final Fit ETHANOLAMMONIUM_RECOMMENDED =
       new Fit(
           "ethanolammonium-1",
-          Equilibrium.ETHANOLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.ETHANOLAMINE),
           new ThreeTerm(-9.498, 50_500, 26),
           ETHANOLAMINE_RECALLED,
           celsius(0, 300, ETHANOLAMINE_RECALLED));
@@ -242,7 +242,7 @@ public final class EquilibriumConstants {
   public static final Fit ETHANOLAMMONIUM_ZERO_CP =
       new Fit(
           "ethanolammonium-2",
-          Equilibrium.ETHANOLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.ETHANOLAMINE),
           new ThreeTerm(-9.498, 50_500, 0),
           ETHANOLAMINE_RECALLED,
           celsius(0, 300, ETHANOLAMINE_RECALLED));
@@ -251,7 +251,7 @@ public final class EquilibriumConstants {
   public static final Fit CYCLOHEXYLAMMONIUM_ESTIMATE =
       new Fit(
           "cyclohexylammonium-1",
-          Equilibrium.CYCLOHEXYLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.CYCLOHEXYLAMINE),
           new ThreeTerm(-10.64, 54_600, 30),
           CYCLOHEXYLAMINE_ESTIMATE,
           celsius(0, 300, CYCLOHEXYLAMINE_ESTIMATE));
@@ -260,7 +260,7 @@ public final class EquilibriumConstants {
   public static final Fit DIMETHYLAMMONIUM_BENEZETH =
       new Fit(
           "dimethylammonium-1",
-          Equilibrium.DIMETHYLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.DIMETHYLAMINE),
           new ThreeTerm(-10.77, 50_800, 116),
           BENEZETH_2001,
           celsius(0, 290, BENEZETH_2001));
@@ -273,7 +273,7 @@ public final class EquilibriumConstants {
   public static final Fit DIMETHYLAMMONIUM_NIST46_ZERO_CP =
       new Fit(
           "dimethylammonium-2",
-          Equilibrium.DIMETHYLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.DIMETHYLAMINE),
           new ThreeTerm(-10.774, 50_208, 0),
           NIST46,
           celsius(25, 25, NIST46));
@@ -282,7 +282,7 @@ public final class EquilibriumConstants {
   public static final Fit METHOXYPROPYLAMMONIUM_ESTIMATE =
       new Fit(
           "methoxypropylammonium-1",
-          Equilibrium.METHOXYPROPYLAMMONIUM,
+          Equilibrium.ofWeakBase(Component.METHOXYPROPYLAMINE),
           new ThreeTerm(-10.4, 55_000, 30),
           METHOXYPROPYLAMINE_ESTIMATE,
           celsius(25, 25, METHOXYPROPYLAMINE_ESTIMATE));
@@ -291,7 +291,7 @@ public final class EquilibriumConstants {
   public static final Fit DIETHYLAMINOETHANOLIUM_ESTIMATE =
       new Fit(
           "diethylaminoethanolium-1",
-          Equilibrium.DIETHYLAMINOETHANOLIUM,
+          Equilibrium.ofWeakBase(Component.DIETHYLAMINOETHANOL),
           new ThreeTerm(-9.8, 44_600, 60),
           DEAE_ESTIMATE,
           celsius(0, 300, DEAE_ESTIMATE));

@@ -56,7 +56,10 @@ final class EarlyCondensate {
       SpeciationResult liquid, Composition liquidTotals, Composition steam, List<String> notes) {}
 
   /**
-   * Thrown when an amine is present and its estimated distribution constant was not opted in to.
+   * Thrown when a weak base (ammonia or an amine) is present whose distribution constant cannot be
+   * used: an amine whose estimated constant was not opted in to, or a weak base with no constant at
+   * all, which goes into the steam as its neutral molecule and so cannot be taken at its steam
+   * concentration.
    */
   static final class NoDistributionConstant extends RuntimeException {
     private static final long serialVersionUID = 1L;
@@ -64,11 +67,52 @@ final class EarlyCondensate {
     NoDistributionConstant(Component c) {
       super(
           "no published vapour-liquid distribution constant for "
-              + c.name().toLowerCase(Locale.ROOT).replace('_', ' ')
+              + name(c)
               + " retrieved; Kwanta's order-of-magnitude estimate (from memory, about a factor of"
               + " two) is off by default and is used only when opted in to"
               + " (Evaluator.withAmineDistributionEstimates(true), service setting"
               + " kwanta.evaluation.amine-distribution-estimates=true)");
+    }
+
+    private NoDistributionConstant(String message) {
+      super(message);
+    }
+
+    /** For a weak base with no distribution constant, published or estimated. */
+    static NoDistributionConstant none(Component c) {
+      return new NoDistributionConstant(
+          "no vapour-liquid distribution constant for "
+              + name(c)
+              + ", published or estimated: as a weak base it goes into the steam as its neutral"
+              + " molecule, so the liquid in equilibrium with this steam cannot be computed"
+              + " without one (taking it as non-volatile would understate it)");
+    }
+
+    private static String name(Component c) {
+      return c.name().toLowerCase(Locale.ROOT).replace('_', ' ');
+    }
+  }
+
+  /**
+   * The volatile components: those whose name is a {@link VolatileSolute}, the solutes with a
+   * distribution constant. Built once; a component missing here is taken as non-volatile unless it
+   * is a weak base, which is refused ({@link NoDistributionConstant#none}).
+   */
+  private static final Map<Component, VolatileSolute> VOLATILE = new EnumMap<>(Component.class);
+
+  /** The neutral species of each volatile component: the one that distributes into the steam. */
+  private static final Map<Component, Species> NEUTRAL = new EnumMap<>(Component.class);
+
+  static {
+    for (VolatileSolute v : VolatileSolute.values()) {
+      Component c = Component.valueOf(v.name());
+      VOLATILE.put(c, v);
+      NEUTRAL.put(
+          c,
+          c.species().stream()
+              .filter(s -> s.chargeNumber() == 0)
+              .findFirst()
+              .orElseThrow(() -> new IllegalStateException(c + " has no neutral species")));
     }
   }
 
@@ -79,7 +123,8 @@ final class EarlyCondensate {
    * @param liquidWater saturated liquid at the condensation temperature
    * @param options speciation options
    * @param amineEstimates whether the amines' estimated distribution constants may be used
-   * @throws NoDistributionConstant when an amine is present and {@code amineEstimates} is false
+   * @throws NoDistributionConstant when an amine is present and {@code amineEstimates} is false, or
+   *     a weak base with no distribution constant is present
    */
   static Result of(
       Composition steam,
@@ -103,8 +148,11 @@ final class EarlyCondensate {
     double t = liquidWater.temperatureK();
     Map<Component, DistributionConstant> kD = new EnumMap<>(Component.class);
     for (Component c : steam.totals().keySet()) {
-      VolatileSolute v = volatileSolute(c);
+      VolatileSolute v = VOLATILE.get(c);
       if (v == null) {
+        if (c.isWeakBase()) {
+          throw NoDistributionConstant.none(c);
+        }
         continue;
       }
       if (isAmine(c) && !amineEstimates) {
@@ -230,37 +278,17 @@ final class EarlyCondensate {
     return notes;
   }
 
-  static VolatileSolute volatileSolute(Component c) {
-    return switch (c) {
-      case AMMONIA -> VolatileSolute.AMMONIA;
-      case CARBON_DIOXIDE -> VolatileSolute.CARBON_DIOXIDE;
-      case MORPHOLINE -> VolatileSolute.MORPHOLINE;
-      case ETHANOLAMINE -> VolatileSolute.ETHANOLAMINE;
-      case CYCLOHEXYLAMINE -> VolatileSolute.CYCLOHEXYLAMINE;
-      case DIMETHYLAMINE -> VolatileSolute.DIMETHYLAMINE;
-      case METHOXYPROPYLAMINE -> VolatileSolute.METHOXYPROPYLAMINE;
-      case DIETHYLAMINOETHANOL -> VolatileSolute.DIETHYLAMINOETHANOL;
-      default -> null;
-    };
-  }
-
+  /** An amine: a weak base other than ammonia (its distribution constant is an estimate). */
   private static boolean isAmine(Component c) {
-    VolatileSolute v = volatileSolute(c);
-    return v != null && v != VolatileSolute.AMMONIA && v != VolatileSolute.CARBON_DIOXIDE;
+    return c.isWeakBase() && c != Component.AMMONIA;
   }
 
   /** The neutral species of a volatile component: the one that distributes into the steam. */
   private static Species neutral(Component c) {
-    return switch (c) {
-      case AMMONIA -> Species.AMMONIA;
-      case CARBON_DIOXIDE -> Species.CARBON_DIOXIDE;
-      case MORPHOLINE -> Species.MORPHOLINE;
-      case ETHANOLAMINE -> Species.ETHANOLAMINE;
-      case CYCLOHEXYLAMINE -> Species.CYCLOHEXYLAMINE;
-      case DIMETHYLAMINE -> Species.DIMETHYLAMINE;
-      case METHOXYPROPYLAMINE -> Species.METHOXYPROPYLAMINE;
-      case DIETHYLAMINOETHANOL -> Species.DIETHYLAMINOETHANOL;
-      default -> throw new IllegalArgumentException(c + " is not volatile");
-    };
+    Species s = NEUTRAL.get(c);
+    if (s == null) {
+      throw new IllegalArgumentException(c + " is not volatile");
+    }
+    return s;
   }
 }

@@ -69,12 +69,8 @@ public final class Distribution {
               AmmoniaDistribution.VALIDITY,
               !AmmoniaDistribution.VALIDITY.contains(temperatureK),
               AmmoniaDistribution.REFERENCE);
-      case MORPHOLINE,
-          ETHANOLAMINE,
-          CYCLOHEXYLAMINE,
-          DIMETHYLAMINE,
-          METHOXYPROPYLAMINE,
-          DIETHYLAMINOETHANOL ->
+      // every other solute is an amine of the estimate table
+      default ->
           new DistributionConstant(
               solute,
               temperatureK,

@@ -3,7 +3,9 @@ package org.kwanta.model.water;
 /**
  * Solutes whose vapour–liquid distribution constant between steam and water Kwanta knows. Only the
  * neutral molecule distributes; its ion (NH4⁺, HCO3⁻, a protonated amine) stays in the liquid. The
- * amines' constants are estimates ({@link AmineDistribution}).
+ * amines' constants are estimates ({@link AmineDistribution}). Each constant bears the name of its
+ * {@code aqueous.Component}: the early condensate finds a component's constant by that name, and
+ * refuses a weak base that has none.
  */
 public enum VolatileSolute {
   /** Ammonia, NH3. */

@@ -59,7 +59,9 @@ class PhUncertaintyTest {
             f.reference(),
             f.validity());
     return ConstantSets.DEFAULT.with(
-        "cha-shifted", "test", Map.of(Equilibrium.CYCLOHEXYLAMMONIUM, List.of(shifted)));
+        "cha-shifted",
+        "test",
+        Map.of(Equilibrium.ofWeakBase(Component.CYCLOHEXYLAMINE), List.of(shifted)));
   }
 
   /**

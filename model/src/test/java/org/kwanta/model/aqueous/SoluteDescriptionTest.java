@@ -3,6 +3,8 @@ package org.kwanta.model.aqueous;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import java.util.Arrays;
+import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.kwanta.model.conductivity.AlkalizerMix;
@@ -33,6 +35,62 @@ class SoluteDescriptionTest {
     assertThat(Equilibrium.BISULFATE.reaction()).isEqualTo("HSO₄⁻ ⇌ SO₄²⁻ + H⁺");
     assertThat(Equilibrium.CARBONIC_FIRST.reaction()).isEqualTo("CO₂ + H₂O ⇌ HCO₃⁻ + H⁺");
     assertThat(Equilibrium.AMMONIUM.reaction()).isEqualTo("NH₄⁺ ⇌ NH₃ + H⁺");
+  }
+
+  /**
+   * The equilibria keep the names and order they had as an enum (the API shows the names, the
+   * engine indexes arrays by the order): first the weak bases' steps, in component order, each
+   * following from its two species and named as its acid, then the acids' declared steps.
+   */
+  @Test
+  void equilibriaFollowTheSpeciesChains() {
+    List<String> names = Arrays.stream(Equilibrium.values()).map(Equilibrium::name).toList();
+    List<String> weakBases =
+        AlkalizerMix.alkalizers().stream().map(c -> c.species().get(0).name()).toList();
+    assertThat(weakBases)
+        .startsWith(
+            "AMMONIUM",
+            "MORPHOLINIUM",
+            "ETHANOLAMMONIUM",
+            "CYCLOHEXYLAMMONIUM",
+            "DIMETHYLAMMONIUM",
+            "METHOXYPROPYLAMMONIUM",
+            "DIETHYLAMINOETHANOLIUM");
+    assertThat(names.subList(0, weakBases.size())).isEqualTo(weakBases);
+    assertThat(names.subList(weakBases.size(), names.size()))
+        .containsExactly(
+            "BISULFATE",
+            "CARBONIC_FIRST",
+            "CARBONIC_SECOND",
+            "PHOSPHORIC_FIRST",
+            "PHOSPHORIC_SECOND",
+            "PHOSPHORIC_THIRD",
+            "ACETIC",
+            "FORMIC",
+            "BORIC");
+    Equilibrium[] all = Equilibrium.values();
+    for (int i = 0; i < all.length; i++) {
+      assertThat(all[i].ordinal()).isEqualTo(i);
+    }
+    for (Component c : AlkalizerMix.alkalizers()) {
+      Equilibrium e = Equilibrium.ofWeakBase(c);
+      assertThat(c.equilibria()).containsExactly(e);
+      assertThat(e.acid()).isEqualTo(c.species().get(0));
+      assertThat(e.base()).isEqualTo(c.species().get(1));
+      assertThat(e.name()).isEqualTo(e.acid().name());
+      assertThat(e.component()).isEqualTo(c);
+    }
+    assertThat(Equilibrium.ofWeakBase(Component.AMMONIA)).isSameAs(Equilibrium.AMMONIUM);
+    assertThat(Equilibrium.ofWeakBase(Component.MORPHOLINE).reaction())
+        .isEqualTo("C₄H₉NOH⁺ ⇌ C₄H₉NO + H⁺");
+    assertThatThrownBy(() -> Equilibrium.ofWeakBase(Component.SULFATE))
+        .isInstanceOf(IllegalArgumentException.class);
+    assertThat(Component.PHOSPHATE.equilibria())
+        .containsExactly(
+            Equilibrium.PHOSPHORIC_FIRST,
+            Equilibrium.PHOSPHORIC_SECOND,
+            Equilibrium.PHOSPHORIC_THIRD);
+    assertThat(Component.SODIUM.equilibria()).isEmpty();
   }
 
   @Test

@@ -207,6 +207,38 @@ class SteamEvaluationTest {
         .hasMessageContaining("morpholine");
   }
 
+  /**
+   * No weak base is taken as non-volatile in silence: opted in to the estimates, each alkalizer
+   * either distributes (its liquid total differs from its steam total and its K_D is in the notes)
+   * or is refused with {@link EarlyCondensate.NoDistributionConstant} naming it. The loop covers an
+   * amine added later with no distribution constant.
+   */
+  @Test
+  void everyAlkalizerDistributesOrIsRefusedByName() {
+    WaterState w = Water.atSaturation(473.15, IonizationFormulation.R11_07);
+    for (Component c : AlkalizerMix.alkalizers()) {
+      Composition steam = Composition.builder().molal(c, 2e-5).build();
+      String name = c.name().toLowerCase(java.util.Locale.ROOT).replace('_', ' ');
+      EarlyCondensate.Result r;
+      try {
+        r = EarlyCondensate.of(steam, w, SpeciationOptions.defaults(), true);
+      } catch (EarlyCondensate.NoDistributionConstant e) {
+        assertThat(e).as(name).hasMessageContaining(name).hasMessageContaining("published or");
+        continue;
+      }
+      assertThat(r.liquidTotals().molality(c)).as(name).isNotCloseTo(2e-5, within(2e-5 * 1e-6));
+      assertThat(r.notes()).as(name).anyMatch(n -> n.startsWith("K_D(" + name + ")"));
+    }
+  }
+
+  /** Each solute with a distribution constant is named as its component. */
+  @Test
+  void everyVolatileSoluteIsAComponent() {
+    for (VolatileSolute v : VolatileSolute.values()) {
+      assertThat(Component.valueOf(v.name())).isNotNull();
+    }
+  }
+
   /** An ammonia-only steam says nothing about amine estimates, opted in or not, same pH. */
   @Test
   void ammoniaSteamCarriesNoAmineEstimateNote() {

@@ -35,9 +35,10 @@ public final class TestDatabase {
   public static final String URL_VARIABLE = "KWANTA_TEST_DATABASE_URL";
 
   /**
-   * The number of this test JVM when the build runs several ({@code kwanta.test.fork}, set by the
-   * failsafe configuration from its fork number): with an external server each JVM then uses a
-   * database of its own, {@code <database>_f<number>}, dropped and created afresh at its start.
+   * The number of this test JVM when the build runs several ({@code kwanta.test.fork}, {@code f1},
+   * {@code f2}..., set by the failsafe configuration from its fork number): with an external server
+   * each JVM then uses a database of its own, {@code <database>_f<number>}, dropped and created
+   * afresh at its start.
    */
   public static final String FORK_PROPERTY = "kwanta.test.fork";
 
@@ -78,9 +79,9 @@ public final class TestDatabase {
       TestDatabase db = new TestDatabase(external, user, password, "external " + external);
       db.checkReachable();
       String fork = System.getProperty(FORK_PROPERTY, "");
-      if (!fork.isBlank()) {
+      if (fork.matches("f[0-9]+")) {
         // several test JVMs share the server: each takes a database of its own beside the given one
-        String name = databaseName(external) + "_f" + fork;
+        String name = databaseName(external) + "_" + fork;
         db.recreate(name);
         String url = db.withDatabase(name);
         return new TestDatabase(
