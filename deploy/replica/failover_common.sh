@@ -46,11 +46,11 @@ CREATE TEMP TABLE acked (sample_point_id text, parameter text, time timestamptz)
 \copy acked FROM '$WORK/acked.csv' WITH (FORMAT csv)
 SELECT (SELECT count(*) FROM acked) || ' ' ||
        (SELECT count(*) FROM (SELECT DISTINCT * FROM acked) d) || ' ' ||
-       (SELECT count(*) FROM acked a WHERE EXISTS (SELECT 1 FROM reading r
+       (SELECT count(*) FROM acked a WHERE EXISTS (SELECT 1 FROM reading_named r
           WHERE r.sample_point_id = a.sample_point_id AND r.parameter = a.parameter AND r.time = a.time)) || ' ' ||
-       (SELECT count(*) FROM (SELECT 1 FROM reading WHERE sample_point_id LIKE 'FO%'
+       (SELECT count(*) FROM (SELECT 1 FROM reading_named WHERE sample_point_id LIKE 'FO%'
           GROUP BY sample_point_id, parameter, time HAVING count(*) > 1) dup) || ' ' ||
-       (SELECT count(*) FROM reading WHERE sample_point_id LIKE 'FO%');
+       (SELECT count(*) FROM reading_named WHERE sample_point_id LIKE 'FO%');
 SQL
   local acked distinct found doubled stored
   read -r acked distinct found doubled stored < "$WORK/check.txt"

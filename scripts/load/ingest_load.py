@@ -117,6 +117,11 @@ def step_json(points, start, step_index):
     return _TEMPLATES[key].replace("@T@", t)
 
 
+def query(db, sql):
+    return subprocess.run(["psql", db, "-At", "-v", "ON_ERROR_STOP=1", "-c", sql],
+                          check=True, capture_output=True, text=True).stdout.strip()
+
+
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--base-url", default="http://127.0.0.1:8080")
@@ -224,22 +229,36 @@ def main():
     print(f"service heap used, peak sample: {heap['max'] / 2**20:.0f} MiB")
 
     if args.db:
+        # storage: every row of the reading partitions (this run's and any earlier one's), heap and indexes
+        stored = query(args.db, "SELECT sum(pg_total_relation_size(inhrelid)) || ' ' ||"
+                                " (SELECT count(*) FROM reading) FROM pg_inherits"
+                                " WHERE inhparent = 'reading'::regclass").split()
+        print(f"reading partitions: {int(stored[0]) / int(stored[1]):.1f} bytes per reading, heap and indexes"
+              f" ({int(stored[1]):,} readings, {int(stored[0]) / 2**20:.0f} MiB)")
         n = done["readings"]
+        copies = [p + "-copy" for p in points]
+        point_keys = dict(line.split("|") for line in query(
+            args.db, "SELECT p, reading_point_key(p) FROM unnest(ARRAY[%s]) p"
+            % ",".join(f"'{p}'" for p in copies)).splitlines())
+        parameter_keys = dict(line.split("|") for line in query(
+            args.db, "SELECT code, parameter_key FROM reading_parameter").splitlines())
         with tempfile.NamedTemporaryFile("w", suffix=".csv", delete=False) as f:
             steps = n // per_step + 1
             for k in range(steps):
-                for r in readings_for([p + "-copy" for p in points], start, k):
-                    f.write(f"{r['samplePoint']},{r['parameter']},{r['time']},{r['value']},0,,true\n")
+                for r in readings_for(copies, start, k):
+                    f.write(f"{r['time']},{r['value']},,{point_keys[r['samplePoint']]},"
+                            f"{parameter_keys[r['parameter']]},0,true\n")
             path = f.name
         t0 = time.monotonic()
         subprocess.run(["psql", args.db, "-q", "-v", "ON_ERROR_STOP=1", "-c",
-                        f"\\copy reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
+                        f"\\copy reading (time, value, sample_temperature_cel, point_key, parameter_key, quality,"
                         f" compensated) FROM '{path}' CSV"], check=True)
         copy_s = time.monotonic() - t0
         copy_rate = steps * per_step / copy_s
         os.unlink(path)
         subprocess.run(["psql", args.db, "-q", "-c",
-                        f"DELETE FROM reading WHERE sample_point_id LIKE 'L{tag}-%-copy'"], check=True)
+                        f"DELETE FROM reading WHERE point_key IN (SELECT point_key FROM reading_point"
+                        f" WHERE sample_point_id LIKE 'L{tag}-%-copy')"], check=True)
         print(f"raw COPY (psql \\copy, same table, no evaluation): {steps * per_step} readings in {copy_s:.1f} s"
               f" = {copy_rate:,.0f} readings/s; ratio HTTP/COPY = {rate / copy_rate:.2f}")
 

@@ -87,12 +87,15 @@ def main():
         for d in range(args.days):
             d0 = start + timedelta(days=d)
             psql(args.db, f"""
-                INSERT INTO reading (sample_point_id, parameter, time, value, quality, compensated)
-                SELECT p, par, t, 1 + 0.1 * sin(extract(epoch FROM t) / 600.0) + random() * 0.01, 0, true
-                FROM unnest(ARRAY{points}::text[]) p, unnest(ARRAY{PARAMS}::text[]) par,
+                INSERT INTO reading (time, value, point_key, parameter_key, quality, compensated)
+                SELECT t, 1 + 0.1 * sin(extract(epoch FROM t) / 600.0) + random() * 0.01, k.point_key,
+                       q.parameter_key, 0, true
+                FROM (SELECT reading_point_key(p) AS point_key FROM unnest(ARRAY{points}::text[]) p) k,
+                     (SELECT parameter_key FROM reading_parameter WHERE code = ANY (ARRAY{PARAMS}::text[])) q,
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',
-                                     interval '10 s') t""")
+                                     interval '10 s') t
+                ORDER BY k.point_key, q.parameter_key, t""")
             if args.measured_only:
                 continue
             psql(args.db, f"""

@@ -46,10 +46,11 @@ public class ReadingHistory {
   public static final String LATEST_READINGS =
       """
       SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
-      FROM unnest(?::text[]) AS p(code)
+      FROM (SELECT parameter_key, code FROM reading_parameter WHERE code = ANY (?::text[])) p
       CROSS JOIN LATERAL (
         SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
-        WHERE sample_point_id = ? AND parameter = p.code AND time >= ?
+        WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+          AND parameter_key = p.parameter_key AND time >= ?
         ORDER BY time DESC LIMIT 1) r
       ORDER BY p.code""";
 
@@ -61,19 +62,23 @@ public class ReadingHistory {
    */
   public static final String SLOT_COUNTS =
       """
-      SELECT r.sample_point_id, r.parameter,
+      SELECT k.sample_point_id, q.code,
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)),
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)) FILTER (
                WHERE r.quality = 0
-                 AND NOT coalesce(e.points_at && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false))
+                 AND NOT coalesce(e.points_at && ARRAY[upper(q.code), 'SAMPLE_CONDITIONING'], false))
       FROM reading r
-      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+      JOIN reading_point k ON k.point_key = r.point_key
+      JOIN reading_parameter q ON q.parameter_key = r.parameter_key
+      LEFT JOIN evaluation e ON e.sample_point_id = k.sample_point_id AND e.time = r.time
                             AND e.time >= ? AND e.time < ?
-      WHERE r.sample_point_id = ANY(string_to_array(?, ','))
-        AND r.parameter = ANY(string_to_array(?, ','))
+      WHERE r.point_key = ANY (ARRAY(SELECT point_key FROM reading_point
+                                     WHERE sample_point_id = ANY (string_to_array(?, ','))))
+        AND r.parameter_key = ANY (ARRAY(SELECT parameter_key FROM reading_parameter
+                                         WHERE code = ANY (string_to_array(?, ','))))
         AND r.time >= ? AND r.time < ?
         AND date_bin(?::interval, r.time, ?::timestamptz) <@ ?::tstzmultirange
-      GROUP BY r.sample_point_id, r.parameter""";
+      GROUP BY k.sample_point_id, q.code""";
 
   /**
    * Per sample point and parameter ("point|parameter"): the number of slots holding any reading and
@@ -127,7 +132,9 @@ public class ReadingHistory {
         .query(
             """
             SELECT time, value FROM reading
-            WHERE sample_point_id = ? AND parameter = ? AND time > ? AND time <= ? AND quality < 2
+            WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+              AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+              AND time > ? AND time <= ? AND quality < 2
             ORDER BY time DESC LIMIT 1""",
             (rs, i) ->
                 new PointReading(
@@ -149,18 +156,23 @@ public class ReadingHistory {
       String plant, String block, String parameter, Instant from, Instant to) {
     return jdbc.query(
         """
-        (SELECT x.sample_point_id, x.time, x.value FROM sample_point s
+        (SELECT s.id, x.time, x.value FROM sample_point s
+         JOIN reading_point k ON k.sample_point_id = s.id
          CROSS JOIN LATERAL (
-           SELECT r.sample_point_id, r.time, r.value FROM reading r
-           WHERE r.sample_point_id = s.id AND r.parameter = ? AND r.quality < 2 AND r.time <= ?
+           SELECT r.time, r.value FROM reading r
+           WHERE r.point_key = k.point_key
+             AND r.parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+             AND r.quality < 2 AND r.time <= ?
            ORDER BY r.time DESC LIMIT 1) x
          WHERE s.plant_id = ? AND s.block_id = ?
-         ORDER BY x.time DESC, x.sample_point_id DESC LIMIT 1)
+         ORDER BY x.time DESC, s.id DESC LIMIT 1)
         UNION ALL
-        (SELECT r.sample_point_id, r.time, r.value FROM reading r
-         JOIN sample_point s ON s.id = r.sample_point_id
-         WHERE s.plant_id = ? AND s.block_id = ? AND r.parameter = ? AND r.quality < 2
-           AND r.time > ? AND r.time < ?)
+        (SELECT s.id, r.time, r.value FROM reading r
+         JOIN reading_point k ON k.point_key = r.point_key
+         JOIN sample_point s ON s.id = k.sample_point_id
+         WHERE s.plant_id = ? AND s.block_id = ?
+           AND r.parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+           AND r.quality < 2 AND r.time > ? AND r.time < ?)
         ORDER BY 2, 1""",
         (rs, i) ->
             new PointReading(
@@ -185,10 +197,11 @@ public class ReadingHistory {
     jdbc.query(
         """
         SELECT s.id, p.code, r.time, r.value
-        FROM sample_point s CROSS JOIN unnest(?::text[]) AS p(code)
+        FROM sample_point s JOIN reading_point k ON k.sample_point_id = s.id
+        CROSS JOIN (SELECT parameter_key, code FROM reading_parameter WHERE code = ANY (?::text[])) p
         CROSS JOIN LATERAL (
           SELECT time, value FROM reading
-          WHERE sample_point_id = s.id AND parameter = p.code AND time >= ?
+          WHERE point_key = k.point_key AND parameter_key = p.parameter_key AND time >= ?
           ORDER BY time DESC LIMIT 1) r""",
         (RowCallbackHandler)
             rs ->
@@ -212,11 +225,16 @@ public class ReadingHistory {
     List<PointReading> out = new java.util.ArrayList<>();
     jdbc.query(
         """
-        SELECT sample_point_id, date_trunc('minute', time) AS m, parameter,
-               (array_agg(value ORDER BY time DESC))[1]
-        FROM reading
-        WHERE sample_point_id = ANY (?::text[]) AND parameter = ANY (?::text[])
-          AND quality <> 2 AND time >= ? AND time < ?
+        SELECT k.sample_point_id, date_trunc('minute', r.time) AS m, q.code,
+               (array_agg(r.value ORDER BY r.time DESC))[1]
+        FROM reading r
+        JOIN reading_point k ON k.point_key = r.point_key
+        JOIN reading_parameter q ON q.parameter_key = r.parameter_key
+        WHERE r.point_key = ANY (ARRAY(SELECT point_key FROM reading_point
+                                       WHERE sample_point_id = ANY (?::text[])))
+          AND r.parameter_key = ANY (ARRAY(SELECT parameter_key FROM reading_parameter
+                                           WHERE code = ANY (?::text[])))
+          AND r.quality <> 2 AND r.time >= ? AND r.time < ?
         GROUP BY 1, 2, 3""",
         (RowCallbackHandler)
             rs ->
@@ -279,9 +297,12 @@ public class ReadingHistory {
              e.calculated_ph_25,
              coalesce('PH' = ANY(e.points_at), false)
       FROM reading r
-      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+      JOIN reading_point k ON k.point_key = r.point_key
+      LEFT JOIN evaluation e ON e.sample_point_id = k.sample_point_id AND e.time = r.time
                             AND e.time >= ? AND e.time <= ?
-      WHERE r.sample_point_id = ? AND r.parameter = ? AND r.time >= ? AND r.time <= ?
+      WHERE r.point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+        AND r.parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+        AND r.time >= ? AND r.time <= ?
       ORDER BY r.time""";
 
   /**

@@ -33,9 +33,11 @@ class ReadingRollups {
   }
 
   private final JdbcTemplate jdbc;
+  private final SeriesKeys keys;
 
-  ReadingRollups(JdbcTemplate jdbc) {
+  ReadingRollups(JdbcTemplate jdbc, SeriesKeys keys) {
     this.jdbc = jdbc;
+    this.keys = keys;
   }
 
   /**
@@ -61,13 +63,13 @@ class ReadingRollups {
       return;
     }
     int n = recompute.size();
-    String[] points = new String[n];
-    String[] parameters = new String[n];
+    Integer[] points = new Integer[n];
+    Short[] parameters = new Short[n];
     String[] starts = new String[n];
     int i = 0;
     for (Hour h : recompute) {
-      points[i] = h.samplePointId();
-      parameters[i] = h.parameter();
+      points[i] = keys.point(h.samplePointId());
+      parameters[i] = keys.parameter(h.parameter());
       starts[i++] = h.start().toString();
     }
     Map<Hour, List<ValidReading>> addedDays = new java.util.HashMap<>();
@@ -79,13 +81,13 @@ class ReadingRollups {
                         h.samplePointId(), h.parameter(), h.start().truncatedTo(ChronoUnit.DAYS)),
                     k -> new ArrayList<>())
                 .addAll(rs));
-    Sums hourSums = Sums.of(added, 3_600);
-    Sums daySums = Sums.of(addedDays, 86_400);
+    Sums hourSums = Sums.of(added, 3_600, keys);
+    Sums daySums = Sums.of(addedDays, 86_400, keys);
     jdbc.execute(
         (Connection c) -> {
           try (PreparedStatement ps = c.prepareStatement(UPDATE)) {
-            ps.setArray(1, c.createArrayOf("text", points));
-            ps.setArray(2, c.createArrayOf("text", parameters));
+            ps.setArray(1, c.createArrayOf("int4", points));
+            ps.setArray(2, c.createArrayOf("int2", parameters));
             ps.setArray(3, c.createArrayOf("text", starts));
             hourSums.set(ps, 4, c);
             daySums.set(ps, 15, c);
@@ -97,8 +99,8 @@ class ReadingRollups {
 
   /** Per series and bucket (hour or day), the sums of the new readings, as arrays for the call. */
   private record Sums(
-      String[] points,
-      String[] parameters,
+      Integer[] points,
+      Short[] parameters,
       String[] starts,
       Integer[] counts,
       Double[] mins,
@@ -109,12 +111,12 @@ class ReadingRollups {
       String[] lastTimes,
       Double[] twSums) {
 
-    static Sums of(Map<Hour, List<ValidReading>> buckets, long bucketSeconds) {
+    static Sums of(Map<Hour, List<ValidReading>> buckets, long bucketSeconds, SeriesKeys keys) {
       int m = buckets.size();
       Sums s =
           new Sums(
-              new String[m],
-              new String[m],
+              new Integer[m],
+              new Short[m],
               new String[m],
               new Integer[m],
               new Double[m],
@@ -142,8 +144,8 @@ class ReadingRollups {
           Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
           tw += v * seconds(rs.get(k).time(), until);
         }
-        s.points[j] = h.samplePointId();
-        s.parameters[j] = h.parameter();
+        s.points[j] = keys.point(h.samplePointId());
+        s.parameters[j] = keys.parameter(h.parameter());
         s.starts[j] = h.start().toString();
         s.counts[j] = rs.size();
         s.mins[j] = min;
@@ -159,8 +161,8 @@ class ReadingRollups {
 
     /** Sets the 11 arrays from parameter {@code first} on. */
     void set(PreparedStatement ps, int first, Connection c) throws java.sql.SQLException {
-      ps.setArray(first, c.createArrayOf("text", points));
-      ps.setArray(first + 1, c.createArrayOf("text", parameters));
+      ps.setArray(first, c.createArrayOf("int4", points));
+      ps.setArray(first + 1, c.createArrayOf("int2", parameters));
       ps.setArray(first + 2, c.createArrayOf("text", starts));
       ps.setArray(first + 3, c.createArrayOf("int4", counts));
       ps.setArray(first + 4, c.createArrayOf("float8", mins));
@@ -179,10 +181,10 @@ class ReadingRollups {
   }
 
   private static final String UPDATE =
-      "SELECT update_reading_rollups(?::text[], ?::text[], ?::text[]::timestamptz[], ?::text[],"
-          + " ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],"
+      "SELECT update_reading_rollups(?::int4[], ?::int2[], ?::text[]::timestamptz[], ?::int4[],"
+          + " ?::int2[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],"
           + " ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[],"
-          + " ?::text[], ?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[],"
+          + " ?::int4[], ?::int2[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[],"
           + " ?::float8[], ?::float8[], ?::text[]::timestamptz[], ?::text[]::timestamptz[], ?::float8[])";
 
   /** The hours touched by these readings (each once). */
@@ -245,7 +247,9 @@ class ReadingRollups {
     reader.query(
         "SELECT bucket, min, max, sum, count, last, last_time FROM "
             + table
-            + " WHERE sample_point_id = ? AND parameter = ? AND bucket >= ? AND bucket < ?"
+            + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+            + " AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)"
+            + " AND bucket >= ? AND bucket < ?"
             + " AND count > 0",
         rs -> {
           long start = rs.getTimestamp(1).toInstant().getEpochSecond();

@@ -26,26 +26,26 @@ class ReadingStore {
   static final String UPSERT =
       """
       WITH incoming AS (
-        SELECT * FROM unnest(?::text[], ?::text[], ?::text[]::timestamptz[], ?::float8[], ?::int2[],
+        SELECT * FROM unnest(?::int4[], ?::int2[], ?::text[]::timestamptz[], ?::float8[], ?::int2[],
                              ?::float8[], ?::bool[])
-          AS t(sample_point_id, parameter, time, value, quality, sample_temperature_cel, compensated)
+          AS t(point_key, parameter_key, time, value, quality, sample_temperature_cel, compensated)
       ), revised AS (
-        INSERT INTO reading_revision (sample_point_id, parameter, time, old_value, old_quality,
-                                      old_sample_temperature_cel, old_compensated, old_received_at, new_value)
-        SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality, r.sample_temperature_cel,
-               r.compensated, r.received_at, i.value
-        FROM incoming i JOIN reading r USING (sample_point_id, parameter, time)
+        INSERT INTO reading_revision (point_key, parameter_key, time, old_value, old_quality,
+                                      old_sample_temperature_cel, old_compensated, new_value)
+        SELECT r.point_key, r.parameter_key, r.time, r.value, r.quality, r.sample_temperature_cel,
+               r.compensated, i.value
+        FROM incoming i JOIN reading r USING (point_key, parameter_key, time)
         WHERE (r.value, r.quality, r.sample_temperature_cel, r.compensated)
               IS DISTINCT FROM (i.value, i.quality, i.sample_temperature_cel, i.compensated)
         RETURNING 1
       ), upserted AS (
-        INSERT INTO reading AS r (sample_point_id, parameter, time, value, quality, sample_temperature_cel,
+        INSERT INTO reading AS r (time, value, sample_temperature_cel, point_key, parameter_key, quality,
                                   compensated)
-        SELECT * FROM incoming
-        ON CONFLICT (sample_point_id, parameter, time) DO UPDATE
+        SELECT time, value, sample_temperature_cel, point_key, parameter_key, quality, compensated
+        FROM incoming
+        ON CONFLICT (point_key, parameter_key, time) DO UPDATE
           SET value = EXCLUDED.value, quality = EXCLUDED.quality,
-              sample_temperature_cel = EXCLUDED.sample_temperature_cel, compensated = EXCLUDED.compensated,
-              received_at = now()
+              sample_temperature_cel = EXCLUDED.sample_temperature_cel, compensated = EXCLUDED.compensated
           WHERE (r.value, r.quality, r.sample_temperature_cel, r.compensated)
                 IS DISTINCT FROM (EXCLUDED.value, EXCLUDED.quality, EXCLUDED.sample_temperature_cel,
                                   EXCLUDED.compensated)
@@ -70,16 +70,41 @@ class ReadingStore {
       RETURNING h.sample_point_id, l.generation, h.generation, l.latest_time""";
 
   static final String COPY_TARGET =
-      "reading (sample_point_id, parameter, time, value, quality, sample_temperature_cel,"
+      "reading (time, value, sample_temperature_cel, point_key, parameter_key, quality,"
           + " compensated)";
 
   private static final String[] PARAMETER_CODES = Parameter.codeArray();
 
   private final JdbcTemplate jdbc;
+  private final SeriesKeys keys;
 
-  ReadingStore(JdbcTemplate jdbc) {
+  ReadingStore(JdbcTemplate jdbc, SeriesKeys keys) {
     this.jdbc = jdbc;
+    this.keys = keys;
   }
+
+  /**
+   * The readings in key order (point key, parameter key, time). Written in this order, a series'
+   * new index entries follow each other in the heap, which lets PostgreSQL split a full leaf page
+   * after the new entry instead of in the middle (its "split after new item" rule), so the primary
+   * key's pages stay nearly full.
+   */
+  private List<Keyed> keyed(List<ValidReading> readings) {
+    keys.ensure(readings.stream().map(ValidReading::samplePointId).distinct().toList());
+    List<Keyed> out = new ArrayList<>(readings.size());
+    for (ValidReading r : readings) {
+      out.add(new Keyed(keys.point(r.samplePointId()), keys.parameter(r.parameter()), r));
+    }
+    out.sort(KEY_ORDER);
+    return out;
+  }
+
+  private record Keyed(int point, short parameter, ValidReading reading) {}
+
+  private static final java.util.Comparator<Keyed> KEY_ORDER =
+      java.util.Comparator.comparingInt(Keyed::point)
+          .thenComparingInt(Keyed::parameter)
+          .thenComparing(k -> k.reading().time());
 
   /** What a batch changed. */
   record Counts(int inserted, int corrected, int unchanged) {}
@@ -90,17 +115,19 @@ class ReadingStore {
    */
   Counts upsert(List<ValidReading> readings) {
     int n = readings.size();
-    String[] points = new String[n];
-    String[] parameters = new String[n];
+    Integer[] points = new Integer[n];
+    Short[] parameters = new Short[n];
     String[] times = new String[n];
     Double[] values = new Double[n];
     Short[] qualities = new Short[n];
     Double[] temperatures = new Double[n];
     Boolean[] compensated = new Boolean[n];
+    List<Keyed> sorted = keyed(readings);
     for (int i = 0; i < n; i++) {
-      ValidReading r = readings.get(i);
-      points[i] = r.samplePointId();
-      parameters[i] = r.parameter().code();
+      Keyed k = sorted.get(i);
+      ValidReading r = k.reading();
+      points[i] = k.point();
+      parameters[i] = k.parameter();
       times[i] = r.time().toString();
       values[i] = r.value();
       qualities[i] = r.quality().code();
@@ -110,8 +137,8 @@ class ReadingStore {
     return jdbc.execute(
         (Connection c) -> {
           try (PreparedStatement ps = c.prepareStatement(UPSERT)) {
-            ps.setArray(1, c.createArrayOf("text", points));
-            ps.setArray(2, c.createArrayOf("text", parameters));
+            ps.setArray(1, c.createArrayOf("int4", points));
+            ps.setArray(2, c.createArrayOf("int2", parameters));
             ps.setArray(3, c.createArrayOf("text", times));
             ps.setArray(4, c.createArrayOf("float8", values));
             ps.setArray(5, c.createArrayOf("int2", qualities));
@@ -191,9 +218,10 @@ class ReadingStore {
    */
   static final String LATEST_STORED =
       """
-      SELECT max(m) FROM unnest(?::text[]) AS p(code),
+      SELECT max(m) FROM (SELECT parameter_key FROM reading_parameter WHERE code = ANY (?::text[])) p,
         LATERAL (SELECT max(time) AS m FROM reading
-                 WHERE sample_point_id = ? AND parameter = p.code AND time > ?) x""";
+                 WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+                   AND parameter_key = p.parameter_key AND time > ?) x""";
 
   /**
    * The latest stored reading time of a point if it is later than {@code after}, else null. The
@@ -221,13 +249,17 @@ class ReadingStore {
    */
   static final String LOAD_SINCE =
       """
-      SELECT r.sample_point_id, r.parameter, r.time, r.value, r.quality,
+      SELECT k.sample_point_id, q.code, r.time, r.value, r.quality,
              r.sample_temperature_cel, r.compensated
       FROM unnest(?::text[], ?::timestamptz[]) AS s(sample_point_id, since)
+      JOIN reading_point k ON k.sample_point_id = s.sample_point_id
       CROSS JOIN LATERAL (
         SELECT * FROM reading x
-        WHERE x.sample_point_id = s.sample_point_id AND x.parameter = ANY (?::text[])
-          AND x.time >= s.since AND x.time >= ?) r""";
+        WHERE x.point_key = k.point_key
+          AND x.parameter_key = ANY (ARRAY(SELECT parameter_key FROM reading_parameter
+                                           WHERE code = ANY (?::text[])))
+          AND x.time >= s.since AND x.time >= ?) r
+      JOIN reading_parameter q ON q.parameter_key = r.parameter_key""";
 
   /**
    * Every stored reading of the given points at or after the given time, per point, in time order.
@@ -276,9 +308,11 @@ class ReadingStore {
   List<StoredReading> between(String samplePointId, Instant after, Instant to) {
     return jdbc.query(
         """
-        SELECT parameter, time, value, quality, sample_temperature_cel, compensated FROM reading
-        WHERE sample_point_id = ? AND time > ? AND time <= ?
-        ORDER BY time, parameter""",
+        SELECT q.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
+        FROM reading r JOIN reading_parameter q ON q.parameter_key = r.parameter_key
+        WHERE r.point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+          AND r.time > ? AND r.time <= ?
+        ORDER BY r.time, q.code""",
         ReadingHistory::stored,
         samplePointId,
         Timestamp.from(after),
@@ -293,15 +327,16 @@ class ReadingStore {
     if (readings.isEmpty()) {
       return 0;
     }
-    BinaryCopy rows = new BinaryCopy(readings.size(), 110);
-    for (ValidReading r : readings) {
+    BinaryCopy rows = new BinaryCopy(readings.size(), 64);
+    for (Keyed k : keyed(readings)) {
+      ValidReading r = k.reading();
       rows.row(7)
-          .text(r.samplePointId())
-          .text(r.parameter().code())
           .timestamp(r.time())
           .float8(r.value())
-          .int2(r.quality().code())
           .float8(r.sampleTemperatureCel())
+          .int4(k.point())
+          .int2(k.parameter())
+          .int2(r.quality().code())
           .bool(r.compensated());
     }
     Long n = jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));

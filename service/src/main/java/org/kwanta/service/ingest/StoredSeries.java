@@ -101,8 +101,9 @@ public class StoredSeries {
             + quality
             + " FROM "
             + p.table()
-            + " WHERE sample_point_id = ? AND time >= ? AND time < ? AND time > ?"
-            + (p.measured() ? " AND parameter = '" + p.code() + "'" : "")
+            + " WHERE "
+            + seriesOf(p)
+            + " AND time >= ? AND time < ? AND time > ?"
             + " ORDER BY time LIMIT ?",
         (rs, i) -> {
           double v = rs.getDouble(2);
@@ -119,6 +120,19 @@ public class StoredSeries {
         Timestamp.from(to),
         Timestamp.from(after == null ? Instant.EPOCH : after),
         limit);
+  }
+
+  /**
+   * The condition selecting a series' rows; its one parameter is the sample point id. Readings are
+   * keyed by the point's and the parameter's keys (V62), evaluations by the sample point id.
+   */
+  static String seriesOf(Source p) {
+    return p.measured()
+        ? "point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+            + " AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = '"
+            + p.code()
+            + "')"
+        : "sample_point_id = ?";
   }
 
   /**
@@ -244,8 +258,9 @@ public class StoredSeries {
       FROM unnest(?::text[]::timestamptz[], ?::text[]::timestamptz[]) AS w(lo, hi)
       CROSS JOIN LATERAL (
           SELECT time, value FROM reading
-          WHERE sample_point_id = ? AND parameter = ? AND time >= ? AND time < ?
-            AND time >= w.lo AND time < w.hi AND quality < 2) r
+          WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+            AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+            AND time >= ? AND time < ? AND time >= w.lo AND time < w.hi AND quality < 2) r
       GROUP BY b""";
 
   /** The intervals sorted and merged where they touch or overlap; empty ones dropped. */
@@ -286,10 +301,7 @@ public class StoredSeries {
   /** {@link #bucketed} from the stored rows alone, never the rollups. */
   public List<Bucket> bucketedRaw(
       String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
-    String filter =
-        p.measured()
-            ? " AND parameter = '" + p.code() + "' AND quality < 2"
-            : " AND " + p.column() + " IS NOT NULL";
+    String filter = p.measured() ? " AND quality < 2" : " AND " + p.column() + " IS NOT NULL";
     return jdbc.query(
         "SELECT date_bin(make_interval(secs => ?), time, ?) AS b, min(v), avg(v), max(v),"
             + " (array_agg(v ORDER BY time DESC))[1], count(*)"
@@ -297,7 +309,9 @@ public class StoredSeries {
             + p.column()
             + " AS v FROM "
             + p.table()
-            + " WHERE sample_point_id = ? AND time >= ? AND time < ?"
+            + " WHERE "
+            + seriesOf(p)
+            + " AND time >= ? AND time < ?"
             + filter
             + ") s GROUP BY b ORDER BY b",
         (rs, i) ->

@@ -97,7 +97,8 @@ class PartitionsIT {
             jdbc.queryForObject(
                 "SELECT count(*) FROM reading_p"
                     + day.format(SUFFIX)
-                    + " WHERE sample_point_id = ?",
+                    + " WHERE point_key = (SELECT point_key FROM reading_point WHERE"
+                    + " sample_point_id = ?)",
                 Integer.class,
                 point))
         .isEqualTo(15);
@@ -199,6 +200,6 @@ class PartitionsIT {
 
   private int count(String point) {
     return jdbc.queryForObject(
-        "SELECT count(*) FROM reading WHERE sample_point_id = ?", Integer.class, point);
+        "SELECT count(*) FROM reading_named WHERE sample_point_id = ?", Integer.class, point);
   }
 }

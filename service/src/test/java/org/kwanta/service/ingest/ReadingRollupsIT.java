@@ -188,10 +188,12 @@ class ReadingRollupsIT {
     Map<String, Expected> out = new TreeMap<>();
     for (String point : points) {
       jdbc.query(
-          "SELECT sample_point_id, parameter, bucket, count, min, max, sum, last, first_time,"
+          "SELECT k.sample_point_id, q.code, bucket, count, min, max, sum, last, first_time,"
               + " last_time, tw_sum, held_seconds, mean, time_weighted_mean FROM "
               + table
-              + " WHERE sample_point_id = ? AND count > 0",
+              + " JOIN reading_point k USING (point_key)"
+              + " JOIN reading_parameter q USING (parameter_key)"
+              + " WHERE k.sample_point_id = ? AND count > 0",
           rs -> {
             Instant bucket = rs.getTimestamp(3).toInstant();
             double sum = rs.getDouble(7);
@@ -251,8 +253,9 @@ class ReadingRollupsIT {
     assertThat(hours).containsKey(points.get(0) + "/sodium/" + start().plus(Duration.ofHours(6)));
     assertThat(
             jdbc.queryForObject(
-                "SELECT count FROM reading_rollup_hour WHERE sample_point_id = ? AND parameter ="
-                    + " 'sodium' AND bucket = ?",
+                "SELECT count FROM reading_rollup_hour WHERE point_key = (SELECT point_key FROM"
+                    + " reading_point WHERE sample_point_id = ?) AND parameter_key = (SELECT"
+                    + " parameter_key FROM reading_parameter WHERE code = 'sodium') AND bucket = ?",
                 Integer.class,
                 points.get(0),
                 Timestamp.from(start().plus(Duration.ofHours(5)))))
@@ -308,7 +311,8 @@ class ReadingRollupsIT {
     sendInOrder(sent, state);
     // SQL by hand bypasses the ingest, and so the rollups, until they are refreshed
     jdbc.update(
-        "UPDATE reading SET value = value * 2 WHERE sample_point_id = ? AND time >= ?"
+        "UPDATE reading SET value = value * 2 WHERE point_key = (SELECT point_key FROM"
+            + " reading_point WHERE sample_point_id = ?) AND time >= ?"
             + " AND time < ?",
         points.get(0),
         Timestamp.from(start()),
@@ -370,8 +374,9 @@ class ReadingRollupsIT {
 
     // the whole hours do come from the rollups: a rollup row changed by hand shows in the answer
     jdbc.update(
-        "UPDATE reading_rollup_hour SET max = 999 WHERE sample_point_id = ? AND parameter ="
-            + " 'cation_conductivity' AND bucket = ?",
+        "UPDATE reading_rollup_hour SET max = 999 WHERE point_key = (SELECT point_key FROM"
+            + " reading_point WHERE sample_point_id = ?) AND parameter_key = (SELECT parameter_key"
+            + " FROM reading_parameter WHERE code = 'cation_conductivity') AND bucket = ?",
         point,
         Timestamp.from(start().plusSeconds(3600)));
     assertThat(

@@ -149,13 +149,14 @@ class ReadingsIngestIT {
     assertThat(count(point)).isEqualTo(1);
     Double old =
         jdbc.queryForObject(
-            "SELECT old_value FROM reading_revision WHERE sample_point_id = ?",
+            "SELECT old_value FROM reading_revision WHERE point_key ="
+                + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?)",
             Double.class,
             point);
     assertThat(old).isEqualTo(0.080);
     Double now =
         jdbc.queryForObject(
-            "SELECT value FROM reading WHERE sample_point_id = ?", Double.class, point);
+            "SELECT value FROM reading_named WHERE sample_point_id = ?", Double.class, point);
     assertThat(now).isEqualTo(0.095);
   }
 
@@ -297,7 +298,9 @@ class ReadingsIngestIT {
     assertThat(post(readings.subList(0, 75)).statusCode()).isEqualTo(200);
     assertThat(post(readings.subList(75, 150)).statusCode()).isEqualTo(200);
     jdbc.update(
-        "DELETE FROM reading WHERE sample_point_id = ? AND parameter = 'ph' AND time = ?",
+        "DELETE FROM reading WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) AND parameter_key ="
+            + " (SELECT parameter_key FROM reading_parameter WHERE code = 'ph') AND time = ?",
         point,
         java.sql.Timestamp.from(yesterday().plusSeconds(9 * 3600 + 29 * 20)));
     JsonNode again = JSON.readTree(post(readings.subList(75, 150)).body());
@@ -375,12 +378,12 @@ class ReadingsIngestIT {
 
   private int count(String point) {
     return jdbc.queryForObject(
-        "SELECT count(*) FROM reading WHERE sample_point_id = ?", Integer.class, point);
+        "SELECT count(*) FROM reading_named WHERE sample_point_id = ?", Integer.class, point);
   }
 
   private double value(String point, String parameter) {
     return jdbc.queryForObject(
-        "SELECT value FROM reading WHERE sample_point_id = ? AND parameter = ?",
+        "SELECT value FROM reading_named WHERE sample_point_id = ? AND parameter = ?",
         Double.class,
         point,
         parameter);

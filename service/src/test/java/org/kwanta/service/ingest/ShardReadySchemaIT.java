@@ -8,29 +8,34 @@ import java.sql.ResultSet;
 import java.sql.Statement;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Set;
+import java.util.Map;
 import org.flywaydb.core.Flyway;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.support.TestDatabase;
 
 /**
  * The migrated schema is ready to be distributed by sample point (docs/scaling.md): every
- * reading-side table carries {@code sample_point_id} in every primary key and unique constraint,
- * and no foreign key joins two reading-side tables (a foreign key to a small registry table such as
- * {@code sample_point} is allowed: those become reference tables, copied to every node).
+ * reading-side table carries its distribution column, the sample point's key ({@code point_key},
+ * V62) or its id ({@code sample_point_id}) in the tables not yet re-keyed, in every primary key and
+ * unique constraint, and no foreign key joins two reading-side tables (a foreign key to a small
+ * registry table such as {@code sample_point}, {@code reading_point} or {@code reading_parameter}
+ * is allowed: those become reference tables, copied to every node).
  */
 class ShardReadySchemaIT {
 
-  /** The tables that grow with the readings and would be distributed by sample point. */
-  static final Set<String> DISTRIBUTED =
-      Set.of(
-          "reading",
-          "reading_revision",
-          "evaluation",
-          "reading_head",
-          "lab_result",
-          "reading_rollup_hour",
-          "reading_rollup_day");
+  /**
+   * The tables that grow with the readings and would be distributed by sample point, with their
+   * distribution column.
+   */
+  static final Map<String, String> DISTRIBUTED =
+      Map.of(
+          "reading", "point_key",
+          "reading_revision", "point_key",
+          "reading_rollup_hour", "point_key",
+          "reading_rollup_day", "point_key",
+          "evaluation", "sample_point_id",
+          "reading_head", "sample_point_id",
+          "lab_result", "sample_point_id");
 
   @Test
   void everyKeyOfAReadingSideTableHoldsTheSamplePoint() throws Exception {
@@ -42,26 +47,29 @@ class ShardReadySchemaIT {
               s.executeQuery(
                   """
                   SELECT r.relname, c.conname,
-                         EXISTS (SELECT 1 FROM unnest(c.conkey) k
-                                 JOIN pg_attribute a ON a.attrelid = c.conrelid AND a.attnum = k
-                                 WHERE a.attname = 'sample_point_id') AS has_point
+                         ARRAY(SELECT a.attname::text FROM unnest(c.conkey) k
+                               JOIN pg_attribute a ON a.attrelid = c.conrelid AND a.attnum = k)
                   FROM pg_constraint c JOIN pg_class r ON r.oid = c.conrelid
                   JOIN pg_namespace n ON n.oid = r.relnamespace
                   WHERE n.nspname = current_schema() AND c.contype IN ('p', 'u')
                     AND NOT r.relispartition
                   """)) {
             while (rs.next()) {
-              if (DISTRIBUTED.contains(rs.getString(1))) {
-                seen.add(rs.getString(1));
-                if (!rs.getBoolean(3)) {
-                  offending.add(rs.getString(1) + "." + rs.getString(2));
+              String table = rs.getString(1);
+              if (DISTRIBUTED.containsKey(table)) {
+                seen.add(table);
+                List<String> columns = List.of((String[]) rs.getArray(3).getArray());
+                if (!columns.contains(DISTRIBUTED.get(table))) {
+                  offending.add(table + "." + rs.getString(2));
                 }
               }
             }
           }
         });
-    assertThat(seen).as("every distributed table has a primary key").containsAll(DISTRIBUTED);
-    assertThat(offending).as("keys without sample_point_id").isEmpty();
+    assertThat(seen)
+        .as("every distributed table has a primary key")
+        .containsAll(DISTRIBUTED.keySet());
+    assertThat(offending).as("keys without the distribution column").isEmpty();
   }
 
   @Test
@@ -80,12 +88,13 @@ class ShardReadySchemaIT {
                     AND NOT r.relispartition
                   """)) {
             while (rs.next()) {
-              if (DISTRIBUTED.contains(rs.getString(1)) && DISTRIBUTED.contains(rs.getString(2))) {
+              if (DISTRIBUTED.containsKey(rs.getString(1))
+                  && DISTRIBUTED.containsKey(rs.getString(2))) {
                 crossing.add(rs.getString(3));
               }
               assertThat(
-                      DISTRIBUTED.contains(rs.getString(2))
-                          && !DISTRIBUTED.contains(rs.getString(1)))
+                      DISTRIBUTED.containsKey(rs.getString(2))
+                          && !DISTRIBUTED.containsKey(rs.getString(1)))
                   .as(
                       "a registry table %s refers to the reading-side %s",
                       rs.getString(1), rs.getString(2))

@@ -165,6 +165,6 @@ class TwoInstancesIT {
 
   private int count(String point) {
     return jdbc.queryForObject(
-        "SELECT count(*) FROM reading WHERE sample_point_id = ?", Integer.class, point);
+        "SELECT count(*) FROM reading_named WHERE sample_point_id = ?", Integer.class, point);
   }
 }

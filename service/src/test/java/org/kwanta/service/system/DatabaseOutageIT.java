@@ -131,7 +131,8 @@ class DatabaseOutageIT {
           Statement s = conn.createStatement()) {
         try (ResultSet rs =
             s.executeQuery(
-                "SELECT count(*), count(DISTINCT (sample_point_id, parameter, time)) FROM reading"
+                "SELECT count(*), count(DISTINCT (sample_point_id, parameter, time))"
+                    + " FROM reading_named"
                     + " WHERE sample_point_id = '"
                     + POINT
                     + "'")) {
@@ -141,7 +142,7 @@ class DatabaseOutageIT {
         }
         try (ResultSet rs =
             s.executeQuery(
-                "SELECT time, value FROM reading WHERE sample_point_id = '"
+                "SELECT time, value FROM reading_named WHERE sample_point_id = '"
                     + POINT
                     + "' AND parameter = 'specific_conductivity'")) {
           while (rs.next()) {

@@ -176,7 +176,7 @@ class ReplicaReadsIT {
     TestDatabase db = TestDatabase.get();
     try (Connection c = DriverManager.getConnection(db.url(), db.user(), db.password());
         PreparedStatement s =
-            c.prepareStatement("SELECT count(*) FROM reading WHERE sample_point_id = ?")) {
+            c.prepareStatement("SELECT count(*) FROM reading_named WHERE sample_point_id = ?")) {
       s.setString(1, point);
       try (ResultSet rs = s.executeQuery()) {
         rs.next();
