@@ -40,6 +40,45 @@ public class ReadingHistory {
   }
 
   /**
+   * Several points' latest reading of each parameter since a time, in one query: by point id, each
+   * ordered by parameter code (points without readings absent).
+   */
+  public java.util.Map<String, List<StoredReading>> latestPerParameter(
+      java.util.Collection<String> samplePointIds, Instant since) {
+    java.util.Map<String, List<StoredReading>> out = new java.util.HashMap<>();
+    if (samplePointIds.isEmpty()) {
+      return out;
+    }
+    jdbc.query(
+        """
+        SELECT q.point, p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
+        FROM unnest(?::text[]) AS q(point) CROSS JOIN unnest(?::text[]) AS p(code)
+        CROSS JOIN LATERAL (
+          SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
+          WHERE sample_point_id = q.point AND parameter = p.code AND time >= ?
+          ORDER BY time DESC LIMIT 1) r
+        ORDER BY 1, 2""",
+        (RowCallbackHandler)
+            rs -> {
+              double t = rs.getDouble(6);
+              boolean noTemperature = rs.wasNull();
+              out.computeIfAbsent(rs.getString(1), k -> new java.util.ArrayList<>())
+                  .add(
+                      new StoredReading(
+                          rs.getString(2),
+                          rs.getTimestamp(3).toInstant(),
+                          rs.getDouble(4),
+                          rs.getShort(5),
+                          noTemperature ? Double.NaN : t,
+                          rs.getBoolean(7)));
+            },
+        (Object) samplePointIds.toArray(String[]::new),
+        (Object) PARAMETER_CODES,
+        Timestamp.from(since));
+    return out;
+  }
+
+  /**
    * Each parameter's latest reading at a point since a time (a bound the planner prunes daily
    * partitions by). Parameters: the parameter codes, the sample point, the earliest time.
    */
@@ -325,6 +364,96 @@ public class ReadingHistory {
         parameter,
         Timestamp.from(from),
         Timestamp.from(to));
+  }
+
+  /**
+   * The readings of several series since a time per point, judged as {@link #JUDGED} judges them
+   * (the instrument of a parameter is its upper-case code). Parameters: the points, their earliest
+   * times, the earliest of those, the latest time (evaluation), the parameter codes, the earliest
+   * time and the latest time (reading). The overall bounds let PostgreSQL prune the daily
+   * partitions of both tables.
+   */
+  public static final String JUDGED_SINCE =
+      """
+      SELECT q.point, r.parameter, r.time, r.value,
+             r.quality = 2
+               OR coalesce(e.points_at && ARRAY[upper(r.parameter), 'SAMPLE_CONDITIONING'], false),
+             e.calculated_ph_25,
+             coalesce('PH' = ANY(e.points_at), false)
+      FROM unnest(?::text[], ?::timestamptz[]) AS q(point, since)
+      JOIN reading r ON r.sample_point_id = q.point AND r.time >= q.since
+      LEFT JOIN evaluation e ON e.sample_point_id = r.sample_point_id AND e.time = r.time
+                            AND e.time >= ? AND e.time <= ?
+      WHERE r.parameter = ANY(?::text[]) AND r.time >= ? AND r.time <= ?
+      ORDER BY 1, 2, 3""";
+
+  /** Receives judged readings one by one, as primitives. */
+  @FunctionalInterface
+  public interface JudgedRow {
+    /**
+     * @param epochMicros the reading's time, microseconds since the epoch
+     * @param calculatedPh25 the evaluation's calculated pH at 25 °C, NaN when none
+     */
+    void accept(
+        String samplePointId,
+        String parameter,
+        long epochMicros,
+        double value,
+        boolean inDoubt,
+        double calculatedPh25,
+        boolean phElectrodeInDoubt);
+  }
+
+  /**
+   * The readings of the given parameters at several points over [since of the point, to], by point,
+   * parameter and time, each judged by the evaluation at its time as {@link #judged} judges it, in
+   * one query.
+   */
+  public void judgedSince(
+      java.util.Map<String, Instant> sinceByPoint,
+      java.util.Collection<String> parameters,
+      Instant to,
+      JudgedRow out) {
+    if (sinceByPoint.isEmpty() || parameters.isEmpty()) {
+      return;
+    }
+    String[] points = sinceByPoint.keySet().toArray(String[]::new);
+    Timestamp[] sinces = new Timestamp[points.length];
+    Instant lo = to;
+    for (int i = 0; i < points.length; i++) {
+      Instant s = sinceByPoint.get(points[i]);
+      sinces[i] = Timestamp.from(s);
+      lo = s.isBefore(lo) ? s : lo;
+    }
+    Timestamp low = Timestamp.from(lo);
+    Timestamp high = Timestamp.from(to);
+    jdbc.query(
+        c -> {
+          java.sql.PreparedStatement ps = c.prepareStatement(JUDGED_SINCE);
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("timestamptz", sinces));
+          ps.setTimestamp(3, low);
+          ps.setTimestamp(4, high);
+          ps.setArray(5, c.createArrayOf("text", parameters.toArray(String[]::new)));
+          ps.setTimestamp(6, low);
+          ps.setTimestamp(7, high);
+          return ps;
+        },
+        (RowCallbackHandler)
+            rs -> {
+              Instant t = rs.getTimestamp(3).toInstant();
+              long micros = t.getEpochSecond() * 1_000_000L + t.getNano() / 1000;
+              double calculated = rs.getDouble(6);
+              boolean none = rs.wasNull() || !Double.isFinite(calculated);
+              out.accept(
+                  rs.getString(1),
+                  rs.getString(2),
+                  micros,
+                  rs.getDouble(4),
+                  rs.getBoolean(5),
+                  none ? Double.NaN : calculated,
+                  rs.getBoolean(7));
+            });
   }
 
   static StoredReading stored(ResultSet rs, int i) throws SQLException {
