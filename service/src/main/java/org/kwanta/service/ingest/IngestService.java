@@ -76,7 +76,9 @@ public class IngestService {
       EvaluationRunner runner,
       LabResults labResults,
       ReadingRollups rollups,
+      EvaluationRollups evaluationRollups,
       WriteLog writeLog) {
+    this.evaluationRollups = evaluationRollups;
     this.writeLog = writeLog;
     this.labResults = labResults;
     this.rollups = rollups;
@@ -96,6 +98,7 @@ public class IngestService {
   private final LabResults labResults;
   private final ReadingRollups rollups;
   private final WriteLog writeLog;
+  private final EvaluationRollups evaluationRollups;
 
   /**
    * Validates and stores a batch of grab and lab results (all or nothing): mass-per-volume values
@@ -681,6 +684,9 @@ public class IngestService {
     Map<String, List<EvaluationRunner.Result>> results = w.results;
     evaluations.copyNew(created);
     evaluations.upsert(recomputed);
+    List<EvaluationRunner.Result> written = new ArrayList<>();
+    results.values().forEach(written::addAll);
+    evaluationRollups.update(written, recomputed);
     for (Pending p : group) {
       p.ranges.forEach(
           (point, r) -> {

@@ -240,7 +240,7 @@ class ReadingRollups {
     if (!from.isBefore(to)) {
       return;
     }
-    long rowSeconds = "reading_rollup_day".equals(table) ? 86_400 : 3_600;
+    long rowSeconds = table.endsWith("_day") ? 86_400 : 3_600;
     long o = origin.getEpochSecond();
     reader.query(
         "SELECT bucket, min, max, sum, count, last, last_time FROM "
