@@ -273,22 +273,6 @@ public class ReadingHistory {
   }
 
   /**
-   * The sum of the generations of a plant's points (migration V31): it changes whenever a reading
-   * of the plant is written, so a cached answer built on the plant's readings is current while it
-   * stays the same.
-   */
-  public long generations(String plantId) {
-    Long sum =
-        jdbc.queryForObject(
-            """
-            SELECT coalesce(sum(h.generation), 0) FROM reading_head h
-            JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""",
-            Long.class,
-            plantId);
-    return sum == null ? 0 : sum;
-  }
-
-  /**
    * The generation of each point of a plant (migration V31), by point id; a point never written is
    * absent. A point's generation changes whenever a reading of it is written, so a cached answer
    * built on that point's readings and evaluations is current while it stays the same.
