@@ -213,7 +213,13 @@ public class DiagnosisService {
       if (last.isBefore(now.minus(Duration.ofHours(1)))) {
         continue;
       }
-      List<Diagnoser.Diagnosed> d = diagnoser.diagnose(input, id, last, last);
+      // only the series the point's diagnosis reads (as overTime): the Diagnoser builds a track of
+      // every series it is given, so the whole plant for each point grew with its square
+      Map<String, Diagnoser.Series> read = new HashMap<>();
+      for (String r : related(points, id)) {
+        read.put(r, input.get(r));
+      }
+      List<Diagnoser.Diagnosed> d = diagnoser.diagnose(read, id, last, last);
       if (!d.isEmpty()) {
         Diagnoser.Diagnosed latest = d.get(d.size() - 1);
         out.put(id, new PointDiagnosis(latest.time(), latest.findings()));

@@ -4,7 +4,10 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.time.Duration;
 import java.time.Instant;
+import java.util.List;
+import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.kwanta.model.diagnosis.Diagnoser;
 import org.kwanta.service.ingest.ReadingHistory;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.Http;
@@ -28,6 +31,7 @@ class MinuteWindowsIT {
   @Autowired MinuteSeries minutes;
   @Autowired ReadingHistory readings;
   @Autowired JdbcTemplate jdbc;
+  @Autowired DiagnosisService diagnosis;
 
   @Test
   void incrementalMinutesEqualTheMinutesReadAfresh() {
@@ -48,6 +52,16 @@ class MinuteWindowsIT {
                 .as("minutes at %s", at)
                 .isEqualTo(minutes.load(feed.points(), from, to));
           }
+        });
+    // the plant-wide current diagnosis (incremental minutes, each point with the series it
+    // reads) equals the diagnosis over time at each point's latest minute
+    Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(feed.plant);
+    assertThat(current).isNotEmpty();
+    current.forEach(
+        (point, d) -> {
+          List<Diagnoser.Diagnosed> over = diagnosis.overTime(point, d.time(), d.time());
+          assertThat(over).as(point).isNotEmpty();
+          assertThat(d.findings()).as(point).isEqualTo(over.get(over.size() - 1).findings());
         });
   }
 }

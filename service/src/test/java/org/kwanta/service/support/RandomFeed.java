@@ -17,11 +17,11 @@ import org.springframework.jdbc.core.JdbcTemplate;
 
 /**
  * A random feed through the ingest, for tests of what is kept up to date incrementally: readings a
- * minute apart at a drum water and a feedwater point of a new plant, 20 hours a day ago, then steps
- * of 6 minutes up to now with gaps filled in later batches (out of order), corrections of earlier
- * readings (which re-evaluate the hour after them and so change later readings' doubt), bad-quality
- * readings, readings ahead of the step's time, and once a reading changed by SQL by hand (a
- * generation step the ingest did not log). The series are invented.
+ * minute apart at a drum water and a feedwater point of a new plant, 22 hours from 26 hours ago,
+ * then steps of 6 minutes up to now with gaps filled in later batches (out of order), corrections
+ * of earlier readings (which re-evaluate the hour after them and so change later readings' doubt),
+ * bad-quality readings, readings ahead of the step's time, and once a reading changed by SQL by
+ * hand (a generation step the ingest did not log). The series are invented.
  */
 public final class RandomFeed {
 
@@ -96,8 +96,8 @@ public final class RandomFeed {
   }
 
   /**
-   * Declares the plant, posts the first 20 hours and 40 steps, and after each calls {@code after}
-   * with the step's time (readings ahead of it exist).
+   * Declares the plant, posts the first 22 hours and 40 steps up to now, and after each calls
+   * {@code after} with the step's time (readings ahead of it exist).
    */
   public void run(Consumer<Instant> after) {
     String body =
@@ -112,20 +112,21 @@ public final class RandomFeed {
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
     List<String> ids = points();
 
-    // the first 20 hours a day ago, then 40 steps of 6 minutes up to now: the one-day window
+    // the first 22 hours from 26 hours ago, then 40 steps of 6 minutes up to now: the one-day
+    // window
     // starts before the first reading and slides past it
     List<String> first = new ArrayList<>();
-    for (int m = 0; m < 20 * 60; m++) {
+    for (int m = 0; m < 22 * 60; m++) {
       for (String p : ids) {
         first.addAll(minute(p, t0.plusSeconds(60L * m)));
       }
     }
     post(first);
-    after.accept(t0.plusSeconds(20 * 3600));
+    after.accept(t0.plusSeconds(22 * 3600));
 
     TreeSet<Integer> gaps = new TreeSet<>();
     for (int step = 0; step < 40; step++) {
-      int from = 20 * 60 + step * 6;
+      int from = 22 * 60 + step * 6;
       List<String> rows = new ArrayList<>();
       for (int m = from; m < from + 6; m++) {
         if (random.nextInt(4) == 0) {
