@@ -51,27 +51,17 @@ public class ReadingHistory {
     }
     jdbc.query(
         """
-        SELECT q.point, p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
+        SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated, q.point
         FROM unnest(?::text[]) AS q(point) CROSS JOIN unnest(?::text[]) AS p(code)
         CROSS JOIN LATERAL (
           SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
           WHERE sample_point_id = q.point AND parameter = p.code AND time >= ?
           ORDER BY time DESC LIMIT 1) r
-        ORDER BY 1, 2""",
+        ORDER BY 7, 1""",
         (RowCallbackHandler)
-            rs -> {
-              double t = rs.getDouble(6);
-              boolean noTemperature = rs.wasNull();
-              out.computeIfAbsent(rs.getString(1), k -> new java.util.ArrayList<>())
-                  .add(
-                      new StoredReading(
-                          rs.getString(2),
-                          rs.getTimestamp(3).toInstant(),
-                          rs.getDouble(4),
-                          rs.getShort(5),
-                          noTemperature ? Double.NaN : t,
-                          rs.getBoolean(7)));
-            },
+            rs ->
+                out.computeIfAbsent(rs.getString(7), k -> new java.util.ArrayList<>())
+                    .add(stored(rs, 0)),
         (Object) samplePointIds.toArray(String[]::new),
         (Object) PARAMETER_CODES,
         Timestamp.from(since));

@@ -167,35 +167,39 @@ class States {
         windows.levels(
             freshness.plantId(), ids, freshness.generations(), freshness.limitsStamp(), now);
     Instant since = now.minus(lookBack);
+    Map<String, Entry> entries = new java.util.HashMap<>();
     List<String> stale = new ArrayList<>();
     for (String id : ids) {
-      Entry e = cache.get(freshness.plantId() + "/" + id);
+      String key = freshness.plantId() + "/" + id;
+      lastAsked.put(key, now);
+      Entry e = cache.get(key);
       if (e == null
           || e.generation() != freshness.generations().getOrDefault(id, 0L)
           || now.isBefore(e.asOf())
           || e.oldest().isBefore(since)) {
         stale.add(id);
+      } else {
+        entries.put(id, e);
       }
     }
     if (!stale.isEmpty()) {
       Map<String, List<StoredReading>> latest = readings.latestPerParameter(stale, since);
       Map<String, Evaluations.Stored> evaluated = evaluations.latest(stale, since);
       for (String id : stale) {
-        cache.put(
-            freshness.plantId() + "/" + id,
+        Entry e =
             new Entry(
                 freshness.generations().getOrDefault(id, 0L),
                 now,
                 latest.getOrDefault(id, List.of()),
                 Optional.ofNullable(evaluated.get(id)),
-                List.of()));
+                List.of());
+        cache.put(freshness.plantId() + "/" + id, e);
+        entries.put(id, e);
       }
     }
     List<State> out = new ArrayList<>(shown.size());
     for (Shown p : shown) {
-      String key = freshness.plantId() + "/" + p.id();
-      lastAsked.put(key, now);
-      Entry e = cache.get(key);
+      Entry e = entries.get(p.id());
       out.add(
           state(
               p.id(),
