@@ -8,8 +8,12 @@
    reports the time to the first byte (server time on loopback) and the compressed and plain sizes. The first
    request is reported apart: the board reuses a point's data while it has no new readings (docs/page.md), so
    the first one reads every point afresh, as a request after new readings of every point does.
+3. With --feed SECONDS, a live feed runs meanwhile: every SECONDS a batch with a new reading set of every point
+   (the time of the batch), so every point has new readings between two requests, as under a historian writing
+   every point; --gap spaces the requests (seconds).
 
   python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200
+  python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200 --skip-fill --feed 10 --gap 5
 """
 import argparse
 import gzip
@@ -17,6 +21,7 @@ import http.client
 import json
 import os
 import statistics
+import threading
 import time
 import urllib.parse
 from datetime import datetime, timedelta, timezone
@@ -37,6 +42,16 @@ def request(base, key, method, path, body=None, headers=None):
     return r.status, r.getheader("Content-Encoding"), data, first
 
 
+def reading_set(p, when):
+    """One reading of each of the four parameters at a point; every tenth point above AL2 (invented)."""
+    t = when.strftime("%Y-%m-%dT%H:%M:%SZ")
+    cace = 0.08 + 0.4 * (int(p[3:]) % 10 == 0)
+    return [{"samplePoint": p, "parameter": "specific_conductivity", "time": t, "value": 8.9, "unit": "uS/cm", "compensated": True},
+            {"samplePoint": p, "parameter": "cation_conductivity", "time": t, "value": cace, "unit": "uS/cm", "compensated": True},
+            {"samplePoint": p, "parameter": "degassed_cation_conductivity", "time": t, "value": 0.06, "unit": "uS/cm", "compensated": True},
+            {"samplePoint": p, "parameter": "ph", "time": t, "value": 9.66, "unit": "[pH]"}]
+
+
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--base-url", default="http://127.0.0.1:8080")
@@ -46,6 +61,8 @@ def main():
     ap.add_argument("--minutes", type=int, default=30)
     ap.add_argument("--requests", type=int, default=30)
     ap.add_argument("--skip-fill", action="store_true")
+    ap.add_argument("--feed", type=float, default=0, help="seconds between live batches (0: no feed)")
+    ap.add_argument("--gap", type=float, default=0, help="seconds between board requests")
     a = ap.parse_args()
     ids = ["BL-%03d" % i for i in range(a.points)]
     if not a.skip_fill:
@@ -56,19 +73,27 @@ def main():
         s, _, d, _ = request(a.base_url, a.api_key, "PUT", "/api/v1/plants/" + a.plant, decl)
         assert s in (200, 201), d[:500]
         end = datetime.now(timezone.utc).replace(second=0, microsecond=0)
-        for i0 in range(0, len(ids), 20):
+        per = max(1, 9000 // (4 * (a.minutes + 1)))  # points per batch (at most 10,000 readings)
+        for i0 in range(0, len(ids), per):
             rows = []
-            for p in ids[i0:i0 + 20]:
-                k = int(p[3:])
+            for p in ids[i0:i0 + per]:
                 for m in range(a.minutes, -1, -1):
-                    t = (end - timedelta(minutes=m)).strftime("%Y-%m-%dT%H:%M:%SZ")
-                    cace = 0.08 + 0.4 * (k % 10 == 0)  # every tenth point above AL2
-                    rows += [{"samplePoint": p, "parameter": "specific_conductivity", "time": t, "value": 8.9, "unit": "uS/cm", "compensated": True},
-                             {"samplePoint": p, "parameter": "cation_conductivity", "time": t, "value": cace, "unit": "uS/cm", "compensated": True},
-                             {"samplePoint": p, "parameter": "degassed_cation_conductivity", "time": t, "value": 0.06, "unit": "uS/cm", "compensated": True},
-                             {"samplePoint": p, "parameter": "ph", "time": t, "value": 9.66, "unit": "[pH]"}]
+                    rows += reading_set(p, end - timedelta(minutes=m))
             s, _, d, _ = request(a.base_url, a.api_key, "POST", "/api/v1/readings", {"readings": rows})
             assert s == 200, d[:500]
+    stop = threading.Event()
+    fed = []
+    if a.feed > 0:
+        def feed():
+            while not stop.wait(a.feed):
+                t = datetime.now(timezone.utc).replace(microsecond=0)
+                rows = [r for p in ids for r in reading_set(p, t)]
+                t0 = time.perf_counter()
+                s, _, d, _ = request(a.base_url, a.api_key, "POST", "/api/v1/readings", {"readings": rows})
+                assert s == 200, d[:500]
+                fed.append(time.perf_counter() - t0)
+        threading.Thread(target=feed, daemon=True).start()
+        time.sleep(a.feed + 1)
     path = "/api/v1/plants/" + a.plant + "/overview"
     times, sizes = [], []
     plain = 0
@@ -81,12 +106,18 @@ def main():
             times.append(first * 1000)
             sizes.append(len(d))
         plain = len(gzip.decompress(d)) if enc == "gzip" else len(d)
+        if a.gap > 0:
+            time.sleep(a.gap)
+    stop.set()
     times.sort()
     print("overview of %d points, %d requests: time to first byte median %.1f ms, p90 %.1f ms, max %.1f ms"
           % (a.points, len(times), statistics.median(times), times[int(0.9 * (len(times) - 1))], times[-1]))
     print("first request: %.1f ms (every point read afresh if the service had not cached the plant:"
           " a fresh start, or new readings of every point)" % cold)
     print("size: %d bytes gzip (Content-Encoding %s), %d bytes plain" % (sizes[-1], enc, plain))
+    if fed:
+        print("live feed: %d batches of %d readings, every %.0f s, median %.0f ms each"
+              % (len(fed), 4 * len(ids), a.feed, 1000 * statistics.median(fed)))
 
 
 if __name__ == "__main__":

@@ -12,11 +12,13 @@
   python3 scripts/load/series_load.py --db "host=127.0.0.1 port=5432 dbname=kwanta_bench user=postgres"
 Use --skip-fill to query data filled by an earlier run (the plant id is printed).
 
-The fill also brings the hourly and daily rollups up to date (refresh_reading_rollups, as the ingest keeps them in
-step) and reports the readings' storage per row (heap and indexes). For the long-trend figures of docs/scaling.md
+The fill also brings the hourly and daily rollups up to date (refresh_reading_rollups and, for the derived series,
+refresh_evaluation_rollups, as the ingest keeps them in step) and reports the readings' storage per row (heap and indexes). For the long-trend figures of docs/scaling.md
 (1 year and 90 days of one series of 10 s data), a scaled-down set with the same per-series density:
   python3 scripts/load/series_load.py --days 365 --points 1 --measured-only --range-days 365 --requests 60 --db "..."
   python3 scripts/load/series_load.py --skip-fill TAG --days 365 --points 1 --measured-only --range-days 90 --requests 60 --db "..."
+The derived series alone (--derived-only), e.g. a 90-day trend of pH at temperature over 30 days of one point:
+  python3 scripts/load/series_load.py --days 30 --points 1 --derived-only --range-days 90 --requests 60 --db "..."
 A series' query reads only its own rows (keyed by sample point and parameter), so its time depends on the rows per
 series, not on how many other series the database holds.
 """
@@ -51,6 +53,7 @@ def main():
     ap.add_argument("--requests", type=int, default=300)
     ap.add_argument("--range-days", type=int, default=0, help="ask N days ending at the data's end")
     ap.add_argument("--skip-fill", metavar="PLANT_TAG")
+    ap.add_argument("--derived-only", action="store_true", help="ask only the derived series")
     ap.add_argument("--measured-only", action="store_true",
                     help="fill no evaluations and ask only measured parameters (the long-trend figures)")
     args = ap.parse_args()
@@ -109,11 +112,16 @@ def main():
         filled = time.monotonic() - t0
         t1 = time.monotonic()
         psql(args.db, f"DO $$ BEGIN PERFORM refresh_reading_rollups('{start.isoformat()}', '{end.isoformat()}'); END $$")
+        if not args.measured_only:
+            psql(args.db, f"DO $$ BEGIN PERFORM refresh_evaluation_rollups('{start.isoformat()}',"
+                          f" '{end.isoformat()}'); END $$")
         rollups = time.monotonic() - t1
         psql(args.db, "VACUUM ANALYZE reading")
         psql(args.db, "VACUUM ANALYZE evaluation")
         psql(args.db, "VACUUM ANALYZE reading_rollup_hour")
         psql(args.db, "VACUUM ANALYZE reading_rollup_day")
+        psql(args.db, "VACUUM ANALYZE evaluation_rollup_hour")
+        psql(args.db, "VACUUM ANALYZE evaluation_rollup_day")
         rows = args.days * args.points * 8640
         evaluations = 0 if args.measured_only else rows
         print(f"filled {rows * len(PARAMS):,} readings and {evaluations:,} evaluations in {filled:.0f} s,"
@@ -131,7 +139,7 @@ def main():
     errors = 0
     for _ in range(args.requests):
         p = rnd.choice(points)
-        par = rnd.choice(PARAMS if args.measured_only else PARAMS + DERIVED)
+        par = rnd.choice(PARAMS if args.measured_only else DERIVED if args.derived_only else PARAMS + DERIVED)
         if args.range_days:
             d0, d1 = end - timedelta(days=args.range_days), end
         else:

@@ -20,6 +20,7 @@ function busy() {
 }
 
 export function clear() {
+  answers = { plant: null, excursions: null, events: null };
   $('excursions').replaceChildren();
   $('event-list').replaceChildren();
 }
@@ -111,17 +112,24 @@ function eventCard(ev, caller, reload, status) {
 }
 
 let last = null;
+// the last answers, asked again with their ETags: unchanged lists come back as 304 without a body
+let answers = { plant: null, excursions: null, events: null };
 export async function refresh(plant, points, caller, status, force) {
   last = { plant, points, caller, status };
   if (!force && busy()) return;
   const reload = () => refresh(plant, points, caller, status, true);
   try {
     const from = new Date(Date.now() - 7 * 86400000).toISOString();
-    const [xs, evs] = await Promise.all([
-      api.get(F.paths.excursions({ plant, from })).then(F.excursions),
-      api.get(F.paths.events()).then(F.events),
+    const earlier = answers.plant === plant ? answers : { plant };
+    const [gotX, gotE] = await Promise.all([
+      api.getIfChanged(F.paths.excursions({ plant, from }), earlier.excursions),
+      api.getIfChanged(F.paths.events(), earlier.events),
     ]);
     if (last.plant !== plant) return;
+    answers = { plant, excursions: gotX, events: gotE };
+    document.body.dataset.eventsAnswer = gotX.notModified && gotE.notModified ? 'not-modified' : 'full'; // for PageIT
+    const xs = F.excursions(gotX.notModified ? F.agedExcursions(gotX.json, (Date.now() - gotX.at) / 1000) : gotX.json);
+    const evs = F.events(gotE.json);
     xs.sort((a, b) => (b.open - a.open) || Date.parse(b.start) - Date.parse(a.start));
     const ids = new Set(points.map((p) => p.id));
     const mine = evs.filter((e) => e.excursions.some((m) => ids.has(m.point)));

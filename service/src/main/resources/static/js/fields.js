@@ -171,6 +171,19 @@ export function excursions(j) {
   }));
 }
 
+/**
+ * An excursion list answered seconds ago, as of now: what a 304 Not Modified means (the API's weak
+ * ETag leaves out what a running excursion counts up to now). Open excursions' durations count on,
+ * their time remaining counts down, from the page's clock.
+ */
+export function agedExcursions(j, seconds) {
+  const s = Math.round(seconds);
+  return j.map((x) => !x.open ? x : {
+    ...x, durationSeconds: x.durationSeconds + s,
+    timeRemainingSeconds: x.timeRemainingSeconds == null ? x.timeRemainingSeconds : Math.max(0, x.timeRemainingSeconds - s),
+  });
+}
+
 /** POST /excursions/acknowledgements */
 export const acknowledgementBody = (x, note) => ({ samplePoint: x.point, parameter: x.parameter, start: x.start, note });
 

@@ -53,10 +53,12 @@ public class DiagnosisService {
   private final Clock clock;
   private final Diagnoser diagnoser;
   private final Map<String, Current> current = new ConcurrentHashMap<>();
+  private final MinuteWindows windows;
 
   DiagnosisService(
       JdbcClient jdbc,
       MinuteSeries minutes,
+      MinuteWindows windows,
       EvaluationRunner runner,
       ReadingHistory readings,
       SamplePointConfigs configs,
@@ -66,6 +68,7 @@ public class DiagnosisService {
     this.diagnoser = new Diagnoser(properties.settings());
     this.jdbc = jdbc;
     this.minutes = minutes;
+    this.windows = windows;
     this.runner = runner;
     this.readings = readings;
     this.configs = configs;
@@ -78,7 +81,7 @@ public class DiagnosisService {
 
   private record Current(
       Instant computedAt,
-      long generations,
+      Map<String, Long> generations,
       Map<String, Diagnoser.Point> points,
       Map<String, PointDiagnosis> byPoint) {}
 
@@ -163,15 +166,15 @@ public class DiagnosisService {
     Instant now = clock.instant();
     // every ingest transaction gives the points it wrote a new generation (migration V31): a
     // cached answer is reused only while no new data came in
-    long generations = readings.generations(plantId);
+    Map<String, Long> generations = readings.generationsByPoint(plantId);
     Current c = current.get(plantId);
     if (c != null
-        && c.generations() == generations
+        && c.generations().equals(generations)
         && Duration.between(c.computedAt(), now).compareTo(CURRENT_TTL) < 0) {
       return c.byPoint();
     }
     Map<String, Diagnoser.Point> points = points(plantId);
-    if (c != null && c.generations() == generations && c.points().equals(points)) {
+    if (c != null && c.generations().equals(generations) && c.points().equals(points)) {
       // No new reading and the same points since it was computed: the diagnosis at each point's
       // latest minute depends only on the minutes up to it (Diagnoser is a pure function of
       // them), so it is the same; only the points whose latest minute has left the last hour
@@ -189,9 +192,14 @@ public class DiagnosisService {
       current.put(plantId, new Current(now, generations, points, result));
       return result;
     }
-    Instant start = now.minus(diagnoser.settings().lookback()).minus(Duration.ofHours(1));
+    // whole minutes, read again only from where something changed (MinuteWindows)
+    Instant start =
+        now.minus(diagnoser.settings().lookback())
+            .minus(Duration.ofHours(1))
+            .truncatedTo(ChronoUnit.MINUTES);
     Map<String, List<Minute>> series =
-        minutes.load(List.copyOf(points.keySet()), start, now.plusSeconds(60));
+        windows.load(
+            plantId, List.copyOf(points.keySet()), generations, start, now.plusSeconds(60));
     Map<String, Diagnoser.Series> input = new HashMap<>();
     points.forEach(
         (id, p) -> input.put(id, new Diagnoser.Series(p, series.getOrDefault(id, List.of()))));
@@ -205,7 +213,13 @@ public class DiagnosisService {
       if (last.isBefore(now.minus(Duration.ofHours(1)))) {
         continue;
       }
-      List<Diagnoser.Diagnosed> d = diagnoser.diagnose(input, id, last, last);
+      // only the series the point's diagnosis reads (as overTime): the Diagnoser builds a track of
+      // every series it is given, so the whole plant for each point grew with its square
+      Map<String, Diagnoser.Series> read = new HashMap<>();
+      for (String r : related(points, id)) {
+        read.put(r, input.get(r));
+      }
+      List<Diagnoser.Diagnosed> d = diagnoser.diagnose(read, id, last, last);
       if (!d.isEmpty()) {
         Diagnoser.Diagnosed latest = d.get(d.size() - 1);
         out.put(id, new PointDiagnosis(latest.time(), latest.findings()));

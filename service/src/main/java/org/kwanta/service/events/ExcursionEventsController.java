@@ -43,8 +43,14 @@ class ExcursionEventsController {
   private final ExcursionEvents events;
   private final ExcursionFinder finder;
   private final Limits limits;
+  private final tools.jackson.databind.json.JsonMapper mapper;
 
-  ExcursionEventsController(ExcursionEvents events, ExcursionFinder finder, Limits limits) {
+  ExcursionEventsController(
+      ExcursionEvents events,
+      ExcursionFinder finder,
+      Limits limits,
+      tools.jackson.databind.json.JsonMapper mapper) {
+    this.mapper = mapper;
     this.events = events;
     this.finder = finder;
     this.limits = limits;
@@ -104,9 +110,17 @@ class ExcursionEventsController {
   }
 
   @GetMapping
-  @Operation(summary = "Excursion events, newest first, optionally of one status")
-  List<ExcursionEvents.Event> list(@RequestParam(required = false) String status) {
-    return events.list(status == null ? null : status(status), null);
+  @Operation(
+      summary = "Excursion events, newest first, optionally of one status",
+      description =
+          "With a weak ETag over the list: asked again with If-None-Match, the answer is 304 Not"
+              + " Modified without a body while no event, member or entry changed.")
+  org.springframework.http.ResponseEntity<List<ExcursionEvents.Event>> list(
+      @RequestParam(required = false) String status) {
+    List<ExcursionEvents.Event> list = events.list(status == null ? null : status(status), null);
+    return org.springframework.http.ResponseEntity.ok()
+        .eTag(org.kwanta.service.system.WeakTags.of(mapper, list))
+        .body(list);
   }
 
   @GetMapping("/{event}")

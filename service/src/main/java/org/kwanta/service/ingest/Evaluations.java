@@ -55,6 +55,30 @@ public class Evaluations {
         .findFirst();
   }
 
+  /** Several points' latest evaluation since a time, in one query, by point id. */
+  public Map<String, Stored> latest(java.util.Collection<String> samplePointIds, Instant since) {
+    Map<String, Stored> out = new HashMap<>();
+    if (samplePointIds.isEmpty()) {
+      return out;
+    }
+    jdbc.query(
+        """
+        SELECT q.point, e.time, e.details, e.detail_pack FROM unnest(?::text[]) AS q(point)
+        CROSS JOIN LATERAL (
+          SELECT time, details, detail_pack FROM evaluation
+          WHERE sample_point_id = q.point AND time >= ? ORDER BY time DESC LIMIT 1) e""",
+        (RowCallbackHandler)
+            rs ->
+                out.put(
+                    rs.getString(1),
+                    new Stored(
+                        rs.getTimestamp(2).toInstant(),
+                        stored(rs.getString(3), rs.getBytes(4)).fromStorage())),
+        (Object) samplePointIds.toArray(String[]::new),
+        Timestamp.from(since));
+    return out;
+  }
+
   /**
    * The latest evaluation at a point since a time (a bound the planner prunes daily partitions by).
    * Parameters: the sample point, the time.

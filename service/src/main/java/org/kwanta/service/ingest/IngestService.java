@@ -75,7 +75,11 @@ public class IngestService {
       IngestMetrics metrics,
       EvaluationRunner runner,
       LabResults labResults,
-      ReadingRollups rollups) {
+      ReadingRollups rollups,
+      EvaluationRollups evaluationRollups,
+      WriteLog writeLog) {
+    this.evaluationRollups = evaluationRollups;
+    this.writeLog = writeLog;
     this.labResults = labResults;
     this.rollups = rollups;
     this.metrics = metrics;
@@ -93,6 +97,8 @@ public class IngestService {
 
   private final LabResults labResults;
   private final ReadingRollups rollups;
+  private final WriteLog writeLog;
+  private final EvaluationRollups evaluationRollups;
 
   /**
    * Validates and stores a batch of grab and lab results (all or nothing): mass-per-volume values
@@ -336,10 +342,11 @@ public class IngestService {
       return;
     }
     Map<String, Kept> kept = new TreeMap<>();
+    List<WriteLog.Written> written = new ArrayList<>();
     try {
       // a retried batch takes the plain path: no in-memory copy, upserts only
       boolean fast = retry;
-      transaction.executeWithoutResult(status -> store(group, kept, fast));
+      transaction.executeWithoutResult(status -> store(group, kept, fast, written));
     } catch (Throwable e) {
       // nothing of the group is committed; the copies may hold its readings: drop them
       group.forEach(p -> p.ranges.keySet().forEach(recent::forget));
@@ -362,6 +369,7 @@ public class IngestService {
       }
       return;
     }
+    writeLog.committed(written);
     for (Pending p : group) {
       p.result.complete(
           new Outcome(
@@ -392,12 +400,25 @@ public class IngestService {
    * load) their histories; classify every reading against its history; write the readings while the
    * evaluations are computed; write the evaluations and count them per batch.
    */
-  private void store(List<Pending> group, Map<String, Kept> kept, boolean fast) {
+  private void store(
+      List<Pending> group, Map<String, Kept> kept, boolean fast, List<WriteLog.Written> written) {
     GroupWrite w = new GroupWrite(group, limits.historyWindow());
     lockAndLoad(w, kept, fast);
     classify(w);
     writeReadingsWhileEvaluating(w);
     writeEvaluations(w);
+    // per point, its generation step and the earliest time written (readings, and evaluations,
+    // which are recomputed from the first changed reading on), for the readers' caches
+    w.heads.forEach(
+        (point, head) -> {
+          Instant[] range = w.changed.get(point);
+          written.add(
+              new WriteLog.Written(
+                  point,
+                  head.previousGeneration(),
+                  head.generation(),
+                  range == null ? null : range[0]));
+        });
   }
 
   /** What the steps of one group's write hand each other. */
@@ -405,6 +426,7 @@ public class IngestService {
     final List<Pending> group;
     final Duration window;
     Map<String, SamplePointConfigs.Versioned> current;
+    Map<String, ReadingStore.Head> heads;
     Map<String, RecentReadings.PointHistory> copies;
     List<ValidReading> fresh;
     List<ValidReading> corrections;
@@ -480,6 +502,7 @@ public class IngestService {
             (point, loaded) -> copies.put(point, recent.start(point, toLoad.get(point), loaded)));
 
     w.current = current;
+    w.heads = heads;
     w.copies = copies;
   }
 
@@ -661,6 +684,9 @@ public class IngestService {
     Map<String, List<EvaluationRunner.Result>> results = w.results;
     evaluations.copyNew(created);
     evaluations.upsert(recomputed);
+    List<EvaluationRunner.Result> written = new ArrayList<>();
+    results.values().forEach(written::addAll);
+    evaluationRollups.update(written, recomputed);
     for (Pending p : group) {
       p.ranges.forEach(
           (point, r) -> {

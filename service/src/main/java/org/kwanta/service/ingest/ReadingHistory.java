@@ -40,6 +40,39 @@ public class ReadingHistory {
   }
 
   /**
+   * Several points' latest reading of each parameter since a time, in one query: by point id, each
+   * ordered by parameter code (points without readings absent).
+   */
+  public java.util.Map<String, List<StoredReading>> latestPerParameter(
+      java.util.Collection<String> samplePointIds, Instant since) {
+    java.util.Map<String, List<StoredReading>> out = new java.util.HashMap<>();
+    if (samplePointIds.isEmpty()) {
+      return out;
+    }
+    jdbc.query(
+        """
+        SELECT p.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated,
+               q.sample_point_id
+        FROM (SELECT point_key, sample_point_id FROM reading_point
+              WHERE sample_point_id = ANY (?::text[])) q
+        CROSS JOIN (SELECT parameter_key, code FROM reading_parameter
+                    WHERE code = ANY (?::text[])) p
+        CROSS JOIN LATERAL (
+          SELECT time, value, quality, sample_temperature_cel, compensated FROM reading
+          WHERE point_key = q.point_key AND parameter_key = p.parameter_key AND time >= ?
+          ORDER BY time DESC LIMIT 1) r
+        ORDER BY 7, 1""",
+        (RowCallbackHandler)
+            rs ->
+                out.computeIfAbsent(rs.getString(7), k -> new java.util.ArrayList<>())
+                    .add(stored(rs, 0)),
+        (Object) samplePointIds.toArray(String[]::new),
+        (Object) PARAMETER_CODES,
+        Timestamp.from(since));
+    return out;
+  }
+
+  /**
    * Each parameter's latest reading at a point since a time (a bound the planner prunes daily
    * partitions by). Parameters: the parameter codes, the sample point, the earliest time.
    */
@@ -252,22 +285,6 @@ public class ReadingHistory {
   }
 
   /**
-   * The sum of the generations of a plant's points (migration V31): it changes whenever a reading
-   * of the plant is written, so a cached answer built on the plant's readings is current while it
-   * stays the same.
-   */
-  public long generations(String plantId) {
-    Long sum =
-        jdbc.queryForObject(
-            """
-            SELECT coalesce(sum(h.generation), 0) FROM reading_head h
-            JOIN sample_point s ON s.id = h.sample_point_id WHERE s.plant_id = ?""",
-            Long.class,
-            plantId);
-    return sum == null ? 0 : sum;
-  }
-
-  /**
    * The generation of each point of a plant (migration V31), by point id; a point never written is
    * absent. A point's generation changes whenever a reading of it is written, so a cached answer
    * built on that point's readings and evaluations is current while it stays the same.
@@ -346,6 +363,98 @@ public class ReadingHistory {
         parameter,
         Timestamp.from(from),
         Timestamp.from(to));
+  }
+
+  /**
+   * The readings of several series since a time per point, judged as {@link #JUDGED} judges them
+   * (the instrument of a parameter is its upper-case code). Parameters: the points, their earliest
+   * times, the earliest of those, the latest time (evaluation), the parameter codes, the earliest
+   * time and the latest time (reading). The overall bounds let PostgreSQL prune the daily
+   * partitions of both tables.
+   */
+  public static final String JUDGED_SINCE =
+      """
+      SELECT q.point, p.code, r.time, r.value,
+             r.quality = 2
+               OR coalesce(e.points_at && ARRAY[upper(p.code), 'SAMPLE_CONDITIONING'], false),
+             e.calculated_ph_25,
+             coalesce('PH' = ANY(e.points_at), false)
+      FROM unnest(?::text[], ?::timestamptz[]) AS q(point, since)
+      JOIN reading_point k ON k.sample_point_id = q.point
+      JOIN reading r ON r.point_key = k.point_key AND r.time >= q.since
+      JOIN reading_parameter p ON p.parameter_key = r.parameter_key
+      LEFT JOIN evaluation e ON e.sample_point_id = q.point AND e.time = r.time
+                            AND e.time >= ? AND e.time <= ?
+      WHERE p.code = ANY(?::text[]) AND r.time >= ? AND r.time <= ?
+      ORDER BY 1, 2, 3""";
+
+  /** Receives judged readings one by one, as primitives. */
+  @FunctionalInterface
+  public interface JudgedRow {
+    /**
+     * @param epochMicros the reading's time, microseconds since the epoch
+     * @param calculatedPh25 the evaluation's calculated pH at 25 °C, NaN when none
+     */
+    void accept(
+        String samplePointId,
+        String parameter,
+        long epochMicros,
+        double value,
+        boolean inDoubt,
+        double calculatedPh25,
+        boolean phElectrodeInDoubt);
+  }
+
+  /**
+   * The readings of the given parameters at several points over [since of the point, to], by point,
+   * parameter and time, each judged by the evaluation at its time as {@link #judged} judges it, in
+   * one query.
+   */
+  public void judgedSince(
+      java.util.Map<String, Instant> sinceByPoint,
+      java.util.Collection<String> parameters,
+      Instant to,
+      JudgedRow out) {
+    if (sinceByPoint.isEmpty() || parameters.isEmpty()) {
+      return;
+    }
+    String[] points = sinceByPoint.keySet().toArray(String[]::new);
+    Timestamp[] sinces = new Timestamp[points.length];
+    Instant lo = to;
+    for (int i = 0; i < points.length; i++) {
+      Instant s = sinceByPoint.get(points[i]);
+      sinces[i] = Timestamp.from(s);
+      lo = s.isBefore(lo) ? s : lo;
+    }
+    Timestamp low = Timestamp.from(lo);
+    Timestamp high = Timestamp.from(to);
+    jdbc.query(
+        c -> {
+          java.sql.PreparedStatement ps = c.prepareStatement(JUDGED_SINCE);
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("timestamptz", sinces));
+          ps.setTimestamp(3, low);
+          ps.setTimestamp(4, high);
+          ps.setArray(5, c.createArrayOf("text", parameters.toArray(String[]::new)));
+          ps.setTimestamp(6, low);
+          ps.setTimestamp(7, high);
+          return ps;
+        },
+        (RowCallbackHandler)
+            rs -> {
+              Instant t = rs.getTimestamp(3).toInstant();
+              long micros = t.getEpochSecond() * 1_000_000L + t.getNano() / 1000;
+              double calculated = rs.getDouble(6);
+              boolean none = rs.wasNull() || !Double.isFinite(calculated);
+              out.accept(
+                  rs.getString(1),
+                  rs.getString(2),
+                  micros,
+                  rs.getDouble(4),
+                  rs.getBoolean(5),
+                  none ? Double.NaN : calculated,
+                  rs.getBoolean(7));
+            });
   }
 
   static StoredReading stored(ResultSet rs, int i) throws SQLException {

@@ -242,13 +242,18 @@ class ReadingRollups {
     if (!from.isBefore(to)) {
       return;
     }
-    long rowSeconds = "reading_rollup_day".equals(table) ? 86_400 : 3_600;
+    long rowSeconds = table.endsWith("_day") ? 86_400 : 3_600;
     long o = origin.getEpochSecond();
     reader.query(
         "SELECT bucket, min, max, sum, count, last, last_time FROM "
             + table
-            + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
-            + " AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)"
+            // the evaluation rollups (V64) are keyed by id and code, the reading rollups by keys
+            // (V62)
+            + (table.startsWith("evaluation_")
+                ? " WHERE sample_point_id = ? AND parameter = ?"
+                : " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+                    + " AND parameter_key = (SELECT parameter_key FROM reading_parameter"
+                    + " WHERE code = ?)")
             + " AND bucket >= ? AND bucket < ?"
             + " AND count > 0",
         rs -> {

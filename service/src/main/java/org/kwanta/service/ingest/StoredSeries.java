@@ -137,25 +137,25 @@ public class StoredSeries {
 
   /**
    * The series in buckets [from + k·bucket, from + (k + 1)·bucket) ∩ [from, to): min, mean, max,
-   * last and count of the good and uncertain readings (or of the evaluation column's values). For
-   * readings in buckets of whole hours, every UTC hour that lies whole inside one bucket comes from
-   * the hourly rollups (whole days from the daily ones when the buckets are whole days starting at
-   * midnight UTC), and only the rest from {@code reading}: the partial hour before {@code to} and,
-   * when {@code from} is not on the hour, the hour around each bucket boundary. The answer is the
-   * same as from raw data up to the rounding of the means' sums.
+   * last and count of the good and uncertain readings (or of the evaluation column's non-null
+   * values). In buckets of whole hours, every UTC hour that lies whole inside one bucket comes from
+   * the hourly rollups, of the readings (V60) or of the evaluations (V64) (whole days from the
+   * daily ones when the buckets are whole days starting at midnight UTC), and only the rest from
+   * {@code reading} or {@code evaluation}: the partial hour before {@code to} and, when {@code
+   * from} is not on the hour, the hour around each bucket boundary. The answer is the same as from
+   * raw data up to the rounding of the means' sums.
    */
   public List<Bucket> bucketed(
       String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
     if (usesRollups(p, from, to, bucket)) {
-      return fromRollups(samplePointId, p.code(), from, to, bucket);
+      return fromRollups(samplePointId, p, from, to, bucket);
     }
     return bucketedRaw(samplePointId, p, from, to, bucket);
   }
 
   /** Whether {@link #bucketed} reads the rollups for this request. */
   static boolean usesRollups(Source p, Instant from, Instant to, Duration bucket) {
-    return p.measured()
-        && bucket.getNano() == 0
+    return bucket.getNano() == 0
         && bucket.getSeconds() % HOUR_SECONDS == 0
         && bucket.getSeconds() > 0
         && from.getNano() == 0
@@ -163,7 +163,10 @@ public class StoredSeries {
   }
 
   private List<Bucket> fromRollups(
-      String samplePointId, String parameter, Instant from, Instant to, Duration bucket) {
+      String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
+    // the measured series' rollups are keyed by parameter code, the derived ones' by column
+    String rollup = p.measured() ? "reading_rollup" : "evaluation_rollup";
+    String parameter = p.measured() ? p.code() : p.column();
     long size = bucket.getSeconds();
     long origin = from.getEpochSecond();
     Instant hoursTo = hourFloor(to);
@@ -174,20 +177,12 @@ public class StoredSeries {
           Instant.ofEpochSecond(Math.floorDiv(to.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS);
       if (days.isAfter(from)) {
         rollups.addTo(
-            jdbc, parts, "reading_rollup_day", samplePointId, parameter, from, from, days, size);
+            jdbc, parts, rollup + "_day", samplePointId, parameter, from, from, days, size);
         hoursFrom = days;
       }
     }
     rollups.addTo(
-        jdbc,
-        parts,
-        "reading_rollup_hour",
-        samplePointId,
-        parameter,
-        from,
-        hoursFrom,
-        hoursTo,
-        size);
+        jdbc, parts, rollup + "_hour", samplePointId, parameter, from, hoursFrom, hoursTo, size);
     // the raw rest: the hour around each bucket boundary off the hour, and the partial last hour
     List<Instant[]> rest = new ArrayList<>();
     if (origin % HOUR_SECONDS != 0) {
@@ -199,15 +194,15 @@ public class StoredSeries {
     if (hoursTo.isBefore(to)) {
       rest.add(new Instant[] {max(hoursTo, hoursFrom), to});
     }
-    addRaw(parts, samplePointId, parameter, from, to, bucket, merged(rest));
+    addRaw(parts, samplePointId, p, from, to, bucket, merged(rest));
     return ReadingRollups.toBuckets(parts);
   }
 
-  /** Adds the readings of the given disjoint intervals within [from, to) to the buckets. */
+  /** Adds the values of the given disjoint intervals within [from, to) to the buckets. */
   private void addRaw(
       java.util.Map<Instant, ReadingRollups.Part> parts,
       String samplePointId,
-      String parameter,
+      Source p,
       Instant from,
       Instant to,
       Duration bucket,
@@ -223,15 +218,19 @@ public class StoredSeries {
     }
     jdbc.query(
         (java.sql.Connection c) -> {
-          java.sql.PreparedStatement ps = c.prepareStatement(RAW_INTERVALS);
-          ps.setDouble(1, (double) bucket.toSeconds());
-          ps.setTimestamp(2, Timestamp.from(from));
-          ps.setArray(3, c.createArrayOf("text", los));
-          ps.setArray(4, c.createArrayOf("text", his));
-          ps.setString(5, samplePointId);
-          ps.setString(6, parameter);
-          ps.setTimestamp(7, Timestamp.from(from));
-          ps.setTimestamp(8, Timestamp.from(to));
+          java.sql.PreparedStatement ps =
+              c.prepareStatement(p.measured() ? RAW_INTERVALS : rawIntervals(p.column()));
+          int i = 1;
+          ps.setDouble(i++, (double) bucket.toSeconds());
+          ps.setTimestamp(i++, Timestamp.from(from));
+          ps.setArray(i++, c.createArrayOf("text", los));
+          ps.setArray(i++, c.createArrayOf("text", his));
+          ps.setString(i++, samplePointId);
+          if (p.measured()) {
+            ps.setString(i++, p.code());
+          }
+          ps.setTimestamp(i++, Timestamp.from(from));
+          ps.setTimestamp(i, Timestamp.from(to));
           return ps;
         },
         rs -> {
@@ -262,6 +261,23 @@ public class StoredSeries {
             AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
             AND time >= ? AND time < ? AND time >= w.lo AND time < w.hi AND quality < 2) r
       GROUP BY b""";
+
+  /**
+   * {@link #RAW_INTERVALS} for a column of the evaluations (its non-null values), one of {@link
+   * DerivedColumn}'s names, never text from a request.
+   */
+  static String rawIntervals(String column) {
+    return """
+        SELECT date_bin(make_interval(secs => ?), r.time, ?) AS b, min(r.v), max(r.v),
+               sum(r.v), count(*), (array_agg(r.v ORDER BY r.time DESC))[1], max(r.time)
+        FROM unnest(?::text[]::timestamptz[], ?::text[]::timestamptz[]) AS w(lo, hi)
+        CROSS JOIN LATERAL (
+            SELECT time, %1$s AS v FROM evaluation
+            WHERE sample_point_id = ? AND time >= ? AND time < ?
+              AND time >= w.lo AND time < w.hi AND %1$s IS NOT NULL) r
+        GROUP BY b"""
+        .formatted(column);
+  }
 
   /** The intervals sorted and merged where they touch or overlap; empty ones dropped. */
   private static List<Instant[]> merged(List<Instant[]> intervals) {

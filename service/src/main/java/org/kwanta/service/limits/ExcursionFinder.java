@@ -162,16 +162,39 @@ public class ExcursionFinder {
       boolean phFallback =
           limits.at(r.time()).map(p -> usesCalculatedPhFallback(p.key())).orElse(false);
       samples.add(
-          phFallback && r.phElectrodeInDoubt() && r.calculatedPh25() != null
-              ? new Sample(r.time(), r.calculatedPh25(), true, true)
-              : new Sample(r.time(), r.value(), r.inDoubt(), false));
+          sample(
+              phFallback,
+              r.time(),
+              r.value(),
+              r.inDoubt(),
+              r.calculatedPh25() == null ? Double.NaN : r.calculatedPh25(),
+              r.phElectrodeInDoubt()));
     }
     return new Classifier(limits).classify(samples);
   }
 
   /** True for drum water pH: classified on the calculated pH while the electrode is in doubt. */
-  static boolean usesCalculatedPhFallback(LimitKey key) {
+  public static boolean usesCalculatedPhFallback(LimitKey key) {
     return key.location() == CycleLocation.DRUM_WATER && key.parameter() == Parameter.PH;
+  }
+
+  /**
+   * The sample a judged reading is classified as: the calculated pH at 25 °C (in doubt, marked
+   * calculated) in place of the measured value when the series uses the drum water pH fallback, the
+   * pH electrode is in doubt and a calculated pH exists; otherwise the measured value.
+   *
+   * @param calculatedPh25 the evaluation's calculated pH at 25 °C, NaN when none
+   */
+  public static Sample sample(
+      boolean phFallback,
+      Instant time,
+      double value,
+      boolean inDoubt,
+      double calculatedPh25,
+      boolean phElectrodeInDoubt) {
+    return phFallback && phElectrodeInDoubt && !Double.isNaN(calculatedPh25)
+        ? new Sample(time, calculatedPh25, true, true)
+        : new Sample(time, value, inDoubt, false);
   }
 
   /** Excursions overlapping [from, to], oldest first, as reported. */

@@ -48,12 +48,15 @@ class ExcursionsController {
   private final Limits limits;
   private final Acknowledgements acknowledgements;
   private final OperatingStates states;
+  private final tools.jackson.databind.json.JsonMapper mapper;
 
   ExcursionsController(
       ExcursionFinder finder,
       Limits limits,
       Acknowledgements acknowledgements,
-      OperatingStates states) {
+      OperatingStates states,
+      tools.jackson.databind.json.JsonMapper mapper) {
+    this.mapper = mapper;
     this.finder = finder;
     this.limits = limits;
     this.acknowledgements = acknowledgements;
@@ -69,7 +72,11 @@ class ExcursionsController {
               + " (default: each value against the limits in force at its time) or"
               + " basis=recomputed (today's limits applied to the past); each row and the header"
               + " Kwanta-Basis say which. CSV with"
-              + " format=csv or Accept: text/csv. Example: ?plant=brackenmoor&samplePoint=U2-CPD")
+              + " format=csv or Accept: text/csv. The JSON carries a weak ETag over the data (not"
+              + " over what a running excursion counts up to now: durationSeconds,"
+              + " timeRemainingSeconds, inServiceSeconds); asked again with If-None-Match it is 304"
+              + " Not Modified without a body while nothing else changed. Example:"
+              + " ?plant=brackenmoor&samplePoint=U2-CPD")
   ResponseEntity<?> list(
       @RequestParam(required = false) String plant,
       @RequestParam(required = false) String samplePoint,
@@ -102,9 +109,11 @@ class ExcursionsController {
           .header(BASIS_HEADER, b.code())
           .body(sb.toString());
     }
+    // a weak tag over the data: asked again with If-None-Match, 304 without a body while it holds
     return ResponseEntity.ok()
         .contentType(MediaType.APPLICATION_JSON)
         .header(BASIS_HEADER, b.code())
+        .eTag(ExcursionTags.of(mapper, rows))
         .body(rows);
   }
 

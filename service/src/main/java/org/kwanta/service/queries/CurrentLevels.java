@@ -42,7 +42,23 @@ class CurrentLevels {
       String valueUnit,
       boolean instrumentInDoubt,
       boolean calculatedValue,
-      String limitsOrigin) {}
+      String limitsOrigin) {
+
+    /** The level of a series' last classification against the limits in force. */
+    static LevelState of(Limits.Effective effective, Classification last) {
+      var parameter = effective.profile().key().parameter();
+      return new LevelState(
+          parameter.code(),
+          last.level().name(),
+          last.level().severity(),
+          last.levelSince(),
+          last.value(),
+          parameter.unit(),
+          last.instrumentInDoubt(),
+          last.calculatedValue(),
+          effective.origin().name());
+    }
+  }
 
   private final Limits limits;
   private final ExcursionFinder finder;
@@ -71,19 +87,7 @@ class CurrentLevels {
         if (classified.isEmpty()) {
           continue;
         }
-        Classification last = classified.get(classified.size() - 1);
-        var parameter = effective.profile().key().parameter();
-        out.add(
-            new LevelState(
-                parameter.code(),
-                last.level().name(),
-                last.level().severity(),
-                last.levelSince(),
-                last.value(),
-                parameter.unit(),
-                last.instrumentInDoubt(),
-                last.calculatedValue(),
-                effective.origin().name()));
+        out.add(LevelState.of(effective, classified.get(classified.size() - 1)));
       }
     }
     out.sort(Comparator.comparing(LevelState::parameter));

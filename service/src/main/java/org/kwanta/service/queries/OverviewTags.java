@@ -1,15 +1,7 @@
 package org.kwanta.service.queries;
 
-import java.io.IOException;
-import java.io.OutputStream;
-import java.io.UncheckedIOException;
-import java.security.DigestOutputStream;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.time.Duration;
 import java.time.Instant;
-import java.util.Arrays;
-import java.util.Base64;
 import tools.jackson.databind.json.JsonMapper;
 
 /**
@@ -42,20 +34,7 @@ final class OverviewTags {
             overview.name(),
             null,
             overview.samplePoints().stream().map(s -> timeless(s, window)).toList());
-    MessageDigest sha;
-    try {
-      sha = MessageDigest.getInstance("SHA-256");
-    } catch (NoSuchAlgorithmException e) {
-      throw new IllegalStateException("every Java platform has SHA-256", e);
-    }
-    try (OutputStream out = new DigestOutputStream(OutputStream.nullOutputStream(), sha)) {
-      mapper.writeValue(out, timeless);
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
-    return "W/\""
-        + Base64.getUrlEncoder().withoutPadding().encodeToString(Arrays.copyOf(sha.digest(), 18))
-        + "\"";
+    return org.kwanta.service.system.WeakTags.of(mapper, timeless);
   }
 
   private static States.State timeless(States.State s, Duration window) {

@@ -91,18 +91,16 @@ class StateController {
             plant.id(),
             plant.name(),
             now,
-            plant.samplePoints().stream()
-                .map(
-                    p ->
-                        states.cachedOf(
-                            freshness,
-                            p.id(),
-                            p.name(),
-                            p.cycleLocation(),
-                            p.treatmentRegime(),
-                            now,
-                            current.get(p.id())))
-                .toList());
+            states.board(
+                freshness,
+                plant.samplePoints().stream()
+                    .map(
+                        p ->
+                            new States.Shown(
+                                p.id(), p.name(), p.cycleLocation(), p.treatmentRegime()))
+                    .toList(),
+                now,
+                current));
     // Spring answers 304 without a body when the request's If-None-Match holds this tag
     return ResponseEntity.ok()
         .eTag(OverviewTags.of(mapper, overview, levels.window()))

@@ -3,6 +3,7 @@ package org.kwanta.service.queries;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -34,6 +35,7 @@ class States {
   private final ReadingHistory readings;
   private final Evaluations evaluations;
   private final CurrentLevels levels;
+  private final LevelWindows windows;
   private final Limits limits;
   private final Duration lookBack;
   private final Clock clock;
@@ -43,22 +45,18 @@ class States {
   /** Entries of points the board has not asked for this long are dropped, not refreshed. */
   static final Duration UNUSED = Duration.ofMinutes(5);
 
-  /**
-   * Longest time the board reuses a point's levels without new readings of it: the levels look back
-   * a day, so while no reading arrives they change only as old values leave that window.
-   */
-  static final Duration CACHE_TIME = Duration.ofSeconds(30);
-
   States(
       ReadingHistory readings,
       Evaluations evaluations,
       CurrentLevels levels,
+      LevelWindows windows,
       Limits limits,
       Clock clock,
       @Value("${kwanta.queries.latest-look-back:P35D}") Duration lookBack) {
     this.readings = readings;
     this.evaluations = evaluations;
     this.levels = levels;
+    this.windows = windows;
     this.limits = limits;
     this.clock = clock;
     this.lookBack = lookBack;
@@ -97,14 +95,23 @@ class States {
    */
   record Diagnosis(Instant time, List<org.kwanta.service.diagnosis.FindingOut> findings) {}
 
-  /** The cached data of one point, with what it was built on. */
+  /** The cached latest readings and evaluation of one point, with what they were read at. */
   private record Entry(
       long generation,
-      String limitsStamp,
       Instant asOf,
       List<StoredReading> latest,
       Optional<Evaluations.Stored> evaluation,
-      List<CurrentLevels.LevelState> levels) {}
+      List<CurrentLevels.LevelState> levels) {
+
+    /** The earliest time the entry shows: it leaves the state when older than the look-back. */
+    Instant oldest() {
+      Instant t = evaluation.map(Evaluations.Stored::time).orElse(Instant.MAX);
+      for (StoredReading r : latest) {
+        t = r.time().isBefore(t) ? r.time() : t;
+      }
+      return t;
+    }
+  }
 
   /**
    * What the board's cached entries are checked against: each point's generation (changes with
@@ -125,52 +132,95 @@ class States {
       String regime,
       Instant now,
       org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
+    Instant since = now.minus(lookBack);
     return state(
         samplePointId,
         name,
         cycleLocation,
         regime,
         now,
-        load(samplePointId, now, -1, ""),
+        new Entry(
+            -1,
+            now,
+            readings.latestPerParameter(samplePointId, since),
+            evaluations.latest(samplePointId, since),
+            levels.of(samplePointId, now)),
         diagnosis);
   }
 
-  /**
-   * A sample point's state for the board: its latest readings, latest evaluation and levels are
-   * reused from an earlier request while the point has had no new reading, the plant's limits are
-   * unchanged and the entry is younger than {@link #CACHE_TIME}; otherwise read afresh. The levels
-   * are then those {@link CurrentLevels#of} gave at {@code levelsAsOf}; ages are always from now.
-   */
-  State cachedOf(
-      Freshness freshness,
-      String samplePointId,
-      String name,
-      String cycleLocation,
-      String regime,
-      Instant now,
-      org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis diagnosis) {
-    long generation = freshness.generations().getOrDefault(samplePointId, 0L);
-    String key = freshness.plantId() + "/" + samplePointId;
-    Entry e = cache.get(key);
-    if (e == null
-        || e.generation() != generation
-        || !e.limitsStamp().equals(freshness.limitsStamp())
-        || now.isBefore(e.asOf())
-        || Duration.between(e.asOf(), now).compareTo(CACHE_TIME) >= 0) {
-      e = load(samplePointId, now, generation, freshness.limitsStamp());
-      cache.put(key, e);
-    }
-    lastAsked.put(key, now);
-    return state(samplePointId, name, cycleLocation, regime, now, e, diagnosis);
-  }
+  /** A sample point as the board shows it. */
+  record Shown(String id, String name, String cycleLocation, String treatmentRegime) {}
 
   /**
-   * Re-reads, off the request path, the entries that would be older than {@link #CACHE_TIME} before
-   * the next run, so that a board request rarely reads a point afresh unless the point has new
-   * readings; entries not asked for in {@link #UNUSED} are dropped.
+   * The states of a plant's points for the board, at {@code now}. Each point's latest readings and
+   * evaluation are reused while its generation is unchanged and none of them has left the
+   * look-back; the others are read afresh, all in two queries. The levels are kept up to date
+   * incrementally ({@link LevelWindows}) and are those at {@code now}.
    */
-  @Scheduled(fixedDelay = 10_000, initialDelay = 10_000)
-  void refreshAgeing() {
+  List<State> board(
+      Freshness freshness,
+      List<Shown> shown,
+      Instant now,
+      Map<String, org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis> diagnoses) {
+    List<String> ids = shown.stream().map(Shown::id).toList();
+    Map<String, List<CurrentLevels.LevelState>> levelsByPoint =
+        windows.levels(
+            freshness.plantId(), ids, freshness.generations(), freshness.limitsStamp(), now);
+    Instant since = now.minus(lookBack);
+    Map<String, Entry> entries = new java.util.HashMap<>();
+    List<String> stale = new ArrayList<>();
+    for (String id : ids) {
+      String key = freshness.plantId() + "/" + id;
+      lastAsked.put(key, now);
+      Entry e = cache.get(key);
+      if (e == null
+          || e.generation() != freshness.generations().getOrDefault(id, 0L)
+          || now.isBefore(e.asOf())
+          || e.oldest().isBefore(since)) {
+        stale.add(id);
+      } else {
+        entries.put(id, e);
+      }
+    }
+    if (!stale.isEmpty()) {
+      Map<String, List<StoredReading>> latest = readings.latestPerParameter(stale, since);
+      Map<String, Evaluations.Stored> evaluated = evaluations.latest(stale, since);
+      for (String id : stale) {
+        Entry e =
+            new Entry(
+                freshness.generations().getOrDefault(id, 0L),
+                now,
+                latest.getOrDefault(id, List.of()),
+                Optional.ofNullable(evaluated.get(id)),
+                List.of());
+        cache.put(freshness.plantId() + "/" + id, e);
+        entries.put(id, e);
+      }
+    }
+    List<State> out = new ArrayList<>(shown.size());
+    for (Shown p : shown) {
+      Entry e = entries.get(p.id());
+      out.add(
+          state(
+              p.id(),
+              p.name(),
+              p.cycleLocation(),
+              p.treatmentRegime(),
+              now,
+              new Entry(
+                  e.generation(),
+                  now,
+                  e.latest(),
+                  e.evaluation(),
+                  levelsByPoint.getOrDefault(p.id(), List.of())),
+              diagnoses.get(p.id())));
+    }
+    return out;
+  }
+
+  /** Drops the entries of points the board has not asked for in {@link #UNUSED}. */
+  @Scheduled(fixedDelay = 60_000, initialDelay = 60_000)
+  void dropUnused() {
     Instant now = clock.instant();
     lastAsked.forEach(
         (key, asked) -> {
@@ -179,29 +229,6 @@ class States {
             cache.remove(key);
           }
         });
-    Map<String, Freshness> byPlant = new java.util.HashMap<>();
-    cache.forEach(
-        (key, e) -> {
-          if (Duration.between(e.asOf(), now).compareTo(CACHE_TIME.minusSeconds(12)) < 0) {
-            return;
-          }
-          String plantId = key.substring(0, key.indexOf('/'));
-          String point = key.substring(key.indexOf('/') + 1);
-          Freshness f = byPlant.computeIfAbsent(plantId, p -> freshness(p, now));
-          cache.put(
-              key, load(point, now, f.generations().getOrDefault(point, 0L), f.limitsStamp()));
-        });
-  }
-
-  private Entry load(String samplePointId, Instant now, long generation, String limitsStamp) {
-    Instant since = now.minus(lookBack);
-    return new Entry(
-        generation,
-        limitsStamp,
-        now,
-        readings.latestPerParameter(samplePointId, since),
-        evaluations.latest(samplePointId, since),
-        levels.of(samplePointId, now));
   }
 
   private static State state(

@@ -429,11 +429,24 @@ class PageIT {
         http.get("/api/v1/plants/page-levels/overview", "If-None-Match", tag);
     assertThat(again.statusCode()).isEqualTo(304);
     assertThat(again.body()).isEmpty();
-    // and the page, whose next refresh sends the tag, keeps its board with the ages counted on
+    // the excursions and the events the page polls beside it: the same
+    for (String path :
+        List.of(
+            "/api/v1/excursions?plant=page-levels&from=" + Instant.now().minus(Duration.ofDays(7)),
+            "/api/v1/excursion-events")) {
+      HttpResponse<String> listed = http.get(path);
+      String listTag = listed.headers().firstValue("ETag").orElseThrow();
+      assertThat(listTag).as(path).startsWith("W/\"");
+      assertThat(http.get(path, "If-None-Match", listTag).statusCode()).as(path).isEqualTo(304);
+    }
+    // and the page, whose next refresh sends the tags, keeps its board with the ages counted on,
+    // and its excursions and events
     open(1440, readKey, "page-levels");
     js(
-        "document.body.dataset.boardAnswer = ''; document.getElementById('tz').dispatchEvent(new Event('change'))");
+        "document.body.dataset.boardAnswer = ''; document.body.dataset.eventsAnswer = '';"
+            + " document.getElementById('tz').dispatchEvent(new Event('change'))");
     wait(60).until(d -> "not-modified".equals(body("boardAnswer")));
+    wait(60).until(d -> "not-modified".equals(body("eventsAnswer")));
     assertThat(row("PL-ECO").findElement(By.cssSelector(".lvl")).getText()).contains("AL2");
   }
 
