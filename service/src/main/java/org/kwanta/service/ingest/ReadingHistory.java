@@ -368,9 +368,9 @@ public class ReadingHistory {
   /**
    * The readings of several series since a time per point, judged as {@link #JUDGED} judges them
    * (the instrument of a parameter is its upper-case code). Parameters: the points, their earliest
-   * times, the earliest of those, the latest time (evaluation), the parameter codes, the earliest
-   * time and the latest time (reading). The overall bounds let PostgreSQL prune the daily
-   * partitions of both tables.
+   * times, the parameter codes, the earliest of those times and the latest time (reading), the same
+   * two (evaluation). The overall bounds let PostgreSQL prune the daily partitions of both tables;
+   * each series is read by its own index range (point key, parameter key, time).
    */
   public static final String JUDGED_SINCE =
       """
@@ -381,11 +381,14 @@ public class ReadingHistory {
              coalesce('PH' = ANY(e.points_at), false)
       FROM unnest(?::text[], ?::timestamptz[]) AS q(point, since)
       JOIN reading_point k ON k.sample_point_id = q.point
-      JOIN reading r ON r.point_key = k.point_key AND r.time >= q.since
-      JOIN reading_parameter p ON p.parameter_key = r.parameter_key
+      CROSS JOIN (SELECT parameter_key, code FROM reading_parameter
+                  WHERE code = ANY (?::text[])) p
+      CROSS JOIN LATERAL (
+        SELECT time, value, quality FROM reading
+        WHERE point_key = k.point_key AND parameter_key = p.parameter_key
+          AND time >= q.since AND time >= ? AND time <= ?) r
       LEFT JOIN evaluation e ON e.sample_point_id = q.point AND e.time = r.time
                             AND e.time >= ? AND e.time <= ?
-      WHERE p.code = ANY(?::text[]) AND r.time >= ? AND r.time <= ?
       ORDER BY 1, 2, 3""";
 
   /** Receives judged readings one by one, as primitives. */
@@ -433,9 +436,9 @@ public class ReadingHistory {
           java.sql.PreparedStatement ps = c.prepareStatement(JUDGED_SINCE);
           ps.setArray(1, c.createArrayOf("text", points));
           ps.setArray(2, c.createArrayOf("timestamptz", sinces));
-          ps.setTimestamp(3, low);
-          ps.setTimestamp(4, high);
-          ps.setArray(5, c.createArrayOf("text", parameters.toArray(String[]::new)));
+          ps.setArray(3, c.createArrayOf("text", parameters.toArray(String[]::new)));
+          ps.setTimestamp(4, low);
+          ps.setTimestamp(5, high);
           ps.setTimestamp(6, low);
           ps.setTimestamp(7, high);
           return ps;
