@@ -3,18 +3,18 @@ package org.kwanta.service.ingest;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
 import java.util.Collection;
-import java.util.HashMap;
 import java.util.HashSet;
-import java.util.Map;
-import java.util.Set;
+import java.util.List;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Repository;
 
 /**
  * The hourly and daily rollups of the derived series ({@code evaluation_rollup_hour}, {@code
  * evaluation_rollup_day}, migration V64): per point, evaluation value column and UTC hour or day.
- * Kept in step by the ingest ({@link #update}, in its transaction) and read by {@link StoredSeries}
- * for buckets of whole hours, as the reading rollups are for the measured series.
+ * Marked by the ingest ({@link #mark}, in its transaction), recomputed a few seconds later off the
+ * ingest path ({@link #settle}, {@code EvaluationRollupSettler}), and read by {@link StoredSeries}
+ * for buckets of whole hours that are not marked, as the reading rollups are for the measured
+ * series.
  */
 @Repository
 class EvaluationRollups {
@@ -25,59 +25,103 @@ class EvaluationRollups {
     this.jdbc = jdbc;
   }
 
-  /** One point's hour. */
-  private record Hour(String samplePointId, Instant start) {}
-
   /**
-   * Keeps the rollups in step with the caller's transaction, in one call after its evaluations are
-   * written ({@code update_evaluation_rollups}, V64): an hour whose evaluations written here are
-   * all new takes them in without being read again when they follow its last values; an hour with a
-   * recomputed evaluation is recomputed, and so are the touched days from their hours.
+   * Marks, in the caller's (ingest) transaction, every (point, UTC hour) of the evaluations written
+   * ({@code evaluation_rollup_pending}, V65); {@link #settle} recomputes them later, off the ingest
+   * path. Readers take a marked hour from the evaluations themselves ({@link #pendingHours}). Marks
+   * go in in key order, so that two writers never wait on each other's marks in a cycle.
    *
    * @param written every evaluation written (new or recomputed)
-   * @param recomputed those of them that replaced a stored evaluation (upserted)
    */
-  void update(
-      Collection<EvaluationRunner.Result> written, Collection<EvaluationRunner.Result> recomputed) {
+  void mark(Collection<EvaluationRunner.Result> written) {
     if (written.isEmpty()) {
       return;
     }
-    Set<Hour> again = new HashSet<>();
-    for (EvaluationRunner.Result r : recomputed) {
-      again.add(new Hour(r.samplePointId(), r.time().truncatedTo(ChronoUnit.HOURS)));
-    }
-    Map<Hour, Instant> from = new HashMap<>();
+    java.util.TreeSet<String> keys = new java.util.TreeSet<>();
     for (EvaluationRunner.Result r : written) {
-      Hour h = new Hour(r.samplePointId(), r.time().truncatedTo(ChronoUnit.HOURS));
-      if (!again.contains(h)) {
-        from.merge(h, r.time(), (a, b) -> a.isBefore(b) ? a : b);
-      }
+      keys.add(r.samplePointId() + '\u0000' + r.time().truncatedTo(ChronoUnit.HOURS));
     }
-    int n = from.size() + again.size();
-    String[] points = new String[n];
-    String[] hours = new String[n];
-    String[] froms = new String[n];
+    String[] points = new String[keys.size()];
+    String[] hours = new String[keys.size()];
     int i = 0;
-    for (Map.Entry<Hour, Instant> e : from.entrySet()) {
-      points[i] = e.getKey().samplePointId();
-      hours[i] = e.getKey().start().toString();
-      froms[i++] = e.getValue().toString();
+    for (String k : keys) {
+      int cut = k.indexOf('\u0000');
+      points[i] = k.substring(0, cut);
+      hours[i++] = k.substring(cut + 1);
     }
-    for (Hour h : again) {
-      points[i] = h.samplePointId();
-      hours[i++] = h.start().toString();
+    jdbc.update(
+        c -> {
+          var ps =
+              c.prepareStatement(
+                  "INSERT INTO evaluation_rollup_pending (sample_point_id, bucket)"
+                      + " SELECT p, h FROM unnest(?::text[], ?::text[]::timestamptz[]) AS u(p, h)"
+                      + " ORDER BY p, h ON CONFLICT DO NOTHING");
+          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(2, c.createArrayOf("text", hours));
+          return ps;
+        });
+  }
+
+  /** Hours settled per round at most. */
+  static final int SETTLE_BATCH = 2_000;
+
+  /**
+   * Recomputes marked hours (and their days) from the evaluations, up to {@link #SETTLE_BATCH} per
+   * call, in one transaction that first deletes the marks it takes (rows another instance is
+   * settling are skipped): an evaluation committed after the delete has its own mark, one committed
+   * before it is seen by the recomputation that follows. Returns the number of hours settled.
+   */
+  @org.springframework.transaction.annotation.Transactional
+  public int settle() {
+    List<Object[]> taken =
+        jdbc.query(
+            """
+            WITH d AS (
+              DELETE FROM evaluation_rollup_pending
+              WHERE (sample_point_id, bucket) IN (
+                SELECT sample_point_id, bucket FROM evaluation_rollup_pending
+                ORDER BY sample_point_id, bucket LIMIT ? FOR UPDATE SKIP LOCKED)
+              RETURNING sample_point_id, bucket)
+            SELECT sample_point_id, bucket FROM d""",
+            (rs, i) -> new Object[] {rs.getString(1), rs.getTimestamp(2)},
+            SETTLE_BATCH);
+    if (taken.isEmpty()) {
+      return 0;
+    }
+    String[] points = new String[taken.size()];
+    java.sql.Timestamp[] hours = new java.sql.Timestamp[taken.size()];
+    for (int i = 0; i < points.length; i++) {
+      points[i] = (String) taken.get(i)[0];
+      hours[i] = (java.sql.Timestamp) taken.get(i)[1];
     }
     jdbc.query(
         c -> {
           var ps =
               c.prepareStatement(
-                  "SELECT update_evaluation_rollups(?::text[], ?::text[]::timestamptz[],"
-                      + " ?::text[]::timestamptz[])");
+                  "SELECT update_evaluation_rollups(?::text[], ?::timestamptz[],"
+                      + " array_fill(NULL::timestamptz, ARRAY[?]))");
           ps.setArray(1, c.createArrayOf("text", points));
-          ps.setArray(2, c.createArrayOf("text", hours));
-          ps.setArray(3, c.createArrayOf("text", froms));
+          ps.setArray(2, c.createArrayOf("timestamptz", hours));
+          ps.setInt(3, points.length);
           return ps;
         },
         rs -> {});
+    return points.length;
+  }
+
+  /**
+   * The marked (not yet settled) hours of a point in [from, to): a reader takes them, and the days
+   * around them, from the evaluations rather than from the rollups.
+   */
+  java.util.Set<Instant> pendingHours(
+      JdbcTemplate reader, String samplePointId, Instant from, Instant to) {
+    return new HashSet<>(
+        reader.query(
+            "SELECT bucket FROM evaluation_rollup_pending WHERE sample_point_id = ?"
+                + " AND bucket >= ? AND bucket < ?",
+            (rs, i) -> rs.getTimestamp(1).toInstant(),
+            samplePointId,
+            java.sql.Timestamp.from(from.truncatedTo(ChronoUnit.HOURS)),
+            java.sql.Timestamp.from(to)));
   }
 }

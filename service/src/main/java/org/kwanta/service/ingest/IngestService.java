@@ -686,7 +686,7 @@ public class IngestService {
     evaluations.upsert(recomputed);
     List<EvaluationRunner.Result> written = new ArrayList<>();
     results.values().forEach(written::addAll);
-    evaluationRollups.update(written, recomputed);
+    evaluationRollups.mark(written);
     for (Pending p : group) {
       p.ranges.forEach(
           (point, r) -> {

@@ -238,7 +238,8 @@ class ReadingRollups {
       Instant origin,
       Instant from,
       Instant to,
-      long size) {
+      long size,
+      java.util.function.Predicate<Instant> skip) {
     if (!from.isBefore(to)) {
       return;
     }
@@ -257,7 +258,11 @@ class ReadingRollups {
             + " AND bucket >= ? AND bucket < ?"
             + " AND count > 0",
         rs -> {
-          long start = rs.getTimestamp(1).toInstant().getEpochSecond();
+          Instant bucketStart = rs.getTimestamp(1).toInstant();
+          if (skip.test(bucketStart)) {
+            return; // read from the raw rows by the caller
+          }
+          long start = bucketStart.getEpochSecond();
           long k = Math.floorDiv(start - o, size);
           if (k != Math.floorDiv(start + rowSeconds - 1 - o, size)) {
             return;

@@ -19,10 +19,12 @@ public class StoredSeries {
 
   private final JdbcTemplate jdbc;
   private final ReadingRollups rollups;
+  private final EvaluationRollups evaluationRollups;
 
-  StoredSeries(ReadSource reads, ReadingRollups rollups) {
+  StoredSeries(ReadSource reads, ReadingRollups rollups, EvaluationRollups evaluationRollups) {
     this.jdbc = reads.jdbc();
     this.rollups = rollups;
+    this.evaluationRollups = evaluationRollups;
   }
 
   private static final long HOUR_SECONDS = 3600;
@@ -172,19 +174,69 @@ public class StoredSeries {
     Instant hoursTo = hourFloor(to);
     Instant hoursFrom = hourCeil(from);
     java.util.TreeMap<Instant, ReadingRollups.Part> parts = new java.util.TreeMap<>();
+    // derived series: hours marked by the ingest and not yet settled (V65) come from the
+    // evaluations, and their days from the hours
+    java.util.Set<Instant> pending =
+        p.measured()
+            ? java.util.Set.of()
+            : evaluationRollups.pendingHours(jdbc, samplePointId, from, to);
+    java.util.Set<Instant> pendingDays = new java.util.HashSet<>();
+    for (Instant h : pending) {
+      pendingDays.add(
+          Instant.ofEpochSecond(Math.floorDiv(h.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS));
+    }
+    List<Instant[]> rest = new ArrayList<>();
     if (size % DAY_SECONDS == 0 && origin % DAY_SECONDS == 0) {
       Instant days =
           Instant.ofEpochSecond(Math.floorDiv(to.getEpochSecond(), DAY_SECONDS) * DAY_SECONDS);
       if (days.isAfter(from)) {
         rollups.addTo(
-            jdbc, parts, rollup + "_day", samplePointId, parameter, from, from, days, size);
+            jdbc,
+            parts,
+            rollup + "_day",
+            samplePointId,
+            parameter,
+            from,
+            from,
+            days,
+            size,
+            pendingDays::contains);
+        for (Instant d : pendingDays) {
+          if (!d.isBefore(from) && d.isBefore(days)) {
+            rollups.addTo(
+                jdbc,
+                parts,
+                rollup + "_hour",
+                samplePointId,
+                parameter,
+                from,
+                d,
+                d.plusSeconds(DAY_SECONDS),
+                size,
+                pending::contains);
+          }
+        }
         hoursFrom = days;
       }
     }
     rollups.addTo(
-        jdbc, parts, rollup + "_hour", samplePointId, parameter, from, hoursFrom, hoursTo, size);
+        jdbc,
+        parts,
+        rollup + "_hour",
+        samplePointId,
+        parameter,
+        from,
+        hoursFrom,
+        hoursTo,
+        size,
+        pending::contains);
+    for (Instant h : pending) {
+      Instant end = h.plusSeconds(HOUR_SECONDS);
+      if (!h.isBefore(from) && !end.isAfter(hoursTo)) {
+        rest.add(new Instant[] {h, end});
+      }
+    }
     // the raw rest: the hour around each bucket boundary off the hour, and the partial last hour
-    List<Instant[]> rest = new ArrayList<>();
     if (origin % HOUR_SECONDS != 0) {
       for (long b = origin; b < to.getEpochSecond(); b += size) {
         Instant at = Instant.ofEpochSecond(b);
