@@ -86,8 +86,7 @@ class SeriesKeys {
     }
     Short k = keys.get(p);
     if (k == null) {
-      throw new IllegalStateException(
-          "parameter " + p.code() + " has no key in reading_parameter: a migration must add it");
+      throw new IllegalStateException("parameter " + p.code() + " has no key in reading_parameter");
     }
     return k;
   }
@@ -99,7 +98,37 @@ class SeriesKeys {
             .orElseThrow(() -> new IllegalArgumentException("not a parameter: " + code)));
   }
 
+  /**
+   * The keys of every parameter of the catalogue. A parameter added to the catalogue after the
+   * migrations gets the next free key here, in a transaction of its own that locks the table
+   * against another instance doing the same, so that adding a parameter needs no migration.
+   */
   private Map<Parameter, Short> loadParameters() {
+    Map<Parameter, Short> keys = readParameters();
+    if (keys.size() < Parameter.values().length) {
+      String[] missing =
+          java.util.Arrays.stream(Parameter.values())
+              .filter(p -> !keys.containsKey(p))
+              .map(Parameter::code)
+              .sorted()
+              .toArray(String[]::new);
+      ownTransaction.executeWithoutResult(
+          status -> {
+            jdbc.execute("LOCK TABLE reading_parameter IN SHARE ROW EXCLUSIVE MODE");
+            jdbc.update(
+                "INSERT INTO reading_parameter (parameter_key, code)"
+                    + " SELECT (SELECT coalesce(max(parameter_key), 0) FROM reading_parameter)"
+                    + " + row_number() OVER (ORDER BY code), code"
+                    + " FROM unnest(?::text[]) AS u(code)"
+                    + " WHERE code NOT IN (SELECT code FROM reading_parameter)",
+                (Object) missing);
+          });
+      return readParameters();
+    }
+    return keys;
+  }
+
+  private Map<Parameter, Short> readParameters() {
     Map<Parameter, Short> keys = new EnumMap<>(Parameter.class);
     jdbc.query(
         "SELECT parameter_key, code FROM reading_parameter",

@@ -214,7 +214,7 @@ class CompactReadingsMigrationIT {
     }
   }
 
-  /** A parameter added to the service needs its key in a migration, or its readings fail. */
+  /** The migrations give every parameter of the catalogue of their time a key. */
   @Test
   void everyParameterOfTheServiceHasAKey() throws Exception {
     TestDatabase db = TestDatabase.get();
@@ -226,6 +226,40 @@ class CompactReadingsMigrationIT {
         assertThat(rows(s, "SELECT code FROM reading_parameter"))
             .containsAll(List.of(org.kwanta.model.Parameter.codeArray()));
       }
+    } finally {
+      db.dropDatabase(url);
+    }
+  }
+
+  /**
+   * A parameter of the catalogue without a key (one added after the migrations) gets the next free
+   * key when the service first needs the keys: adding a parameter needs no migration.
+   */
+  @Test
+  void aParameterWithoutAKeyGetsTheNextOne() throws Exception {
+    TestDatabase db = TestDatabase.get();
+    String url = db.createScratchDatabase("compactnewkey");
+    try {
+      flyway(url, db, "latest").migrate();
+      var source =
+          new org.springframework.jdbc.datasource.DriverManagerDataSource(
+              url, db.user(), db.password());
+      var jdbc = new org.springframework.jdbc.core.JdbcTemplate(source);
+      jdbc.update("DELETE FROM reading_parameter WHERE code = 'orp'");
+      short max =
+          jdbc.queryForObject("SELECT max(parameter_key) FROM reading_parameter", Short.class);
+      SeriesKeys keys =
+          new SeriesKeys(
+              jdbc, new org.springframework.jdbc.datasource.DataSourceTransactionManager(source));
+      assertThat(keys.parameter(org.kwanta.model.Parameter.ORP)).isEqualTo((short) (max + 1));
+      assertThat(
+              jdbc.queryForObject(
+                  "SELECT parameter_key FROM reading_parameter WHERE code = 'orp'", Short.class))
+          .isEqualTo((short) (max + 1));
+      assertThat(keys.parameter(org.kwanta.model.Parameter.PH))
+          .isEqualTo(
+              jdbc.queryForObject(
+                  "SELECT parameter_key FROM reading_parameter WHERE code = 'ph'", Short.class));
     } finally {
       db.dropDatabase(url);
     }
