@@ -25,6 +25,12 @@ class EvaluationRollups {
     this.jdbc = jdbc;
   }
 
+  /** One point's UTC hour. */
+  private record Hour(String samplePointId, Instant start) {}
+
+  private static final java.util.Comparator<Hour> HOUR_ORDER =
+      java.util.Comparator.comparing(Hour::samplePointId).thenComparing(Hour::start);
+
   /**
    * Marks, in the caller's (ingest) transaction, every (point, UTC hour) of the evaluations written
    * ({@code evaluation_rollup_pending}, V65); {@link #settle} recomputes them later, off the ingest
@@ -37,17 +43,16 @@ class EvaluationRollups {
     if (written.isEmpty()) {
       return;
     }
-    java.util.TreeSet<String> keys = new java.util.TreeSet<>();
+    java.util.TreeSet<Hour> keys = new java.util.TreeSet<>(HOUR_ORDER);
     for (EvaluationRunner.Result r : written) {
-      keys.add(r.samplePointId() + '\u0000' + r.time().truncatedTo(ChronoUnit.HOURS));
+      keys.add(new Hour(r.samplePointId(), r.time().truncatedTo(ChronoUnit.HOURS)));
     }
     String[] points = new String[keys.size()];
     String[] hours = new String[keys.size()];
     int i = 0;
-    for (String k : keys) {
-      int cut = k.indexOf('\u0000');
-      points[i] = k.substring(0, cut);
-      hours[i++] = k.substring(cut + 1);
+    for (Hour h : keys) {
+      points[i] = h.samplePointId();
+      hours[i++] = h.start().toString();
     }
     jdbc.update(
         c -> {
@@ -97,12 +102,9 @@ class EvaluationRollups {
     jdbc.query(
         c -> {
           var ps =
-              c.prepareStatement(
-                  "SELECT update_evaluation_rollups(?::text[], ?::timestamptz[],"
-                      + " array_fill(NULL::timestamptz, ARRAY[?]))");
+              c.prepareStatement("SELECT settle_evaluation_rollups(?::text[], ?::timestamptz[])");
           ps.setArray(1, c.createArrayOf("text", points));
           ps.setArray(2, c.createArrayOf("timestamptz", hours));
-          ps.setInt(3, points.length);
           return ps;
         },
         rs -> {});

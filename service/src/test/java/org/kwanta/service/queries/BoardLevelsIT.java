@@ -14,6 +14,7 @@ import java.util.UUID;
 import org.junit.jupiter.api.Test;
 import org.kwanta.service.support.DatabaseTest;
 import org.kwanta.service.support.Http;
+import org.kwanta.service.support.RandomFeed;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.boot.test.web.server.LocalServerPort;
 
@@ -37,19 +38,6 @@ class BoardLevelsIT {
   private String drum;
   private String feed;
 
-  private static String reading(
-      String point, String parameter, Instant time, double value, String unit, String extra) {
-    return String.format(
-        Locale.ROOT,
-        "{\"samplePoint\":\"%s\",\"parameter\":\"%s\",\"time\":\"%s\",\"value\":%s,\"unit\":\"%s\"%s}",
-        point,
-        parameter,
-        time,
-        value,
-        unit,
-        extra);
-  }
-
   /**
    * Minutes [from, to) of one reading set a minute at both points. SC 8.55, CACE 0.113, DCACE
    * 0.0725 µS/cm are the engine's own solution model for 1.5 mg/kg ammonia (pH 9.49 at 25 °C, model
@@ -62,12 +50,16 @@ class BoardLevelsIT {
       Instant t = t0.plusSeconds(60L * m);
       for (String p : List.of(drum, feed)) {
         double cace = p.equals(feed) ? feedCace : 0.113;
-        rows.add(reading(p, "specific_conductivity", t, 8.55, "uS/cm", ",\"compensated\":true"));
-        rows.add(reading(p, "cation_conductivity", t, cace, "uS/cm", ",\"compensated\":true"));
         rows.add(
-            reading(
+            RandomFeed.reading(
+                p, "specific_conductivity", t, 8.55, "uS/cm", ",\"compensated\":true"));
+        rows.add(
+            RandomFeed.reading(
+                p, "cation_conductivity", t, cace, "uS/cm", ",\"compensated\":true"));
+        rows.add(
+            RandomFeed.reading(
                 p, "degassed_cation_conductivity", t, 0.0725, "uS/cm", ",\"compensated\":true"));
-        rows.add(reading(p, "ph", t, p.equals(drum) ? drumPh : 9.49, "[pH]", ""));
+        rows.add(RandomFeed.reading(p, "ph", t, p.equals(drum) ? drumPh : 9.49, "[pH]", ""));
       }
     }
     HttpResponse<String> r =

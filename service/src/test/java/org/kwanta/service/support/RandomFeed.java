@@ -50,7 +50,10 @@ public final class RandomFeed {
     return List.of(drum, feed);
   }
 
-  private static String reading(
+  /**
+   * One reading of an ingest batch, as JSON ({@code extra}: further fields with a leading comma).
+   */
+  public static String reading(
       String point, String parameter, Instant time, double value, String unit, String extra) {
     return String.format(
         Locale.ROOT,
