@@ -25,7 +25,7 @@ public record Snapshot(Instant time, Map<Parameter, List<Reading>> history) {
         copy.put(e.getKey(), List.copyOf(e.getValue()));
       }
     }
-    history = Map.copyOf(copy);
+    history = java.util.Collections.unmodifiableMap(copy);
   }
 
   /** The latest reading of a parameter, if there is any. */

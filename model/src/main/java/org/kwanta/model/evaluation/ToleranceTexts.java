@@ -33,6 +33,14 @@ record ToleranceTexts(
 
   private static final Map<Tolerances, ToleranceTexts> CACHE = new ConcurrentHashMap<>();
 
+  /**
+   * The set asked for last, by identity: a point's evaluations share one {@link Tolerances}
+   * instance, and hashing its fields per call cost more than the rest of the lookup.
+   */
+  private record Last(Tolerances tolerances, ToleranceTexts texts) {}
+
+  private static volatile Last LAST;
+
   /** The source name of each conductivity channel in part (a), by {@link Parameter#ordinal()}. */
   private static final String[] CHANNEL_NAMES = new String[Parameter.values().length];
 
@@ -44,11 +52,17 @@ record ToleranceTexts(
 
   /** The texts of a tolerance set. */
   static ToleranceTexts of(Tolerances tol) {
+    Last last = LAST;
+    if (last != null && last.tolerances() == tol) {
+      return last.texts();
+    }
     ToleranceTexts t = CACHE.get(tol);
     if (t != null) {
+      LAST = new Last(tol, t);
       return t;
     }
     t = print(tol);
+
     if (CACHE.size() < CACHE_LIMIT) {
       CACHE.putIfAbsent(tol, t);
     }

@@ -38,6 +38,9 @@ public final class EvaluationRunner {
   /** How old a drum-pressure reading may be to set the operating state ({@code kwanta.process}). */
   private final Duration drumPressureMaxAge;
 
+  /** Whether the history slides from one evaluation time to the next (false: tests only). */
+  private final boolean sliding;
+
   @org.springframework.beans.factory.annotation.Autowired
   EvaluationRunner(
       WaterProperties water, ProcessValueProperties process, EvaluationProperties evaluation) {
@@ -54,8 +57,21 @@ public final class EvaluationRunner {
 
   /** A runner over the given engine and maximum age of a drum-pressure reading. */
   public EvaluationRunner(Evaluator evaluator, Duration drumPressureMaxAge) {
+    this(evaluator, drumPressureMaxAge, true);
+  }
+
+  private EvaluationRunner(Evaluator evaluator, Duration drumPressureMaxAge, boolean sliding) {
     this.evaluator = evaluator;
     this.drumPressureMaxAge = drumPressureMaxAge;
+    this.sliding = sliding;
+  }
+
+  /**
+   * The same runner building every evaluation's history from scratch ({@link #historyFromScratch}):
+   * the reference the sliding history is tested against.
+   */
+  EvaluationRunner fromScratch() {
+    return new EvaluationRunner(evaluator, drumPressureMaxAge, false);
   }
 
   /** The engine this runner evaluates with. */
@@ -109,8 +125,17 @@ public final class EvaluationRunner {
       slot[i] = r.quality() == 2 ? -1 : slot(r.parameter());
       bucket[i] = bucketOf(r.time(), bucketMillis);
     }
-    long[] lastBucket = new long[SLOTS];
-    List<StoredReading> seen = new ArrayList<>();
+    // The history each evaluation sees is kept as it slides: per slot, the index of the latest
+    // reading of each bucket within the window, oldest bucket first (see historyFromScratch for the
+    // rule written out; HistoryEquivalenceTest checks the two agree on random feeds).
+    int[][] latest = new int[SLOTS][];
+    int[] head = new int[SLOTS];
+    int[] tail = new int[SLOTS];
+    boolean[] needy = new boolean[n];
+    Reading[] asRead = new Reading[n];
+    int needyInWindow = 0;
+    Parameter[] parameters = Parameter.values();
+    int added = 0;
     int start = 0;
     int end = 0;
     for (Instant t : times) {
@@ -121,64 +146,81 @@ public final class EvaluationRunner {
       while (end < n && !readings.get(end).time().isAfter(t)) {
         end++;
       }
-      // The history this evaluation sees: the latest good or uncertain reading of each parameter in
-      // each bucket. So the trend, flat-line and persistence checks cost the same at 1-second or
-      // 1-minute resolution, the database need only return the latest reading per bucket for the
-      // older part of a window, and an evaluation depends only on the stored readings, whatever
-      // their arrival order.
-      java.util.Arrays.fill(lastBucket, Long.MIN_VALUE);
-      seen.clear();
-      for (int i = end - 1; i >= start; i--) {
-        int k = slot[i];
-        if (k >= 0 && lastBucket[k] != bucket[i]) {
-          lastBucket[k] = bucket[i];
-          seen.add(readings.get(i));
+      // readings that arrived in the window: each becomes its bucket's latest
+      for (; added < end; added++) {
+        int k = slot[added];
+        if (k < 0) {
+          continue;
+        }
+        StoredReading r = readings.get(added);
+        Parameter p = parameters[k];
+        if (ENGINE_SLOT[k]) {
+          if (p.isConductivity() && !r.compensated() && Double.isNaN(r.sampleTemperatureCel())) {
+            needy[added] = true;
+          } else {
+            asRead[added] =
+                new Reading(
+                    r.time(),
+                    r.value(),
+                    p.isConductivity() && !r.compensated()
+                        ? r.sampleTemperatureCel() + 273.15
+                        : 298.15,
+                    r.compensated());
+          }
+        }
+        if (latest[k] == null) {
+          latest[k] = new int[Math.min(n, HISTORY_BUCKETS + 2)];
+        }
+        if (tail[k] > head[k] && bucket[latest[k][tail[k] - 1]] == bucket[added]) {
+          needyInWindow -= needy[latest[k][tail[k] - 1]] ? 1 : 0;
+          latest[k][tail[k] - 1] = added;
+        } else {
+          if (tail[k] == latest[k].length) {
+            int live = tail[k] - head[k];
+            if (live * 2 > latest[k].length) {
+              latest[k] = java.util.Arrays.copyOf(latest[k], Math.min(n, latest[k].length * 2));
+            }
+            System.arraycopy(latest[k], head[k], latest[k], 0, live);
+            head[k] = 0;
+            tail[k] = live;
+          }
+          latest[k][tail[k]++] = added;
+        }
+        needyInWindow += needy[added] ? 1 : 0;
+      }
+      // buckets whose latest reading left the window
+      for (int k = 0; k < SLOTS; k++) {
+        while (tail[k] > head[k] && latest[k][head[k]] < start) {
+          needyInWindow -= needy[latest[k][head[k]]] ? 1 : 0;
+          head[k]++;
         }
       }
-      Map<Parameter, List<Reading>> history = new EnumMap<>(Parameter.class);
       List<String> notes = new ArrayList<>();
-      double lastSampleTemperatureCel = Double.NaN;
-      Instant lastSampleTemperatureTime = null;
+      Map<Parameter, List<Reading>> history;
       double drumPressureMPa = Double.NaN;
       Instant drumPressureTime = null;
-      for (int j = seen.size() - 1; j >= 0; j--) {
-        StoredReading r = seen.get(j);
-        if ("sample_temperature".equals(r.parameter())) {
-          lastSampleTemperatureCel = r.value();
-          lastSampleTemperatureTime = r.time();
-          continue;
-        }
-        if (DRUM_PRESSURE.equals(r.parameter())) {
-          drumPressureMPa = r.value();
-          drumPressureTime = r.time();
-          continue;
-        }
-        Parameter p = engineParameter(r.parameter());
-        if (p == null) {
-          continue;
-        }
-        double temperatureK;
-        boolean compensated = r.compensated();
-        if (!p.isConductivity() || compensated) {
-          temperatureK = 298.15;
-        } else if (!Double.isNaN(r.sampleTemperatureCel())) {
-          temperatureK = r.sampleTemperatureCel() + 273.15;
-        } else if (lastSampleTemperatureTime != null
-            && Duration.between(lastSampleTemperatureTime, r.time()).compareTo(maxAge) <= 0) {
-          temperatureK = lastSampleTemperatureCel + 273.15;
-        } else {
-          if (!r.time().isBefore(t.minus(maxAge))) {
-            notes.add(
-                r.parameter()
-                    + " at "
-                    + r.time()
-                    + " is uncompensated and has no sample temperature: not used");
+      int drum = Parameter.DRUM_PRESSURE.ordinal();
+      if (tail[drum] > head[drum]) {
+        StoredReading r = readings.get(latest[drum][tail[drum] - 1]);
+        drumPressureMPa = r.value();
+        drumPressureTime = r.time();
+      }
+      if (needyInWindow > 0 || !sliding) {
+        // an uncompensated conductivity without its own sample temperature takes the latest sample
+        // temperature before it in the history: the rule written out
+        history = historyFromScratch(readings, slot, bucket, start, end, t, maxAge, notes);
+      } else {
+        history = new EnumMap<>(Parameter.class);
+        for (int k = 0; k < SLOTS; k++) {
+          int size = tail[k] - head[k];
+          if (size > 0 && ENGINE_SLOT[k]) {
+            Reading[] list = new Reading[size];
+            for (int j = 0; j < size; j++) {
+              list[j] = asRead[latest[k][head[k] + j]];
+            }
+            history.put(parameters[k], java.util.Arrays.asList(list));
           }
-          continue;
         }
-        history
-            .computeIfAbsent(p, k -> new ArrayList<>())
-            .add(new Reading(r.time(), r.value(), temperatureK, compensated));
       }
       OperatingCondition.Choice operating =
           OperatingCondition.choose(
@@ -231,6 +273,74 @@ public final class EvaluationRunner {
   }
 
   /**
+   * The history an evaluation at {@code t} sees, written out: the latest good or uncertain reading
+   * of each parameter in each bucket of the window [{@code start}, {@code end}). So the trend,
+   * flat-line and persistence checks cost the same at 1-second or 1-minute resolution, the database
+   * need only return the latest reading per bucket for the older part of a window, and an
+   * evaluation depends only on the stored readings, whatever their arrival order. An uncompensated
+   * conductivity reading without its own sample temperature takes the latest sample temperature
+   * before it in that history, if it is at most {@code maxAge} older; else it is not used (noted).
+   */
+  static Map<Parameter, List<Reading>> historyFromScratch(
+      List<StoredReading> readings,
+      int[] slot,
+      long[] bucket,
+      int start,
+      int end,
+      Instant t,
+      Duration maxAge,
+      List<String> notes) {
+    long[] lastBucket = new long[SLOTS];
+    java.util.Arrays.fill(lastBucket, Long.MIN_VALUE);
+    List<StoredReading> seen = new ArrayList<>();
+    for (int i = end - 1; i >= start; i--) {
+      int k = slot[i];
+      if (k >= 0 && lastBucket[k] != bucket[i]) {
+        lastBucket[k] = bucket[i];
+        seen.add(readings.get(i));
+      }
+    }
+    Map<Parameter, List<Reading>> history = new EnumMap<>(Parameter.class);
+    double lastSampleTemperatureCel = Double.NaN;
+    Instant lastSampleTemperatureTime = null;
+    for (int j = seen.size() - 1; j >= 0; j--) {
+      StoredReading r = seen.get(j);
+      if ("sample_temperature".equals(r.parameter())) {
+        lastSampleTemperatureCel = r.value();
+        lastSampleTemperatureTime = r.time();
+        continue;
+      }
+      Parameter p = engineParameter(r.parameter());
+      if (p == null) {
+        continue;
+      }
+      double temperatureK;
+      boolean compensated = r.compensated();
+      if (!p.isConductivity() || compensated) {
+        temperatureK = 298.15;
+      } else if (!Double.isNaN(r.sampleTemperatureCel())) {
+        temperatureK = r.sampleTemperatureCel() + 273.15;
+      } else if (lastSampleTemperatureTime != null
+          && Duration.between(lastSampleTemperatureTime, r.time()).compareTo(maxAge) <= 0) {
+        temperatureK = lastSampleTemperatureCel + 273.15;
+      } else {
+        if (!r.time().isBefore(t.minus(maxAge))) {
+          notes.add(
+              r.parameter()
+                  + " at "
+                  + r.time()
+                  + " is uncompensated and has no sample temperature: not used");
+        }
+        continue;
+      }
+      history
+          .computeIfAbsent(p, k -> new ArrayList<>())
+          .add(new Reading(r.time(), r.value(), temperatureK, compensated));
+    }
+    return history;
+  }
+
+  /**
    * History buckets per window: an evaluation sees at most this many readings (+1) per parameter.
    */
   public static final int HISTORY_BUCKETS = 30;
@@ -270,6 +380,19 @@ public final class EvaluationRunner {
 
   /** One slot per catalogue parameter (the sample temperature has its own). */
   private static final int SLOTS = Parameter.values().length;
+
+  /**
+   * The slots whose readings go into the engine's history (not the sample temperature or the drum
+   * pressure, which are read on the side).
+   */
+  private static final boolean[] ENGINE_SLOT = new boolean[SLOTS];
+
+  static {
+    for (Parameter p : Parameter.values()) {
+      ENGINE_SLOT[p.ordinal()] =
+          p.usedByEngine() && p != Parameter.SAMPLE_TEMPERATURE && p != Parameter.DRUM_PRESSURE;
+    }
+  }
 
   /** Index of a parameter the evaluation uses (engine parameters and sample temperature), or -1. */
   private static int slot(String code) {
