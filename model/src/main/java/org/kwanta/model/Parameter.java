@@ -144,6 +144,9 @@ public enum Parameter {
   private final double min;
   private final double max;
 
+  /** The code, made once: a new string per call was hashed anew by every map it keyed. */
+  private final String code = name().toLowerCase(Locale.ROOT);
+
   Parameter(
       String unit,
       Quantity quantity,
@@ -163,7 +166,7 @@ public enum Parameter {
 
   /** Stable lower snake case code used in the HTTP API, data files and metric labels. */
   public String code() {
-    return name().toLowerCase(Locale.ROOT);
+    return code;
   }
 
   /** Canonical unit as a UCUM code. */

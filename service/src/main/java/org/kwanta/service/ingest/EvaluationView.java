@@ -209,7 +209,7 @@ public record EvaluationView(
             .map(
                 c ->
                     new Compensated(
-                        c.parameter().name().toLowerCase(java.util.Locale.ROOT),
+                        c.parameter().code(),
                         c.raw(),
                         Double.isFinite(c.sampleTemperatureK())
                             ? c.sampleTemperatureK() - 273.15
