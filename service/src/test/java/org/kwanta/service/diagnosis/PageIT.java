@@ -16,9 +16,11 @@ import java.util.logging.Level;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestInstance;
 import org.kwanta.service.support.DatabaseTest;
+import org.kwanta.service.support.Depth;
 import org.kwanta.service.support.Http;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
@@ -46,7 +48,8 @@ import tools.jackson.databind.json.JsonMapper;
  * a chemist key); at 390 px the page does not scroll sideways; first paint on loopback is within 1
  * s; no test leaves a console error. Screenshots of the board, a trend and the pH curve at 1440 and
  * 390 px go to target/screenshots. Without the browser the test is skipped visibly, except in CI
- * (CI=true), where it fails.
+ * (CI=true), where it fails. The everyday build walks the board, the leak, an acknowledgement and
+ * the phone width; CI walks every test here ({@link Depth#THOROUGH}).
  */
 @DatabaseTest
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
@@ -157,6 +160,7 @@ class PageIT {
   }
 
   @Test
+  @Tag(Depth.THOROUGH)
   void theTrendDrawsTheLimitsInForceAndTheCurveItsWhatIf() throws Exception {
     open(1440, chemistKey, "page-levels");
     openPoint("PL-ECO");
@@ -232,6 +236,7 @@ class PageIT {
   }
 
   @Test
+  @Tag(Depth.THOROUGH)
   void aReadKeySeesNoFormsAndSignsOut() throws Exception {
     open(1440, readKey, "page-levels");
     wait(60).until(d -> "loaded".equals(body("events")));
@@ -281,6 +286,7 @@ class PageIT {
   }
 
   @Test
+  @Tag(Depth.THOROUGH)
   void aLabEntryThroughThePageAppearsAsAMarkerOnTheTrend() throws Exception {
     open(1440, chemistKey, "page-levels");
     wait(60).until(d -> "forms".equals(body("entry")));
@@ -350,6 +356,7 @@ class PageIT {
    * nothing.
    */
   @Test
+  @Tag(Depth.THOROUGH)
   void timeFieldsRead24HourWithTheirZoneAndRefuseABadTime() throws Exception {
     open(1440, chemistKey, "page-levels");
     System.out.println(
@@ -420,6 +427,7 @@ class PageIT {
 
   /** The board asked again with its ETag: 304 without a body while nothing changed. */
   @Test
+  @Tag(Depth.THOROUGH)
   void theBoardAskedAgainWithItsEtagIsNotModified() throws Exception {
     Http http = Http.admin(port);
     HttpResponse<String> first = http.get("/api/v1/plants/page-levels/overview");
@@ -452,6 +460,7 @@ class PageIT {
 
   /** The monthly report opens from the page's link in the same tab (the key stays in the tab). */
   @Test
+  @Tag(Depth.THOROUGH)
   void theMonthlyReportOpensFromThePage() throws Exception {
     open(1440, readKey, "page-leak");
     driver.findElement(By.id("report-link")).click();
@@ -491,6 +500,7 @@ class PageIT {
    * target/screenshots/first-paint.txt.
    */
   @Test
+  @Tag(Depth.THOROUGH)
   void firstPaintOnLoopbackIsWithinOneSecond() throws Exception {
     open(1440, chemistKey, "page-levels");
     List<Double> paints = new ArrayList<>();

@@ -24,6 +24,7 @@ import org.springframework.core.io.support.PathMatchingResourcePatternResolver;
  * rollups, across daily partitions, for points of the registry and a point written by hand that the
  * registry does not know, and a parameter code the service does not know.
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class CompactReadingsMigrationIT {
 
   private static final String READINGS =

@@ -213,7 +213,7 @@ class ReadingsIngestIT {
   @Test
   void storedEvaluationsAtFineResolutionDoNotDependOnArrivalOrder() {
     // 20 s steps: several readings per history bucket, so the history is thinned
-    assertOrderIndependent(360, 20);
+    assertOrderIndependent(org.kwanta.service.support.Depth.of(120, 360), 20);
   }
 
   private void assertOrderIndependent(int steps, long stepSeconds) {

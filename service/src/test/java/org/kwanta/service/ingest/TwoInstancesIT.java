@@ -48,7 +48,7 @@ class TwoInstancesIT {
     String reference = points.get(0);
     String shared = points.get(1);
     Instant start = Instant.now().truncatedTo(ChronoUnit.DAYS).minus(1, ChronoUnit.DAYS);
-    int steps = 240;
+    int steps = org.kwanta.service.support.Depth.of(120, 240);
 
     // the reference: one instance, final values, in order
     List<String> inOrder = ReadingsIngestIT.feedwaterReadings(reference, start, steps, 20);

@@ -17,6 +17,7 @@ import org.kwanta.service.support.TestDatabase;
  * first start's version then covers every earlier time); a database that held readings keeps the
  * version 1 that V35 recorded.
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class DefaultsActivationMigrationIT {
 
   @Test

@@ -27,6 +27,7 @@ import tools.jackson.databind.json.JsonMapper;
  * (0.2 / 0.35 / 0.65 µS/cm, from memory — verify); the drum-water silica bounds checked are the
  * ASME CRTD-Vol. 34 table values as retrieved (see {@code defaults-v3.yaml}).
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class DefaultsVersion3IT {
 
   private static final JsonMapper JSON = JsonMapper.builder().build();

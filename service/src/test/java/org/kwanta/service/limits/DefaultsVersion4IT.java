@@ -28,6 +28,7 @@ import tools.jackson.databind.json.JsonMapper;
  * <p>The plant and its readings are invented (demo only). The levels are recalled (from memory —
  * verify, see {@code defaults-v3.yaml} and {@code defaults-v4.yaml}).
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class DefaultsVersion4IT {
 
   private static final JsonMapper JSON = JsonMapper.builder().build();

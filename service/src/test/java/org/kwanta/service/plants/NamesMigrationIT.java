@@ -15,6 +15,7 @@ import org.kwanta.service.support.TestDatabase;
  * configurations say "block" and hold the regime in its trade form, and an evaluation's doubt and
  * targets are in instrument_in_doubt and points_at.
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class NamesMigrationIT {
 
   @Test

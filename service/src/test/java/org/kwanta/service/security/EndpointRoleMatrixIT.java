@@ -124,9 +124,9 @@ class EndpointRoleMatrixIT {
         }
       }
     }
-    List<String> failures = new ArrayList<>();
-    int checks = 0;
+    List<String> failures = java.util.Collections.synchronizedList(new ArrayList<>());
     Set<String> tested = new TreeSet<>();
+    List<String[]> calls = new ArrayList<>();
     for (String endpoint : endpoints) {
       String method = endpoint.substring(0, endpoint.indexOf(' '));
       String path = endpoint.substring(endpoint.indexOf(' ') + 1);
@@ -140,12 +140,29 @@ class EndpointRoleMatrixIT {
         unmapped.add(endpoint);
         continue;
       }
-      checks += check(method, path, access, keys, failures);
+      calls.add(new String[] {method, path, access.name()});
       tested.add(endpoint + " -> " + access);
     }
     for (Map.Entry<String, Access> e : ACTUATOR.entrySet()) {
-      checks += check("GET", e.getKey(), e.getValue(), keys, failures);
+      calls.add(new String[] {"GET", e.getKey(), e.getValue().name()});
       tested.add("GET " + e.getKey() + " -> " + e.getValue());
+    }
+    // the calls change nothing (no bodies), so they go four at a time
+    java.util.concurrent.ExecutorService pool =
+        java.util.concurrent.Executors.newFixedThreadPool(4);
+    int checks = 0;
+    try {
+      List<java.util.concurrent.Future<Integer>> done = new ArrayList<>();
+      for (String[] c : calls) {
+        done.add(pool.submit(() -> check(c[0], c[1], Access.valueOf(c[2]), keys, failures)));
+      }
+      for (java.util.concurrent.Future<Integer> f : done) {
+        checks += f.get();
+      }
+    } catch (InterruptedException | java.util.concurrent.ExecutionException e) {
+      throw new IllegalStateException(e);
+    } finally {
+      pool.shutdownNow();
     }
     log.info(
         "Role matrix: {} endpoints x 6 callers = {} checks:\n  {}",

@@ -17,13 +17,20 @@ import org.springframework.jdbc.core.JdbcTemplate;
 
 /**
  * A random feed through the ingest, for tests of what is kept up to date incrementally: readings a
- * minute apart at a drum water and a feedwater point of a new plant, 22 hours from 26 hours ago,
- * then steps of 6 minutes up to now with gaps filled in later batches (out of order), corrections
- * of earlier readings (which re-evaluate the hour after them and so change later readings' doubt),
- * bad-quality readings, readings ahead of the step's time, and once a reading changed by SQL by
- * hand (a generation step the ingest did not log). The series are invented.
+ * minute apart at a drum water and a feedwater point of a new plant, 22 hours from 24 hours ago (26
+ * in CI, where the steps take 4 hours), then steps of 6 minutes up to now with gaps filled in later
+ * batches (out of order), corrections of earlier readings (which re-evaluate the hour after them
+ * and so change later readings' doubt), bad-quality readings, readings ahead of the step's time,
+ * and once a reading changed by SQL by hand (a generation step the ingest did not log). The series
+ * are invented.
  */
 public final class RandomFeed {
+
+  /**
+   * Steps of 6 minutes after the first 22 hours: 20 in the everyday build, 40 in CI's (each step
+   * has late batches, corrections far back and a reading ahead; step 17 changes a reading by hand).
+   */
+  public static final int STEPS = Depth.of(20, 40);
 
   private final Http http;
   private final JdbcTemplate jdbc;
@@ -43,7 +50,11 @@ public final class RandomFeed {
     plant = prefix + "-" + tag;
     drum = "F" + tag + "-DRUM";
     feed = "F" + tag + "-FEED";
-    t0 = Instant.now().truncatedTo(ChronoUnit.MINUTES).minus(26 * 60, ChronoUnit.MINUTES);
+    // the last step ends now
+    t0 =
+        Instant.now()
+            .truncatedTo(ChronoUnit.MINUTES)
+            .minus(22 * 60 + 6 * STEPS, ChronoUnit.MINUTES);
   }
 
   public List<String> points() {
@@ -99,8 +110,8 @@ public final class RandomFeed {
   }
 
   /**
-   * Declares the plant, posts the first 22 hours and 40 steps up to now, and after each calls
-   * {@code after} with the step's time (readings ahead of it exist).
+   * Declares the plant, posts the first 22 hours and {@link #STEPS} steps up to now, and after each
+   * calls {@code after} with the step's time (readings ahead of it exist).
    */
   public void run(Consumer<Instant> after) {
     String body =
@@ -115,7 +126,7 @@ public final class RandomFeed {
     assertThat(created.statusCode()).as(created.body()).isEqualTo(201);
     List<String> ids = points();
 
-    // the first 22 hours from 26 hours ago, then 40 steps of 6 minutes up to now: the one-day
+    // the first 22 hours, then STEPS steps of 6 minutes up to now: the one-day
     // window
     // starts before the first reading and slides past it
     List<String> first = new ArrayList<>();
@@ -128,7 +139,7 @@ public final class RandomFeed {
     after.accept(t0.plusSeconds(22 * 3600));
 
     TreeSet<Integer> gaps = new TreeSet<>();
-    for (int step = 0; step < 40; step++) {
+    for (int step = 0; step < STEPS; step++) {
       int from = 22 * 60 + step * 6;
       List<String> rows = new ArrayList<>();
       for (int m = from; m < from + 6; m++) {

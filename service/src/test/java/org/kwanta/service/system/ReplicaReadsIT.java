@@ -48,6 +48,7 @@ import tools.jackson.databind.json.JsonMapper;
  * the second host, as it does after a failover (deploy/replica/check-failover.sh proves that on a
  * real primary and standby).
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 @SpringBootTest(webEnvironment = SpringBootTest.WebEnvironment.RANDOM_PORT)
 @ContextConfiguration(initializers = ReplicaReadsIT.Databases.class)
 @AutoConfigureMetrics

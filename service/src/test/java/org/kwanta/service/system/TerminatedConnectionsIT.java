@@ -35,6 +35,7 @@ import org.springframework.boot.test.web.server.LocalServerPort;
  * outage: every failed request is 503 with Retry-After, never 500, and a group that failed for it
  * is not retried on the plain path. Bounded: {@value #SECONDS} s, loopback only.
  */
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 @DatabaseTest
 class TerminatedConnectionsIT {
 
