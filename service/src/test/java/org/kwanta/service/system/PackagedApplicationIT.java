@@ -166,6 +166,10 @@ class PackagedApplicationIT {
         new java.util.concurrent.atomic.AtomicInteger();
     java.util.concurrent.ExecutorService pool =
         java.util.concurrent.Executors.newFixedThreadPool(6);
+    Path firstLog = lastLog;
+    // what each request that ended after SIGTERM got, and when (shown if the count is off)
+    java.util.concurrent.atomic.AtomicLong sigterm = new java.util.concurrent.atomic.AtomicLong();
+    List<String> afterSigterm = java.util.Collections.synchronizedList(new ArrayList<>());
     try {
       awaitHealthy(app, port);
       Http http = Http.admin(port);
@@ -186,9 +190,12 @@ class PackagedApplicationIT {
                           .append("\",\"value\":0.5,\"unit\":\"ug/kg\"}");
                     }
                     body.append("]}");
+                    long sent = System.nanoTime();
+                    String outcome;
                     try {
                       HttpResponse<String> r =
                           http.post("/api/v1/readings", "application/json", body.toString());
+                      outcome = Integer.toString(r.statusCode());
                       if (r.statusCode() == 200) {
                         acknowledged.incrementAndGet();
                       } else if (r.statusCode() >= 500 && r.statusCode() != 503) {
@@ -197,7 +204,19 @@ class PackagedApplicationIT {
                         refused.incrementAndGet();
                       }
                     } catch (RuntimeException connectionRefusedOrClosed) {
+                      outcome = String.valueOf(connectionRefusedOrClosed.getMessage());
                       refused.incrementAndGet();
+                    }
+                    long t0 = sigterm.get();
+                    if (t0 != 0) {
+                      afterSigterm.add(
+                          String.format(
+                              "client %d batch %d: sent %+d ms, answered %+d ms after SIGTERM: %s",
+                              client,
+                              b,
+                              (sent - t0) / 1_000_000,
+                              (System.nanoTime() - t0) / 1_000_000,
+                              outcome));
                     }
                   }
                 }));
@@ -205,6 +224,7 @@ class PackagedApplicationIT {
       while (acknowledged.get() < 6) {
         Thread.sleep(50);
       }
+      sigterm.set(System.nanoTime());
       app.destroy(); // SIGTERM under load
       assertThat(app.waitFor(90, java.util.concurrent.TimeUnit.SECONDS))
           .as("graceful shutdown finished")
@@ -235,7 +255,12 @@ class PackagedApplicationIT {
                       + base.plusSeconds(700_000));
       assertThat(r.statusCode()).isEqualTo(200);
       int stored = r.body().split("\"quality\"", -1).length - 1;
-      assertThat(stored).isEqualTo(acknowledged.get() * perBatch);
+      assertThat(stored)
+          .as(
+              "readings stored = acknowledged batches x %d; requests ending after SIGTERM:%n%s%n"
+                  + "the first run's log, last lines:%n%s",
+              perBatch, String.join("\n", afterSigterm), tail(firstLog, 80))
+          .isEqualTo(acknowledged.get() * perBatch);
     } finally {
       stop(second);
     }
@@ -268,6 +293,16 @@ class PackagedApplicationIT {
     lastLog = log;
     pb.redirectErrorStream(true).redirectOutput(log.toFile());
     return pb.start();
+  }
+
+  /** The last lines of a log file, for a failure's message. */
+  private static String tail(Path log, int lines) {
+    try {
+      List<String> all = Files.readAllLines(log);
+      return String.join("\n", all.subList(Math.max(0, all.size() - lines), all.size()));
+    } catch (IOException e) {
+      return "(log unreadable: " + e.getMessage() + ")";
+    }
   }
 
   private static void awaitHealthy(Process app, int port) throws Exception {
