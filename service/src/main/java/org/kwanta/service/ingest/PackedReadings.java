@@ -125,6 +125,101 @@ class PackedReadings {
             });
   }
 
+  /**
+   * Per point and parameter, the last packed reading at or after {@code since} (the last block
+   * only: one index probe per series).
+   */
+  static void latest(
+      JdbcTemplate jdbc, Collection<String> points, Instant since, String[] codes, Sink out) {
+    if (points.isEmpty() || codes.length == 0) {
+      return;
+    }
+    long sinceMicros = micros(since);
+    jdbc.query(
+        c -> {
+          PreparedStatement ps =
+              c.prepareStatement(
+                  """
+                  SELECT k.sample_point_id, q.code, b.block
+                  FROM reading_point k
+                  CROSS JOIN (SELECT parameter_key, code FROM reading_parameter
+                              WHERE code = ANY (?::text[])) q
+                  CROSS JOIN LATERAL (
+                    SELECT block FROM reading_pack p
+                    WHERE p.point_key = k.point_key AND p.parameter_key = q.parameter_key
+                      AND p.start > ?::timestamptz - interval '1 hour'
+                    ORDER BY p.start DESC LIMIT 1) b
+                  WHERE k.sample_point_id = ANY (?::text[])""");
+          ps.setArray(1, c.createArrayOf("text", codes));
+          ps.setTimestamp(2, Timestamp.from(since));
+          ps.setArray(3, c.createArrayOf("text", points.toArray(String[]::new)));
+          return ps;
+        },
+        (RowCallbackHandler)
+            rs -> {
+              List<Row> rows = ReadingBlock.decode(rs.getBytes(3));
+              Row last = rows.get(rows.size() - 1);
+              if (last.micros() >= sinceMicros) {
+                out.accept(rs.getString(1), rs.getString(2), last);
+              }
+            });
+  }
+
+  /**
+   * Among some points, the latest packed reading of one parameter at or before {@code at} that is
+   * not of bad quality, as (sample point, row), or null; on equal times the greater point id. Reads
+   * the blocks backwards from {@code at} and stops at the first hour that cannot hold a later one.
+   */
+  static Map.Entry<String, Row> lastNotBadAtOrBefore(
+      JdbcTemplate jdbc, Collection<String> points, String code, Instant at) {
+    if (points.isEmpty()) {
+      return null;
+    }
+    long atMicros = micros(at);
+    return jdbc.query(
+        c -> {
+          PreparedStatement ps =
+              c.prepareStatement(
+                  """
+                  SELECT k.sample_point_id, p.start, p.block FROM reading_pack p
+                  JOIN reading_point k ON k.point_key = p.point_key
+                  WHERE k.sample_point_id = ANY (?::text[])
+                    AND p.parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
+                    AND p.start <= ?
+                  ORDER BY p.start DESC""");
+          ps.setArray(1, c.createArrayOf("text", points.toArray(String[]::new)));
+          ps.setString(2, code);
+          ps.setTimestamp(3, Timestamp.from(at));
+          ps.setFetchSize(100);
+          return ps;
+        },
+        rs -> {
+          String bestPoint = null;
+          Row best = null;
+          while (rs.next()) {
+            long start = micros(rs.getTimestamp(2).toInstant());
+            if (best != null && start + HOUR_MICROS <= best.micros()) {
+              break;
+            }
+            String point = rs.getString(1);
+            List<Row> rows = ReadingBlock.decode(rs.getBytes(3));
+            for (int i = rows.size() - 1; i >= 0; i--) {
+              Row r = rows.get(i);
+              if (r.micros() <= atMicros && r.quality() < 2) {
+                if (best == null
+                    || r.micros() > best.micros()
+                    || (r.micros() == best.micros() && point.compareTo(bestPoint) > 0)) {
+                  best = r;
+                  bestPoint = point;
+                }
+                break;
+              }
+            }
+          }
+          return best == null ? null : Map.entry(bestPoint, best);
+        });
+  }
+
   /** The packed readings of one point in [from, to), of the given parameter codes. */
   static List<StoredReading> stored(
       JdbcTemplate jdbc, String samplePointId, Instant from, Instant to, String[] codes) {

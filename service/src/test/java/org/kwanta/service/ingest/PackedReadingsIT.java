@@ -50,6 +50,8 @@ class PackedReadingsIT {
   @Autowired JdbcTemplate jdbc;
   @Autowired ReadingPacker packer;
   @Autowired ReadingStore store;
+  @Autowired StoredSeries series;
+  @Autowired ReadingHistory history;
   Http http;
 
   @BeforeEach
@@ -218,6 +220,8 @@ class PackedReadingsIT {
     List<StoredReading> loadedBefore = store.loadSince(Map.of(point, from)).get(point);
     assertThat(betweenBefore).hasSize(readings.size());
 
+    Map<String, Object> readsBefore = reads(point, start);
+
     long packed = packer.packDay(day);
     assertThat(packed)
         .isEqualTo(readings.stream().filter(f -> dayOf(f.sent().time()).equals(day)).count())
@@ -244,6 +248,12 @@ class PackedReadingsIT {
                 betweenBefore.stream()
                     .filter(r -> r.time().isAfter(mid) && !r.time().isAfter(midEnd))
                     .toList()));
+
+    assertReadsEqual(reads(point, start), readsBefore);
+    // the next day packed too: every reading in blocks
+    assertThat(packer.packDay(day.plusDays(1))).isPositive();
+    assertThat(storedState(point)).isEqualTo(before);
+    assertReadsEqual(reads(point, start), readsBefore);
 
     // sending the same readings again changes nothing and keeps no revision
     send(readings, 1000);
@@ -418,6 +428,93 @@ class PackedReadingsIT {
             + " WHERE sample_point_id = ? ORDER BY time",
         String.class,
         point);
+  }
+
+  /** What the read APIs answer for the point's series around its readings. */
+  private Map<String, Object> reads(String point, Instant start) {
+    Map<String, Object> out = new TreeMap<>();
+    Instant from = start.minusSeconds(3600);
+    Instant to = start.plus(Duration.ofHours(9));
+    for (String code : PARAMETERS) {
+      StoredSeries.Source source = StoredSeries.Source.readings(code);
+      out.put(code + " raw", series.raw(point, source, from, to, null, 1_000_000));
+      out.put(
+          code + " raw after",
+          series.raw(point, source, from, to, start.plusSeconds(7777).plusNanos(3000), 500));
+      out.put(
+          code + " bucketedRaw",
+          series.bucketedRaw(point, source, from, to, Duration.ofMinutes(15)));
+      // rollups for whole hours, raw for the hour around each boundary off the hour
+      out.put(
+          code + " bucketed",
+          series.bucketed(
+              point, source, from.plusSeconds(1800), to.minusSeconds(77), Duration.ofHours(2)));
+      out.put(
+          code + " judged", history.judged(point, code, code.toUpperCase(Locale.ROOT), from, to));
+      out.put(
+          code + " latestNotBad",
+          history.latestNotBad(point, code, start.plusSeconds(3000), start.plusSeconds(3600)));
+    }
+    List<ReadingHistory.PointReading> minutes =
+        new ArrayList<>(history.lastPerMinute(List.of(point), List.of(PARAMETERS), from, to));
+    minutes.sort(
+        java.util.Comparator.comparing(ReadingHistory.PointReading::time)
+            .thenComparing(ReadingHistory.PointReading::parameter));
+    out.put("lastPerMinute", minutes);
+    List<String> judgedSince = new ArrayList<>();
+    history.judgedSince(
+        Map.of(point, from),
+        List.of(PARAMETERS),
+        to,
+        (p, code, micros, value, inDoubt, calculated, phInDoubt) ->
+            judgedSince.add(
+                code
+                    + " "
+                    + micros
+                    + " "
+                    + Double.doubleToRawLongBits(value)
+                    + " "
+                    + inDoubt
+                    + " "
+                    + calculated
+                    + " "
+                    + phInDoubt));
+    out.put("judgedSince", judgedSince);
+    out.put("latestPerParameter", bits(history.latestPerParameter(point, from)));
+    out.put(
+        "latestPerParameter of points",
+        bits(history.latestPerParameter(List.of(point), from).get(point)));
+    return out;
+  }
+
+  /** Equal, the bucket means up to the rounding of their sums. */
+  private static void assertReadsEqual(Map<String, Object> actual, Map<String, Object> expected) {
+    assertThat(actual.keySet()).isEqualTo(expected.keySet());
+    expected.forEach(
+        (k, e) -> {
+          Object a = actual.get(k);
+          if (k.contains("bucketed")) {
+            @SuppressWarnings("unchecked")
+            List<StoredSeries.Bucket> ab = (List<StoredSeries.Bucket>) a;
+            @SuppressWarnings("unchecked")
+            List<StoredSeries.Bucket> eb = (List<StoredSeries.Bucket>) e;
+            assertThat(ab).as(k).hasSameSizeAs(eb).isNotEmpty();
+            for (int i = 0; i < eb.size(); i++) {
+              StoredSeries.Bucket x = ab.get(i);
+              StoredSeries.Bucket y = eb.get(i);
+              assertThat(List.of(x.start(), x.min(), x.max(), x.last(), x.count()))
+                  .as(k)
+                  .isEqualTo(List.of(y.start(), y.min(), y.max(), y.last(), y.count()));
+              assertThat(x.mean())
+                  .as(k)
+                  .isCloseTo(y.mean(), org.assertj.core.api.Assertions.within(1e-14));
+            }
+          } else {
+            assertThat(a).as(k).isEqualTo(e);
+          }
+        });
+    assertThat((List<?>) expected.get("sodium raw")).isNotEmpty();
+    assertThat((List<?>) expected.get("judgedSince")).isNotEmpty();
   }
 
   private static String key(Sent s) {
