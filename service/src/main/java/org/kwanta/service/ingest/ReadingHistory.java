@@ -17,6 +17,11 @@ import org.springframework.stereotype.Repository;
  * {@code reading} and {@code reading_head} tables. Queries, limits, metrics and the diagnosis read
  * readings through it. Every query bounds the time on the partitioned table it reads, so PostgreSQL
  * prunes to the days asked for.
+ *
+ * <p>Packed days ({@link PackedReadings}, {@code kwanta.storage.packing}): a query whose range can
+ * reach further back than {@code kwanta.storage.pack-after} also decodes the blocks of its series
+ * (one code path, {@link PackedReadings#read}) and merges them in; a day is either hot or packed,
+ * never both. Only {@link #latestSince} reads {@code reading} alone (see there).
  */
 @Repository
 public class ReadingHistory {
@@ -183,7 +188,105 @@ public class ReadingHistory {
         interval,
         f,
         inService);
+    addPackedSlotCounts(out, points, parameters, from, to, interval, inService);
     return out;
+  }
+
+  /**
+   * {@link #slotCounts} of the packed days (an availability over a month reaches them): the blocks
+   * decoded, each reading's slot computed as {@code date_bin} computes it, the evaluations that
+   * point at something read for the range. The counts are added to those of {@code reading}: a slot
+   * that spans the boundary between a packed and a hot day (only when slots do not divide the UTC
+   * day) counts on both sides.
+   *
+   * @param interval "n seconds", as {@code Availability} writes it
+   * @param inService the multirange literal {@code Availability.multirange} writes
+   */
+  private void addPackedSlotCounts(
+      java.util.Map<String, long[]> out,
+      String points,
+      String parameters,
+      Instant from,
+      Instant to,
+      String interval,
+      String inService) {
+    java.util.Map<String, Instant> froms = new java.util.HashMap<>();
+    for (String p : points.split(",")) {
+      froms.put(p, from);
+    }
+    java.util.Map<String, List<Object[]>> rows = new java.util.TreeMap<>();
+    PackedReadings.read(
+        jdbc,
+        froms,
+        to,
+        parameters.split(","),
+        (point, code, r) ->
+            rows.computeIfAbsent(point + "|" + code, k -> new java.util.ArrayList<>())
+                .add(new Object[] {r.micros(), r.quality()}));
+    if (rows.isEmpty()) {
+      return;
+    }
+    java.util.regex.Matcher m =
+        java.util.regex.Pattern.compile("([0-9]+) seconds").matcher(interval);
+    if (!m.matches()) {
+      throw new IllegalArgumentException("slot interval not in seconds: " + interval);
+    }
+    long slot = Long.parseLong(m.group(1)) * 1_000_000L;
+    List<long[]> windows = new java.util.ArrayList<>();
+    java.util.regex.Matcher w =
+        java.util.regex.Pattern.compile("\\[\"([^\"]+)\",\"([^\"]+)\"\\)").matcher(inService);
+    while (w.find()) {
+      windows.add(
+          new long[] {
+            PackedReadings.micros(Instant.parse(w.group(1))),
+            PackedReadings.micros(Instant.parse(w.group(2)))
+          });
+    }
+    java.util.Map<String, List<String>> inDoubtAt = new java.util.HashMap<>();
+    jdbc.query(
+        "SELECT sample_point_id, time, points_at FROM evaluation"
+            + " WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?"
+            + " AND points_at <> '{}'",
+        (RowCallbackHandler)
+            rs ->
+                inDoubtAt.put(
+                    rs.getString(1) + "|" + PackedReadings.micros(rs.getTimestamp(2).toInstant()),
+                    List.of((String[]) rs.getArray(3).getArray())),
+        (Object) points.split(","),
+        Timestamp.from(from),
+        Timestamp.from(to));
+    long origin = PackedReadings.micros(from);
+    rows.forEach(
+        (key, list) -> {
+          String point = key.substring(0, key.indexOf('|'));
+          String instrument =
+              key.substring(key.indexOf('|') + 1).toUpperCase(java.util.Locale.ROOT);
+          java.util.Set<Long> any = new java.util.HashSet<>();
+          java.util.Set<Long> good = new java.util.HashSet<>();
+          for (Object[] r : list) {
+            long t = (long) r[0];
+            long s = origin + Math.floorDiv(t - origin, slot) * slot;
+            boolean counted = false;
+            for (long[] win : windows) {
+              counted |= s >= win[0] && s < win[1];
+            }
+            if (!counted) {
+              continue;
+            }
+            any.add(s);
+            List<String> at = inDoubtAt.getOrDefault(point + "|" + t, List.of());
+            if ((short) r[1] == 0
+                && !at.contains(instrument)
+                && !at.contains("SAMPLE_CONDITIONING")) {
+              good.add(s);
+            }
+          }
+          if (!any.isEmpty()) {
+            long[] c = out.computeIfAbsent(key, k -> new long[2]);
+            c[0] += any.size();
+            c[1] += good.size();
+          }
+        });
   }
 
   /**
@@ -338,7 +441,13 @@ public class ReadingHistory {
   /** A point's reading of one parameter. */
   public record PointReading(String samplePointId, String parameter, Instant time, double value) {}
 
-  /** Every sample point's latest reading of each parameter at or after {@code since}. */
+  /**
+   * Every sample point's latest reading of each parameter at or after {@code since}. Reads {@code
+   * reading} alone: its callers (the sample gauges) ask for the last {@code
+   * kwanta.metrics.level-window}, one day by default, and a day is packed only once all of it lies
+   * more than {@code kwanta.storage.pack-after} (at least one day) back; a level window longer than
+   * pack-after would miss the packed days (docs/operations.md says so).
+   */
   public List<PointReading> latestSince(Instant since) {
     List<PointReading> out = new java.util.ArrayList<>();
     jdbc.query(

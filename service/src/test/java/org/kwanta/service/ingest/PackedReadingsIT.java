@@ -480,6 +480,18 @@ class PackedReadingsIT {
                     + " "
                     + phInDoubt));
     out.put("judgedSince", judgedSince);
+    Map<String, String> slots = new TreeMap<>();
+    history
+        .slotCounts(
+            point,
+            String.join(",", PARAMETERS),
+            from,
+            to,
+            "900 seconds",
+            "{[\"" + from.plusSeconds(1800) + "\",\"" + to.minusSeconds(7200) + "\")}")
+        .forEach((k, v) -> slots.put(k, v[0] + "/" + v[1]));
+    assertThat(slots).hasSize(2);
+    out.put("slotCounts", slots);
     out.put("latestPerParameter", bits(history.latestPerParameter(point, from)));
     out.put(
         "latestPerParameter of points",
