@@ -23,9 +23,11 @@ import java.util.zip.CRC32C;
  * then delta and delta-of-delta codes), the value column, the temperature presence as runs, the
  * present temperatures as a value column, the qualities as runs of (16-bit value, length), the
  * compensated flags as runs; zero padding to a byte, then a CRC-32C of everything before it (4
- * bytes, big-endian). Signed integers use the prefix codes {@code 0} (zero), {@code 10}+8 bits,
- * {@code 110}+16, {@code 1110}+32 and {@code 1111}+64 bits. A block whose checksum, format, length
- * or contents do not add up fails with {@link DamagedBlockException}; nothing is guessed.
+ * bytes, big-endian). Signed integers (time deltas of delta, scaled-value deltas) use the prefix
+ * codes {@code 0} (zero), {@code 10}+7 bits, {@code 110}+12, {@code 1110}+21, {@code 11110}+32 and
+ * {@code 11111}+64 bits (two's complement): 9 bits for an analyser's noise of a few counts, 15 for
+ * millisecond jitter, 25 for jitter up to a second. A block whose checksum, format, length or
+ * contents do not add up fails with {@link DamagedBlockException}; nothing is guessed.
  */
 final class ReadingBlock {
 
@@ -423,17 +425,20 @@ final class ReadingBlock {
     void signed(long v) {
       if (v == 0) {
         bits(0, 1);
-      } else if (v >= -128 && v <= 127) {
+      } else if (v >= -(1L << 6) && v < (1L << 6)) {
         bits(0b10, 2);
-        bits(v, 8);
-      } else if (v >= Short.MIN_VALUE && v <= Short.MAX_VALUE) {
+        bits(v, 7);
+      } else if (v >= -(1L << 11) && v < (1L << 11)) {
         bits(0b110, 3);
-        bits(v, 16);
-      } else if (v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE) {
+        bits(v, 12);
+      } else if (v >= -(1L << 20) && v < (1L << 20)) {
         bits(0b1110, 4);
+        bits(v, 21);
+      } else if (v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE) {
+        bits(0b11110, 5);
         bits(v, 32);
       } else {
-        bits(0b1111, 4);
+        bits(0b11111, 5);
         bits(v, 64);
       }
     }
@@ -513,15 +518,23 @@ final class ReadingBlock {
         return 0;
       }
       if (bits(1) == 0) {
-        return (byte) bits(8);
+        return extend(bits(7), 7);
       }
       if (bits(1) == 0) {
-        return (short) bits(16);
+        return extend(bits(12), 12);
+      }
+      if (bits(1) == 0) {
+        return extend(bits(21), 21);
       }
       if (bits(1) == 0) {
         return (int) bits(32);
       }
       return bits(64);
+    }
+
+    /** The low {@code n} bits as a two's complement number. */
+    private static long extend(long v, int n) {
+      return (v << (64 - n)) >> (64 - n);
     }
 
     long varint() {
