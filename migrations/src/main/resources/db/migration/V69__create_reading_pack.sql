@@ -14,9 +14,13 @@ CREATE TABLE reading_pack (
     CONSTRAINT reading_pack_pkey PRIMARY KEY (point_key, parameter_key, start)
 );
 
--- The block is already compressed: PostgreSQL's TOAST compression (pglz) would only spend time finding that
--- out for blocks over about 2 kB (full-precision noise); EXTERNAL stores such blocks out of line uncompressed.
+-- The block is already compressed: PostgreSQL's TOAST compression (pglz) would only spend time finding that out,
+-- and moving a block of 2-8 kB out of line (TOAST chunks of about 2 kB, each a row with its index entry) cost
+-- about 2-3 bytes per reading on this machine (scripts/load/pack_load.py, full-precision and jittered data).
+-- EXTERNAL never compresses; a tuple target of a whole page keeps blocks inline up to about 8 kB; larger ones
+-- (hours of 1 s data at full precision) still go out of line, uncompressed.
 ALTER TABLE reading_pack ALTER COLUMN block SET STORAGE EXTERNAL;
+ALTER TABLE reading_pack SET (toast_tuple_target = 8160);
 
 -- The days whose partition of reading was packed and dropped: the ingest never makes a partition of reading
 -- for them again (Partitions), and writes their readings into the blocks instead. A small registry table (a

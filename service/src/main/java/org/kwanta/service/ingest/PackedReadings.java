@@ -458,6 +458,12 @@ class PackedReadings {
    * is read in key order, each series-hour encoded (merged with a block already there, the
    * partition's rows winning), the day listed in {@code reading_pack_day}, the partition dropped.
    *
+   * <p>An ingest transaction that has written another day (holding its lock on the parent {@code
+   * reading}) and then waits for this day's partition deadlocks with the {@code DROP}, which needs
+   * the parent exclusively; PostgreSQL aborts one of the two. The packer tries the day again on its
+   * next run; the ingest retries the batch (plain path, then, the partition gone, with the day
+   * found packed), so nothing is lost.
+   *
    * @return the readings packed, or -1 when the day has no partition (packed already, or never
    *     written)
    */
