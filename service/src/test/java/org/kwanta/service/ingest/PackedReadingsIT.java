@@ -538,7 +538,14 @@ class PackedReadingsIT {
     String point = TestPlants.feedwaterPoints(http, 1).get(0);
     Instant start = start(30);
     send(series(point, start, new Random(73), false).subList(0, 100), 100);
-    packer.packDay(dayOf(start));
+    // the schedule's path: every day that ends at or before the horizon, and only those
+    Instant horizon = start.truncatedTo(ChronoUnit.DAYS).plus(Duration.ofDays(1));
+    assertThat(packer.packBefore(horizon.minusSeconds(1))).doesNotContain(dayOf(start));
+    assertThat(hasPartition(dayOf(start))).isTrue();
+    assertThat(packer.packBefore(horizon))
+        .contains(dayOf(start))
+        .allMatch(d -> d.isBefore(dayOf(horizon)));
+    assertThat(hasPartition(dayOf(start))).isFalse();
     assertThat(storedState(point)).hasSize(100);
     assertThat(
             jdbc.queryForObject(
