@@ -159,6 +159,13 @@ public class Partitions {
     return packed.contains(day);
   }
 
+  /**
+   * Whether any day is known to be packed (the ingest's hot path skips the per-day check if not).
+   */
+  public boolean anyPacked() {
+    return !packed.isEmpty();
+  }
+
   /** Notes that this instance packed the day (its partition of {@code reading} is gone). */
   void markPacked(LocalDate day) {
     packed.add(day);

@@ -53,6 +53,10 @@ class ReadingRollups {
    *     summed up per hour here
    */
   void update(Collection<Hour> touched, Collection<ValidReading> written) {
+    if (!partitions.anyPacked()) {
+      updateHot(touched, written);
+      return;
+    }
     // hours of packed days were recomputed from their blocks when the readings were written
     // (PackedReadings.write); recomputing them here from reading would empty them
     Set<Hour> recompute = new HashSet<>();
@@ -67,6 +71,10 @@ class ReadingRollups {
         fresh.add(r);
       }
     }
+    updateHot(recompute, fresh);
+  }
+
+  private void updateHot(Collection<Hour> recompute, Collection<ValidReading> fresh) {
     // the new readings summed up per hour here, so that only one row per hour goes to the database
     Map<Hour, List<ValidReading>> added = new java.util.HashMap<>();
     for (ValidReading r : fresh) {

@@ -99,6 +99,9 @@ class ReadingStore {
    * PackedReadings#write}); the rest stay for {@code reading}.
    */
   private Counts writePacked(List<ValidReading> readings) {
+    if (!partitions.anyPacked()) {
+      return new Counts(0, 0, 0);
+    }
     List<ValidReading> coldReadings = new ArrayList<>();
     List<ValidReading> hot = new ArrayList<>(readings.size());
     for (ValidReading r : readings) {
@@ -157,6 +160,9 @@ class ReadingStore {
    * transaction.
    */
   Counts upsert(List<ValidReading> all) {
+    if (!partitions.anyPacked()) {
+      return upsertHot(all);
+    }
     List<ValidReading> readings = new ArrayList<>(all);
     Counts cold = writePacked(readings);
     if (readings.isEmpty()) {
@@ -419,7 +425,7 @@ class ReadingStore {
    * after all fails the statement (and so the transaction): nothing is overwritten silently.
    */
   int copyNew(List<ValidReading> all) {
-    List<ValidReading> readings = new ArrayList<>(all);
+    List<ValidReading> readings = partitions.anyPacked() ? new ArrayList<>(all) : all;
     Counts cold = writePacked(readings);
     if (cold.corrected() + cold.unchanged() > 0) {
       throw new IllegalStateException(
