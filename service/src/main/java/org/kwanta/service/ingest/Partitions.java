@@ -43,6 +43,14 @@ public class Partitions {
   private final TransactionTemplate ownTransaction;
   private final Set<LocalDate> known = ConcurrentHashMap.newKeySet();
 
+  /**
+   * Days whose readings were packed ({@code reading_pack_day}, {@link PackedReadings#pack}): no
+   * partition of {@code reading} is made for them again (an empty one would hide nothing, but the
+   * day's readings would be split between it and the blocks); their readings go to the blocks. A
+   * day once packed stays packed, so this set only grows (retention forgets days before it).
+   */
+  private final Set<LocalDate> packed = ConcurrentHashMap.newKeySet();
+
   Partitions(JdbcTemplate jdbc, PlatformTransactionManager transactions) {
     this.jdbc = jdbc;
     this.ownTransaction = new TransactionTemplate(transactions);
@@ -75,8 +83,14 @@ public class Partitions {
     Set<String> missing = new TreeSet<>();
     Set<LocalDate> newDays = new TreeSet<>();
     for (LocalDate day : unknown) {
+      if (packedInDatabase(day)) {
+        packed.add(day);
+      }
       for (String table : TABLES) {
         String name = name(table, day);
+        if (table.equals("reading") && packed.contains(day)) {
+          continue;
+        }
         if (!exists(name)) {
           missing.add(name);
           newDays.add(day);
@@ -97,6 +111,10 @@ public class Partitions {
             jdbc.queryForObject("SELECT pg_advisory_xact_lock(?)", Object.class, LOCK_KEY);
             if (exists(name)) {
               return; // another instance or request made it meanwhile
+            }
+            if (table.equals("reading") && packedInDatabase(day)) {
+              packed.add(day); // packed meanwhile (under this lock): never made again
+              return;
             }
             jdbc.execute(
                 "CREATE TABLE IF NOT EXISTS "
@@ -124,6 +142,58 @@ public class Partitions {
             "SELECT EXISTS (SELECT 1 FROM pg_class WHERE relname = ? AND relkind IN ('r', 'p'))",
             Boolean.class,
             name));
+  }
+
+  private boolean packedInDatabase(LocalDate day) {
+    return Boolean.TRUE.equals(
+        jdbc.queryForObject(
+            "SELECT EXISTS (SELECT 1 FROM reading_pack_day WHERE day = ?)", Boolean.class, day));
+  }
+
+  /**
+   * Whether the day's readings are packed, as last seen by {@link #ensure} (which the ingest calls
+   * for every day of a batch before writing it; a day packed since then fails the write with a
+   * missing partition, and the retry's {@code ensure} finds it packed).
+   */
+  public boolean isPacked(LocalDate day) {
+    return packed.contains(day);
+  }
+
+  /**
+   * Whether any day is known to be packed (the ingest's hot path skips the per-day check if not).
+   */
+  public boolean anyPacked() {
+    return !packed.isEmpty();
+  }
+
+  /** Notes that this instance packed the day (its partition of {@code reading} is gone). */
+  void markPacked(LocalDate day) {
+    packed.add(day);
+    known.remove(day);
+  }
+
+  /** Forgets packed days before the given day (retention deleted their blocks). */
+  void forgetPackedBefore(LocalDate firstKeptDay) {
+    packed.removeIf(d -> d.isBefore(firstKeptDay));
+  }
+
+  /**
+   * The days that have a partition of {@code reading} and end before the given day, oldest first:
+   * the days the packer may pack.
+   */
+  List<LocalDate> readingDaysBefore(LocalDate firstUnpackedDay) {
+    return jdbc
+        .queryForList(
+            """
+            SELECT c.relname FROM pg_inherits i
+            JOIN pg_class c ON c.oid = i.inhrelid
+            WHERE i.inhparent = 'reading'::regclass AND c.relname ~ '^reading_p[0-9]{8}$'""",
+            String.class)
+        .stream()
+        .map(Partitions::dayOf)
+        .filter(d -> d.isBefore(firstUnpackedDay))
+        .sorted()
+        .toList();
   }
 
   /** Forgets that the days have partitions: the next {@link #ensure} checks the database. */

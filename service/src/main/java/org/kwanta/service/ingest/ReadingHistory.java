@@ -17,6 +17,11 @@ import org.springframework.stereotype.Repository;
  * {@code reading} and {@code reading_head} tables. Queries, limits, metrics and the diagnosis read
  * readings through it. Every query bounds the time on the partitioned table it reads, so PostgreSQL
  * prunes to the days asked for.
+ *
+ * <p>Packed days ({@link PackedReadings}, {@code kwanta.storage.packing}): a query whose range can
+ * reach further back than {@code kwanta.storage.pack-after} also decodes the blocks of its series
+ * (one code path, {@link PackedReadings#read}) and merges them in; a day is either hot or packed,
+ * never both. Only {@link #latestSince} reads {@code reading} alone (see there).
  */
 @Repository
 public class ReadingHistory {
@@ -31,12 +36,42 @@ public class ReadingHistory {
 
   /** A point's latest reading of each parameter, ordered by parameter code. */
   public List<StoredReading> latestPerParameter(String samplePointId, Instant since) {
-    return jdbc.query(
-        LATEST_READINGS,
-        ReadingHistory::stored,
-        (Object) PARAMETER_CODES,
-        samplePointId,
-        java.sql.Timestamp.from(since));
+    List<StoredReading> hot =
+        jdbc.query(
+            LATEST_READINGS,
+            ReadingHistory::stored,
+            (Object) PARAMETER_CODES,
+            samplePointId,
+            java.sql.Timestamp.from(since));
+    java.util.Map<String, List<StoredReading>> byPoint = new java.util.HashMap<>();
+    byPoint.put(samplePointId, new java.util.ArrayList<>(hot));
+    addPackedLatest(byPoint, List.of(samplePointId), since);
+    return byPoint.get(samplePointId);
+  }
+
+  /**
+   * Packed days (see {@link PackedReadings}): the look-back of the latest readings (35 days by
+   * default) reaches past the packing horizon, so a parameter without a reading in {@code reading}
+   * since the time takes its latest one from the blocks (the last block of each such series: one
+   * index probe). The lists stay ordered by parameter code.
+   */
+  private void addPackedLatest(
+      java.util.Map<String, List<StoredReading>> byPoint,
+      java.util.Collection<String> points,
+      Instant since) {
+    PackedReadings.latest(
+        jdbc,
+        points,
+        since,
+        PARAMETER_CODES,
+        (point, code, row) -> {
+          List<StoredReading> list =
+              byPoint.computeIfAbsent(point, k -> new java.util.ArrayList<>());
+          if (list.stream().noneMatch(r -> r.parameter().equals(code))) {
+            list.add(PackedReadings.stored(code, row));
+            list.sort(java.util.Comparator.comparing(StoredReading::parameter));
+          }
+        });
   }
 
   /**
@@ -69,6 +104,7 @@ public class ReadingHistory {
         (Object) samplePointIds.toArray(String[]::new),
         (Object) PARAMETER_CODES,
         Timestamp.from(since));
+    addPackedLatest(out, samplePointIds, since);
     return out;
   }
 
@@ -152,7 +188,105 @@ public class ReadingHistory {
         interval,
         f,
         inService);
+    addPackedSlotCounts(out, points, parameters, from, to, interval, inService);
     return out;
+  }
+
+  /**
+   * {@link #slotCounts} of the packed days (an availability over a month reaches them): the blocks
+   * decoded, each reading's slot computed as {@code date_bin} computes it, the evaluations that
+   * point at something read for the range. The counts are added to those of {@code reading}: a slot
+   * that spans the boundary between a packed and a hot day (only when slots do not divide the UTC
+   * day) counts on both sides.
+   *
+   * @param interval "n seconds", as {@code Availability} writes it
+   * @param inService the multirange literal {@code Availability.multirange} writes
+   */
+  private void addPackedSlotCounts(
+      java.util.Map<String, long[]> out,
+      String points,
+      String parameters,
+      Instant from,
+      Instant to,
+      String interval,
+      String inService) {
+    java.util.Map<String, Instant> froms = new java.util.HashMap<>();
+    for (String p : points.split(",")) {
+      froms.put(p, from);
+    }
+    java.util.Map<String, List<Object[]>> rows = new java.util.TreeMap<>();
+    PackedReadings.read(
+        jdbc,
+        froms,
+        to,
+        parameters.split(","),
+        (point, code, r) ->
+            rows.computeIfAbsent(point + "|" + code, k -> new java.util.ArrayList<>())
+                .add(new Object[] {r.micros(), r.quality()}));
+    if (rows.isEmpty()) {
+      return;
+    }
+    java.util.regex.Matcher m =
+        java.util.regex.Pattern.compile("([0-9]+) seconds").matcher(interval);
+    if (!m.matches()) {
+      throw new IllegalArgumentException("slot interval not in seconds: " + interval);
+    }
+    long slot = Long.parseLong(m.group(1)) * 1_000_000L;
+    List<long[]> windows = new java.util.ArrayList<>();
+    java.util.regex.Matcher w =
+        java.util.regex.Pattern.compile("\\[\"([^\"]+)\",\"([^\"]+)\"\\)").matcher(inService);
+    while (w.find()) {
+      windows.add(
+          new long[] {
+            PackedReadings.micros(Instant.parse(w.group(1))),
+            PackedReadings.micros(Instant.parse(w.group(2)))
+          });
+    }
+    java.util.Map<String, List<String>> inDoubtAt = new java.util.HashMap<>();
+    jdbc.query(
+        "SELECT sample_point_id, time, points_at FROM evaluation"
+            + " WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?"
+            + " AND points_at <> '{}'",
+        (RowCallbackHandler)
+            rs ->
+                inDoubtAt.put(
+                    rs.getString(1) + "|" + PackedReadings.micros(rs.getTimestamp(2).toInstant()),
+                    List.of((String[]) rs.getArray(3).getArray())),
+        (Object) points.split(","),
+        Timestamp.from(from),
+        Timestamp.from(to));
+    long origin = PackedReadings.micros(from);
+    rows.forEach(
+        (key, list) -> {
+          String point = key.substring(0, key.indexOf('|'));
+          String instrument =
+              key.substring(key.indexOf('|') + 1).toUpperCase(java.util.Locale.ROOT);
+          java.util.Set<Long> any = new java.util.HashSet<>();
+          java.util.Set<Long> good = new java.util.HashSet<>();
+          for (Object[] r : list) {
+            long t = (long) r[0];
+            long s = origin + Math.floorDiv(t - origin, slot) * slot;
+            boolean counted = false;
+            for (long[] win : windows) {
+              counted |= s >= win[0] && s < win[1];
+            }
+            if (!counted) {
+              continue;
+            }
+            any.add(s);
+            List<String> at = inDoubtAt.getOrDefault(point + "|" + t, List.of());
+            if ((short) r[1] == 0
+                && !at.contains(instrument)
+                && !at.contains("SAMPLE_CONDITIONING")) {
+              good.add(s);
+            }
+          }
+          if (!any.isEmpty()) {
+            long[] c = out.computeIfAbsent(key, k -> new long[2]);
+            c[0] += any.size();
+            c[1] += good.size();
+          }
+        });
   }
 
   /**
@@ -177,7 +311,28 @@ public class ReadingHistory {
             Timestamp.from(after),
             Timestamp.from(at))
         .stream()
-        .findFirst();
+        .findFirst()
+        .or(
+            () -> {
+              // a past time (after, at] may lie in a packed day
+              PointReading[] last = {null};
+              PackedReadings.read(
+                  jdbc,
+                  java.util.Map.of(samplePointId, after.plusNanos(1000)),
+                  at.plusNanos(1000),
+                  new String[] {parameter},
+                  (point, code, r) -> {
+                    if (r.quality() < 2) {
+                      last[0] =
+                          new PointReading(
+                              samplePointId,
+                              parameter,
+                              PackedReadings.instant(r.micros()),
+                              r.value());
+                    }
+                  });
+              return java.util.Optional.ofNullable(last[0]);
+            });
   }
 
   /**
@@ -186,6 +341,68 @@ public class ReadingHistory {
    * by time, then sample point id.
    */
   public List<PointReading> blockReadings(
+      String plant, String block, String parameter, Instant from, Instant to) {
+    List<PointReading> hot = blockReadingsHot(plant, block, parameter, from, to);
+    // packed days: an operating state changes seldom, so the one in force at the start may lie in
+    // a packed day however short the range
+    List<String> points =
+        jdbc.queryForList(
+            "SELECT id FROM sample_point WHERE plant_id = ? AND block_id = ?",
+            String.class,
+            plant,
+            block);
+    java.util.Map.Entry<String, ReadingBlock.Row> inForce =
+        PackedReadings.lastNotBadAtOrBefore(jdbc, points, parameter, from);
+    java.util.Map<String, Instant> froms = new java.util.HashMap<>();
+    points.forEach(id -> froms.put(id, from.plusNanos(1000)));
+    List<PointReading> cold = new java.util.ArrayList<>();
+    PackedReadings.read(
+        jdbc,
+        froms,
+        to,
+        new String[] {parameter},
+        (point, code, r) -> {
+          if (r.quality() < 2) {
+            cold.add(
+                new PointReading(point, parameter, PackedReadings.instant(r.micros()), r.value()));
+          }
+        });
+    if (inForce == null && cold.isEmpty()) {
+      return hot;
+    }
+    List<PointReading> out = new java.util.ArrayList<>(cold);
+    PointReading hotInForce =
+        hot.stream().filter(r -> !r.time().isAfter(from)).findFirst().orElse(null);
+    for (PointReading r : hot) {
+      if (r != hotInForce) {
+        out.add(r);
+      }
+    }
+    PointReading packedInForce =
+        inForce == null
+            ? null
+            : new PointReading(
+                inForce.getKey(),
+                parameter,
+                PackedReadings.instant(inForce.getValue().micros()),
+                inForce.getValue().value());
+    if (hotInForce == null
+        || (packedInForce != null
+            && (packedInForce.time().isAfter(hotInForce.time())
+                || (packedInForce.time().equals(hotInForce.time())
+                    && packedInForce.samplePointId().compareTo(hotInForce.samplePointId()) > 0)))) {
+      hotInForce = packedInForce;
+    }
+    if (hotInForce != null) {
+      out.add(hotInForce);
+    }
+    out.sort(
+        java.util.Comparator.comparing(PointReading::time)
+            .thenComparing(PointReading::samplePointId));
+    return out;
+  }
+
+  private List<PointReading> blockReadingsHot(
       String plant, String block, String parameter, Instant from, Instant to) {
     return jdbc.query(
         """
@@ -224,7 +441,13 @@ public class ReadingHistory {
   /** A point's reading of one parameter. */
   public record PointReading(String samplePointId, String parameter, Instant time, double value) {}
 
-  /** Every sample point's latest reading of each parameter at or after {@code since}. */
+  /**
+   * Every sample point's latest reading of each parameter at or after {@code since}. Reads {@code
+   * reading} alone: its callers (the sample gauges) ask for the last {@code
+   * kwanta.metrics.level-window}, one day by default, and a day is packed only once all of it lies
+   * more than {@code kwanta.storage.pack-after} (at least one day) back; a level window longer than
+   * pack-after would miss the packed days (docs/operations.md says so).
+   */
   public List<PointReading> latestSince(Instant since) {
     List<PointReading> out = new java.util.ArrayList<>();
     jdbc.query(
@@ -281,6 +504,31 @@ public class ReadingHistory {
         parameters.toArray(String[]::new),
         Timestamp.from(from),
         Timestamp.from(to));
+    // packed days: the last not-bad reading of each minute, from the blocks (a minute lies in one
+    // day, so it is either hot or packed, never both)
+    java.util.Map<String, Instant> froms = new java.util.HashMap<>();
+    samplePointIds.forEach(id -> froms.put(id, from));
+    java.util.Map<String, long[]> lastTimes = new java.util.LinkedHashMap<>();
+    java.util.Map<String, PointReading> lasts = new java.util.LinkedHashMap<>();
+    PackedReadings.read(
+        jdbc,
+        froms,
+        to,
+        parameters.toArray(String[]::new),
+        (point, code, r) -> {
+          if (r.quality() == 2) {
+            return;
+          }
+          long minute = Math.floorDiv(r.micros(), 60_000_000L) * 60_000_000L;
+          String key = point + '\u0000' + code + '\u0000' + minute;
+          long[] t = lastTimes.get(key);
+          if (t == null || r.micros() > t[0]) {
+            lastTimes.put(key, new long[] {r.micros()});
+            lasts.put(
+                key, new PointReading(point, code, PackedReadings.instant(minute), r.value()));
+          }
+        });
+    out.addAll(lasts.values());
     return out;
   }
 
@@ -344,6 +592,102 @@ public class ReadingHistory {
    * @param instrument the name of the instrument that measures the parameter
    */
   public List<Judged> judged(
+      String samplePointId, String parameter, String instrument, Instant from, Instant to) {
+    List<Judged> hot = judgedHot(samplePointId, parameter, instrument, from, to);
+    List<Judged> cold = new java.util.ArrayList<>();
+    packedJudged(
+        java.util.Map.of(samplePointId, from),
+        List.of(parameter),
+        to,
+        code -> instrument,
+        (point, code, micros, value, inDoubt, calculated, phInDoubt) ->
+            cold.add(
+                new Judged(
+                    PackedReadings.instant(micros),
+                    value,
+                    inDoubt,
+                    Double.isNaN(calculated) ? null : calculated,
+                    phInDoubt)));
+    if (cold.isEmpty()) {
+      return hot;
+    }
+    cold.addAll(hot);
+    cold.sort(java.util.Comparator.comparing(Judged::time));
+    return cold;
+  }
+
+  /**
+   * The packed readings of some series over [since of the point, to], judged as {@link #JUDGED}
+   * judges them: the blocks decoded, the evaluations at their times read for the span they cover.
+   * By point, parameter and time.
+   */
+  private void packedJudged(
+      java.util.Map<String, Instant> sinceByPoint,
+      java.util.Collection<String> parameters,
+      Instant to,
+      java.util.function.Function<String, String> instrumentOf,
+      JudgedRow out) {
+    java.util.Map<String, java.util.TreeMap<String, List<ReadingBlock.Row>>> rows =
+        new java.util.TreeMap<>();
+    PackedReadings.read(
+        jdbc,
+        sinceByPoint,
+        to.plusNanos(1000),
+        parameters.toArray(String[]::new),
+        (point, code, r) ->
+            rows.computeIfAbsent(point, k -> new java.util.TreeMap<>())
+                .computeIfAbsent(code, k -> new java.util.ArrayList<>())
+                .add(r));
+    rows.forEach(
+        (point, byCode) -> {
+          long lo = Long.MAX_VALUE;
+          long hi = Long.MIN_VALUE;
+          for (List<ReadingBlock.Row> l : byCode.values()) {
+            lo = Math.min(lo, l.get(0).micros());
+            hi = Math.max(hi, l.get(l.size() - 1).micros());
+          }
+          java.util.Map<Long, Object[]> evaluations = new java.util.HashMap<>();
+          jdbc.query(
+              "SELECT time, points_at, calculated_ph_25 FROM evaluation"
+                  + " WHERE sample_point_id = ? AND time >= ? AND time <= ?",
+              (RowCallbackHandler)
+                  rs -> {
+                    double c = rs.getDouble(3);
+                    boolean none = rs.wasNull() || !Double.isFinite(c);
+                    java.sql.Array a = rs.getArray(2);
+                    evaluations.put(
+                        PackedReadings.micros(rs.getTimestamp(1).toInstant()),
+                        new Object[] {
+                          a == null ? new String[0] : (String[]) a.getArray(), none ? Double.NaN : c
+                        });
+                  },
+              point,
+              Timestamp.from(PackedReadings.instant(lo)),
+              Timestamp.from(PackedReadings.instant(hi)));
+          byCode.forEach(
+              (code, list) -> {
+                String instrument = instrumentOf.apply(code);
+                for (ReadingBlock.Row r : list) {
+                  Object[] e = evaluations.get(r.micros());
+                  List<String> pointsAt = e == null ? List.of() : List.of((String[]) e[0]);
+                  boolean inDoubt =
+                      r.quality() == 2
+                          || pointsAt.contains(instrument)
+                          || pointsAt.contains("SAMPLE_CONDITIONING");
+                  out.accept(
+                      point,
+                      code,
+                      r.micros(),
+                      r.value(),
+                      inDoubt,
+                      e == null ? Double.NaN : (double) e[1],
+                      pointsAt.contains("PH"));
+                }
+              });
+        });
+  }
+
+  private List<Judged> judgedHot(
       String samplePointId, String parameter, String instrument, Instant from, Instant to) {
     return jdbc.query(
         JUDGED,
@@ -421,6 +765,47 @@ public class ReadingHistory {
     if (sinceByPoint.isEmpty() || parameters.isEmpty()) {
       return;
     }
+    // packed days first (a window longer than the packing horizon reaches them); when there are
+    // any, the hot rows are merged in after them by point, parameter and time
+    List<Object[]> cold = new java.util.ArrayList<>();
+    packedJudged(
+        sinceByPoint,
+        parameters,
+        to,
+        code -> code.toUpperCase(java.util.Locale.ROOT),
+        (point, code, micros, value, inDoubt, calculated, phInDoubt) ->
+            cold.add(new Object[] {point, code, micros, value, inDoubt, calculated, phInDoubt}));
+    if (!cold.isEmpty()) {
+      judgedSinceHot(
+          sinceByPoint,
+          parameters,
+          to,
+          (point, code, micros, value, inDoubt, calculated, phInDoubt) ->
+              cold.add(new Object[] {point, code, micros, value, inDoubt, calculated, phInDoubt}));
+      cold.sort(
+          java.util.Comparator.comparing((Object[] r) -> (String) r[0])
+              .thenComparing(r -> (String) r[1])
+              .thenComparingLong(r -> (long) r[2]));
+      for (Object[] r : cold) {
+        out.accept(
+            (String) r[0],
+            (String) r[1],
+            (long) r[2],
+            (double) r[3],
+            (boolean) r[4],
+            (double) r[5],
+            (boolean) r[6]);
+      }
+      return;
+    }
+    judgedSinceHot(sinceByPoint, parameters, to, out);
+  }
+
+  private void judgedSinceHot(
+      java.util.Map<String, Instant> sinceByPoint,
+      java.util.Collection<String> parameters,
+      Instant to,
+      JudgedRow out) {
     String[] points = sinceByPoint.keySet().toArray(String[]::new);
     Timestamp[] sinces = new Timestamp[points.length];
     Instant lo = to;

@@ -34,10 +34,12 @@ class ReadingRollups {
 
   private final JdbcTemplate jdbc;
   private final SeriesKeys keys;
+  private final Partitions partitions;
 
-  ReadingRollups(JdbcTemplate jdbc, SeriesKeys keys) {
+  ReadingRollups(JdbcTemplate jdbc, SeriesKeys keys, Partitions partitions) {
     this.jdbc = jdbc;
     this.keys = keys;
+    this.partitions = partitions;
   }
 
   /**
@@ -50,7 +52,29 @@ class ReadingRollups {
    * @param fresh readings new in this transaction (any quality; bad ones leave the rollups alone),
    *     summed up per hour here
    */
-  void update(Collection<Hour> recompute, Collection<ValidReading> fresh) {
+  void update(Collection<Hour> touched, Collection<ValidReading> written) {
+    if (!partitions.anyPacked()) {
+      updateHot(touched, written);
+      return;
+    }
+    // hours of packed days were recomputed from their blocks when the readings were written
+    // (PackedReadings.write); recomputing them here from reading would empty them
+    Set<Hour> recompute = new HashSet<>();
+    for (Hour h : touched) {
+      if (!partitions.isPacked(Partitions.dayOf(h.start()))) {
+        recompute.add(h);
+      }
+    }
+    List<ValidReading> fresh = new ArrayList<>(written.size());
+    for (ValidReading r : written) {
+      if (!partitions.isPacked(Partitions.dayOf(r.time()))) {
+        fresh.add(r);
+      }
+    }
+    updateHot(recompute, fresh);
+  }
+
+  private void updateHot(Collection<Hour> recompute, Collection<ValidReading> fresh) {
     // the new readings summed up per hour here, so that only one row per hour goes to the database
     Map<Hour, List<ValidReading>> added = new java.util.HashMap<>();
     for (ValidReading r : fresh) {

@@ -75,12 +75,58 @@ class ReadingStore {
 
   private static final String[] PARAMETER_CODES = Parameter.codeArray();
 
+  /** An upper bound beyond every reading (the validator refuses times this far ahead). */
+  static final Instant FAR_FUTURE = Instant.parse("9999-01-01T00:00:00Z");
+
+  /** Time, then parameter code: the order of a point's readings read back. */
+  static final java.util.Comparator<StoredReading> TIME_ORDER =
+      java.util.Comparator.comparing(StoredReading::time).thenComparing(StoredReading::parameter);
+
   private final JdbcTemplate jdbc;
   private final SeriesKeys keys;
+  private final Partitions partitions;
+  private final PackedReadings packed;
 
-  ReadingStore(JdbcTemplate jdbc, SeriesKeys keys) {
+  ReadingStore(JdbcTemplate jdbc, SeriesKeys keys, Partitions partitions, PackedReadings packed) {
     this.jdbc = jdbc;
     this.keys = keys;
+    this.partitions = partitions;
+    this.packed = packed;
+  }
+
+  /**
+   * Takes the readings of packed days out of the list and writes them into their blocks ({@link
+   * PackedReadings#write}); the rest stay for {@code reading}.
+   */
+  private Counts writePacked(List<ValidReading> readings) {
+    if (!partitions.anyPacked()) {
+      return new Counts(0, 0, 0);
+    }
+    List<ValidReading> coldReadings = new ArrayList<>();
+    List<ValidReading> hot = new ArrayList<>(readings.size());
+    for (ValidReading r : readings) {
+      (partitions.isPacked(Partitions.dayOf(r.time())) ? coldReadings : hot).add(r);
+    }
+    if (coldReadings.isEmpty()) {
+      return new Counts(0, 0, 0);
+    }
+    List<PackedReadings.Incoming> cold = new ArrayList<>(coldReadings.size());
+    for (Keyed k : keyed(coldReadings)) {
+      ValidReading r = k.reading();
+      cold.add(
+          new PackedReadings.Incoming(
+              k.point(),
+              k.parameter(),
+              new ReadingBlock.Row(
+                  PackedReadings.micros(r.time()),
+                  r.value(),
+                  r.quality().code(),
+                  Double.isNaN(r.sampleTemperatureCel()) ? null : r.sampleTemperatureCel(),
+                  r.compensated())));
+    }
+    readings.clear();
+    readings.addAll(hot);
+    return packed.write(cold);
   }
 
   /**
@@ -113,7 +159,23 @@ class ReadingStore {
    * Upserts readings with distinct keys (the caller de-duplicates). Runs in the caller's
    * transaction.
    */
-  Counts upsert(List<ValidReading> readings) {
+  Counts upsert(List<ValidReading> all) {
+    if (!partitions.anyPacked()) {
+      return upsertHot(all);
+    }
+    List<ValidReading> readings = new ArrayList<>(all);
+    Counts cold = writePacked(readings);
+    if (readings.isEmpty()) {
+      return cold;
+    }
+    Counts hot = upsertHot(readings);
+    return new Counts(
+        hot.inserted() + cold.inserted(),
+        hot.corrected() + cold.corrected(),
+        hot.unchanged() + cold.unchanged());
+  }
+
+  private Counts upsertHot(List<ValidReading> readings) {
     int n = readings.size();
     Integer[] points = new Integer[n];
     Short[] parameters = new Short[n];
@@ -239,7 +301,18 @@ class ReadingStore {
               return ps;
             },
             rs -> rs.next() ? rs.getTimestamp(1) : null);
-    return t == null ? null : t.toInstant();
+    if (t != null) {
+      return t.toInstant();
+    }
+    // packed days lie before every hot one (only days before the horizon are packed), so the
+    // blocks are asked only when reading has nothing after the time
+    Instant latest = null;
+    for (StoredReading r :
+        PackedReadings.stored(
+            jdbc, samplePointId, after.plusNanos(1000), FAR_FUTURE, PARAMETER_CODES)) {
+      latest = latest == null || r.time().isAfter(latest) ? r.time() : latest;
+    }
+    return latest;
   }
 
   /**
@@ -301,11 +374,39 @@ class ReadingStore {
                       noTemperature ? Double.NaN : t,
                       rs.getBoolean(7)));
         });
+    // the packed days in the range (a history that starts more than pack-after back)
+    int[] added = {0};
+    PackedReadings.read(
+        jdbc,
+        since,
+        FAR_FUTURE,
+        PARAMETER_CODES,
+        (point, code, row) -> {
+          out.get(point).add(PackedReadings.stored(code, row));
+          added[0]++;
+        });
+    if (added[0] > 0) {
+      out.values().forEach(l -> l.sort(TIME_ORDER));
+    }
     return out;
   }
 
   /** Every stored reading of a point in (after, to], in time order (a cold history). */
   List<StoredReading> between(String samplePointId, Instant after, Instant to) {
+    List<StoredReading> cold =
+        PackedReadings.stored(
+            jdbc, samplePointId, after.plusNanos(1000), to.plusNanos(1000), PARAMETER_CODES);
+    List<StoredReading> hot = betweenHot(samplePointId, after, to);
+    if (cold.isEmpty()) {
+      return hot;
+    }
+    List<StoredReading> all = new ArrayList<>(cold);
+    all.addAll(hot);
+    all.sort(TIME_ORDER);
+    return all;
+  }
+
+  private List<StoredReading> betweenHot(String samplePointId, Instant after, Instant to) {
     return jdbc.query(
         """
         SELECT q.code, r.time, r.value, r.quality, r.sample_temperature_cel, r.compensated
@@ -323,9 +424,15 @@ class ReadingStore {
    * Inserts readings known to be new (keys absent from the table) with COPY. A key that exists
    * after all fails the statement (and so the transaction): nothing is overwritten silently.
    */
-  int copyNew(List<ValidReading> readings) {
+  int copyNew(List<ValidReading> all) {
+    List<ValidReading> readings = partitions.anyPacked() ? new ArrayList<>(all) : all;
+    Counts cold = writePacked(readings);
+    if (cold.corrected() + cold.unchanged() > 0) {
+      throw new IllegalStateException(
+          "in-memory readings out of step with the packed blocks; the batch is retried");
+    }
     if (readings.isEmpty()) {
-      return 0;
+      return cold.inserted();
     }
     BinaryCopy rows = new BinaryCopy(readings.size(), 64);
     for (Keyed k : keyed(readings)) {
@@ -340,6 +447,6 @@ class ReadingStore {
           .bool(r.compensated());
     }
     Long n = jdbc.execute((Connection c) -> rows.send(c, COPY_TARGET));
-    return n == null ? 0 : n.intValue();
+    return (n == null ? 0 : n.intValue()) + cold.inserted();
   }
 }

@@ -25,8 +25,12 @@ class StorageMaintenance {
   private final StorageProperties properties;
   private final Clock clock;
 
-  StorageMaintenance(Partitions partitions, StorageProperties properties, Clock clock) {
+  private final PackedReadings packed;
+
+  StorageMaintenance(
+      Partitions partitions, PackedReadings packed, StorageProperties properties, Clock clock) {
     this.partitions = partitions;
+    this.packed = packed;
     this.properties = properties;
     this.clock = clock;
   }
@@ -48,6 +52,12 @@ class StorageMaintenance {
       List<String> dropped = partitions.dropBefore(today.minusDays(properties.retentionDays()));
       if (!dropped.isEmpty()) {
         log.info("Retention: dropped partitions {}", dropped);
+      }
+      LocalDate firstKept = today.minusDays(properties.retentionDays());
+      int blocks = packed.deleteBefore(firstKept);
+      partitions.forgetPackedBefore(firstKept);
+      if (blocks > 0) {
+        log.info("Retention: deleted {} packed blocks before {}", blocks, firstKept);
       }
     }
   }
@@ -81,9 +91,22 @@ class StorageMaintenance {
    *     days); 0 keeps everything
    * @param analyzeRecent whether to refresh the statistics of yesterday's and today's partitions
    *     (default true; null when the property is absent)
+   * @param packing whether whole days older than {@code packAfter} are packed into blocks ({@link
+   *     ReadingPacker}; default false)
+   * @param packAfter the age after which a day of readings is packed (default two days; less than
+   *     one day is refused: the latest readings of a point, read from {@code reading} alone, must
+   *     stay hot)
    */
   @ConfigurationProperties("kwanta.storage")
-  record StorageProperties(int partitionsAheadDays, int retentionDays, Boolean analyzeRecent) {
+  record StorageProperties(
+      int partitionsAheadDays,
+      int retentionDays,
+      Boolean analyzeRecent,
+      Boolean packing,
+      java.time.Duration packAfter) {
+
+    /** The shortest {@code kwanta.storage.pack-after} accepted. */
+    static final java.time.Duration MIN_PACK_AFTER = java.time.Duration.ofDays(1);
 
     StorageProperties {
       if (partitionsAheadDays <= 0) {
@@ -94,6 +117,20 @@ class StorageMaintenance {
       }
       if (analyzeRecent == null) {
         analyzeRecent = true;
+      }
+      if (packing == null) {
+        packing = false;
+      }
+      if (packAfter == null) {
+        packAfter = java.time.Duration.ofDays(2);
+      }
+      if (packAfter.compareTo(MIN_PACK_AFTER) < 0) {
+        throw new IllegalArgumentException(
+            "kwanta.storage.pack-after is "
+                + packAfter
+                + ", less than the shortest accepted, "
+                + MIN_PACK_AFTER
+                + ": readings younger than a day must stay in reading");
       }
     }
   }

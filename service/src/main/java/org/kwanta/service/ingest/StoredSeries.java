@@ -93,7 +93,41 @@ public class StoredSeries {
   public record Bucket(
       Instant start, double min, double mean, double max, double last, long count) {}
 
+  /**
+   * A series' points in [from, to) after {@code after}, oldest first, at most {@code limit}. A
+   * measured series reads the packed days' blocks as well ({@link PackedReadings}): a raw read of
+   * an old range reaches them.
+   */
   public List<Point> raw(
+      String samplePointId, Source p, Instant from, Instant to, Instant after, int limit) {
+    List<Point> hot = rawHot(samplePointId, p, from, to, after, limit);
+    if (!p.measured()) {
+      return hot;
+    }
+    Instant lo = after == null || after.isBefore(from) ? from : after.plusNanos(1000);
+    List<Point> cold = new ArrayList<>();
+    PackedReadings.read(
+        jdbc,
+        java.util.Map.of(samplePointId, lo),
+        to,
+        new String[] {p.code()},
+        (point, code, r) ->
+            cold.add(
+                new Point(
+                    PackedReadings.instant(r.micros()),
+                    r.value(),
+                    ValidReading.Quality.ofCode(r.quality())
+                        .name()
+                        .toLowerCase(java.util.Locale.ROOT))));
+    if (cold.isEmpty()) {
+      return hot;
+    }
+    cold.addAll(hot);
+    cold.sort(java.util.Comparator.comparing(Point::time));
+    return cold.size() > limit ? cold.subList(0, limit) : cold;
+  }
+
+  private List<Point> rawHot(
       String samplePointId, Source p, Instant from, Instant to, Instant after, int limit) {
     String quality = p.measured() ? "quality" : "NULL::smallint";
     return jdbc.query(
@@ -296,6 +330,41 @@ public class StoredSeries {
                   rs.getDouble(6),
                   rs.getTimestamp(7).toInstant());
         });
+    if (p.measured()) {
+      for (Instant[] interval : intervals) {
+        addPacked(parts, samplePointId, p, from, bucket, interval[0], interval[1]);
+      }
+    }
+  }
+
+  /**
+   * Adds the packed readings of a measured series in [lo, hi) (good and uncertain ones) to buckets
+   * of {@code bucket} from {@code origin}, as {@code date_bin} bins them.
+   */
+  private void addPacked(
+      java.util.Map<Instant, ReadingRollups.Part> parts,
+      String samplePointId,
+      Source p,
+      Instant origin,
+      Duration bucket,
+      Instant lo,
+      Instant hi) {
+    long o = PackedReadings.micros(origin);
+    long size = bucket.toNanos() / 1000;
+    PackedReadings.read(
+        jdbc,
+        java.util.Map.of(samplePointId, lo),
+        hi,
+        new String[] {p.code()},
+        (point, code, r) -> {
+          if (r.quality() < 2) {
+            long b = o + Math.floorDiv(r.micros() - o, size) * size;
+            double v = r.value();
+            parts
+                .computeIfAbsent(PackedReadings.instant(b), k -> new ReadingRollups.Part())
+                .add(v, v, v, 1, v, PackedReadings.instant(r.micros()));
+          }
+        });
   }
 
   /**
@@ -366,8 +435,32 @@ public class StoredSeries {
     return a.isAfter(b) ? a : b;
   }
 
-  /** {@link #bucketed} from the stored rows alone, never the rollups. */
+  /**
+   * {@link #bucketed} from the stored rows alone, never the rollups; a measured series' packed days
+   * included (a bucket holding hot and packed readings takes its last value from the hot ones:
+   * packed days lie before the hot ones).
+   */
   public List<Bucket> bucketedRaw(
+      String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
+    List<Bucket> hot = bucketedHot(samplePointId, p, from, to, bucket);
+    if (!p.measured()) {
+      return hot;
+    }
+    java.util.TreeMap<Instant, ReadingRollups.Part> parts = new java.util.TreeMap<>();
+    addPacked(parts, samplePointId, p, from, bucket, from, to);
+    if (parts.isEmpty()) {
+      return hot;
+    }
+    for (Bucket b : hot) {
+      parts
+          .computeIfAbsent(b.start(), k -> new ReadingRollups.Part())
+          .add(
+              b.min(), b.max(), b.mean() * b.count(), b.count(), b.last(), ReadingStore.FAR_FUTURE);
+    }
+    return ReadingRollups.toBuckets(parts);
+  }
+
+  private List<Bucket> bucketedHot(
       String samplePointId, Source p, Instant from, Instant to, Duration bucket) {
     String filter = p.measured() ? " AND quality < 2" : " AND " + p.column() + " IS NOT NULL";
     return jdbc.query(

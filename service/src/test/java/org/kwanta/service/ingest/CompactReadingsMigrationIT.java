@@ -163,7 +163,9 @@ class CompactReadingsMigrationIT {
       for (Resource r :
           new PathMatchingResourcePatternResolver().getResources("classpath*:db/migration/*.sql")) {
         String name = r.getFilename();
-        if (!name.startsWith("V62__") && !name.startsWith("V63__")) {
+        // V69 (packed cold storage) was written after V62 and builds on its keys: no database
+        // holds it without V62, so it is applied with V62 in the second step
+        if (!name.startsWith("V62__") && !name.startsWith("V63__") && !name.startsWith("V69__")) {
           try (var in = r.getInputStream()) {
             Files.copy(in, before.resolve(name));
           }

@@ -140,7 +140,7 @@ class ReadingRollupsIT {
   /**
    * Per series and bucket of {@code unit} (hours or days), from the good and uncertain readings.
    */
-  private static Map<String, Expected> expected(Map<String, Sent> state, ChronoUnit unit) {
+  static Map<String, Expected> expected(Map<String, Sent> state, ChronoUnit unit) {
     Map<String, TreeMap<Instant, Double>> byBucket = new TreeMap<>();
     for (Sent s : state.values()) {
       if (s.quality() < 2) {
@@ -185,6 +185,11 @@ class ReadingRollupsIT {
   }
 
   private Map<String, Expected> stored(String table, List<String> points) {
+    return stored(jdbc, table, points);
+  }
+
+  /** The stored rollups of the points' series with readings, by "point/parameter/bucket". */
+  static Map<String, Expected> stored(JdbcTemplate jdbc, String table, List<String> points) {
     Map<String, Expected> out = new TreeMap<>();
     for (String point : points) {
       jdbc.query(
@@ -219,7 +224,7 @@ class ReadingRollupsIT {
     return out;
   }
 
-  private static void assertSame(Map<String, Expected> actual, Map<String, Expected> expected) {
+  static void assertSame(Map<String, Expected> actual, Map<String, Expected> expected) {
     assertThat(actual.keySet()).containsExactlyElementsOf(expected.keySet());
     expected.forEach(
         (key, e) -> {

@@ -30,6 +30,7 @@ class ShardReadySchemaIT {
   static final Map<String, String> DISTRIBUTED =
       Map.of(
           "reading", "point_key",
+          "reading_pack", "point_key",
           "reading_revision", "point_key",
           "reading_rollup_hour", "point_key",
           "reading_rollup_day", "point_key",
