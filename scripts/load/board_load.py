@@ -11,6 +11,10 @@
 3. With --feed SECONDS, a live feed runs meanwhile: every SECONDS a batch with a new reading set of every point
    (the time of the batch), so every point has new readings between two requests, as under a historian writing
    every point; --gap spaces the requests (seconds).
+4. Prints the server's stages from the Server-Timing header (a board computed on the request: freshness,
+   diagnosis, levels, latest, states, tag, json; a board kept from before: "stored", with the time its
+   computation took off the request path), how old the boards answered were (request time - asOf), and under a
+   feed how many answers did not yet hold the last batch committed before the request (docs/page.md#performance).
 
   python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200
   python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200 --skip-fill --feed 10 --gap 5
@@ -96,6 +100,7 @@ def main():
             assert s == 200, d[:500]
     stop = threading.Event()
     fed = []
+    written = []  # when each live batch's request had returned (committed)
     if a.feed > 0:
         def feed():
             while not stop.wait(a.feed):
@@ -105,10 +110,11 @@ def main():
                 s, _, d, _ = request(a.base_url, a.api_key, "POST", "/api/v1/readings", {"readings": rows})
                 assert s == 200, d[:500]
                 fed.append(time.perf_counter() - t0)
+                written.append(datetime.now(timezone.utc))
         threading.Thread(target=feed, daemon=True).start()
         time.sleep(a.feed + 1)
     path = "/api/v1/plants/" + a.plant + "/overview"
-    times, sizes, timings, ages, computed = [], [], [], [], []
+    times, sizes, timings, ages, computed, behind = [], [], [], [], [], []
     plain = 0
     for i in range(a.requests + 3):
         asked = datetime.now(timezone.utc)
@@ -129,6 +135,9 @@ def main():
             # how old the board was when answered: asOf against the request's own clock
             as_of = datetime.fromisoformat(json.loads(body)["asOf"].replace("Z", "+00:00"))
             ages.append((asked - as_of).total_seconds())
+            # a board behind the feed: computed before the last batch committed before the request
+            done = [w for w in written if w <= asked]
+            behind.append((asked - done[-1]).total_seconds() if done and as_of < done[-1] else None)
         if a.gap > 0:
             time.sleep(a.gap)
     stop.set()
@@ -155,6 +164,11 @@ def main():
     ages.sort()
     print("board age when answered (request time - asOf): median %.2f s, p90 %.2f s, max %.2f s"
           % (statistics.median(ages), ages[int(0.9 * (len(ages) - 1))], ages[-1]))
+    if written:
+        late = sorted(b for b in behind if b is not None)
+        print("answers without the last batch committed before the request: %d of %d%s"
+              % (len(late), len(behind), (", that batch committed %.2f-%.2f s before the request"
+                                          % (late[0], late[-1])) if late else ""))
     print("size: %d bytes gzip (Content-Encoding %s), %d bytes plain" % (sizes[-1], enc, plain))
     if fed:
         print("live feed: %d batches of %d readings, every %.0f s, median %.0f ms each"
