@@ -55,6 +55,7 @@ class Boards {
   private final Duration maxLag;
   private final Map<String, Board> boards = new ConcurrentHashMap<>();
   private final Map<String, Instant> lastAsked = new ConcurrentHashMap<>();
+  private final java.util.Set<String> failing = ConcurrentHashMap.newKeySet();
   private final ScheduledExecutorService refresher;
 
   Boards(
@@ -192,9 +193,13 @@ class Boards {
           continue;
         }
         store(compute(plant));
+        failing.remove(plantId);
       } catch (RuntimeException e) {
-        // the board stays as it was; a request past the lag computes its own
-        log.warn("Board of plant {} not refreshed: {}", plantId, e.getMessage());
+        // the board stays as it was; a request past the lag computes its own. Said once per run of
+        // failures (a database outage would repeat it every refresh)
+        if (failing.add(plantId)) {
+          log.warn("Board of plant {} not refreshed: {}", plantId, e.getMessage());
+        }
       }
     }
   }
