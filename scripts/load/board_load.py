@@ -11,6 +11,10 @@
 3. With --feed SECONDS, a live feed runs meanwhile: every SECONDS a batch with a new reading set of every point
    (the time of the batch), so every point has new readings between two requests, as under a historian writing
    every point; --gap spaces the requests (seconds).
+4. Prints the server's stages from the Server-Timing header (a board computed on the request: freshness,
+   diagnosis, levels, latest, states, tag, json; a board kept from before: "stored", with the time its
+   computation took off the request path), how old the boards answered were (request time - asOf), and under a
+   feed how many answers did not yet hold the last batch committed before the request (docs/page.md#performance).
 
   python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200
   python3 scripts/load/board_load.py --api-key "$ADMIN" --points 200 --skip-fill --feed 10 --gap 5
@@ -20,6 +24,7 @@ import gzip
 import http.client
 import json
 import os
+import re
 import statistics
 import threading
 import time
@@ -39,7 +44,19 @@ def request(base, key, method, path, body=None, headers=None):
     first = time.perf_counter() - t0
     data = r.read()
     c.close()
+    request.timing = r.getheader("Server-Timing") or ""
     return r.status, r.getheader("Content-Encoding"), data, first
+
+
+def stages(header):
+    """The stages of a Server-Timing header (name;dur=ms, ...) as a dict of ms."""
+    out = {}
+    for part in header.split(","):
+        name, *params = part.strip().split(";")
+        for q in params:
+            if q.startswith("dur="):
+                out[name] = float(q[4:])
+    return out
 
 
 def reading_set(p, when):
@@ -83,6 +100,7 @@ def main():
             assert s == 200, d[:500]
     stop = threading.Event()
     fed = []
+    written = []  # when each live batch's request had returned (committed)
     if a.feed > 0:
         def feed():
             while not stop.wait(a.feed):
@@ -92,12 +110,14 @@ def main():
                 s, _, d, _ = request(a.base_url, a.api_key, "POST", "/api/v1/readings", {"readings": rows})
                 assert s == 200, d[:500]
                 fed.append(time.perf_counter() - t0)
+                written.append(datetime.now(timezone.utc))
         threading.Thread(target=feed, daemon=True).start()
         time.sleep(a.feed + 1)
     path = "/api/v1/plants/" + a.plant + "/overview"
-    times, sizes = [], []
+    times, sizes, timings, ages, computed, behind = [], [], [], [], [], []
     plain = 0
     for i in range(a.requests + 3):
+        asked = datetime.now(timezone.utc)
         s, enc, d, first = request(a.base_url, a.api_key, "GET", path, headers={"Accept-Encoding": "gzip"})
         assert s == 200, d[:300]
         if i == 0:
@@ -105,15 +125,50 @@ def main():
         if i >= 3:  # warm-up
             times.append(first * 1000)
             sizes.append(len(d))
-        plain = len(gzip.decompress(d)) if enc == "gzip" else len(d)
+            timings.append(stages(request.timing))
+            m = re.search(r'board;desc="computed in ([0-9.]+) ms"', request.timing)
+            if m:
+                computed.append(float(m.group(1)))
+        body = gzip.decompress(d) if enc == "gzip" else d
+        plain = len(body)
+        if i >= 3:
+            # how old the board was when answered: asOf against the request's own clock
+            as_of = datetime.fromisoformat(json.loads(body)["asOf"].replace("Z", "+00:00"))
+            ages.append((asked - as_of).total_seconds())
+            # a board behind the feed: computed before the last batch committed before the request
+            done = [w for w in written if w <= asked]
+            behind.append((asked - done[-1]).total_seconds() if done and as_of < done[-1] else None)
         if a.gap > 0:
             time.sleep(a.gap)
     stop.set()
+    rest = [ft - sum(t.values()) for ft, t in zip(times, timings)]
     times.sort()
     print("overview of %d points, %d requests: time to first byte median %.1f ms, p90 %.1f ms, max %.1f ms"
           % (a.points, len(times), statistics.median(times), times[int(0.9 * (len(times) - 1))], times[-1]))
     print("first request: %.1f ms (every point read afresh if the service had not cached the plant:"
           " a fresh start, or new readings of every point)" % cold)
+    if any(timings):
+        names = list(dict.fromkeys(k for t in timings for k in t))
+        print("server stages (Server-Timing), median / p90 ms: " + ", ".join(
+            "%s %.1f / %.1f" % (n, statistics.median(sorted(t.get(n, 0) for t in timings)),
+                                sorted(t.get(n, 0) for t in timings)[int(0.9 * (len(timings) - 1))])
+            for n in names)
+            + "; the rest of the time to first byte (JSON, gzip, filters): median %.1f ms"
+            % statistics.median(rest))
+    if computed:
+        computed.sort()
+        print("boards answered were computed off the request path in: median %.1f ms, p90 %.1f ms,"
+              " max %.1f ms (%d of %d answers)" % (statistics.median(computed),
+                                                    computed[int(0.9 * (len(computed) - 1))],
+                                                    computed[-1], len(computed), len(times)))
+    ages.sort()
+    print("board age when answered (request time - asOf): median %.2f s, p90 %.2f s, max %.2f s"
+          % (statistics.median(ages), ages[int(0.9 * (len(ages) - 1))], ages[-1]))
+    if written:
+        late = sorted(b for b in behind if b is not None)
+        print("answers without the last batch committed before the request: %d of %d%s"
+              % (len(late), len(behind), (", that batch committed %.2f-%.2f s before the request"
+                                          % (late[0], late[-1])) if late else ""))
     print("size: %d bytes gzip (Content-Encoding %s), %d bytes plain" % (sizes[-1], enc, plain))
     if fed:
         print("live feed: %d batches of %d readings, every %.0f s, median %.0f ms each"

@@ -2,20 +2,22 @@ package org.kwanta.service.queries;
 
 import io.swagger.v3.oas.annotations.Operation;
 import io.swagger.v3.oas.annotations.Parameter;
+import io.swagger.v3.oas.annotations.media.Content;
+import io.swagger.v3.oas.annotations.media.Schema;
+import io.swagger.v3.oas.annotations.responses.ApiResponse;
 import io.swagger.v3.oas.annotations.tags.Tag;
 import java.time.Clock;
 import java.time.Instant;
 import java.util.List;
-import java.util.Map;
+import java.util.Locale;
 import org.kwanta.service.diagnosis.DiagnosisService;
-import org.kwanta.service.plants.PlantDeclaration;
 import org.kwanta.service.plants.Plants;
 import org.kwanta.service.system.ProblemException;
+import org.springframework.http.MediaType;
 import org.springframework.http.ResponseEntity;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.RestController;
-import tools.jackson.databind.json.JsonMapper;
 
 @RestController
 @Tag(name = "Queries")
@@ -25,22 +27,15 @@ class StateController {
   private final States states;
   private final Clock clock;
   private final DiagnosisService diagnosis;
-  private final JsonMapper mapper;
-  private final CurrentLevels levels;
+  private final Boards boards;
 
   StateController(
-      Plants plants,
-      States states,
-      Clock clock,
-      DiagnosisService diagnosis,
-      JsonMapper mapper,
-      CurrentLevels levels) {
+      Plants plants, States states, Clock clock, DiagnosisService diagnosis, Boards boards) {
     this.plants = plants;
     this.states = states;
     this.clock = clock;
     this.diagnosis = diagnosis;
-    this.mapper = mapper;
-    this.levels = levels;
+    this.boards = boards;
   }
 
   /** A plant's latest state, sample point by sample point. */
@@ -72,39 +67,51 @@ class StateController {
         .orElseThrow(() -> notFound("sample point", samplePointId));
   }
 
-  @GetMapping("/api/v1/plants/{plant}/overview")
+  @GetMapping(
+      value = "/api/v1/plants/{plant}/overview",
+      produces = MediaType.APPLICATION_JSON_VALUE)
   @Operation(
       summary = "Latest state of every sample point of a plant",
       description =
-          "With a weak ETag over the data (not over asOf, the ages, levelsAsOf and the onset of"
+          "The board as computed at asOf: kept up to date off the request path, at most"
+              + " kwanta.board.max-lag old (default 10 s; about a second behind the last write"
+              + " under a live feed), levelsAsOf the same time. With a weak ETag over the data"
+              + " (not over asOf, the ages, levelsAsOf and the onset of"
               + " a level held the whole window, which move with the clock): asked again with If-None-Match, the answer is 304"
               + " Not Modified without a body while no reading, evaluation, level, finding or limit"
               + " changed; ages then count on from the earlier answer's asOf.")
-  ResponseEntity<Overview> overview(
+  @ApiResponse(
+      responseCode = "200",
+      content =
+          @Content(
+              mediaType = MediaType.APPLICATION_JSON_VALUE,
+              schema = @Schema(implementation = Overview.class)))
+  ResponseEntity<byte[]> overview(
       @Parameter(example = "brackenmoor") @PathVariable("plant") String plantId) {
-    PlantDeclaration plant = plants.find(plantId).orElseThrow(() -> notFound("plant", plantId));
-    Instant now = clock.instant();
-    Map<String, DiagnosisService.PointDiagnosis> current = diagnosis.current(plant.id());
-    States.Freshness freshness = states.freshness(plant.id(), now);
-    Overview overview =
-        new Overview(
-            plant.id(),
-            plant.name(),
-            now,
-            states.board(
-                freshness,
-                plant.samplePoints().stream()
-                    .map(
-                        p ->
-                            new States.Shown(
-                                p.id(), p.name(), p.cycleLocation(), p.treatmentRegime()))
-                    .toList(),
-                now,
-                current));
-    // Spring answers 304 without a body when the request's If-None-Match holds this tag
+    long start = System.nanoTime();
+    Instant asked = clock.instant();
+    Boards.Board board = board(plantId);
+    // a board kept from before: only the plant's look-up and the store's (docs/page.md)
+    String timing =
+        board.overview().asOf().isBefore(asked)
+            ? String.format(
+                Locale.ROOT,
+                "stored;dur=%.1f, board;desc=\"computed in %.1f ms\"",
+                (System.nanoTime() - start) / 1e6,
+                board.millis())
+            : board.timing();
+    // Spring answers 304 without a body when the request's If-None-Match holds this tag; the
+    // body's gzip comes after these stages
     return ResponseEntity.ok()
-        .eTag(OverviewTags.of(mapper, overview, levels.window()))
-        .body(overview);
+        .contentType(MediaType.APPLICATION_JSON)
+        .eTag(board.tag())
+        .header("Server-Timing", timing)
+        .body(board.json());
+  }
+
+  /** A plant's board, as the overview answers it. */
+  Boards.Board board(String plantId) {
+    return boards.of(plants.find(plantId).orElseThrow(() -> notFound("plant", plantId)));
   }
 
   static ProblemException notFound(String what, String id) {

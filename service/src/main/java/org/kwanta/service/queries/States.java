@@ -161,11 +161,13 @@ class States {
       Freshness freshness,
       List<Shown> shown,
       Instant now,
-      Map<String, org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis> diagnoses) {
+      Map<String, org.kwanta.service.diagnosis.DiagnosisService.PointDiagnosis> diagnoses,
+      ServerTiming timing) {
     List<String> ids = shown.stream().map(Shown::id).toList();
     Map<String, List<CurrentLevels.LevelState>> levelsByPoint =
         windows.levels(
             freshness.plantId(), ids, freshness.generations(), freshness.limitsStamp(), now);
+    timing.lap("levels");
     Instant since = now.minus(lookBack);
     Map<String, Entry> entries = new java.util.HashMap<>();
     List<String> stale = new ArrayList<>();
@@ -197,6 +199,7 @@ class States {
         entries.put(id, e);
       }
     }
+    timing.lap("latest");
     List<State> out = new ArrayList<>(shown.size());
     for (Shown p : shown) {
       Entry e = entries.get(p.id());
@@ -215,6 +218,7 @@ class States {
                   levelsByPoint.getOrDefault(p.id(), List.of())),
               diagnoses.get(p.id())));
     }
+    timing.lap("states");
     return out;
   }
 

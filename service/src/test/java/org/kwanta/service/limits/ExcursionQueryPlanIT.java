@@ -38,6 +38,7 @@ class ExcursionQueryPlanIT {
             jdbc,
             ReadingHistory.JUDGED,
             "PH",
+            "NOWHERE",
             Timestamp.from(from),
             Timestamp.from(to),
             "NOWHERE",

@@ -73,7 +73,7 @@ class BoardLevelsIT {
   /** The board's states by point, each checked against the slow path at its levelsAsOf. */
   private Map<String, States.State> boardEqualsSlowPath() {
     Map<String, States.State> out = new HashMap<>();
-    for (States.State s : controller.overview(plant).getBody().samplePoints()) {
+    for (States.State s : controller.board(plant).overview().samplePoints()) {
       assertThat(s.levels())
           .as("levels of %s at %s", s.samplePoint(), s.levelsAsOf())
           .isEqualTo(levels.of(s.samplePoint(), s.levelsAsOf()));
