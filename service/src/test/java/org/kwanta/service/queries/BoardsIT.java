@@ -27,6 +27,7 @@ import org.springframework.test.context.TestPropertySource;
  * levels by {@link CurrentLevels#of}), its diagnosis with the diagnosis over time at its minute.
  */
 @DatabaseTest
+@org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 @TestPropertySource(properties = {"kwanta.board.max-lag=PT30S", "kwanta.board.refresh=PT0.2S"})
 class BoardsIT {
 

@@ -15,7 +15,9 @@ public final class Depth {
    * own ({@code DefaultsVersion3IT}, {@code DefaultsVersion4IT}, {@code
    * DefaultsActivationMigrationIT}, {@code CompactReadingsMigrationIT}, {@code NamesMigrationIT});
    * the database failing or replicated ({@code TerminatedConnectionsIT}, {@code ReplicaReadsIT});
-   * the longer browser walks of {@code PageIT}.
+   * the longer browser walks of {@code PageIT}; the boards kept off the request path through a
+   * random feed ({@code BoardsIT}, which waits for the refresh thread at every step; the everyday
+   * tests read boards computed on the request, {@code kwanta.board.max-lag=PT0S}).
    */
   public static final String THOROUGH = "thorough";
 
