@@ -395,18 +395,9 @@ class PackedReadings {
         point, parameter, bucket, 0, null, null, null, null, null, null, null, null
       };
     }
-    double min = Double.POSITIVE_INFINITY;
-    double max = Double.NEGATIVE_INFINITY;
-    double sum = 0;
-    double tw = 0;
-    for (int k = 0; k < kept.size(); k++) {
-      double v = kept.get(k).value();
-      min = Math.min(min, v);
-      max = Math.max(max, v);
-      sum += v;
-      long next = k + 1 < kept.size() ? kept.get(k + 1).micros() : end;
-      tw += v * ((next - kept.get(k).micros()) / 1e6);
-    }
+    ReadingRollups.Aggregate a =
+        ReadingRollups.Aggregate.of(
+            kept.size(), k -> kept.get(k).micros(), k -> kept.get(k).value(), end);
     Row first = kept.get(0);
     Row last = kept.get(kept.size() - 1);
     return new Object[] {
@@ -414,13 +405,13 @@ class PackedReadings {
       parameter,
       bucket,
       kept.size(),
-      min,
-      max,
-      sum,
+      a.min(),
+      a.max(),
+      a.sum(),
       last.value(),
       Timestamp.from(instant(first.micros())),
       Timestamp.from(instant(last.micros())),
-      tw,
+      a.timeWeightedSum(),
       (end - first.micros()) / 1e6
     };
   }

@@ -155,30 +155,23 @@ class ReadingRollups {
         Hour h = e.getKey();
         List<ValidReading> rs = e.getValue();
         rs.sort(java.util.Comparator.comparing(ValidReading::time));
-        Instant end = h.start().plusSeconds(bucketSeconds);
-        double min = Double.POSITIVE_INFINITY;
-        double max = Double.NEGATIVE_INFINITY;
-        double sum = 0;
-        double tw = 0;
-        for (int k = 0; k < rs.size(); k++) {
-          double v = rs.get(k).value();
-          min = Math.min(min, v);
-          max = Math.max(max, v);
-          sum += v;
-          Instant until = k + 1 < rs.size() ? rs.get(k + 1).time() : end;
-          tw += v * seconds(rs.get(k).time(), until);
-        }
+        Aggregate a =
+            Aggregate.of(
+                rs.size(),
+                k -> micros(rs.get(k).time()),
+                k -> rs.get(k).value(),
+                micros(h.start().plusSeconds(bucketSeconds)));
         s.points[j] = keys.point(h.samplePointId());
         s.parameters[j] = keys.parameter(h.parameter());
         s.starts[j] = h.start().toString();
         s.counts[j] = rs.size();
-        s.mins[j] = min;
-        s.maxs[j] = max;
-        s.sums[j] = sum;
+        s.mins[j] = a.min();
+        s.maxs[j] = a.max();
+        s.sums[j] = a.sum();
         s.lasts[j] = rs.get(rs.size() - 1).value();
         s.firstTimes[j] = rs.get(0).time().toString();
         s.lastTimes[j] = rs.get(rs.size() - 1).time().toString();
-        s.twSums[j++] = tw;
+        s.twSums[j++] = a.timeWeightedSum();
       }
       return s;
     }
@@ -200,8 +193,37 @@ class ReadingRollups {
   }
 
   /** Seconds from {@code a} to {@code b}, to the microsecond as PostgreSQL stores times. */
-  private static double seconds(Instant a, Instant b) {
-    return java.time.Duration.between(a, b).toNanos() / 1000 / 1e6;
+  private static long micros(Instant t) {
+    return Math.addExact(Math.multiplyExact(t.getEpochSecond(), 1_000_000L), t.getNano() / 1000);
+  }
+
+  /**
+   * The sums of a bucket's readings (time order, bad ones left out), as the rollup tables keep
+   * them: each value held from its time until the next reading or the bucket's end, in seconds at
+   * microsecond resolution. One place for the hot path (new readings) and for a packed hour
+   * rewritten from its block ({@link PackedReadings}).
+   */
+  record Aggregate(double min, double max, double sum, double timeWeightedSum) {
+
+    static Aggregate of(
+        int n,
+        java.util.function.IntToLongFunction micros,
+        java.util.function.IntToDoubleFunction value,
+        long endMicros) {
+      double min = Double.POSITIVE_INFINITY;
+      double max = Double.NEGATIVE_INFINITY;
+      double sum = 0;
+      double tw = 0;
+      for (int k = 0; k < n; k++) {
+        double v = value.applyAsDouble(k);
+        min = Math.min(min, v);
+        max = Math.max(max, v);
+        sum += v;
+        long until = k + 1 < n ? micros.applyAsLong(k + 1) : endMicros;
+        tw += v * ((until - micros.applyAsLong(k)) / 1e6);
+      }
+      return new Aggregate(min, max, sum, tw);
+    }
   }
 
   private static final String UPDATE =
