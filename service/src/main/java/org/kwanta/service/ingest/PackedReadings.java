@@ -444,21 +444,33 @@ class PackedReadings {
 
   /**
    * Packs one day's partition of {@code reading} into blocks and drops it, in a transaction of its
-   * own under the advisory lock that creating and dropping partitions take: in-memory copies of
-   * readings are marked stale first (heads before readings, the ingest's lock order), the partition
-   * is read in key order, each series-hour encoded (merged with a block already there, the
-   * partition's rows winning), the day listed in {@code reading_pack_day}, the partition dropped.
+   * own under the advisory lock that creating and dropping partitions take: the partition is locked
+   * against writes ({@code SHARE}: readers go on), read in key order, each series-hour encoded
+   * (merged with a block already there, the partition's rows winning), the day listed in {@code
+   * reading_pack_day}, the partition dropped.
    *
-   * <p>An ingest transaction that has written another day (holding its lock on the parent {@code
-   * reading}) and then waits for this day's partition deadlocks with the {@code DROP}, which needs
-   * the parent exclusively; PostgreSQL aborts one of the two. The packer tries the day again on its
-   * next run; the ingest retries the batch (plain path, then, the partition gone, with the day
-   * found packed), so nothing is lost.
+   * <p>The in-memory copies of readings and the heads' generations are left alone: packing moves
+   * readings without changing one, and a later write to the day goes to its blocks ({@link
+   * Partitions#isPacked}, or a missing partition that makes the ingest retry the batch). Marking
+   * every head stale here would also hold every head's row lock, and so stop every ingest, for as
+   * long as the day takes to pack (3 s for 555,000 readings on the build machine).
    *
-   * @return the readings packed, or -1 when the day has no partition (packed already, or never
-   *     written)
+   * <p>The {@code DROP} needs the parent {@code reading} exclusively. It waits at most {@link
+   * #DROP_LOCK_TIMEOUT_MS} ms, less than PostgreSQL's {@code deadlock_timeout} (1 s by default),
+   * and is tried {@link #DROP_ATTEMPTS} times, a second apart: while it waits, new transactions on
+   * {@code reading} queue behind it, and an ingest transaction that has written another day and
+   * then waits to write this one would otherwise deadlock with it and be the one aborted. If every
+   * attempt times out, nothing of the day is packed and the next run tries again.
+   *
+   * @return the readings packed, -1 when the day has no partition (packed already, or never
+   *     written), -2 when its partition could not be dropped this time
    */
   long pack(LocalDate day) {
+    return pack(day, DROP_ATTEMPTS);
+  }
+
+  /** {@link #pack(LocalDate)} with the given number of attempts at the {@code DROP}. */
+  long pack(LocalDate day, int dropAttempts) {
     String partition = Partitions.name("reading", day);
     Long packed =
         ownTransaction.execute(
@@ -468,9 +480,8 @@ class PackedReadings {
               if (jdbc.queryForObject("SELECT to_regclass(?) IS NULL", Boolean.class, partition)) {
                 return -1L;
               }
-              jdbc.queryForObject("SELECT invalidate_reading_heads()", Object.class);
-              // no ingest writes into the day from here on (the partition is ours until dropped)
-              jdbc.execute("LOCK TABLE " + partition + " IN ACCESS EXCLUSIVE MODE");
+              // no ingest writes into the day from here on; readers go on until the DROP
+              jdbc.execute("LOCK TABLE " + partition + " IN SHARE MODE");
               Timestamp dayStart = Timestamp.from(day.atStartOfDay(ZoneOffset.UTC).toInstant());
               Timestamp dayEnd =
                   Timestamp.from(day.plusDays(1).atStartOfDay(ZoneOffset.UTC).toInstant());
@@ -509,13 +520,74 @@ class PackedReadings {
                       + " SET readings = reading_pack_day.readings + EXCLUDED.readings",
                   day,
                   packer.readings);
-              jdbc.execute("DROP TABLE " + partition);
+              if (!dropWithinTimeout(status, partition, dropAttempts)) {
+                status.setRollbackOnly();
+                return -2L;
+              }
               return packer.readings;
             });
+    if (packed != null && packed == -2) {
+      log.warn(
+          "Could not drop the partition of {} within {} attempts of {} ms (transactions on"
+              + " reading held it); nothing of the day was packed, the next run tries again",
+          day,
+          dropAttempts,
+          DROP_LOCK_TIMEOUT_MS);
+      return -2;
+    }
     if (packed != null && packed >= 0) {
       log.info("Packed {} readings of {} and dropped its partition", packed, day);
     }
     return packed == null ? -1 : packed;
+  }
+
+  /** How long the {@code DROP} of a packed partition waits for its locks, per attempt. */
+  static final int DROP_LOCK_TIMEOUT_MS = 500;
+
+  /** How often the {@code DROP} is tried before the day's packing is given up for this run. */
+  static final int DROP_ATTEMPTS = 5;
+
+  /** Pause between two attempts of the {@code DROP}. */
+  static final long DROP_PAUSE_MS = 1000;
+
+  private boolean dropWithinTimeout(
+      org.springframework.transaction.TransactionStatus status, String partition, int attempts) {
+    for (int attempt = 1; attempt <= attempts; attempt++) {
+      Object savepoint = status.createSavepoint();
+      try {
+        jdbc.execute("SET LOCAL lock_timeout = '" + DROP_LOCK_TIMEOUT_MS + "ms'");
+        jdbc.execute("DROP TABLE " + partition);
+        jdbc.execute("SET LOCAL lock_timeout = 0");
+        status.releaseSavepoint(savepoint);
+        return true;
+      } catch (org.springframework.dao.DataAccessException e) {
+        if (!isLockTimeout(e)) {
+          throw e;
+        }
+        status.rollbackToSavepoint(savepoint);
+        status.releaseSavepoint(savepoint);
+        log.debug("DROP of {} timed out waiting for its locks (attempt {})", partition, attempt);
+        if (attempt < attempts) {
+          try {
+            Thread.sleep(DROP_PAUSE_MS);
+          } catch (InterruptedException interrupted) {
+            Thread.currentThread().interrupt();
+            return false;
+          }
+        }
+      }
+    }
+    return false;
+  }
+
+  /** PostgreSQL's lock_not_available (55P03), which a lock_timeout raises. */
+  private static boolean isLockTimeout(Throwable e) {
+    for (Throwable t = e; t != null; t = t.getCause()) {
+      if (t instanceof java.sql.SQLException sql && "55P03".equals(sql.getSQLState())) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /** Encodes the partition's rows series-hour by series-hour, sending blocks in batches. */

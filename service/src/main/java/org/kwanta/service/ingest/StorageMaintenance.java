@@ -92,7 +92,7 @@ class StorageMaintenance {
    * @param analyzeRecent whether to refresh the statistics of yesterday's and today's partitions
    *     (default true; null when the property is absent)
    * @param packing whether whole days older than {@code packAfter} are packed into blocks ({@link
-   *     ReadingPacker}; default false)
+   *     ReadingPacker}; default true)
    * @param packAfter the age after which a day of readings is packed (default two days; less than
    *     one day is refused: the latest readings of a point, read from {@code reading} alone, must
    *     stay hot)
@@ -119,7 +119,7 @@ class StorageMaintenance {
         analyzeRecent = true;
       }
       if (packing == null) {
-        packing = false;
+        packing = true;
       }
       if (packAfter == null) {
         packAfter = java.time.Duration.ofDays(2);

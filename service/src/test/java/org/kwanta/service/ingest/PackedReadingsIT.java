@@ -559,5 +559,47 @@ class PackedReadingsIT {
         .isZero();
   }
 
+  @Autowired javax.sql.DataSource dataSource;
+
+  /**
+   * A transaction elsewhere that holds the parent {@code reading} (a long query, or an ingest that
+   * wrote another day) makes the packer's {@code DROP} wait: it waits at most half a second per
+   * attempt, so that whatever queues behind it waits no longer, and tries again; the day is packed
+   * once the transaction ends. A transaction that outlasts every attempt leaves the day as it was
+   * (nothing packed, nothing lost) for the next run.
+   */
+  @Test
+  void aDropThatMustWaitGivesWayAndTheDayIsPackedLater() throws Exception {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    Instant start = start(20);
+    LocalDate day = dayOf(start);
+    send(series(point, start, new Random(91), false).subList(0, 200), 200);
+    List<String> before = storedState(point);
+    assertThat(before).hasSize(200);
+    try (java.sql.Connection c = dataSource.getConnection()) {
+      c.setAutoCommit(false);
+      try (java.sql.Statement st = c.createStatement()) {
+        st.execute("LOCK TABLE ONLY reading IN ACCESS SHARE MODE");
+        // one attempt: the DROP times out, the packing is given up for this run
+        assertThat(packedReadings.pack(day, 1)).isEqualTo(-2);
+        assertThat(hasPartition(day)).isTrue();
+        assertThat(storedState(point)).isEqualTo(before);
+        assertThat(
+                jdbc.queryForObject(
+                    "SELECT count(*) FROM reading_pack_day WHERE day = ?", Long.class, day))
+            .isZero();
+        // the default attempts: the holder lets go during them
+        java.util.concurrent.CompletableFuture<Long> packing =
+            java.util.concurrent.CompletableFuture.supplyAsync(() -> packer.packDay(day));
+        Thread.sleep(1200);
+        assertThat(packing).isNotDone();
+        c.commit();
+        assertThat(packing.get(30, java.util.concurrent.TimeUnit.SECONDS)).isEqualTo(200);
+      }
+    }
+    assertThat(hasPartition(day)).isFalse();
+    assertThat(storedState(point)).isEqualTo(before);
+  }
+
   @Autowired PackedReadings packedReadings;
 }

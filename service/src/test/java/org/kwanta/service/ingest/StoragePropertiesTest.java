@@ -11,9 +11,9 @@ import org.kwanta.service.ingest.StorageMaintenance.StorageProperties;
 class StoragePropertiesTest {
 
   @Test
-  void packingIsOffAndPacksAfterTwoDaysByDefault() {
+  void packingIsOnAndPacksAfterTwoDaysByDefault() {
     StorageProperties p = new StorageProperties(0, 0, null, null, null);
-    assertThat(p.packing()).isFalse();
+    assertThat(p.packing()).isTrue();
     assertThat(p.packAfter()).isEqualTo(Duration.ofDays(2));
   }
 
