@@ -457,10 +457,12 @@ class PackedReadings {
    *
    * <p>The {@code DROP} needs the parent {@code reading} exclusively. It waits at most {@link
    * #DROP_LOCK_TIMEOUT_MS} ms, less than PostgreSQL's {@code deadlock_timeout} (1 s by default),
-   * and is tried {@link #DROP_ATTEMPTS} times, a second apart: while it waits, new transactions on
-   * {@code reading} queue behind it, and an ingest transaction that has written another day and
-   * then waits to write this one would otherwise deadlock with it and be the one aborted. If every
-   * attempt times out, nothing of the day is packed and the next run tries again.
+   * and is tried {@link #DROP_ATTEMPTS} times, a second apart, so that what queues behind it waits
+   * no longer. Before each attempt, if a transaction waits to write into the day (an ingest that
+   * has written another day, so holds the parent, and would deadlock with the {@code DROP}), the
+   * packer gives the day up at once: the waiting transaction's own deadlock check (after {@code
+   * deadlock_timeout}) then never finds the packer waiting on it. If no attempt succeeds, nothing
+   * of the day is packed and the next run tries again.
    *
    * @return the readings packed, -1 when the day has no partition (packed already, or never
    *     written), -2 when its partition could not be dropped this time
@@ -553,6 +555,12 @@ class PackedReadings {
   private boolean dropWithinTimeout(
       org.springframework.transaction.TransactionStatus status, String partition, int attempts) {
     for (int attempt = 1; attempt <= attempts; attempt++) {
+      if (writerWaits(partition)) {
+        // a transaction waits to write this day while holding, maybe, what the DROP needs: the
+        // DROP would wait on it as it waits on us, a deadlock; let it go first
+        log.debug("A transaction waits to write into {}; packing given up for this run", partition);
+        return false;
+      }
       Object savepoint = status.createSavepoint();
       try {
         jdbc.execute("SET LOCAL lock_timeout = '" + DROP_LOCK_TIMEOUT_MS + "ms'");
@@ -578,6 +586,14 @@ class PackedReadings {
       }
     }
     return false;
+  }
+
+  /** Whether another transaction waits for a lock on the partition (a write into its day). */
+  private boolean writerWaits(String partition) {
+    return jdbc.queryForObject(
+        "SELECT EXISTS (SELECT 1 FROM pg_locks WHERE relation = ?::regclass AND NOT granted)",
+        Boolean.class,
+        partition);
   }
 
   /** PostgreSQL's lock_not_available (55P03), which a lock_timeout raises. */

@@ -601,5 +601,48 @@ class PackedReadingsIT {
     assertThat(storedState(point)).isEqualTo(before);
   }
 
+  /**
+   * An ingest-like transaction that holds the parent {@code reading} (it wrote another day) and
+   * then waits to write into the day being packed: the packer gives the day up instead of waiting
+   * on it, so the transaction is not aborted as a deadlock and writes; the day is packed on the
+   * next run.
+   */
+  @Test
+  void aWriterWaitingOnThePackedDayGoesFirst() throws Exception {
+    String point = TestPlants.feedwaterPoints(http, 1).get(0);
+    Instant start = start(22);
+    LocalDate day = dayOf(start);
+    send(series(point, start, new Random(93), false).subList(0, 100), 100);
+    String partition = Partitions.name("reading", day);
+    java.util.concurrent.CompletableFuture<Long> packing;
+    try (java.sql.Connection c = dataSource.getConnection()) {
+      c.setAutoCommit(false);
+      try (java.sql.Statement st = c.createStatement()) {
+        st.execute("LOCK TABLE ONLY reading IN ROW EXCLUSIVE MODE");
+        // the packer holds the day against writes, then waits for the DROP's lock, held by us
+        packing = java.util.concurrent.CompletableFuture.supplyAsync(() -> packer.packDay(day));
+        long until = System.nanoTime() + 20_000_000_000L;
+        while (!jdbc.queryForObject(
+            "SELECT EXISTS (SELECT 1 FROM pg_locks WHERE relation = ?::regclass"
+                + " AND mode = 'ShareLock' AND granted)",
+            Boolean.class,
+            partition)) {
+          assertThat(System.nanoTime()).as("the packer locked the day").isLessThan(until);
+          Thread.sleep(5);
+        }
+        // now we wait to write into the day, as a late reading would, for longer than
+        // deadlock_timeout: a deadlock would be found and one of the two aborted
+        st.execute("LOCK TABLE " + partition + " IN ROW EXCLUSIVE MODE");
+        Thread.sleep(1500);
+      }
+      c.commit();
+    }
+    assertThat(packing.get(30, java.util.concurrent.TimeUnit.SECONDS)).isEqualTo(-2);
+    assertThat(hasPartition(day)).isTrue();
+    assertThat(packer.packDay(day)).isEqualTo(100);
+    assertThat(hasPartition(day)).isFalse();
+    assertThat(storedState(point)).hasSize(100);
+  }
+
   @Autowired PackedReadings packedReadings;
 }
