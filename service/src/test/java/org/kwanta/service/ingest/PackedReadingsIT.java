@@ -209,8 +209,8 @@ class PackedReadingsIT {
     String point = TestPlants.feedwaterPoints(http, 1).get(0);
     Instant start = start(10);
     List<Full> readings = series(point, start, new Random(69), true);
-    Collections.shuffle(readings, new Random(1));
-    send(readings, 700);
+    // in time order (batches out of order: theSameReadingsInAnotherOrderAndPackedEarlier...)
+    send(readings, 1000);
     LocalDate day = dayOf(start);
 
     List<String> before = storedState(point);
