@@ -546,6 +546,6 @@ final class Checks {
   }
 
   private static String num(double v) {
-    return Double.isNaN(v) ? "NaN" : String.format(Locale.ROOT, "%.3g", v);
+    return ThreeDigits.of(v);
   }
 }

@@ -170,9 +170,9 @@ public class IngestService {
     }
     // Last occurrence wins within a batch: a historian resending a row in the same batch corrects
     // it.
-    Map<String, ValidReading> distinct = new LinkedHashMap<>();
+    Map<ReadingKey, ValidReading> distinct = new LinkedHashMap<>();
     for (ValidReading r : checked.valid()) {
-      distinct.put(r.samplePointId() + '\u0000' + r.parameter().code() + '\u0000' + r.time(), r);
+      distinct.put(new ReadingKey(r.samplePointId(), r.parameter(), r.time()), r);
     }
     List<ValidReading> batch = new ArrayList<>(distinct.values());
     TreeSet<java.time.LocalDate> days = new TreeSet<>();
@@ -199,6 +199,9 @@ public class IngestService {
       }
     }
   }
+
+  /** A reading's identity within a batch. */
+  private record ReadingKey(String point, org.kwanta.model.Parameter parameter, Instant time) {}
 
   /** How often a batch is tried when a day's partition turns out to be missing. */
   private static final int MAX_PARTITION_ATTEMPTS = 3;

@@ -243,7 +243,10 @@ final class RecentReadings {
         }
         out.sort(ORDER);
       }
-      out.addAll(readings.subSet(probe("", rawFrom), true, probe("\uffff", to), true));
+      // one pass (addAll of a subset view counts it first, walking it twice)
+      for (StoredReading r : readings.subSet(probe("", rawFrom), true, probe("\uffff", to), true)) {
+        out.add(r);
+      }
       return out;
     }
   }
