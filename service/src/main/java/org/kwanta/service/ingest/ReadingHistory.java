@@ -195,9 +195,9 @@ public class ReadingHistory {
   /**
    * {@link #slotCounts} of the packed days (an availability over a month reaches them): the blocks
    * decoded, each reading's slot computed as {@code date_bin} computes it, the evaluations that
-   * point at something read for the range. The counts are added to those of {@code reading}: a slot
-   * that spans the boundary between a packed and a hot day (only when slots do not divide the UTC
-   * day) counts on both sides.
+   * point at something read for the range. The counts are added to those of {@code reading}; a slot
+   * that spans a UTC midnight (slots that do not divide the day, or a period that does not start on
+   * a slot boundary) is asked of {@code reading} too, and counts once.
    *
    * @param interval "n seconds", as {@code Availability} writes it
    * @param inService the multirange literal {@code Availability.multirange} writes
@@ -256,6 +256,8 @@ public class ReadingHistory {
         Timestamp.from(from),
         Timestamp.from(to));
     long origin = PackedReadings.micros(from);
+    java.util.Map<String, java.util.Set<Long>> packedAny = new java.util.HashMap<>();
+    java.util.Map<String, java.util.Set<Long>> packedGood = new java.util.HashMap<>();
     rows.forEach(
         (key, list) -> {
           String point = key.substring(0, key.indexOf('|'));
@@ -282,11 +284,66 @@ public class ReadingHistory {
             }
           }
           if (!any.isEmpty()) {
-            long[] c = out.computeIfAbsent(key, k -> new long[2]);
-            c[0] += any.size();
-            c[1] += good.size();
+            packedAny.put(key, any);
+            packedGood.put(key, good);
           }
         });
+    // a slot that spans a UTC midnight can hold readings of a hot day too, which SLOT_COUNTS has
+    // counted already: such a slot counts once, on the hot side if it has any there
+    java.util.Set<Long> spanning = new java.util.TreeSet<>();
+    packedAny
+        .values()
+        .forEach(
+            any ->
+                any.forEach(
+                    s -> {
+                      if (Math.floorDiv(s, DAY_MICROS) != Math.floorDiv(s + slot - 1, DAY_MICROS)) {
+                        spanning.add(s);
+                      }
+                    }));
+    Timestamp binOrigin = Timestamp.from(from);
+    for (long s : spanning) {
+      Timestamp lo = Timestamp.from(fromMicros(Math.max(s, PackedReadings.micros(from))));
+      Timestamp hi = Timestamp.from(fromMicros(Math.min(s + slot, PackedReadings.micros(to))));
+      jdbc.query(
+          SLOT_COUNTS,
+          (RowCallbackHandler)
+              rs -> {
+                String key = rs.getString(1) + "|" + rs.getString(2);
+                if (rs.getLong(3) > 0 && packedAny.containsKey(key)) {
+                  packedAny.get(key).remove(s);
+                }
+                if (rs.getLong(4) > 0 && packedGood.containsKey(key)) {
+                  packedGood.get(key).remove(s);
+                }
+              },
+          interval,
+          binOrigin,
+          interval,
+          binOrigin,
+          lo,
+          hi,
+          points,
+          parameters,
+          lo,
+          hi,
+          interval,
+          binOrigin,
+          inService);
+    }
+    packedAny.forEach(
+        (key, any) -> {
+          long[] c = out.computeIfAbsent(key, k -> new long[2]);
+          c[0] += any.size();
+          c[1] += packedGood.get(key).size();
+        });
+  }
+
+  private static final long DAY_MICROS = 86_400_000_000L;
+
+  private static Instant fromMicros(long micros) {
+    return Instant.ofEpochSecond(
+        Math.floorDiv(micros, 1_000_000L), Math.floorMod(micros, 1_000_000L) * 1000L);
   }
 
   /**

@@ -492,6 +492,18 @@ class PackedReadingsIT {
         .forEach((k, v) -> slots.put(k, v[0] + "/" + v[1]));
     assertThat(slots).hasSize(2);
     out.put("slotCounts", slots);
+    // slots of 21 min from 19:00: one spans midnight, between a packed and a hot day
+    Map<String, String> oddSlots = new TreeMap<>();
+    history
+        .slotCounts(
+            point,
+            String.join(",", PARAMETERS),
+            from,
+            to,
+            "1260 seconds",
+            "{[\"" + from + "\",\"" + to + "\")}")
+        .forEach((k, v) -> oddSlots.put(k, v[0] + "/" + v[1]));
+    out.put("slotCounts of 21 min", oddSlots);
     out.put("latestPerParameter", bits(history.latestPerParameter(point, from)));
     out.put(
         "latestPerParameter of points",
