@@ -322,8 +322,8 @@ class ReadingsIngestIT {
     assertThat(post(clean.subList(75, 150)).statusCode()).isEqualTo(200);
     assertThat(post(disturbed.subList(0, 75)).statusCode()).isEqualTo(200);
     jdbc.update(
-        "INSERT INTO evaluation (sample_point_id, time, config_version, instrument_in_doubt, finding_codes,"
-            + " details) VALUES (?, ?, 1, false, '{}', '{}')",
+        "INSERT INTO evaluation (sample_point_id, time, config_version, instrument_in_doubt, details)"
+            + " VALUES (?, ?, 1, false, '{}')",
         points.get(1),
         java.sql.Timestamp.from(start.plusSeconds(20 * 20)));
     double retriedBefore = retried();
