@@ -139,7 +139,8 @@ def evaluation_storage(db):
     h, i = heap / rows, index / rows
     print(f"evaluation partitions: {(heap + index) / rows:.1f} bytes per evaluation (heap {h:.1f}, indexes {i:.1f};"
           f" {rows:,} evaluations, {(heap + index) / 2**20:.0f} MiB)")
-    found = "coalesce(cardinality(points_at), 0) > 0"  # every finding points at something
+    # every finding points at something; points_at is text[] before V70, comma-separated text from it
+    found = "coalesce(points_at::text, '') NOT IN ('', '{}')"
     sizes = query(db, f"SELECT avg(pg_column_size(e.*)) || ' ' ||"
                       f" coalesce(avg(pg_column_size(e.*)) FILTER (WHERE {found}), 0) || ' ' ||"
                       f" coalesce(avg(pg_column_size(e.*)) FILTER (WHERE NOT {found}), 0) || ' ' ||"

@@ -199,16 +199,9 @@ public final class BinaryCopy {
     return this;
   }
 
-  /**
-   * A one-dimensional text[] without NULL elements (empty: a zero-dimensional array; null: SQL
-   * NULL).
-   */
+  /** A one-dimensional text[] without NULL elements (empty: a zero-dimensional array). */
   public BinaryCopy textArray(List<String> values) {
     try {
-      if (values == null) {
-        out.writeInt(-1);
-        return this;
-      }
       byte[][] encoded = new byte[values.size()][];
       int length = 12 + (values.isEmpty() ? 0 : 8);
       for (int i = 0; i < encoded.length; i++) {

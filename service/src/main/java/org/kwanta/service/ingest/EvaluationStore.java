@@ -20,7 +20,7 @@ public class EvaluationStore {
           ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, points_at,
           detail_pack, evaluated_at)
       SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
-             t.pht_high, t.neutral, t.instrument_in_doubt, string_to_array(t.points_at, ','),
+             t.pht_high, t.neutral, t.instrument_in_doubt, t.points_at,
              t.detail_pack, now()
       FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
@@ -141,7 +141,7 @@ public class EvaluationStore {
           .float8(col.high())
           .float8(col.neutral())
           .bool(r.view().instrumentInDoubt())
-          .textArray(at.isEmpty() ? null : at)
+          .text(at.isEmpty() ? null : String.join(",", at))
           .bytea(EvaluationPack.encode(r.view().forStorage(), col));
     }
     return rows;
