@@ -45,9 +45,14 @@ import org.kwanta.service.ingest.EvaluationView.PhAtTemperature;
  *       of epoch seconds and a varint of nanoseconds.
  * </ul>
  *
- * <p>Format 2 (from V70) keeps strings, lists and instants as format 1 and changes:
+ * <p>Format 2 (from V70) keeps lists and instants as format 1 and changes:
  *
  * <ul>
+ *   <li>the configuration version and the instrument-in-doubt flag are not written: they are the
+ *       row's columns;
+ *   <li>a <b>string</b> is a varint v: 0 null; 1 the empty string; 2 to {@value #FORMAT_2_WORDS} +
+ *       1 the word v − 2 of the same list (one byte for its first 126 words); above, (v − {@value
+ *       #FORMAT_2_WORDS} − 2) bytes of UTF-8 follow;
  *   <li>a <b>number</b> is one tag byte: 0 null; 1 followed by the 8 bytes of the IEEE double; 2
  *       the same bits as the number's <em>context</em>: for the 25 °C conductivities, the
  *       calculated pH, the pH at temperature, its band and the neutral pH, the row's typed column
@@ -90,6 +95,9 @@ final class EvaluationPack {
   /** The characters a slot of an explanation is written with in nibbles 0 to 13. */
   static final String SLOT_CHARACTERS = "0123456789.-+e";
 
+  /** How many words of the list a format-2 string can name (see the class comment). */
+  static final int FORMAT_2_WORDS = 1024;
+
   /** How many of the last numbers a number may refer back to. */
   static final int HISTORY = 32;
 
@@ -102,8 +110,10 @@ final class EvaluationPack {
   private EvaluationPack() {}
 
   /**
-   * The row's typed columns that a format-2 pack refers to, NaN where the column is NULL: what
-   * {@link EvaluationStore} writes and {@link Evaluations} reads back beside the pack.
+   * The row's columns that a format-2 pack refers to, NaN where a number's column is NULL: what
+   * {@link EvaluationStore} writes and {@link Evaluations} reads back beside the pack. A format-2
+   * pack holds neither the configuration version nor the instrument-in-doubt flag: they are the
+   * row's {@code config_version} and {@code instrument_in_doubt} (null in {@link #NONE}).
    */
   record Columns(
       double sc25,
@@ -113,7 +123,9 @@ final class EvaluationPack {
       double phAtTemperature,
       double low,
       double high,
-      double neutral) {
+      double neutral,
+      Integer configVersion,
+      Boolean instrumentInDoubt) {
 
     /** No columns (a reader without them can still decode format 1). */
     static final Columns NONE =
@@ -125,7 +137,9 @@ final class EvaluationPack {
             Double.NaN,
             Double.NaN,
             Double.NaN,
-            Double.NaN);
+            Double.NaN,
+            null,
+            null);
 
     /** The columns a view is stored with. */
     static Columns of(EvaluationView v) {
@@ -138,10 +152,12 @@ final class EvaluationPack {
           t == null ? Double.NaN : finiteOrNaN(t.ph()),
           t == null ? Double.NaN : finiteOrNaN(t.low()),
           t == null ? Double.NaN : finiteOrNaN(t.high()),
-          t == null ? Double.NaN : finiteOrNaN(t.neutralPh()));
+          t == null ? Double.NaN : finiteOrNaN(t.neutralPh()),
+          v.configVersion(),
+          v.instrumentInDoubt());
     }
 
-    /** The eight columns of a result set from {@code first} on, in the order of the record. */
+    /** The ten columns of a result set from {@code first} on, in the order of the record. */
     static Columns read(java.sql.ResultSet rs, int first) throws java.sql.SQLException {
       double[] c = new double[8];
       for (int k = 0; k < 8; k++) {
@@ -150,14 +166,24 @@ final class EvaluationPack {
           c[k] = Double.NaN;
         }
       }
-      return new Columns(c[0], c[1], c[2], c[3], c[4], c[5], c[6], c[7]);
+      return new Columns(
+          c[0],
+          c[1],
+          c[2],
+          c[3],
+          c[4],
+          c[5],
+          c[6],
+          c[7],
+          rs.getInt(first + 8),
+          rs.getBoolean(first + 9));
     }
 
     /** The SQL select list of the columns, in the order of the record. */
     static final String SELECT =
         "specific_conductivity_25, cation_conductivity_25, degassed_cation_conductivity_25,"
             + " calculated_ph_25, ph_at_temperature, ph_at_temperature_low, ph_at_temperature_high,"
-            + " neutral_ph_at_temperature";
+            + " neutral_ph_at_temperature, config_version, instrument_in_doubt";
 
     private static double nanIfNull(Double v) {
       return v == null ? Double.NaN : v;
@@ -188,9 +214,13 @@ final class EvaluationPack {
 
   /** Encodes a view in format 2, numbers equal to {@code c}'s columns by reference to them. */
   static byte[] encode(EvaluationView v, Columns c) {
+    if (!Integer.valueOf(v.configVersion()).equals(c.configVersion())
+        || !Boolean.valueOf(v.instrumentInDoubt()).equals(c.instrumentInDoubt())) {
+      throw new IllegalArgumentException(
+          "a format-2 pack takes the configuration version and the doubt from its row's columns");
+    }
     Out o = new Out(2);
     o.b(2);
-    o.varint(v.configVersion());
     o.list(
         v.compensated(),
         (out, k) -> {
@@ -244,7 +274,6 @@ final class EvaluationPack {
           out.str(f.pointsAt());
           out.explanation(f.explanation());
         });
-    o.bool(v.instrumentInDoubt());
     o.list(v.notes(), Out::str);
     return o.bytes();
   }
@@ -322,7 +351,10 @@ final class EvaluationPack {
   }
 
   private static EvaluationView decode2(In in, Columns c) {
-    int configVersion = (int) in.varint();
+    if (c.configVersion() == null || c.instrumentInDoubt() == null) {
+      throw new IllegalStateException("evaluation pack of format 2 read without its row's columns");
+    }
+    int configVersion = c.configVersion();
     List<Compensated> compensated =
         in.list(
             i -> {
@@ -392,7 +424,7 @@ final class EvaluationPack {
               u);
     }
     List<FindingView> findings = in.list(i -> new FindingView(i.str(), i.str(), i.explanation()));
-    boolean inDoubt = in.bool();
+    boolean inDoubt = c.instrumentInDoubt();
     List<String> notes = in.list(In::str);
     return new EvaluationView(
         configVersion, compensated, composition, calculated, t, findings, inDoubt, notes);
@@ -834,13 +866,17 @@ final class EvaluationPack {
         varint(0);
         return;
       }
+      if (format == 2 && s.isEmpty()) {
+        varint(1);
+        return;
+      }
       Integer code = CODES.get(s);
-      if (code != null) {
-        varint(2L * code + 1);
+      if (code != null && (format == 1 || code < FORMAT_2_WORDS)) {
+        varint(format == 1 ? 2L * code + 1 : code + 2L);
         return;
       }
       byte[] utf8 = s.getBytes(StandardCharsets.UTF_8);
-      varint(2L * (utf8.length + 1));
+      varint(format == 1 ? 2L * (utf8.length + 1) : FORMAT_2_WORDS + 2L + utf8.length);
       for (byte x : utf8) {
         b(x);
       }
@@ -1048,19 +1084,23 @@ final class EvaluationPack {
       if (v == 0) {
         return null;
       }
-      if ((v & 1) == 1) {
-        long code = (v - 1) / 2;
+      if (format == 2 && v == 1) {
+        return "";
+      }
+      boolean word = format == 1 ? (v & 1) == 1 : v <= FORMAT_2_WORDS + 1;
+      if (word) {
+        long code = format == 1 ? (v - 1) / 2 : v - 2;
         if (code >= WORDS.size()) {
           throw new IllegalStateException("evaluation pack names word " + code + ", not listed");
         }
         return WORDS.get((int) code);
       }
-      int len = (int) (v / 2 - 1);
-      if (len < 0 || i + len > buf.length) {
+      long len = format == 1 ? v / 2 - 1 : v - FORMAT_2_WORDS - 2;
+      if (len < 0 || len > buf.length - i) {
         throw new IllegalStateException("evaluation pack ends inside a string");
       }
-      String s = new String(buf, i, len, StandardCharsets.UTF_8);
-      i += len;
+      String s = new String(buf, i, (int) len, StandardCharsets.UTF_8);
+      i += (int) len;
       return s;
     }
 

@@ -43,6 +43,7 @@ public class EvaluationStore {
           detail_pack = EXCLUDED.detail_pack,
           evaluated_at = now()
         WHERE e.detail_pack IS DISTINCT FROM EXCLUDED.detail_pack OR e.config_version <> EXCLUDED.config_version
+           OR e.instrument_in_doubt <> EXCLUDED.instrument_in_doubt
            OR (float8send(e.specific_conductivity_25), float8send(e.cation_conductivity_25),
                float8send(e.degassed_cation_conductivity_25), float8send(e.calculated_ph_25),
                float8send(e.ph_at_temperature), float8send(e.ph_at_temperature_low),

@@ -89,7 +89,7 @@ public class Evaluations {
       """
       SELECT time, details, detail_pack, specific_conductivity_25, cation_conductivity_25,
              degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
-             ph_at_temperature_high, neutral_ph_at_temperature
+             ph_at_temperature_high, neutral_ph_at_temperature, config_version, instrument_in_doubt
       FROM evaluation WHERE sample_point_id = ? AND time >= ?
       ORDER BY time DESC LIMIT 1""";
 

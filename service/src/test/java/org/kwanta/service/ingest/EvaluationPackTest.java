@@ -95,7 +95,7 @@ class EvaluationPackTest {
                 5.6,
                 "a formulation not in the list",
                 "LIQUID",
-                List.of("note one", ""),
+                List.of("note one", "", "µ".repeat(3000)),
                 "MEASURED",
                 12.9,
                 Instant.parse("1969-12-31T23:59:59.123456789Z"),
@@ -111,13 +111,24 @@ class EvaluationPackTest {
   }
 
   /**
-   * Both formats read back to an equal view, with the row's columns and without any: records
-   * compare their doubles by {@link Double#compare}, bit for bit but for NaN's payload.
+   * Both formats read back to an equal view, with the row's columns and with none of its numbers:
+   * records compare their doubles by {@link Double#compare}, bit for bit but for NaN's payload.
    */
   private static void roundTrips(EvaluationView v) {
     EvaluationPack.Columns own = EvaluationPack.Columns.of(v);
     assertThat(EvaluationPack.decode(EvaluationPack.encode(v, own), own)).isEqualTo(v);
-    EvaluationPack.Columns none = EvaluationPack.Columns.NONE;
+    EvaluationPack.Columns none =
+        new EvaluationPack.Columns(
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            Double.NaN,
+            v.configVersion(),
+            v.instrumentInDoubt());
     assertThat(EvaluationPack.decode(EvaluationPack.encode(v, none), none)).isEqualTo(v);
     assertThat(EvaluationPack.decode(EvaluationPack.encodeFormat1(v))).isEqualTo(v);
   }
@@ -314,7 +325,21 @@ class EvaluationPackTest {
     assertThat(EvaluationPack.decode(two, columns)).isEqualTo(v);
     assertThat(two.length).as("format 2 bytes").isLessThan(pack.length * 6 / 10);
     assertThatThrownBy(() -> EvaluationPack.decode(two, EvaluationPack.Columns.NONE))
-        .hasMessageContaining("column that is NULL");
+        .hasMessageContaining("without its row's columns");
+    EvaluationPack.Columns otherVersion =
+        new EvaluationPack.Columns(
+            columns.sc25(),
+            columns.cc25(),
+            columns.dcc25(),
+            columns.ph25(),
+            columns.phAtTemperature(),
+            columns.low(),
+            columns.high(),
+            columns.neutral(),
+            v.configVersion() + 1,
+            v.instrumentInDoubt());
+    assertThatThrownBy(() -> EvaluationPack.encode(v, otherVersion))
+        .isInstanceOf(IllegalArgumentException.class);
   }
 
   private static final String LOAD_RUN_PACK =
