@@ -24,7 +24,7 @@ import org.kwanta.service.ingest.EvaluationView.PhAtTemperature;
 /**
  * The compact binary form of a stored evaluation ({@code evaluation.detail_pack}): the fields of
  * {@link EvaluationView#forStorage()} in declaration order, without names. It replaces about 3 kB
- * of JSON text per evaluation by about 150 bytes and reads back to an equal view, so the API's JSON
+ * of JSON text per evaluation by about 180 bytes and reads back to an equal view, so the API's JSON
  * is unchanged ({@code EvaluationPackTest} checks the round trip). The first byte of every pack is
  * its format; {@link #decode} reads both formats.
  *
