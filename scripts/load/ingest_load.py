@@ -122,6 +122,41 @@ def query(db, sql):
                           check=True, capture_output=True, text=True).stdout.strip()
 
 
+def evaluation_storage(db):
+    """Bytes per stored evaluation over every leaf partition of evaluation (this run's rows and any earlier
+    ones): heap (with its TOAST, free-space and visibility maps) and indexes, from the partitions' sizes. For
+    the rows that carry a finding and those that do not, the heap share is the mean heap bytes per row plus the
+    difference of their mean row size (pg_column_size of the row) from the mean of all rows (a row carries a
+    finding when points_at is not empty: every finding points at something); the index share is
+    the same for both (the key does not depend on the findings)."""
+    heap, index, rows = (int(x) for x in query(db, "SELECT sum(pg_table_size(inhrelid)) || ' ' ||"
+                                                   " sum(pg_indexes_size(inhrelid)) || ' ' ||"
+                                                   " (SELECT count(*) FROM evaluation) FROM pg_inherits"
+                                                   " WHERE inhparent = 'evaluation'::regclass").split())
+    if rows == 0:
+        print("evaluation partitions: no rows")
+        return
+    h, i = heap / rows, index / rows
+    print(f"evaluation partitions: {(heap + index) / rows:.1f} bytes per evaluation (heap {h:.1f}, indexes {i:.1f};"
+          f" {rows:,} evaluations, {(heap + index) / 2**20:.0f} MiB)")
+    # every finding points at something; points_at is text[] before V70, comma-separated text from it
+    found = "coalesce(points_at::text, '') NOT IN ('', '{}')"
+    sizes = query(db, f"SELECT avg(pg_column_size(e.*)) || ' ' ||"
+                      f" coalesce(avg(pg_column_size(e.*)) FILTER (WHERE {found}), 0) || ' ' ||"
+                      f" coalesce(avg(pg_column_size(e.*)) FILTER (WHERE NOT {found}), 0) || ' ' ||"
+                      f" count(*) FILTER (WHERE {found}) || ' ' ||"
+                      f" coalesce(avg(octet_length(detail_pack)), 0) || ' ' ||"
+                      f" coalesce(avg(octet_length(detail_pack)) FILTER (WHERE {found}), 0)"
+                      f" FROM evaluation e").split()
+    mean, with_f, without_f, n_found, pack, pack_f = (float(x) for x in sizes)
+    for label, size, count in (("with a finding", with_f, int(n_found)),
+                               ("without a finding", without_f, rows - int(n_found))):
+        if count:
+            print(f"  {label}: {h + size - mean + i:.1f} bytes (heap {h + size - mean:.1f}, indexes {i:.1f};"
+                  f" {count:,} evaluations)")
+    print(f"  detail_pack: {pack:.1f} bytes mean, {pack_f:.1f} with a finding")
+
+
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--base-url", default="http://127.0.0.1:8080")
@@ -235,6 +270,7 @@ def main():
                                 " WHERE inhparent = 'reading'::regclass").split()
         print(f"reading partitions: {int(stored[0]) / int(stored[1]):.1f} bytes per reading, heap and indexes"
               f" ({int(stored[1]):,} readings, {int(stored[0]) / 2**20:.0f} MiB)")
+        evaluation_storage(args.db)
         n = done["readings"]
         copies = [p + "-copy" for p in points]
         point_keys = dict(line.split("|") for line in query(

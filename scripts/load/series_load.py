@@ -103,8 +103,8 @@ def main():
                 continue
             psql(args.db, f"""
                 INSERT INTO evaluation (sample_point_id, time, config_version, cation_conductivity_25,
-                                        ph_at_temperature, instrument_in_doubt, finding_codes, details)
-                SELECT p, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}', '{{}}'
+                                        ph_at_temperature, instrument_in_doubt, details)
+                SELECT p, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}'
                 FROM unnest(ARRAY{points}::text[]) p,
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',

@@ -17,16 +17,16 @@ public class EvaluationStore {
       """
       INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
           cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
-          ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes,
-          points_at, detail_pack, evaluated_at)
+          ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, points_at,
+          detail_pack, evaluated_at)
       SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
-             t.pht_high, t.neutral, t.instrument_in_doubt, string_to_array(t.codes, ','), string_to_array(t.points_at, ','),
+             t.pht_high, t.neutral, t.instrument_in_doubt, t.points_at,
              t.detail_pack, now()
       FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
-                  ?::text[], ?::bytea[])
+                  ?::bytea[])
         AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
-             instrument_in_doubt, codes, points_at, detail_pack)
+             instrument_in_doubt, points_at, detail_pack)
       ON CONFLICT (sample_point_id, time) DO UPDATE SET
           config_version = EXCLUDED.config_version,
           specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
@@ -38,12 +38,21 @@ public class EvaluationStore {
           ph_at_temperature_high = EXCLUDED.ph_at_temperature_high,
           neutral_ph_at_temperature = EXCLUDED.neutral_ph_at_temperature,
           instrument_in_doubt = EXCLUDED.instrument_in_doubt,
-          finding_codes = EXCLUDED.finding_codes,
           points_at = EXCLUDED.points_at,
           details = NULL,
           detail_pack = EXCLUDED.detail_pack,
           evaluated_at = now()
-        WHERE e.detail_pack IS DISTINCT FROM EXCLUDED.detail_pack OR e.config_version <> EXCLUDED.config_version""";
+        WHERE e.detail_pack IS DISTINCT FROM EXCLUDED.detail_pack OR e.config_version <> EXCLUDED.config_version
+           OR e.instrument_in_doubt <> EXCLUDED.instrument_in_doubt
+           OR (float8send(e.specific_conductivity_25), float8send(e.cation_conductivity_25),
+               float8send(e.degassed_cation_conductivity_25), float8send(e.calculated_ph_25),
+               float8send(e.ph_at_temperature), float8send(e.ph_at_temperature_low),
+               float8send(e.ph_at_temperature_high), float8send(e.neutral_ph_at_temperature))
+              IS DISTINCT FROM
+              (float8send(EXCLUDED.specific_conductivity_25), float8send(EXCLUDED.cation_conductivity_25),
+               float8send(EXCLUDED.degassed_cation_conductivity_25), float8send(EXCLUDED.calculated_ph_25),
+               float8send(EXCLUDED.ph_at_temperature), float8send(EXCLUDED.ph_at_temperature_low),
+               float8send(EXCLUDED.ph_at_temperature_high), float8send(EXCLUDED.neutral_ph_at_temperature))""";
 
   private final JdbcTemplate jdbc;
 
@@ -69,12 +78,12 @@ public class EvaluationStore {
     Double[] high = new Double[n];
     Double[] neutral = new Double[n];
     Boolean[] inDoubt = new Boolean[n];
-    String[] codes = new String[n];
     String[] pointsAt = new String[n];
     byte[][] details = new byte[n][];
     for (int i = 0; i < n; i++) {
       EvaluationRunner.Result r = results.get(i);
-      Columns col = Columns.of(r.view());
+      EvaluationPack.Columns col = EvaluationPack.Columns.of(r.view());
+      List<String> at = pointsAt(r.view());
       points[i] = r.samplePointId();
       times[i] = r.time().toString();
       versions[i] = r.view().configVersion();
@@ -87,9 +96,8 @@ public class EvaluationStore {
       high[i] = nullIfNaN(col.high());
       neutral[i] = nullIfNaN(col.neutral());
       inDoubt[i] = r.view().instrumentInDoubt();
-      codes[i] = String.join(",", col.codes());
-      pointsAt[i] = String.join(",", col.pointsAt());
-      details[i] = EvaluationPack.encode(r.view().forStorage());
+      pointsAt[i] = at.isEmpty() ? null : String.join(",", at);
+      details[i] = EvaluationPack.encode(r.view().forStorage(), col);
     }
     jdbc.execute(
         (Connection c) -> {
@@ -106,9 +114,8 @@ public class EvaluationStore {
             ps.setArray(10, c.createArrayOf("float8", high));
             ps.setArray(11, c.createArrayOf("float8", neutral));
             ps.setArray(12, c.createArrayOf("bool", inDoubt));
-            ps.setArray(13, c.createArrayOf("text", codes));
-            ps.setArray(14, c.createArrayOf("text", pointsAt));
-            ps.setArray(15, c.createArrayOf("bytea", details));
+            ps.setArray(13, c.createArrayOf("text", pointsAt));
+            ps.setArray(14, c.createArrayOf("bytea", details));
             return ps.executeUpdate();
           }
         });
@@ -118,10 +125,11 @@ public class EvaluationStore {
    * Encodes evaluations for {@link #copyNew} (thread-safe: the ingest encodes points in parallel).
    */
   public BinaryCopy encode(List<EvaluationRunner.Result> results) {
-    BinaryCopy rows = BinaryCopy.fragment(results.size(), 480);
+    BinaryCopy rows = BinaryCopy.fragment(results.size(), 320);
     for (EvaluationRunner.Result r : results) {
-      Columns col = Columns.of(r.view());
-      rows.row(15)
+      EvaluationPack.Columns col = EvaluationPack.Columns.of(r.view());
+      List<String> at = pointsAt(r.view());
+      rows.row(14)
           .text(r.samplePointId())
           .timestamp(r.time())
           .int4(r.view().configVersion())
@@ -134,9 +142,8 @@ public class EvaluationStore {
           .float8(col.high())
           .float8(col.neutral())
           .bool(r.view().instrumentInDoubt())
-          .textArray(col.codes())
-          .textArray(col.pointsAt())
-          .bytea(EvaluationPack.encode(r.view().forStorage()));
+          .text(at.isEmpty() ? null : String.join(",", at))
+          .bytea(EvaluationPack.encode(r.view().forStorage(), col));
     }
     return rows;
   }
@@ -158,44 +165,7 @@ public class EvaluationStore {
       """
       evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
-          ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, finding_codes, points_at, detail_pack)""";
-
-  /** An evaluation's indexed columns; NaN where there is no value (SQL NULL). */
-  private record Columns(
-      double sc25,
-      double cc25,
-      double dcc25,
-      double ph25,
-      double phAtTemperature,
-      double low,
-      double high,
-      double neutral,
-      List<String> codes,
-      List<String> pointsAt) {
-
-    static Columns of(EvaluationView v) {
-      EvaluationView.PhAtTemperature t = v.phAtTemperature();
-      return new Columns(
-          nanIfNull(v.at25("specific_conductivity")),
-          nanIfNull(v.at25("cation_conductivity")),
-          nanIfNull(v.at25("degassed_cation_conductivity")),
-          v.calculatedPh() == null ? Double.NaN : finiteOrNaN(v.calculatedPh().rigorous()),
-          t == null ? Double.NaN : finiteOrNaN(t.ph()),
-          t == null ? Double.NaN : finiteOrNaN(t.low()),
-          t == null ? Double.NaN : finiteOrNaN(t.high()),
-          t == null ? Double.NaN : finiteOrNaN(t.neutralPh()),
-          v.findings().stream().map(EvaluationView.FindingView::code).distinct().toList(),
-          EvaluationStore.pointsAt(v));
-    }
-  }
-
-  private static double nanIfNull(Double v) {
-    return v == null ? Double.NaN : v;
-  }
-
-  private static double finiteOrNaN(double v) {
-    return Double.isFinite(v) ? v : Double.NaN;
-  }
+          ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, points_at, detail_pack)""";
 
   private static Double nullIfNaN(double v) {
     return Double.isNaN(v) ? null : v;

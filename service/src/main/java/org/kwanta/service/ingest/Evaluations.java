@@ -38,8 +38,9 @@ public class Evaluations {
   public List<Stored> range(String samplePointId, Instant from, Instant to, int limit) {
     return jdbc.query(
         """
-        SELECT time, details, detail_pack FROM evaluation
-        WHERE sample_point_id = ? AND time >= ? AND time < ? ORDER BY time LIMIT ?""",
+        SELECT time, details, detail_pack, %s FROM evaluation
+        WHERE sample_point_id = ? AND time >= ? AND time < ? ORDER BY time LIMIT ?"""
+            .formatted(EvaluationPack.Columns.SELECT),
         this::stored,
         samplePointId,
         Timestamp.from(from),
@@ -63,17 +64,18 @@ public class Evaluations {
     }
     jdbc.query(
         """
-        SELECT q.point, e.time, e.details, e.detail_pack FROM unnest(?::text[]) AS q(point)
+        SELECT q.point, e.time, e.details, e.detail_pack, %s FROM unnest(?::text[]) AS q(point)
         CROSS JOIN LATERAL (
-          SELECT time, details, detail_pack FROM evaluation
-          WHERE sample_point_id = q.point AND time >= ? ORDER BY time DESC LIMIT 1) e""",
+          SELECT time, details, detail_pack, %1$s FROM evaluation
+          WHERE sample_point_id = q.point AND time >= ? ORDER BY time DESC LIMIT 1) e"""
+            .formatted(EvaluationPack.Columns.SELECT),
         (RowCallbackHandler)
             rs ->
                 out.put(
                     rs.getString(1),
                     new Stored(
                         rs.getTimestamp(2).toInstant(),
-                        stored(rs.getString(3), rs.getBytes(4)).fromStorage())),
+                        stored(rs.getString(3), rs.getBytes(4), rs, 5).fromStorage())),
         (Object) samplePointIds.toArray(String[]::new),
         Timestamp.from(since));
     return out;
@@ -85,7 +87,10 @@ public class Evaluations {
    */
   public static final String LATEST_EVALUATION =
       """
-      SELECT time, details, detail_pack FROM evaluation WHERE sample_point_id = ? AND time >= ?
+      SELECT time, details, detail_pack, specific_conductivity_25, cation_conductivity_25,
+             degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
+             ph_at_temperature_high, neutral_ph_at_temperature, config_version, instrument_in_doubt
+      FROM evaluation WHERE sample_point_id = ? AND time >= ?
       ORDER BY time DESC LIMIT 1""";
 
   /** pH at temperature and the neutral pH there, NaN when absent. */
@@ -170,13 +175,19 @@ public class Evaluations {
 
   private Stored stored(ResultSet rs, int i) throws SQLException {
     return new Stored(
-        rs.getTimestamp(1).toInstant(), stored(rs.getString(2), rs.getBytes(3)).fromStorage());
+        rs.getTimestamp(1).toInstant(),
+        stored(rs.getString(2), rs.getBytes(3), rs, 4).fromStorage());
   }
 
-  /** A stored view: the compact form, or the JSON of rows written before it. */
-  private EvaluationView stored(String details, byte[] pack) {
+  /**
+   * A stored view: the compact form (which may refer to the row's typed columns, selected from
+   * {@code firstColumn} on in the order of {@link EvaluationPack.Columns#SELECT}), or the JSON of
+   * rows written before it.
+   */
+  private EvaluationView stored(String details, byte[] pack, ResultSet rs, int firstColumn)
+      throws SQLException {
     return pack != null
-        ? EvaluationPack.decode(pack)
+        ? EvaluationPack.decode(pack, EvaluationPack.Columns.read(rs, firstColumn))
         : json.readValue(details, EvaluationView.class);
   }
 

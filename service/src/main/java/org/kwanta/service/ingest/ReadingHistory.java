@@ -135,7 +135,7 @@ public class ReadingHistory {
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)),
              count(DISTINCT date_bin(?::interval, r.time, ?::timestamptz)) FILTER (
                WHERE r.quality = 0
-                 AND NOT coalesce(e.points_at && ARRAY[upper(q.code), 'SAMPLE_CONDITIONING'], false))
+                 AND NOT coalesce(string_to_array(e.points_at, ',') && ARRAY[upper(q.code), 'SAMPLE_CONDITIONING'], false))
       FROM reading r
       JOIN reading_point k ON k.point_key = r.point_key
       JOIN reading_parameter q ON q.parameter_key = r.parameter_key
@@ -246,12 +246,12 @@ public class ReadingHistory {
     jdbc.query(
         "SELECT sample_point_id, time, points_at FROM evaluation"
             + " WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?"
-            + " AND points_at <> '{}'",
+            + " AND points_at <> ''",
         (RowCallbackHandler)
             rs ->
                 inDoubtAt.put(
                     rs.getString(1) + "|" + PackedReadings.micros(rs.getTimestamp(2).toInstant()),
-                    List.of((String[]) rs.getArray(3).getArray())),
+                    List.of(rs.getString(3).split(","))),
         (Object) points.split(","),
         Timestamp.from(from),
         Timestamp.from(to));
@@ -619,9 +619,9 @@ public class ReadingHistory {
       """
       SELECT r.time, r.value,
              r.quality = 2
-               OR coalesce(e.points_at && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
+               OR coalesce(string_to_array(e.points_at, ',') && ARRAY[?::text, 'SAMPLE_CONDITIONING'], false),
              e.calculated_ph_25,
-             coalesce('PH' = ANY(e.points_at), false)
+             coalesce('PH' = ANY(string_to_array(e.points_at, ',')), false)
       FROM reading r
       LEFT JOIN evaluation e ON e.sample_point_id = ? AND e.time = r.time
                             AND e.time >= ? AND e.time <= ?
@@ -714,11 +714,12 @@ public class ReadingHistory {
                   rs -> {
                     double c = rs.getDouble(3);
                     boolean none = rs.wasNull() || !Double.isFinite(c);
-                    java.sql.Array a = rs.getArray(2);
+                    String a = rs.getString(2);
                     evaluations.put(
                         PackedReadings.micros(rs.getTimestamp(1).toInstant()),
                         new Object[] {
-                          a == null ? new String[0] : (String[]) a.getArray(), none ? Double.NaN : c
+                          a == null || a.isEmpty() ? new String[0] : a.split(","),
+                          none ? Double.NaN : c
                         });
                   },
               point,
@@ -781,9 +782,9 @@ public class ReadingHistory {
       """
       SELECT q.point, p.code, r.time, r.value,
              r.quality = 2
-               OR coalesce(e.points_at && ARRAY[upper(p.code), 'SAMPLE_CONDITIONING'], false),
+               OR coalesce(string_to_array(e.points_at, ',') && ARRAY[upper(p.code), 'SAMPLE_CONDITIONING'], false),
              e.calculated_ph_25,
-             coalesce('PH' = ANY(e.points_at), false)
+             coalesce('PH' = ANY(string_to_array(e.points_at, ',')), false)
       FROM unnest(?::text[], ?::timestamptz[]) AS q(point, since)
       JOIN reading_point k ON k.sample_point_id = q.point
       CROSS JOIN (SELECT parameter_key, code FROM reading_parameter

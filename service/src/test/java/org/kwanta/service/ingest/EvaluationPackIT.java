@@ -57,11 +57,28 @@ class EvaluationPackIT {
     assertThat(((Number) stored.get("n")).intValue()).isEqualTo(40);
     assertThat(((Number) stored.get("json_rows")).intValue()).isZero();
     // against about 3 kB of JSON text before (4 kB for this water)
-    assertThat(((Number) stored.get("mean")).doubleValue()).isLessThan(450);
-    assertThat(((Number) stored.get("largest")).intValue()).isLessThan(800);
+    // format 2 (V70): about 380 bytes in format 1
+    assertThat(((Number) stored.get("mean")).doubleValue()).isLessThan(250);
+    assertThat(((Number) stored.get("largest")).intValue()).isLessThan(600);
 
     JsonNode first = packed.get(0).get("evaluation");
     assertThat(first.get("phAtTemperature").get("uncertainty").get("rule").asString()).isNotBlank();
+
+    // the same row as a row written in format 1 (V61 to V70): its pack read without the columns
+    jdbc.update(
+        "UPDATE evaluation SET detail_pack = ? WHERE sample_point_id = ? AND time = ?",
+        EvaluationPack.encodeFormat1(JSON.treeToValue(first, EvaluationView.class).forStorage()),
+        point,
+        java.sql.Timestamp.from(start));
+    assertThat(
+            jdbc.queryForObject(
+                "SELECT get_byte(detail_pack, 0) FROM evaluation WHERE sample_point_id = ? AND"
+                    + " time = ?",
+                Integer.class,
+                point,
+                java.sql.Timestamp.from(start)))
+        .isEqualTo(1);
+    assertThat(JSON.readTree(http.get(path).body()).get("evaluations")).isEqualTo(packed);
 
     // the same row as a row written before the compact form: its JSON text, no pack
     jdbc.update(

@@ -423,7 +423,7 @@ class PackedReadingsIT {
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
         "SELECT time::text || ' ' || coalesce(cation_conductivity_25::text, '-') || ' '"
-            + " || finding_codes::text || ' ' || points_at::text || ' '"
+            + " || coalesce(points_at::text, '-') || ' '"
             + " || coalesce(encode(detail_pack, 'hex'), '-') FROM evaluation"
             + " WHERE sample_point_id = ? ORDER BY time",
         String.class,

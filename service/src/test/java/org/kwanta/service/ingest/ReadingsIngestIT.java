@@ -322,8 +322,8 @@ class ReadingsIngestIT {
     assertThat(post(clean.subList(75, 150)).statusCode()).isEqualTo(200);
     assertThat(post(disturbed.subList(0, 75)).statusCode()).isEqualTo(200);
     jdbc.update(
-        "INSERT INTO evaluation (sample_point_id, time, config_version, instrument_in_doubt, finding_codes,"
-            + " details) VALUES (?, ?, 1, false, '{}', '{}')",
+        "INSERT INTO evaluation (sample_point_id, time, config_version, instrument_in_doubt, details)"
+            + " VALUES (?, ?, 1, false, '{}')",
         points.get(1),
         java.sql.Timestamp.from(start.plusSeconds(20 * 20)));
     double retriedBefore = retried();
@@ -371,10 +371,26 @@ class ReadingsIngestIT {
 
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
-        "SELECT time::text || ' ' || coalesce(details, encode(detail_pack, 'hex')) FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+        "SELECT " + STORED_EVALUATION + " FROM evaluation WHERE sample_point_id = ? ORDER BY time",
         String.class,
         point);
   }
+
+  /**
+   * A stored evaluation as text: its time, details and every column a pack of format 2 refers to,
+   * the numbers bit for bit (so rows written by COPY and by the upsert compare whole).
+   */
+  static final String STORED_EVALUATION =
+      "time::text || ' ' || coalesce(details, encode(detail_pack, 'hex')) || ' ' || config_version"
+          + " || ' ' || instrument_in_doubt || ' ' || coalesce(points_at, '-') || ' ' || concat_ws(' ',"
+          + " coalesce(encode(float8send(specific_conductivity_25), 'hex'), '-'),"
+          + " coalesce(encode(float8send(cation_conductivity_25), 'hex'), '-'),"
+          + " coalesce(encode(float8send(degassed_cation_conductivity_25), 'hex'), '-'),"
+          + " coalesce(encode(float8send(calculated_ph_25), 'hex'), '-'),"
+          + " coalesce(encode(float8send(ph_at_temperature), 'hex'), '-'),"
+          + " coalesce(encode(float8send(ph_at_temperature_low), 'hex'), '-'),"
+          + " coalesce(encode(float8send(ph_at_temperature_high), 'hex'), '-'),"
+          + " coalesce(encode(float8send(neutral_ph_at_temperature), 'hex'), '-'))";
 
   private int count(String point) {
     return jdbc.queryForObject(

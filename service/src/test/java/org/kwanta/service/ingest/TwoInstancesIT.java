@@ -157,8 +157,9 @@ class TwoInstancesIT {
 
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
-        "SELECT time::text || ' ' || coalesce(details, encode(detail_pack, 'hex')) FROM evaluation WHERE sample_point_id = ?"
-            + " ORDER BY time",
+        "SELECT "
+            + ReadingsIngestIT.STORED_EVALUATION
+            + " FROM evaluation WHERE sample_point_id = ? ORDER BY time",
         String.class,
         point);
   }
