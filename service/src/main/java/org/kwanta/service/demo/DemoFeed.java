@@ -57,6 +57,16 @@ class DemoFeed {
     if (!batch.isEmpty()) {
       total += ingest.ingest(batch).received();
     }
+    // the back-filled days' statistics now, not at the hourly refresh: the first board plans on
+    // them
+    java.util.TreeSet<java.time.LocalDate> days = new java.util.TreeSet<>();
+    for (Instant t = now.minus(properties.backfill());
+        !t.isAfter(now);
+        t = t.plus(Duration.ofHours(1))) {
+      days.add(java.time.LocalDate.ofInstant(t, java.time.ZoneOffset.UTC));
+    }
+    days.add(java.time.LocalDate.ofInstant(now, java.time.ZoneOffset.UTC));
+    ingest.refreshStatistics(days);
     log.info(
         "Demo feed on: {} invented readings back-filled over {}, live every {} (stories repeat every {})",
         total,

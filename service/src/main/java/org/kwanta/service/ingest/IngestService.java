@@ -200,6 +200,15 @@ public class IngestService {
     }
   }
 
+  /**
+   * Refreshes the planner statistics of the partitions of the given days ({@code ANALYZE}, as the
+   * storage maintenance does every hour): after a bulk back-fill, so that the first queries on it
+   * are planned on its rows (the demo's first board took 30-37 s without, 0.1 s with).
+   */
+  public void refreshStatistics(java.util.Collection<java.time.LocalDate> days) {
+    partitions.analyze(days);
+  }
+
   /** A reading's identity within a batch. */
   private record ReadingKey(String point, org.kwanta.model.Parameter parameter, Instant time) {}
 
