@@ -480,34 +480,33 @@ class PackedReadingsIT {
                     + " "
                     + phInDoubt));
     out.put("judgedSince", judgedSince);
-    Map<String, String> slots = new TreeMap<>();
-    history
-        .slotCounts(
+    Map<String, String> slots =
+        slotCounts(
             point,
-            String.join(",", PARAMETERS),
             from,
             to,
             "900 seconds",
-            "{[\"" + from.plusSeconds(1800) + "\",\"" + to.minusSeconds(7200) + "\")}")
-        .forEach((k, v) -> slots.put(k, v[0] + "/" + v[1]));
+            "{[\"" + from.plusSeconds(1800) + "\",\"" + to.minusSeconds(7200) + "\")}");
     assertThat(slots).hasSize(2);
     out.put("slotCounts", slots);
     // slots of 21 min from 19:00: one spans midnight, between a packed and a hot day
-    Map<String, String> oddSlots = new TreeMap<>();
-    history
-        .slotCounts(
-            point,
-            String.join(",", PARAMETERS),
-            from,
-            to,
-            "1260 seconds",
-            "{[\"" + from + "\",\"" + to + "\")}")
-        .forEach((k, v) -> oddSlots.put(k, v[0] + "/" + v[1]));
-    out.put("slotCounts of 21 min", oddSlots);
+    out.put(
+        "slotCounts of 21 min",
+        slotCounts(point, from, to, "1260 seconds", "{[\"" + from + "\",\"" + to + "\")}"));
     out.put("latestPerParameter", bits(history.latestPerParameter(point, from)));
     out.put(
         "latestPerParameter of points",
         bits(history.latestPerParameter(List.of(point), from).get(point)));
+    return out;
+  }
+
+  /** {@link ReadingHistory#slotCounts} as "point|parameter" to "with data/good". */
+  private Map<String, String> slotCounts(
+      String point, Instant from, Instant to, String interval, String inService) {
+    Map<String, String> out = new TreeMap<>();
+    history
+        .slotCounts(point, String.join(",", PARAMETERS), from, to, interval, inService)
+        .forEach((k, v) -> out.put(k, v[0] + "/" + v[1]));
     return out;
   }
 
