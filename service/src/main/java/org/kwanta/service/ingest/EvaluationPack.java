@@ -214,13 +214,55 @@ final class EvaluationPack {
 
   /** Encodes a view in format 2, numbers equal to {@code c}'s columns by reference to them. */
   static byte[] encode(EvaluationView v, Columns c) {
+    Out o = new Out(2);
+    o.b(2);
+    write(o, v, c);
+    return o.bytes();
+  }
+
+  /**
+   * Encodes a view in format 3: its shape numbered by {@code shapes}, its values in the pack; in
+   * format 2 when {@code shapes} takes no more shapes.
+   */
+  static byte[] encode(EvaluationView v, Columns c, Shapes shapes) {
+    Out o = new Out(3);
+    write(o, v, c);
+    int number = shapes.number(o.shapeBytes());
+    if (number < 0) {
+      return encode(v, c);
+    }
+    byte[] payload = o.payloadBytes();
+    Buf pack = new Buf(payload.length + 4);
+    pack.b(3);
+    pack.varint(number);
+    for (byte x : payload) {
+      pack.b(x);
+    }
+    return pack.bytes();
+  }
+
+  /**
+   * The shapes of format-3 packs, each numbered once and kept for good (the table {@code
+   * evaluation_shape}; a map in tests).
+   */
+  interface Shapes {
+    /**
+     * The number of a shape, registered durably (committed before it is returned) when new; -1 when
+     * no more shapes are taken.
+     */
+    int number(byte[] shape);
+
+    /** The shape numbered {@code number}; fails when there is none. */
+    byte[] shape(int number);
+  }
+
+  /** Writes the fields of format 2 or 3 (after the format byte). */
+  private static void write(Out o, EvaluationView v, Columns c) {
     if (!Integer.valueOf(v.configVersion()).equals(c.configVersion())
         || !Boolean.valueOf(v.instrumentInDoubt()).equals(c.instrumentInDoubt())) {
       throw new IllegalArgumentException(
           "a format-2 pack takes the configuration version and the doubt from its row's columns");
     }
-    Out o = new Out(2);
-    o.b(2);
     o.list(
         v.compensated(),
         (out, k) -> {
@@ -275,7 +317,6 @@ final class EvaluationPack {
           out.explanation(f.explanation());
         });
     o.list(v.notes(), Out::str);
-    return o.bytes();
   }
 
   /** Encodes a view in format 1, as written from V61 until V70 (for tests of old rows). */
@@ -322,8 +363,7 @@ final class EvaluationPack {
 
   private static void measuredAt(Out o, Instant at) {
     if (o.present(at)) {
-      o.zigzag(at.getEpochSecond());
-      o.varint(at.getNano());
+      o.instant(at);
     }
   }
 
@@ -334,13 +374,31 @@ final class EvaluationPack {
 
   /** Decodes what {@link #encode} or {@link #encodeFormat1} wrote; {@code c}: the row's columns. */
   static EvaluationView decode(byte[] bytes, Columns c) {
+    return decode(bytes, c, null);
+  }
+
+  /**
+   * Decodes a pack of any format; {@code c}: the row's columns, {@code shapes}: where format 3
+   * finds its shapes.
+   */
+  static EvaluationView decode(byte[] bytes, Columns c, Shapes shapes) {
     In in = new In(bytes);
     int format = in.b();
     in.format = format;
+    if (format == 3) {
+      if (shapes == null) {
+        throw new IllegalStateException("evaluation pack of format 3 read without its shapes");
+      }
+      long number = in.varint();
+      if (number > Integer.MAX_VALUE) {
+        throw new IllegalStateException("evaluation pack names shape " + number);
+      }
+      in.split(shapes.shape((int) number));
+    }
     EvaluationView v =
         switch (format) {
           case 1 -> decode1(in);
-          case 2 -> decode2(in, c);
+          case 2, 3 -> decode2(in, c);
           default ->
               throw new IllegalStateException("evaluation pack format " + format + " is not known");
         };
@@ -352,7 +410,8 @@ final class EvaluationPack {
 
   private static EvaluationView decode2(In in, Columns c) {
     if (c.configVersion() == null || c.instrumentInDoubt() == null) {
-      throw new IllegalStateException("evaluation pack of format 2 read without its row's columns");
+      throw new IllegalStateException(
+          "evaluation pack of format " + in.format + " read without its row's columns");
     }
     int configVersion = c.configVersion();
     List<Compensated> compensated =
@@ -388,7 +447,7 @@ final class EvaluationPack {
       List<String> notes = in.list(In::str);
       String source = in.str();
       Double drumPressure = in.num();
-      Instant measuredAt = in.present() ? Instant.ofEpochSecond(in.zigzag(), in.varint()) : null;
+      Instant measuredAt = in.present() ? in.instant() : null;
       PhUncertaintyView u = null;
       if (in.present()) {
         double uPh = in.dbl(c.phAtTemperature());
@@ -718,30 +777,28 @@ final class EvaluationPack {
   /** A growing byte buffer with the format's primitives. */
   private static final class Out {
     private final int format;
-    private byte[] buf = new byte[256];
-    private int n;
+
+    /** The structure (format 3: the shape), and the values (the same buffer before format 3). */
+    private final Buf shape;
+
+    private final Buf payload;
 
     Out(int format) {
       this.format = format;
+      this.shape = new Buf(format == 3 ? 96 : 256);
+      this.payload = format == 3 ? new Buf(160) : shape;
     }
 
     void b(int v) {
-      if (n == buf.length) {
-        buf = Arrays.copyOf(buf, buf.length * 2);
-      }
-      buf[n++] = (byte) v;
+      shape.b(v);
     }
 
     void varint(long v) {
-      while ((v & ~0x7FL) != 0) {
-        b((int) ((v & 0x7F) | 0x80));
-        v >>>= 7;
-      }
-      b((int) v);
+      shape.varint(v);
     }
 
     void zigzag(long v) {
-      varint((v << 1) ^ (v >> 63));
+      shape.varint((v << 1) ^ (v >> 63));
     }
 
     boolean present(Object o) {
@@ -804,8 +861,13 @@ final class EvaluationPack {
         if (Math.abs(scaled) < 0x1p53 && Math.rint(scaled) == scaled) {
           long k = (long) scaled;
           if (Double.doubleToRawLongBits(k / POWERS_OF_TEN[s]) == bits) {
-            b(4 + s);
-            zigzag(k);
+            if (format == 3) {
+              b(4);
+              payload.varint(((k << 1) ^ (k >> 63)) << 3 | s);
+            } else {
+              b(4 + s);
+              zigzag(k);
+            }
             return true;
           }
         }
@@ -825,7 +887,7 @@ final class EvaluationPack {
     private void raw(long bits) {
       b(1);
       for (int shift = 56; shift >= 0; shift -= 8) {
-        b((int) (bits >>> shift));
+        payload.b((int) (bits >>> shift));
       }
     }
 
@@ -866,7 +928,7 @@ final class EvaluationPack {
         varint(0);
         return;
       }
-      if (format == 2 && s.isEmpty()) {
+      if (format >= 2 && s.isEmpty()) {
         varint(1);
         return;
       }
@@ -876,6 +938,14 @@ final class EvaluationPack {
         return;
       }
       byte[] utf8 = s.getBytes(StandardCharsets.UTF_8);
+      if (format == 3) {
+        varint(FORMAT_2_WORDS + 2L);
+        payload.varint(utf8.length);
+        for (byte x : utf8) {
+          payload.b(x);
+        }
+        return;
+      }
       varint(format == 1 ? 2L * (utf8.length + 1) : FORMAT_2_WORDS + 2L + utf8.length);
       for (byte x : utf8) {
         b(x);
@@ -906,7 +976,7 @@ final class EvaluationPack {
             }
           }
           if (half >= 0) {
-            b(half << 4);
+            payload.b(half << 4);
           }
           strings.forEach(this::str);
           return;
@@ -921,7 +991,7 @@ final class EvaluationPack {
       if (half < 0) {
         return v;
       }
-      b((half << 4) | v);
+      payload.b((half << 4) | v);
       return -1;
     }
 
@@ -945,6 +1015,56 @@ final class EvaluationPack {
       }
     }
 
+    /**
+     * An instant's epoch seconds and nanoseconds (values: format 3 keeps them with the numbers).
+     */
+    void instant(Instant at) {
+      payload.varint((at.getEpochSecond() << 1) ^ (at.getEpochSecond() >> 63));
+      payload.varint(at.getNano());
+    }
+
+    byte[] bytes() {
+      return shape.bytes();
+    }
+
+    /** Format 3: the shape, without the format byte. */
+    byte[] shapeBytes() {
+      return shape.bytes();
+    }
+
+    byte[] payloadBytes() {
+      return payload.bytes();
+    }
+  }
+
+  /** A growing byte buffer. */
+  private static final class Buf {
+    private byte[] buf;
+    private int n;
+
+    Buf(int capacity) {
+      buf = new byte[capacity];
+    }
+
+    void b(int v) {
+      if (n == buf.length) {
+        buf = Arrays.copyOf(buf, buf.length * 2);
+      }
+      buf[n++] = (byte) v;
+    }
+
+    void varint(long v) {
+      while ((v & ~0x7FL) != 0) {
+        b((int) ((v & 0x7F) | 0x80));
+        v >>>= 7;
+      }
+      b((int) v);
+    }
+
+    int size() {
+      return n;
+    }
+
     byte[] bytes() {
       return Arrays.copyOf(buf, n);
     }
@@ -952,42 +1072,52 @@ final class EvaluationPack {
 
   /** Reads what {@link Out} wrote; a short or malformed pack fails loudly. */
   private static final class In {
-    private final byte[] buf;
-    private int i;
+    /** The structure (format 3: the shape) and the values (the same cursor before format 3). */
+    private Cursor shape;
+
+    private Cursor payload;
+
     int format;
 
     In(byte[] buf) {
-      this.buf = buf;
+      this.shape = new Cursor(buf, "evaluation pack");
+      this.payload = shape;
+    }
+
+    /** Format 3: the structure from {@code shapeBytes}, the values from here on. */
+    void split(byte[] shapeBytes) {
+      payload = shape;
+      shape = new Cursor(shapeBytes, "evaluation pack shape");
     }
 
     int b() {
-      if (i >= buf.length) {
-        throw new IllegalStateException("evaluation pack ends early at byte " + i);
-      }
-      return buf[i++] & 0xFF;
+      return shape.b();
     }
 
     boolean atEnd() {
-      return i == buf.length;
+      return shape.atEnd() && payload.atEnd();
     }
 
     long varint() {
-      long v = 0;
-      for (int shift = 0; ; shift += 7) {
-        int x = b();
-        v |= (long) (x & 0x7F) << shift;
-        if ((x & 0x80) == 0) {
-          return v;
-        }
-        if (shift > 56) {
-          throw new IllegalStateException("evaluation pack has a varint longer than 64 bits");
-        }
-      }
+      return shape.varint();
     }
 
     long zigzag() {
       long v = varint();
       return (v >>> 1) ^ -(v & 1);
+    }
+
+    long payloadVarint() {
+      return payload.varint();
+    }
+
+    int payloadByte() {
+      return payload.b();
+    }
+
+    Instant instant() {
+      long v = payload.varint();
+      return Instant.ofEpochSecond((v >>> 1) ^ -(v & 1), payload.varint());
     }
 
     boolean present() {
@@ -1043,7 +1173,16 @@ final class EvaluationPack {
       if (tag == 3) {
         return 0;
       }
-      if (tag < 4 + POWERS_OF_TEN.length) {
+      if (format == 3 && tag == 4) {
+        long v = payload.varint();
+        int s = (int) (v & 7);
+        if (s >= POWERS_OF_TEN.length) {
+          throw new IllegalStateException("evaluation pack has a decimal with exponent " + s);
+        }
+        v >>>= 3;
+        return Double.doubleToRawLongBits(((v >>> 1) ^ -(v & 1)) / POWERS_OF_TEN[s]);
+      }
+      if (format != 3 && tag < 4 + POWERS_OF_TEN.length) {
         return Double.doubleToRawLongBits(zigzag() / POWERS_OF_TEN[tag - 4]);
       }
       if (tag >= 11 && tag < 11 + HISTORY) {
@@ -1055,7 +1194,7 @@ final class EvaluationPack {
     private long raw() {
       long raw = 0;
       for (int k = 0; k < 8; k++) {
-        raw = (raw << 8) | b();
+        raw = (raw << 8) | payload.b();
       }
       return raw;
     }
@@ -1084,7 +1223,7 @@ final class EvaluationPack {
       if (v == 0) {
         return null;
       }
-      if (format == 2 && v == 1) {
+      if (format >= 2 && v == 1) {
         return "";
       }
       boolean word = format == 1 ? (v & 1) == 1 : v <= FORMAT_2_WORDS + 1;
@@ -1095,13 +1234,13 @@ final class EvaluationPack {
         }
         return WORDS.get((int) code);
       }
-      long len = format == 1 ? v / 2 - 1 : v - FORMAT_2_WORDS - 2;
-      if (len < 0 || len > buf.length - i) {
-        throw new IllegalStateException("evaluation pack ends inside a string");
+      if (format == 3) {
+        if (v != FORMAT_2_WORDS + 2) {
+          throw new IllegalStateException("evaluation pack shape has string code " + v);
+        }
+        return payload.utf8(payload.varint());
       }
-      String s = new String(buf, i, (int) len, StandardCharsets.UTF_8);
-      i += (int) len;
-      return s;
+      return shape.utf8(format == 1 ? v / 2 - 1 : v - FORMAT_2_WORDS - 2);
     }
 
     String explanation() {
@@ -1129,7 +1268,7 @@ final class EvaluationPack {
             x = pending;
             pending = -1;
           } else {
-            int y = b();
+            int y = payload.b();
             x = y >>> 4;
             pending = y & 15;
           }
@@ -1173,7 +1312,7 @@ final class EvaluationPack {
       if (n == 0) {
         return null;
       }
-      if (n - 1 > buf.length - i) {
+      if (n - 1 > shape.left()) {
         throw new IllegalStateException("evaluation pack lists more items than it has bytes");
       }
       List<T> out = new ArrayList<>((int) (n - 1));
@@ -1181,6 +1320,56 @@ final class EvaluationPack {
         out.add(r.read(this));
       }
       return java.util.Collections.unmodifiableList(out);
+    }
+  }
+
+  /** Reads bytes in order; a short or malformed input fails loudly, naming {@code what}. */
+  private static final class Cursor {
+    private final byte[] buf;
+    private final String what;
+    private int i;
+
+    Cursor(byte[] buf, String what) {
+      this.buf = buf;
+      this.what = what;
+    }
+
+    int b() {
+      if (i >= buf.length) {
+        throw new IllegalStateException(what + " ends early at byte " + i);
+      }
+      return buf[i++] & 0xFF;
+    }
+
+    boolean atEnd() {
+      return i == buf.length;
+    }
+
+    int left() {
+      return buf.length - i;
+    }
+
+    long varint() {
+      long v = 0;
+      for (int shift = 0; ; shift += 7) {
+        int x = b();
+        v |= (long) (x & 0x7F) << shift;
+        if ((x & 0x80) == 0) {
+          return v;
+        }
+        if (shift > 56) {
+          throw new IllegalStateException(what + " has a varint longer than 64 bits");
+        }
+      }
+    }
+
+    String utf8(long len) {
+      if (len < 0 || len > buf.length - i) {
+        throw new IllegalStateException(what + " ends inside a string");
+      }
+      String s = new String(buf, i, (int) len, StandardCharsets.UTF_8);
+      i += (int) len;
+      return s;
     }
   }
 }

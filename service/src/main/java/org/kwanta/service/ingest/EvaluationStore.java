@@ -55,9 +55,11 @@ public class EvaluationStore {
                float8send(EXCLUDED.ph_at_temperature_high), float8send(EXCLUDED.neutral_ph_at_temperature))""";
 
   private final JdbcTemplate jdbc;
+  private final EvaluationPack.Shapes shapes;
 
-  EvaluationStore(JdbcTemplate jdbc) {
+  EvaluationStore(JdbcTemplate jdbc, EvaluationShapes shapes) {
     this.jdbc = jdbc;
+    this.shapes = shapes;
   }
 
   /** Upserts evaluations; unchanged ones are left alone. */
@@ -97,7 +99,7 @@ public class EvaluationStore {
       neutral[i] = nullIfNaN(col.neutral());
       inDoubt[i] = r.view().instrumentInDoubt();
       pointsAt[i] = at.isEmpty() ? null : String.join(",", at);
-      details[i] = EvaluationPack.encode(r.view().forStorage(), col);
+      details[i] = EvaluationPack.encode(r.view().forStorage(), col, shapes);
     }
     jdbc.execute(
         (Connection c) -> {
@@ -143,7 +145,7 @@ public class EvaluationStore {
           .float8(col.neutral())
           .bool(r.view().instrumentInDoubt())
           .text(at.isEmpty() ? null : String.join(",", at))
-          .bytea(EvaluationPack.encode(r.view().forStorage(), col));
+          .bytea(EvaluationPack.encode(r.view().forStorage(), col, shapes));
     }
     return rows;
   }

@@ -25,10 +25,12 @@ public class Evaluations {
 
   private final JdbcTemplate jdbc;
   private final JsonMapper json;
+  private final EvaluationPack.Shapes shapes;
 
-  Evaluations(ReadSource reads, JsonMapper json) {
+  Evaluations(ReadSource reads, JsonMapper json, EvaluationShapes shapes) {
     this.jdbc = reads.jdbc();
     this.json = json;
+    this.shapes = shapes;
   }
 
   /** One stored evaluation. */
@@ -187,7 +189,7 @@ public class Evaluations {
   private EvaluationView stored(String details, byte[] pack, ResultSet rs, int firstColumn)
       throws SQLException {
     return pack != null
-        ? EvaluationPack.decode(pack, EvaluationPack.Columns.read(rs, firstColumn))
+        ? EvaluationPack.decode(pack, EvaluationPack.Columns.read(rs, firstColumn), shapes)
         : json.readValue(details, EvaluationView.class);
   }
 

@@ -56,13 +56,28 @@ class EvaluationPackIT {
             point);
     assertThat(((Number) stored.get("n")).intValue()).isEqualTo(40);
     assertThat(((Number) stored.get("json_rows")).intValue()).isZero();
-    // against about 3 kB of JSON text before (4 kB for this water)
-    // format 2 (V70): about 380 bytes in format 1
-    assertThat(((Number) stored.get("mean")).doubleValue()).isLessThan(250);
-    assertThat(((Number) stored.get("largest")).intValue()).isLessThan(600);
+    // against about 3 kB of JSON text before (4 kB for this water), about 380 bytes in format 1
+    // (V61), about 180 in format 2 (V70); format 3 (V72) keeps the shape apart
+    assertThat(((Number) stored.get("mean")).doubleValue()).isLessThan(150);
+    assertThat(((Number) stored.get("largest")).intValue()).isLessThan(400);
+    assertThat(
+            jdbc.queryForList(
+                "SELECT DISTINCT get_byte(detail_pack, 0) FROM evaluation WHERE sample_point_id = ?",
+                Integer.class,
+                point))
+        .containsExactly(3);
 
     JsonNode first = packed.get(0).get("evaluation");
     assertThat(first.get("phAtTemperature").get("uncertainty").get("rule").asString()).isNotBlank();
+
+    // the same row as a row written in format 2 (V70 to V72): the whole pack, no shape
+    EvaluationView firstView = JSON.treeToValue(first, EvaluationView.class);
+    jdbc.update(
+        "UPDATE evaluation SET detail_pack = ? WHERE sample_point_id = ? AND time = ?",
+        EvaluationPack.encode(firstView.forStorage(), EvaluationPack.Columns.of(firstView)),
+        point,
+        java.sql.Timestamp.from(start));
+    assertThat(JSON.readTree(http.get(path).body()).get("evaluations")).isEqualTo(packed);
 
     // the same row as a row written in format 1 (V61 to V70): its pack read without the columns
     jdbc.update(

@@ -43,6 +43,8 @@ class EvaluationPackTest {
     long packed = 0;
     long json = 0;
     long packed1 = 0;
+    long packed3 = 0;
+    MapShapes shapes = new MapShapes();
     for (EvaluationView v : views) {
       EvaluationView stored = v.forStorage();
       EvaluationPack.Columns columns = EvaluationPack.Columns.of(v);
@@ -55,13 +57,21 @@ class EvaluationPackTest {
       assertThat(pack1[0]).isEqualTo((byte) 1);
       assertThat(EvaluationPack.decode(pack1, columns)).isEqualTo(stored);
       assertThat(EvaluationPack.decode(pack1)).isEqualTo(stored);
+      byte[] pack3 = EvaluationPack.encode(stored, columns, shapes);
+      assertThat(pack3[0]).isEqualTo((byte) 3);
+      assertThat(
+              JSON.writeValueAsString(EvaluationPack.decode(pack3, columns, shapes).fromStorage()))
+          .isEqualTo(JSON.writeValueAsString(v));
       packed += pack.length;
       packed1 += pack1.length;
+      packed3 += pack3.length;
       json += JSON.writeValueAsBytes(stored).length;
     }
     assertThat(packed / views.size()).as("mean packed bytes").isLessThan(200);
     assertThat(packed * 3).as("format 2 against format 1").isLessThan(packed1 * 2);
     assertThat(packed * 10).as("packed against JSON").isLessThan(json);
+    assertThat(packed3 * 10).as("format 3 against format 2").isLessThan(packed * 7);
+    assertThat(shapes.size()).as("shapes").isLessThan(views.size());
   }
 
   @Test
@@ -131,6 +141,73 @@ class EvaluationPackTest {
             v.instrumentInDoubt());
     assertThat(EvaluationPack.decode(EvaluationPack.encode(v, none), none)).isEqualTo(v);
     assertThat(EvaluationPack.decode(EvaluationPack.encodeFormat1(v))).isEqualTo(v);
+    byte[] three = EvaluationPack.encode(v, own, SHAPES);
+    assertThat(three[0]).isEqualTo((byte) 3);
+    assertThat(EvaluationPack.decode(three, own, SHAPES)).isEqualTo(v);
+    assertThat(EvaluationPack.decode(EvaluationPack.encode(v, none, SHAPES), none, SHAPES))
+        .isEqualTo(v);
+  }
+
+  private static final MapShapes SHAPES = new MapShapes();
+
+  /**
+   * Format 3 keeps a view's values in the row and its shape (the fields' structure, codes and
+   * words) once in the shapes: rows that differ only in their numbers share one shape. When the
+   * shapes take no more, the pack is written in format 2.
+   */
+  @Test
+  void rowsThatDifferOnlyInTheirNumbersShareOneShape() throws IOException {
+    EvaluationView v = demoViews().get(0).forStorage();
+    MapShapes shapes = new MapShapes(1);
+    EvaluationPack.Columns columns = EvaluationPack.Columns.of(v);
+    byte[] first = EvaluationPack.encode(v, columns, shapes);
+    EvaluationView.PhAtTemperature t = v.phAtTemperature();
+    EvaluationView other =
+        new EvaluationView(
+            v.configVersion(),
+            v.compensated(),
+            v.composition(),
+            v.calculatedPh(),
+            new EvaluationView.PhAtTemperature(
+                t.temperatureCel() + 1.5,
+                t.pressureMPa(),
+                t.ph(),
+                t.low(),
+                t.high(),
+                t.bandFrom(),
+                t.neutralPh(),
+                t.formulation(),
+                t.basis(),
+                t.notes(),
+                t.operatingConditionSource(),
+                t.measuredDrumPressureMPa(),
+                t.measuredAt(),
+                t.uncertainty()),
+            v.findings(),
+            v.instrumentInDoubt(),
+            v.notes());
+    byte[] second = EvaluationPack.encode(other, columns, shapes);
+    assertThat(shapes.size()).isEqualTo(1);
+    assertThat(second[0]).isEqualTo((byte) 3);
+    assertThat(second).isNotEqualTo(first);
+    assertThat(EvaluationPack.decode(second, columns, shapes)).isEqualTo(other);
+    EvaluationView third =
+        new EvaluationView(
+            v.configVersion(),
+            v.compensated(),
+            v.composition(),
+            v.calculatedPh(),
+            v.phAtTemperature(),
+            List.of(new EvaluationView.FindingView("A_NEW_CODE", "PROCESS", null)),
+            v.instrumentInDoubt(),
+            v.notes());
+    byte[] two = EvaluationPack.encode(third, columns, shapes);
+    assertThat(two[0]).as("no room for a second shape: format 2").isEqualTo((byte) 2);
+    assertThat(EvaluationPack.decode(two, columns, shapes)).isEqualTo(third);
+    assertThatThrownBy(() -> EvaluationPack.decode(first, columns))
+        .hasMessageContaining("without its shapes");
+    assertThatThrownBy(() -> EvaluationPack.decode(first, columns, new MapShapes()))
+        .hasMessageContaining("no evaluation shape 1");
   }
 
   /**
@@ -352,18 +429,19 @@ class EvaluationPackTest {
     for (byte[] pack :
         List.of(
             EvaluationPack.encodeFormat1(v.forStorage()),
-            EvaluationPack.encode(v.forStorage(), columns))) {
+            EvaluationPack.encode(v.forStorage(), columns),
+            EvaluationPack.encode(v.forStorage(), columns, SHAPES))) {
       for (int cut : new int[] {0, 1, pack.length / 2, pack.length - 1}) {
         byte[] shorter = Arrays.copyOf(pack, cut);
-        assertThatThrownBy(() -> EvaluationPack.decode(shorter, columns))
+        assertThatThrownBy(() -> EvaluationPack.decode(shorter, columns, SHAPES))
             .isInstanceOf(IllegalStateException.class);
       }
       byte[] longer = Arrays.copyOf(pack, pack.length + 1);
-      assertThatThrownBy(() -> EvaluationPack.decode(longer, columns))
+      assertThatThrownBy(() -> EvaluationPack.decode(longer, columns, SHAPES))
           .hasMessageContaining("after its last field");
       byte[] otherFormat = pack.clone();
       otherFormat[0] = 9;
-      assertThatThrownBy(() -> EvaluationPack.decode(otherFormat, columns))
+      assertThatThrownBy(() -> EvaluationPack.decode(otherFormat, columns, SHAPES))
           .hasMessageContaining("format 9");
     }
   }
