@@ -136,9 +136,16 @@ def evaluation_storage(db):
     if rows == 0:
         print("evaluation partitions: no rows")
         return
+    # the shapes of the packs (V72) are counted with the rows that refer to them
+    shapes, shape_heap, shape_index = (int(x) for x in query(
+        db, "SELECT count(*) || ' ' || pg_table_size('evaluation_shape') || ' ' ||"
+            " pg_indexes_size('evaluation_shape') FROM evaluation_shape").split())
+    heap += shape_heap
+    index += shape_index
     h, i = heap / rows, index / rows
     print(f"evaluation partitions: {(heap + index) / rows:.1f} bytes per evaluation (heap {h:.1f}, indexes {i:.1f};"
-          f" {rows:,} evaluations, {(heap + index) / 2**20:.0f} MiB)")
+          f" {rows:,} evaluations, {(heap + index) / 2**20:.0f} MiB; with the {shapes:,} pack shapes of"
+          f" evaluation_shape, {(shape_heap + shape_index) / 1024:.0f} KiB)")
     # every finding points at something; points_at is text[] before V70, comma-separated text from it
     found = "coalesce(points_at::text, '') NOT IN ('', '{}')"
     sizes = query(db, f"SELECT avg(pg_column_size(e.*)) || ' ' ||"
