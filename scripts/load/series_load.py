@@ -102,13 +102,14 @@ def main():
             if args.measured_only:
                 continue
             psql(args.db, f"""
-                INSERT INTO evaluation (sample_point_id, time, config_version, cation_conductivity_25,
+                INSERT INTO evaluation (point_key, time, config_version, cation_conductivity_25,
                                         ph_at_temperature, instrument_in_doubt, details)
-                SELECT p, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}'
-                FROM unnest(ARRAY{points}::text[]) p,
+                SELECT k.point_key, t, 1, 0.08 + random() * 0.01, 6.9 + random() * 0.05, false, '{{}}'
+                FROM (SELECT reading_point_key(p) AS point_key FROM unnest(ARRAY{points}::text[]) p) k,
                      generate_series('{d0.isoformat()}'::timestamptz,
                                      '{(d0 + timedelta(days=1)).isoformat()}'::timestamptz - interval '10 s',
-                                     interval '10 s') t""")
+                                     interval '10 s') t
+                ORDER BY k.point_key, t""")
         filled = time.monotonic() - t0
         t1 = time.monotonic()
         psql(args.db, f"DO $$ BEGIN PERFORM refresh_reading_rollups('{start.isoformat()}', '{end.isoformat()}'); END $$")

@@ -10,26 +10,28 @@ import org.springframework.stereotype.Repository;
 
 /**
  * The hourly and daily rollups of the derived series ({@code evaluation_rollup_hour}, {@code
- * evaluation_rollup_day}, migration V64): per point, evaluation value column and UTC hour or day.
- * Marked by the ingest ({@link #mark}, in its transaction), recomputed a few seconds later off the
- * ingest path ({@link #settle}, {@code EvaluationRollupSettler}), and read by {@link StoredSeries}
- * for buckets of whole hours that are not marked, as the reading rollups are for the measured
- * series.
+ * evaluation_rollup_day}, migration V64): per point, evaluation value column and UTC hour or day;
+ * keyed, as the marks are, by the point's key (V71). Marked by the ingest ({@link #mark}, in its
+ * transaction), recomputed a few seconds later off the ingest path ({@link #settle}, {@code
+ * EvaluationRollupSettler}), and read by {@link StoredSeries} for buckets of whole hours that are
+ * not marked, as the reading rollups are for the measured series.
  */
 @Repository
 class EvaluationRollups {
 
   private final JdbcTemplate jdbc;
+  private final SeriesKeys keys;
 
-  EvaluationRollups(JdbcTemplate jdbc) {
+  EvaluationRollups(JdbcTemplate jdbc, SeriesKeys keys) {
     this.jdbc = jdbc;
+    this.keys = keys;
   }
 
   /** One point's UTC hour. */
-  private record Hour(String samplePointId, Instant start) {}
+  private record Hour(int point, Instant start) {}
 
   private static final java.util.Comparator<Hour> HOUR_ORDER =
-      java.util.Comparator.comparing(Hour::samplePointId).thenComparing(Hour::start);
+      java.util.Comparator.comparingInt(Hour::point).thenComparing(Hour::start);
 
   /**
    * Marks, in the caller's (ingest) transaction, every (point, UTC hour) of the evaluations written
@@ -43,25 +45,25 @@ class EvaluationRollups {
     if (written.isEmpty()) {
       return;
     }
-    java.util.TreeSet<Hour> keys = new java.util.TreeSet<>(HOUR_ORDER);
+    java.util.TreeSet<Hour> marks = new java.util.TreeSet<>(HOUR_ORDER);
     for (EvaluationRunner.Result r : written) {
-      keys.add(new Hour(r.samplePointId(), r.time().truncatedTo(ChronoUnit.HOURS)));
+      marks.add(new Hour(keys.point(r.samplePointId()), r.time().truncatedTo(ChronoUnit.HOURS)));
     }
-    String[] points = new String[keys.size()];
-    String[] hours = new String[keys.size()];
+    Integer[] points = new Integer[marks.size()];
+    String[] hours = new String[marks.size()];
     int i = 0;
-    for (Hour h : keys) {
-      points[i] = h.samplePointId();
+    for (Hour h : marks) {
+      points[i] = h.point();
       hours[i++] = h.start().toString();
     }
     jdbc.update(
         c -> {
           var ps =
               c.prepareStatement(
-                  "INSERT INTO evaluation_rollup_pending (sample_point_id, bucket)"
-                      + " SELECT p, h FROM unnest(?::text[], ?::text[]::timestamptz[]) AS u(p, h)"
+                  "INSERT INTO evaluation_rollup_pending (point_key, bucket)"
+                      + " SELECT p, h FROM unnest(?::int4[], ?::text[]::timestamptz[]) AS u(p, h)"
                       + " ORDER BY p, h ON CONFLICT DO NOTHING");
-          ps.setArray(1, c.createArrayOf("text", points));
+          ps.setArray(1, c.createArrayOf("int4", points));
           ps.setArray(2, c.createArrayOf("text", hours));
           return ps;
         });
@@ -83,27 +85,27 @@ class EvaluationRollups {
             """
             WITH d AS (
               DELETE FROM evaluation_rollup_pending
-              WHERE (sample_point_id, bucket) IN (
-                SELECT sample_point_id, bucket FROM evaluation_rollup_pending
-                ORDER BY sample_point_id, bucket LIMIT ? FOR UPDATE SKIP LOCKED)
-              RETURNING sample_point_id, bucket)
-            SELECT sample_point_id, bucket FROM d""",
-            (rs, i) -> new Object[] {rs.getString(1), rs.getTimestamp(2)},
+              WHERE (point_key, bucket) IN (
+                SELECT point_key, bucket FROM evaluation_rollup_pending
+                ORDER BY point_key, bucket LIMIT ? FOR UPDATE SKIP LOCKED)
+              RETURNING point_key, bucket)
+            SELECT point_key, bucket FROM d""",
+            (rs, i) -> new Object[] {rs.getInt(1), rs.getTimestamp(2)},
             SETTLE_BATCH);
     if (taken.isEmpty()) {
       return 0;
     }
-    String[] points = new String[taken.size()];
+    Integer[] points = new Integer[taken.size()];
     java.sql.Timestamp[] hours = new java.sql.Timestamp[taken.size()];
     for (int i = 0; i < points.length; i++) {
-      points[i] = (String) taken.get(i)[0];
+      points[i] = (Integer) taken.get(i)[0];
       hours[i] = (java.sql.Timestamp) taken.get(i)[1];
     }
     jdbc.query(
         c -> {
           var ps =
-              c.prepareStatement("SELECT settle_evaluation_rollups(?::text[], ?::timestamptz[])");
-          ps.setArray(1, c.createArrayOf("text", points));
+              c.prepareStatement("SELECT settle_evaluation_rollups(?::int4[], ?::timestamptz[])");
+          ps.setArray(1, c.createArrayOf("int4", points));
           ps.setArray(2, c.createArrayOf("timestamptz", hours));
           return ps;
         },
@@ -119,7 +121,8 @@ class EvaluationRollups {
       JdbcTemplate reader, String samplePointId, Instant from, Instant to) {
     return new HashSet<>(
         reader.query(
-            "SELECT bucket FROM evaluation_rollup_pending WHERE sample_point_id = ?"
+            "SELECT bucket FROM evaluation_rollup_pending"
+                + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
                 + " AND bucket >= ? AND bucket < ?",
             (rs, i) -> rs.getTimestamp(1).toInstant(),
             samplePointId,

@@ -8,26 +8,27 @@ import org.springframework.stereotype.Repository;
 
 /**
  * Writes evaluations (one statement per batch, or binary COPY for new ones), their details in the
- * compact form of {@link EvaluationPack}.
+ * compact form of {@link EvaluationPack}. Rows carry the sample point's key (V71), taken from
+ * {@link SeriesKeys} as the readings' are.
  */
 @Repository
 public class EvaluationStore {
 
   static final String UPSERT =
       """
-      INSERT INTO evaluation AS e (sample_point_id, time, config_version, specific_conductivity_25,
+      INSERT INTO evaluation AS e (point_key, time, config_version, specific_conductivity_25,
           cation_conductivity_25, degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature,
           ph_at_temperature_low, ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, points_at,
           detail_pack, evaluated_at)
-      SELECT t.sample_point_id, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
+      SELECT t.point_key, t.time, t.config_version, t.sc25, t.cc25, t.dcc25, t.ph25, t.pht, t.pht_low,
              t.pht_high, t.neutral, t.instrument_in_doubt, t.points_at,
              t.detail_pack, now()
-      FROM unnest(?::text[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
+      FROM unnest(?::int4[], ?::text[]::timestamptz[], ?::int4[], ?::float8[], ?::float8[], ?::float8[],
                   ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::float8[], ?::bool[], ?::text[],
                   ?::bytea[])
-        AS t(sample_point_id, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
+        AS t(point_key, time, config_version, sc25, cc25, dcc25, ph25, pht, pht_low, pht_high, neutral,
              instrument_in_doubt, points_at, detail_pack)
-      ON CONFLICT (sample_point_id, time) DO UPDATE SET
+      ON CONFLICT (point_key, time) DO UPDATE SET
           config_version = EXCLUDED.config_version,
           specific_conductivity_25 = EXCLUDED.specific_conductivity_25,
           cation_conductivity_25 = EXCLUDED.cation_conductivity_25,
@@ -55,10 +56,12 @@ public class EvaluationStore {
                float8send(EXCLUDED.ph_at_temperature_high), float8send(EXCLUDED.neutral_ph_at_temperature))""";
 
   private final JdbcTemplate jdbc;
+  private final SeriesKeys keys;
   private final EvaluationPack.Shapes shapes;
 
-  EvaluationStore(JdbcTemplate jdbc, EvaluationShapes shapes) {
+  EvaluationStore(JdbcTemplate jdbc, SeriesKeys keys, EvaluationShapes shapes) {
     this.jdbc = jdbc;
+    this.keys = keys;
     this.shapes = shapes;
   }
 
@@ -68,7 +71,7 @@ public class EvaluationStore {
       return;
     }
     int n = results.size();
-    String[] points = new String[n];
+    Integer[] points = new Integer[n];
     String[] times = new String[n];
     Integer[] versions = new Integer[n];
     Double[] sc = new Double[n];
@@ -86,7 +89,7 @@ public class EvaluationStore {
       EvaluationRunner.Result r = results.get(i);
       EvaluationPack.Columns col = EvaluationPack.Columns.of(r.view());
       List<String> at = pointsAt(r.view());
-      points[i] = r.samplePointId();
+      points[i] = keys.point(r.samplePointId());
       times[i] = r.time().toString();
       versions[i] = r.view().configVersion();
       sc[i] = nullIfNaN(col.sc25());
@@ -104,7 +107,7 @@ public class EvaluationStore {
     jdbc.execute(
         (Connection c) -> {
           try (PreparedStatement ps = c.prepareStatement(UPSERT)) {
-            ps.setArray(1, c.createArrayOf("text", points));
+            ps.setArray(1, c.createArrayOf("int4", points));
             ps.setArray(2, c.createArrayOf("text", times));
             ps.setArray(3, c.createArrayOf("int4", versions));
             ps.setArray(4, c.createArrayOf("float8", sc));
@@ -124,6 +127,14 @@ public class EvaluationStore {
   }
 
   /**
+   * Makes sure the points have their keys cached ({@link SeriesKeys#ensure}; no query when they
+   * have), so that {@link #encode} on the evaluation threads finds them without a query.
+   */
+  public void prepareKeys(java.util.Collection<String> samplePointIds) {
+    keys.ensure(samplePointIds);
+  }
+
+  /**
    * Encodes evaluations for {@link #copyNew} (thread-safe: the ingest encodes points in parallel).
    */
   public BinaryCopy encode(List<EvaluationRunner.Result> results) {
@@ -132,7 +143,7 @@ public class EvaluationStore {
       EvaluationPack.Columns col = EvaluationPack.Columns.of(r.view());
       List<String> at = pointsAt(r.view());
       rows.row(14)
-          .text(r.samplePointId())
+          .int4(keys.point(r.samplePointId()))
           .timestamp(r.time())
           .int4(r.view().configVersion())
           .float8(col.sc25())
@@ -165,7 +176,7 @@ public class EvaluationStore {
 
   static final String COPY_TARGET =
       """
-      evaluation (sample_point_id, time, config_version, specific_conductivity_25, cation_conductivity_25,
+      evaluation (point_key, time, config_version, specific_conductivity_25, cation_conductivity_25,
           degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
           ph_at_temperature_high, neutral_ph_at_temperature, instrument_in_doubt, points_at, detail_pack)""";
 

@@ -41,7 +41,8 @@ public class Evaluations {
     return jdbc.query(
         """
         SELECT time, details, detail_pack, %s FROM evaluation
-        WHERE sample_point_id = ? AND time >= ? AND time < ? ORDER BY time LIMIT ?"""
+        WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+          AND time >= ? AND time < ? ORDER BY time LIMIT ?"""
             .formatted(EvaluationPack.Columns.SELECT),
         this::stored,
         samplePointId,
@@ -66,10 +67,11 @@ public class Evaluations {
     }
     jdbc.query(
         """
-        SELECT q.point, e.time, e.details, e.detail_pack, %s FROM unnest(?::text[]) AS q(point)
+        SELECT k.sample_point_id, e.time, e.details, e.detail_pack, %s FROM reading_point k
         CROSS JOIN LATERAL (
           SELECT time, details, detail_pack, %1$s FROM evaluation
-          WHERE sample_point_id = q.point AND time >= ? ORDER BY time DESC LIMIT 1) e"""
+          WHERE point_key = k.point_key AND time >= ? ORDER BY time DESC LIMIT 1) e
+        WHERE k.sample_point_id = ANY (?::text[])"""
             .formatted(EvaluationPack.Columns.SELECT),
         (RowCallbackHandler)
             rs ->
@@ -78,8 +80,8 @@ public class Evaluations {
                     new Stored(
                         rs.getTimestamp(2).toInstant(),
                         stored(rs.getString(3), rs.getBytes(4), rs, 5).fromStorage())),
-        (Object) samplePointIds.toArray(String[]::new),
-        Timestamp.from(since));
+        Timestamp.from(since),
+        (Object) samplePointIds.toArray(String[]::new));
     return out;
   }
 
@@ -92,7 +94,8 @@ public class Evaluations {
       SELECT time, details, detail_pack, specific_conductivity_25, cation_conductivity_25,
              degassed_cation_conductivity_25, calculated_ph_25, ph_at_temperature, ph_at_temperature_low,
              ph_at_temperature_high, neutral_ph_at_temperature, config_version, instrument_in_doubt
-      FROM evaluation WHERE sample_point_id = ? AND time >= ?
+      FROM evaluation
+      WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?) AND time >= ?
       ORDER BY time DESC LIMIT 1""";
 
   /** pH at temperature and the neutral pH there, NaN when absent. */
@@ -104,9 +107,10 @@ public class Evaluations {
     jdbc.query(
         """
         SELECT s.id, e.ph_at_temperature, e.neutral_ph_at_temperature FROM sample_point s
+        JOIN reading_point k ON k.sample_point_id = s.id
         CROSS JOIN LATERAL (
           SELECT ph_at_temperature, neutral_ph_at_temperature FROM evaluation
-          WHERE sample_point_id = s.id AND time >= ? AND ph_at_temperature IS NOT NULL
+          WHERE point_key = k.point_key AND time >= ? AND ph_at_temperature IS NOT NULL
           ORDER BY time DESC LIMIT 1) e""",
         (RowCallbackHandler)
             rs -> out.put(rs.getString(1), new PhAtTemperature(rs.getDouble(2), value(rs, 3))),
@@ -120,9 +124,10 @@ public class Evaluations {
     jdbc.query(
         """
         SELECT s.id, e.calculated_ph_25 FROM sample_point s
+        JOIN reading_point k ON k.sample_point_id = s.id
         CROSS JOIN LATERAL (
           SELECT calculated_ph_25 FROM evaluation
-          WHERE sample_point_id = s.id AND time >= ? AND calculated_ph_25 IS NOT NULL
+          WHERE point_key = k.point_key AND time >= ? AND calculated_ph_25 IS NOT NULL
           ORDER BY time DESC LIMIT 1) e""",
         (RowCallbackHandler) rs -> out.put(rs.getString(1), rs.getDouble(2)),
         Timestamp.from(since));
@@ -147,7 +152,7 @@ public class Evaluations {
     List<MinuteValues> out = new ArrayList<>();
     jdbc.query(
         """
-        SELECT sample_point_id, date_trunc('minute', time) AS m,
+        SELECT k.sample_point_id, date_trunc('minute', e.time) AS m,
                (array_agg(specific_conductivity_25 ORDER BY time DESC)
                   FILTER (WHERE specific_conductivity_25 IS NOT NULL))[1],
                (array_agg(cation_conductivity_25 ORDER BY time DESC)
@@ -156,8 +161,10 @@ public class Evaluations {
                   FILTER (WHERE degassed_cation_conductivity_25 IS NOT NULL))[1],
                (array_agg(calculated_ph_25 ORDER BY time DESC)
                   FILTER (WHERE calculated_ph_25 IS NOT NULL))[1]
-        FROM evaluation
-        WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?
+        FROM evaluation e JOIN reading_point k ON k.point_key = e.point_key
+        WHERE e.point_key = ANY (ARRAY(SELECT point_key FROM reading_point
+                                       WHERE sample_point_id = ANY (?::text[])))
+          AND e.time >= ? AND e.time < ?
         GROUP BY 1, 2""",
         (RowCallbackHandler)
             rs ->

@@ -599,6 +599,8 @@ public class IngestService {
     List<ValidReading> corrections = w.corrections;
     Map<String, Instant[]> changed = w.changed;
     Map<String, java.util.Set<Instant>> newTimes = w.newTimes;
+    // the points' keys for the evaluation rows, cached before the evaluation threads encode them
+    evaluations.prepareKeys(changed.keySet());
     // evaluate the points held in memory on the evaluation threads while the readings are written
     Map<String, java.util.concurrent.Future<Evaluated>> running = new TreeMap<>();
     for (Map.Entry<String, Instant[]> e : changed.entrySet()) {

@@ -139,7 +139,7 @@ public class ReadingHistory {
       FROM reading r
       JOIN reading_point k ON k.point_key = r.point_key
       JOIN reading_parameter q ON q.parameter_key = r.parameter_key
-      LEFT JOIN evaluation e ON e.sample_point_id = k.sample_point_id AND e.time = r.time
+      LEFT JOIN evaluation e ON e.point_key = r.point_key AND e.time = r.time
                             AND e.time >= ? AND e.time < ?
       WHERE r.point_key = ANY (ARRAY(SELECT point_key FROM reading_point
                                      WHERE sample_point_id = ANY (string_to_array(?, ','))))
@@ -244,9 +244,11 @@ public class ReadingHistory {
     }
     java.util.Map<String, List<String>> inDoubtAt = new java.util.HashMap<>();
     jdbc.query(
-        "SELECT sample_point_id, time, points_at FROM evaluation"
-            + " WHERE sample_point_id = ANY (?::text[]) AND time >= ? AND time < ?"
-            + " AND points_at <> ''",
+        "SELECT k.sample_point_id, e.time, e.points_at FROM evaluation e"
+            + " JOIN reading_point k ON k.point_key = e.point_key"
+            + " WHERE e.point_key = ANY (ARRAY(SELECT point_key FROM reading_point"
+            + " WHERE sample_point_id = ANY (?::text[]))) AND e.time >= ? AND e.time < ?"
+            + " AND e.points_at <> ''",
         (RowCallbackHandler)
             rs ->
                 inDoubtAt.put(
@@ -609,11 +611,12 @@ public class ReadingHistory {
    * A point's readings of one parameter over [from, to] with the evaluation at each reading's time.
    * Both sides carry the time range, so PostgreSQL prunes the daily partitions of both tables (a
    * bound on the readings alone left every evaluation partition in the plan); and the evaluations
-   * carry the point's id itself, so they are read by their key (point, time): joined through the
-   * point's key row instead, PostgreSQL hashed every point's evaluations of the range, about 0.1 s
-   * a series for the demo plant's day and 20-30 s for the page's excursion list under a live feed
-   * on the loaded machine. Parameters: the parameter's instrument name, sample point, from, to,
-   * sample point, parameter code, from, to.
+   * are bounded by the point itself (its key, computed once), so they are read by their key (point
+   * key, time): joined through the point's key row instead, PostgreSQL hashed every point's
+   * evaluations of the range (when the evaluations were keyed by the text id), about 0.1 s a series
+   * for the demo plant's day and 20-30 s for the page's excursion list under a live feed on the
+   * loaded machine. Parameters: the parameter's instrument name, sample point, from, to, sample
+   * point, parameter code, from, to.
    */
   public static final String JUDGED =
       """
@@ -623,8 +626,9 @@ public class ReadingHistory {
              e.calculated_ph_25,
              coalesce('PH' = ANY(string_to_array(e.points_at, ',')), false)
       FROM reading r
-      LEFT JOIN evaluation e ON e.sample_point_id = ? AND e.time = r.time
-                            AND e.time >= ? AND e.time <= ?
+      LEFT JOIN evaluation e
+        ON e.point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+           AND e.time = r.time AND e.time >= ? AND e.time <= ?
       WHERE r.point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
         AND r.parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = ?)
         AND r.time >= ? AND r.time <= ?
@@ -708,8 +712,9 @@ public class ReadingHistory {
           }
           java.util.Map<Long, Object[]> evaluations = new java.util.HashMap<>();
           jdbc.query(
-              "SELECT time, points_at, calculated_ph_25 FROM evaluation"
-                  + " WHERE sample_point_id = ? AND time >= ? AND time <= ?",
+              "SELECT time, points_at, calculated_ph_25 FROM evaluation WHERE point_key ="
+                  + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+                  + " AND time >= ? AND time <= ?",
               (RowCallbackHandler)
                   rs -> {
                     double c = rs.getDouble(3);
@@ -793,7 +798,7 @@ public class ReadingHistory {
         SELECT time, value, quality FROM reading
         WHERE point_key = k.point_key AND parameter_key = p.parameter_key
           AND time >= q.since AND time >= ? AND time <= ?) r
-      LEFT JOIN evaluation e ON e.sample_point_id = q.point AND e.time = r.time
+      LEFT JOIN evaluation e ON e.point_key = k.point_key AND e.time = r.time
                             AND e.time >= ? AND e.time <= ?
       ORDER BY 1, 2, 3""";
 

@@ -294,12 +294,12 @@ class ReadingRollups {
     reader.query(
         "SELECT bucket, min, max, sum, count, last, last_time FROM "
             + table
-            // the evaluation rollups (V64) are keyed by id and code, the reading rollups by keys
-            // (V62)
+            // the evaluation rollups (V71) are keyed by the point's key and the column's code, the
+            // reading rollups by the point's and the parameter's keys (V62)
+            + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
             + (table.startsWith("evaluation_")
-                ? " WHERE sample_point_id = ? AND parameter = ?"
-                : " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
-                    + " AND parameter_key = (SELECT parameter_key FROM reading_parameter"
+                ? " AND parameter = ?"
+                : " AND parameter_key = (SELECT parameter_key FROM reading_parameter"
                     + " WHERE code = ?)")
             + " AND bucket >= ? AND bucket < ?"
             + " AND count > 0",

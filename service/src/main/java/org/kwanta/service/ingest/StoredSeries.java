@@ -160,16 +160,20 @@ public class StoredSeries {
 
   /**
    * The condition selecting a series' rows; its one parameter is the sample point id. Readings are
-   * keyed by the point's and the parameter's keys (V62), evaluations by the sample point id.
+   * keyed by the point's and the parameter's keys (V62), evaluations by the point's key (V71).
    */
   static String seriesOf(Source p) {
     return p.measured()
-        ? "point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+        ? POINT_KEY
             + " AND parameter_key = (SELECT parameter_key FROM reading_parameter WHERE code = '"
             + p.code()
             + "')"
-        : "sample_point_id = ?";
+        : POINT_KEY;
   }
+
+  /** A sample point's key, its one parameter the point's id (computed once per statement). */
+  private static final String POINT_KEY =
+      "point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)";
 
   /**
    * The series in buckets [from + k·bucket, from + (k + 1)·bucket) ∩ [from, to): min, mean, max,
@@ -394,7 +398,8 @@ public class StoredSeries {
         FROM unnest(?::text[]::timestamptz[], ?::text[]::timestamptz[]) AS w(lo, hi)
         CROSS JOIN LATERAL (
             SELECT time, %1$s AS v FROM evaluation
-            WHERE sample_point_id = ? AND time >= ? AND time < ?
+            WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)
+              AND time >= ? AND time < ?
               AND time >= w.lo AND time < w.hi AND %1$s IS NOT NULL) r
         GROUP BY b"""
         .formatted(column);

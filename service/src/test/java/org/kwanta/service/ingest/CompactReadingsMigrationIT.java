@@ -163,9 +163,13 @@ class CompactReadingsMigrationIT {
       for (Resource r :
           new PathMatchingResourcePatternResolver().getResources("classpath*:db/migration/*.sql")) {
         String name = r.getFilename();
-        // V69 (packed cold storage) was written after V62 and builds on its keys: no database
-        // holds it without V62, so it is applied with V62 in the second step
-        if (!name.startsWith("V62__") && !name.startsWith("V63__") && !name.startsWith("V69__")) {
+        // V69 (packed cold storage) and V71 (evaluations keyed by point) were written after V62
+        // and build on its keys: no database holds them without V62, so they are applied with V62
+        // in the second step
+        if (!name.startsWith("V62__")
+            && !name.startsWith("V63__")
+            && !name.startsWith("V69__")
+            && !name.startsWith("V71__")) {
           try (var in = r.getInputStream()) {
             Files.copy(in, before.resolve(name));
           }

@@ -52,7 +52,7 @@ class EvaluationPackIT {
         jdbc.queryForMap(
             "SELECT count(*) AS n, count(details) AS json_rows, avg(octet_length(detail_pack)) AS"
                 + " mean, max(octet_length(detail_pack)) AS largest FROM evaluation WHERE"
-                + " sample_point_id = ?",
+                + " point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)",
             point);
     assertThat(((Number) stored.get("n")).intValue()).isEqualTo(40);
     assertThat(((Number) stored.get("json_rows")).intValue()).isZero();
@@ -62,7 +62,8 @@ class EvaluationPackIT {
     assertThat(((Number) stored.get("largest")).intValue()).isLessThan(400);
     assertThat(
             jdbc.queryForList(
-                "SELECT DISTINCT get_byte(detail_pack, 0) FROM evaluation WHERE sample_point_id = ?",
+                "SELECT DISTINCT get_byte(detail_pack, 0) FROM evaluation WHERE point_key ="
+                    + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?)",
                 Integer.class,
                 point))
         .containsExactly(3);
@@ -73,7 +74,8 @@ class EvaluationPackIT {
     // the same row as a row written in format 2 (V70 to V72): the whole pack, no shape
     EvaluationView firstView = JSON.treeToValue(first, EvaluationView.class);
     jdbc.update(
-        "UPDATE evaluation SET detail_pack = ? WHERE sample_point_id = ? AND time = ?",
+        "UPDATE evaluation SET detail_pack = ? WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) AND time = ?",
         EvaluationPack.encode(firstView.forStorage(), EvaluationPack.Columns.of(firstView)),
         point,
         java.sql.Timestamp.from(start));
@@ -81,14 +83,16 @@ class EvaluationPackIT {
 
     // the same row as a row written in format 1 (V61 to V70): its pack read without the columns
     jdbc.update(
-        "UPDATE evaluation SET detail_pack = ? WHERE sample_point_id = ? AND time = ?",
+        "UPDATE evaluation SET detail_pack = ? WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) AND time = ?",
         EvaluationPack.encodeFormat1(JSON.treeToValue(first, EvaluationView.class).forStorage()),
         point,
         java.sql.Timestamp.from(start));
     assertThat(
             jdbc.queryForObject(
-                "SELECT get_byte(detail_pack, 0) FROM evaluation WHERE sample_point_id = ? AND"
-                    + " time = ?",
+                "SELECT get_byte(detail_pack, 0) FROM evaluation WHERE point_key ="
+                    + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+                    + " AND time = ?",
                 Integer.class,
                 point,
                 java.sql.Timestamp.from(start)))
@@ -97,7 +101,8 @@ class EvaluationPackIT {
 
     // the same row as a row written before the compact form: its JSON text, no pack
     jdbc.update(
-        "UPDATE evaluation SET details = ?, detail_pack = NULL WHERE sample_point_id = ? AND time = ?",
+        "UPDATE evaluation SET details = ?, detail_pack = NULL WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) AND time = ?",
         JSON.writeValueAsString(compactJson(first)),
         point,
         java.sql.Timestamp.from(start));

@@ -86,7 +86,9 @@ class EvaluationRollupsIT {
       select.append(", ").append(c.code());
     }
     jdbc.query(
-        select + " FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+        select
+            + " FROM evaluation WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) ORDER BY time",
         rs -> {
           Instant t = rs.getTimestamp(1).toInstant();
           Instant bucket = t.truncatedTo(unit);
@@ -109,7 +111,8 @@ class EvaluationRollupsIT {
       jdbc.query(
           "SELECT parameter, bucket, count, min, max, sum, last, last_time FROM "
               + table
-              + " WHERE sample_point_id = ? AND count > 0",
+              + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+              + " AND count > 0",
           rs -> {
             Aggregate a = new Aggregate();
             a.count = rs.getLong(3);
@@ -193,7 +196,8 @@ class EvaluationRollupsIT {
     }
     Integer rows =
         jdbc.queryForObject(
-            "SELECT count(*)::int FROM evaluation_rollup_hour WHERE sample_point_id = ?"
+            "SELECT count(*)::int FROM evaluation_rollup_hour WHERE point_key ="
+                + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
                 + " AND parameter = 'ph_at_temperature' AND count > 0",
             Integer.class,
             feed.drum);

@@ -21,7 +21,8 @@ import tools.jackson.databind.json.JsonMapper;
  * in format 1 of the pack, a row with its details as JSON text (before V61) and a row without
  * findings read back to the views they were written from, their typed columns unchanged and {@code
  * points_at} as comma-separated text (NULL for none); the primary key no longer carries the typed
- * values and {@code finding_codes} is gone.
+ * values and {@code finding_codes} is gone. (Read after V71 too, which keys the rows by the point's
+ * key: {@code EvaluationPointKeyMigrationIT}.)
  */
 @org.junit.jupiter.api.Tag(org.kwanta.service.support.Depth.THOROUGH)
 class EvaluationRowsMigrationIT {
@@ -71,8 +72,8 @@ class EvaluationRowsMigrationIT {
         assertThat(read(s, "E-2", t0)).isEqualTo(withoutFinding);
         try (ResultSet rs =
             s.executeQuery(
-                "SELECT sample_point_id, coalesce(points_at::text, '-') FROM evaluation"
-                    + " ORDER BY sample_point_id, time")) {
+                "SELECT k.sample_point_id, coalesce(e.points_at::text, '-') FROM evaluation e"
+                    + " JOIN reading_point k USING (point_key) ORDER BY k.sample_point_id, e.time")) {
           StringBuilder all = new StringBuilder();
           while (rs.next()) {
             all.append(rs.getString(1)).append(' ').append(rs.getString(2)).append(';');
@@ -84,9 +85,7 @@ class EvaluationRowsMigrationIT {
         try (ResultSet rs =
             s.executeQuery("SELECT indexdef FROM pg_indexes WHERE indexname = 'evaluation_pkey'")) {
           assertThat(rs.next()).isTrue();
-          assertThat(rs.getString(1))
-              .doesNotContain("INCLUDE")
-              .contains("(sample_point_id, \"time\")");
+          assertThat(rs.getString(1)).doesNotContain("INCLUDE").contains("(point_key, \"time\")");
         }
         try (ResultSet rs =
             s.executeQuery(
@@ -151,7 +150,12 @@ class EvaluationRowsMigrationIT {
   private static EvaluationView read(Statement s, String point, Instant time) throws Exception {
     try (ResultSet rs =
         s.executeQuery(
-            COLUMNS + " WHERE sample_point_id = '" + point + "' AND time = '" + time + "'")) {
+            COLUMNS
+                + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = '"
+                + point
+                + "') AND time = '"
+                + time
+                + "'")) {
       assertThat(rs.next()).isTrue();
       byte[] pack = rs.getBytes(2);
       return pack != null

@@ -431,7 +431,8 @@ class PackedReadingsIT {
         "SELECT time::text || ' ' || coalesce(cation_conductivity_25::text, '-') || ' '"
             + " || coalesce(points_at::text, '-') || ' '"
             + " || coalesce(encode(detail_pack, 'hex'), '-') FROM evaluation"
-            + " WHERE sample_point_id = ? ORDER BY time",
+            + " WHERE point_key = (SELECT point_key FROM reading_point WHERE sample_point_id = ?)"
+            + " ORDER BY time",
         String.class,
         point);
   }

@@ -322,8 +322,8 @@ class ReadingsIngestIT {
     assertThat(post(clean.subList(75, 150)).statusCode()).isEqualTo(200);
     assertThat(post(disturbed.subList(0, 75)).statusCode()).isEqualTo(200);
     jdbc.update(
-        "INSERT INTO evaluation (sample_point_id, time, config_version, instrument_in_doubt, details)"
-            + " VALUES (?, ?, 1, false, '{}')",
+        "INSERT INTO evaluation (point_key, time, config_version, instrument_in_doubt, details)"
+            + " VALUES (reading_point_key(?), ?, 1, false, '{}')",
         points.get(1),
         java.sql.Timestamp.from(start.plusSeconds(20 * 20)));
     double retriedBefore = retried();
@@ -371,7 +371,10 @@ class ReadingsIngestIT {
 
   private List<String> evaluations(String point) {
     return jdbc.queryForList(
-        "SELECT " + STORED_EVALUATION + " FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+        "SELECT "
+            + STORED_EVALUATION
+            + " FROM evaluation WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) ORDER BY time",
         String.class,
         point);
   }

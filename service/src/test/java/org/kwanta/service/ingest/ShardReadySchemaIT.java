@@ -16,10 +16,11 @@ import org.kwanta.service.support.TestDatabase;
 /**
  * The migrated schema is ready to be distributed by sample point (docs/scaling.md): every
  * reading-side table carries its distribution column, the sample point's key ({@code point_key},
- * V62) or its id ({@code sample_point_id}) in the tables not yet re-keyed, in every primary key and
- * unique constraint, and no foreign key joins two reading-side tables (a foreign key to a small
- * registry table such as {@code sample_point}, {@code reading_point} or {@code reading_parameter}
- * is allowed: those become reference tables, copied to every node).
+ * V62 for the readings, V71 for the evaluations and their rollups) or its id ({@code
+ * sample_point_id}) in the tables not yet re-keyed, in every primary key and unique constraint, and
+ * no foreign key joins two reading-side tables (a foreign key to a small registry table such as
+ * {@code sample_point}, {@code reading_point} or {@code reading_parameter} is allowed: those become
+ * reference tables, copied to every node).
  */
 class ShardReadySchemaIT {
 
@@ -28,15 +29,18 @@ class ShardReadySchemaIT {
    * distribution column.
    */
   static final Map<String, String> DISTRIBUTED =
-      Map.of(
-          "reading", "point_key",
-          "reading_pack", "point_key",
-          "reading_revision", "point_key",
-          "reading_rollup_hour", "point_key",
-          "reading_rollup_day", "point_key",
-          "evaluation", "sample_point_id",
-          "reading_head", "sample_point_id",
-          "lab_result", "sample_point_id");
+      Map.ofEntries(
+          Map.entry("reading", "point_key"),
+          Map.entry("reading_pack", "point_key"),
+          Map.entry("reading_revision", "point_key"),
+          Map.entry("reading_rollup_hour", "point_key"),
+          Map.entry("reading_rollup_day", "point_key"),
+          Map.entry("evaluation", "point_key"),
+          Map.entry("evaluation_rollup_hour", "point_key"),
+          Map.entry("evaluation_rollup_day", "point_key"),
+          Map.entry("evaluation_rollup_pending", "point_key"),
+          Map.entry("reading_head", "sample_point_id"),
+          Map.entry("lab_result", "sample_point_id"));
 
   @Test
   void everyKeyOfAReadingSideTableHoldsTheSamplePoint() throws Exception {

@@ -159,7 +159,8 @@ class TwoInstancesIT {
     return jdbc.queryForList(
         "SELECT "
             + ReadingsIngestIT.STORED_EVALUATION
-            + " FROM evaluation WHERE sample_point_id = ? ORDER BY time",
+            + " FROM evaluation WHERE point_key ="
+            + " (SELECT point_key FROM reading_point WHERE sample_point_id = ?) ORDER BY time",
         String.class,
         point);
   }
