@@ -84,15 +84,20 @@ class MinuteWindows {
         }
       }
     }
-    if (whole || reread.isBefore(from)) {
+    boolean anew = whole || reread.isBefore(from);
+    if (anew) {
       p = new PlantMinutes();
-      plants.put(plantId, p);
       reread = from;
+    }
+    // read before the plant's entry is kept: a read that fails (the database gone mid-request)
+    // leaves the entry as it was, never one without its minutes
+    Map<String, List<Minute>> fresh = minutes.load(points, reread, to);
+    if (anew) {
+      plants.put(plantId, p);
       while (plants.size() > MAX_PLANTS) {
         plants.remove(plants.keySet().iterator().next());
       }
     }
-    Map<String, List<Minute>> fresh = minutes.load(points, reread, to);
     Instant keepFrom = reread;
     for (String id : points) {
       List<Minute> kept = p.series.getOrDefault(id, List.of());
