@@ -30,7 +30,7 @@ class PackageStructureTest {
   /** SQL naming a table of the ingest: FROM, JOIN, INTO or UPDATE followed by its name. */
   private static final Pattern INGEST_TABLE =
       Pattern.compile(
-          "\\b(?i:from|join|into|update)\\s+(reading|reading_head|reading_revision|evaluation"
+          "\\b(?i:from|join|into|update)\\s+(reading|reading_head|reading_revision|evaluation|evaluation_shape"
               + "|lab_result|reading_rollup_hour|reading_rollup_day|reading_point|reading_parameter"
               + "|reading_named)\\b");
 
