@@ -24,8 +24,9 @@ class AssociationSpeciationTest {
   /**
    * Cycle water with µmol/kg sodium (2 µmol/kg NaCl and 1 µmol/kg Na₂SO₄ in 30 µmol/kg ammonia):
    * the pairs change pH by less than 0.0005 at every temperature (1.5e-4 at 330 °C, through NaSO₄⁻
-   * taking sulfate from HSO₄⁻), as the reference notes conclude (from memory — verify)
-   * (steam-seawater-and-high-temperature.md §5.2, "pairing negligible at µg/kg").
+   * taking sulfate from HSO₄⁻). Expected: "ion pairing is negligible at µg/kg", a fact of the trade
+   * recalled from memory (verify), no published table; the pair constants are those of llnl.dat and
+   * Thermoddem V1.10 (steam-seawater-and-high-temperature.md §5.2 in ../shared/reference).
    */
   @ParameterizedTest(name = "{0} °C")
   @ValueSource(doubles = {25, 100, 200, 250, 300, 330})
@@ -44,9 +45,9 @@ class AssociationSpeciationTest {
   }
 
   /**
-   * 1 mmol/kg NaOH at 300 °C: about 3 % of sodium paired, about 0.01 pH lower (from memory —
-   * verify; the reference notes' estimate, water-and-equilibria.md §6, computed there, not an
-   * outside value).
+   * 1 mmol/kg NaOH at 300 °C: about 3 % of sodium paired, about 0.01 pH lower. Expected values from
+   * memory (verify): an estimate worked from llnl.dat's NaOH° constant (water-and-equilibria.md §6
+   * in ../shared/reference), not a published figure; hence the wide bounds.
    */
   @Test
   void millimolalSodiumHydroxideAt300PairsAFewPercent() {
@@ -113,11 +114,12 @@ class AssociationSpeciationTest {
   }
 
   /**
-   * PWR-type coolant, 1000 mg/kg B and 2 mg/kg Li: polyborates matter at 25 °C (from memory —
-   * verify; the reference notes estimate ~0.3 pH at 1000 mg/kg B, water-and-equilibria.md §9 item
-   * 6) and are a few per cent of boron at 300 °C (steam-seawater-and-high-temperature.md §4.1; here
-   * below 0.1 %). pH₃₀₀ near 7.0 is a customary figure for such coolant — from memory — verify
-   * against a published B/Li table; none was retrieved, so the bound is wide.
+   * PWR-type coolant, 1000 mg/kg B and 2 mg/kg Li: polyborates matter at 25 °C (about 0.3 pH at
+   * 1000 mg/kg B: from memory, verify; an estimate, not a published figure, in
+   * water-and-equilibria.md §9 item 6 of ../shared/reference) and are a few per cent of boron at
+   * 300 °C (from memory; steam-seawater-and-high-temperature.md §4.1; here below 0.1 %). pH₃₀₀ near
+   * 7.0 is a customary figure for such coolant — from memory — verify against a published B/Li
+   * table; none was retrieved, so the bound is wide.
    */
   @Test
   void boronLithiumCoolant() {

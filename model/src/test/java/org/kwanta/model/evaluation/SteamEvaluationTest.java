@@ -114,10 +114,10 @@ class SteamEvaluationTest {
   }
 
   /**
-   * By default the amine K_D estimates are off (no published amine K_D retrieved; the project's
-   * reference notes, steam-seawater-and-high-temperature.md: "do not ship as defaults without the
-   * primary data"): a morpholine-dosed main steam keeps its 25 °C results, gets no pH at
-   * temperature, and the note says why and how to opt in.
+   * By default the amine K_D estimates are off (no published amine K_D was retrieved, so none ships
+   * as a default: our decision, steam-seawater-and-high-temperature.md in ../shared/reference): a
+   * morpholine-dosed main steam keeps its 25 °C results, gets no pH at temperature, and the note
+   * says why and how to opt in.
    */
   @Test
   void morpholineDosedSteamGetsNoPhAtTemperatureByDefault() {
