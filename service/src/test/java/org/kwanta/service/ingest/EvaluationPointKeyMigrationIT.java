@@ -1,7 +1,6 @@
 package org.kwanta.service.ingest;
 
 import static org.assertj.core.api.Assertions.assertThat;
-import static org.assertj.core.api.Assertions.within;
 
 import java.nio.charset.StandardCharsets;
 import java.sql.Connection;
@@ -301,18 +300,7 @@ class EvaluationPointKeyMigrationIT {
         List<StoredSeries.Bucket> raw =
             series.bucketedRaw(point, source, a.from(), a.to(), a.bucket());
         String what = point + " " + column.code() + " " + a;
-        assertThat(rolled).as(what).hasSameSizeAs(raw);
-        for (int i = 0; i < raw.size(); i++) {
-          StoredSeries.Bucket r = rolled.get(i);
-          StoredSeries.Bucket e = raw.get(i);
-          String at = what + " bucket " + e.start();
-          assertThat(r.start()).as(at).isEqualTo(e.start());
-          assertThat(r.count()).as(at).isEqualTo(e.count());
-          assertThat(r.min()).as(at).isEqualTo(e.min());
-          assertThat(r.max()).as(at).isEqualTo(e.max());
-          assertThat(r.last()).as(at).isEqualTo(e.last());
-          assertThat(r.mean()).as(at).isCloseTo(e.mean(), within(1e-12 * Math.abs(e.mean())));
-        }
+        EvaluationRollupsIT.assertBucketsEqual(what, rolled, raw);
       }
       if (column == StoredSeries.DerivedColumn.CALCULATED_PH_25) {
         assertThat(series.bucketedRaw(point, source, day, END, Duration.ofDays(1)))
@@ -354,23 +342,7 @@ class EvaluationPointKeyMigrationIT {
       ps.setString(1, point);
       ps.setTimestamp(2, Timestamp.from(time));
       ps.setInt(3, v.configVersion());
-      double[] values = {
-        col.sc25(),
-        col.cc25(),
-        col.dcc25(),
-        col.ph25(),
-        col.phAtTemperature(),
-        col.low(),
-        col.high(),
-        col.neutral()
-      };
-      for (int k = 0; k < values.length; k++) {
-        if (Double.isNaN(values[k])) {
-          ps.setNull(4 + k, java.sql.Types.DOUBLE);
-        } else {
-          ps.setDouble(4 + k, values[k]);
-        }
-      }
+      EvaluationRowsMigrationIT.setTypedValues(ps, 4, col);
       ps.setBoolean(12, v.instrumentInDoubt());
       List<String> at = EvaluationStore.pointsAt(v);
       ps.setString(13, at.isEmpty() ? null : String.join(",", at));

@@ -116,23 +116,7 @@ class EvaluationRowsMigrationIT {
       ps.setString(1, point);
       ps.setTimestamp(2, Timestamp.from(time));
       ps.setInt(3, v.configVersion());
-      double[] values = {
-        col.sc25(),
-        col.cc25(),
-        col.dcc25(),
-        col.ph25(),
-        col.phAtTemperature(),
-        col.low(),
-        col.high(),
-        col.neutral()
-      };
-      for (int k = 0; k < values.length; k++) {
-        if (Double.isNaN(values[k])) {
-          ps.setNull(4 + k, java.sql.Types.DOUBLE);
-        } else {
-          ps.setDouble(4 + k, values[k]);
-        }
-      }
+      setTypedValues(ps, 4, col);
       ps.setBoolean(12, v.instrumentInDoubt());
       ps.setArray(
           13,
@@ -170,5 +154,27 @@ class EvaluationRowsMigrationIT {
         .locations("classpath:db/migration")
         .target(target)
         .load();
+  }
+
+  /** The eight typed values of a row from {@code first} on, NULL where the column is NaN. */
+  static void setTypedValues(PreparedStatement ps, int first, EvaluationPack.Columns col)
+      throws java.sql.SQLException {
+    double[] values = {
+      col.sc25(),
+      col.cc25(),
+      col.dcc25(),
+      col.ph25(),
+      col.phAtTemperature(),
+      col.low(),
+      col.high(),
+      col.neutral()
+    };
+    for (int k = 0; k < values.length; k++) {
+      if (Double.isNaN(values[k])) {
+        ps.setNull(first + k, java.sql.Types.DOUBLE);
+      } else {
+        ps.setDouble(first + k, values[k]);
+      }
+    }
   }
 }
